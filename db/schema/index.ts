@@ -1,0 +1,5 @@
+/**
+ * The whole Drizzle schema. Each area keeps its tables in its own file here;
+ * this index re-exports them for the client and for drizzle-kit.
+ */
+export {};
