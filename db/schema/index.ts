@@ -3,3 +3,5 @@
  * this index re-exports them for the client and for drizzle-kit.
  */
 export {};
+export * from './auth';
+export * from './networks';
