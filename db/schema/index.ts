@@ -5,3 +5,4 @@
 export {};
 export * from './auth';
 export * from './networks';
+export * from './stations';
