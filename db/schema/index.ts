@@ -6,3 +6,4 @@ export {};
 export * from './auth';
 export * from './networks';
 export * from './stations';
+export * from './runs';
