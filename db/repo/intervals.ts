@@ -1,0 +1,207 @@
+/**
+ * Processed 10-minute intervals: one row per station, component and start
+ * time, with its spectrum (float8[] arrays, SI units) and its mode fit.
+ * Saving is an upsert on (station, component, start), so the same interval
+ * sent twice leaves one row; a person's flag survives reprocessing.
+ */
+import { and, asc, eq, gte, inArray, isNull, lt, sql, type SQL } from 'drizzle-orm';
+import { getDb } from '../client';
+import { intervals, intervalSpectra, intervalFits, stations, type StoredMode } from '../schema/stations';
+import type { ComponentName } from './stations';
+
+export type IntervalOrigin = 'upload' | 'push' | 'synthetic';
+
+export interface IntervalFit {
+  modes: StoredMode[];
+  background: { b0: number; b1: number };
+  misfit: number;
+}
+
+export interface IntervalResultInput {
+  networkId: string;
+  stationId: string;
+  component: ComponentName;
+  startsAt: Date;
+  durationS: number;
+  origin: IntervalOrigin;
+  uploadId: string | null;
+  rejectedShare: number;
+  qualityFlags: string[];
+  spectrum: { frequencies: number[]; power: number[]; segments: number };
+  fit: IntervalFit | null;
+}
+
+export interface IntervalSummary {
+  id: string;
+  stationId: string;
+  stationCode: string;
+  component: ComponentName;
+  startsAt: Date;
+  durationS: number;
+  origin: IntervalOrigin;
+  uploadId: string | null;
+  rejectedShare: number;
+  qualityFlags: string[];
+  flagReason: string | null;
+  flaggedBy: string | null;
+  flaggedAt: Date | null;
+  fit: IntervalFit | null;
+}
+
+export interface IntervalSpectrum {
+  intervalId: string;
+  stationId: string;
+  stationCode: string;
+  component: ComponentName;
+  startsAt: Date;
+  frequencies: number[];
+  power: number[];
+  segments: number;
+  rejectedShare: number;
+}
+
+/**
+ * Which intervals: by default unflagged ones only. `includeFlagged` also
+ * returns intervals a person flagged; `requireClean` drops intervals carrying
+ * any automatic quality flag. `from` inclusive, `to` exclusive (start times).
+ */
+export interface IntervalFilter {
+  networkId: string;
+  stationIds?: string[];
+  components?: ComponentName[];
+  from?: Date;
+  to?: Date;
+  includeFlagged?: boolean;
+  requireClean?: boolean;
+  intervalIds?: string[];
+  limit?: number;
+}
+
+const BATCH = 400;
+
+/** Saves processed intervals (upsert); returns ids in input order and whether each row is new. */
+export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id: string; created: boolean }[]> {
+  const out: { id: string; created: boolean }[] = [];
+  await getDb().transaction(async (tx) => {
+    for (let b = 0; b < items.length; b += BATCH) {
+      const batch = items.slice(b, b + BATCH);
+      const rows = await tx.insert(intervals).values(batch.map((i) => ({
+        networkId: i.networkId, stationId: i.stationId, component: i.component, startsAt: i.startsAt,
+        durationS: i.durationS, origin: i.origin, uploadId: i.uploadId,
+        rejectedShare: i.rejectedShare, qualityFlags: i.qualityFlags,
+      }))).onConflictDoUpdate({
+        target: [intervals.stationId, intervals.component, intervals.startsAt],
+        set: {
+          durationS: sql`excluded.duration_s`, origin: sql`excluded.origin`, uploadId: sql`excluded.upload_id`,
+          rejectedShare: sql`excluded.rejected_share`, qualityFlags: sql`excluded.quality_flags`,
+        },
+      }).returning({
+        id: intervals.id, stationId: intervals.stationId, component: intervals.component,
+        startsAt: intervals.startsAt, created: sql<boolean>`(xmax = 0)`,
+      });
+      const key = (s: string, c: string, t: Date) => `${s}|${c}|${t.getTime()}`;
+      const byKey = new Map(rows.map((r) => [key(r.stationId, r.component, new Date(r.startsAt)), r]));
+      const ids = batch.map((i) => byKey.get(key(i.stationId, i.component, i.startsAt))!);
+      await tx.insert(intervalSpectra).values(batch.map((i, k) => ({
+        intervalId: ids[k].id, frequencies: i.spectrum.frequencies, power: i.spectrum.power,
+        segments: i.spectrum.segments,
+      }))).onConflictDoUpdate({
+        target: intervalSpectra.intervalId,
+        set: {
+          frequencies: sql`excluded.frequencies`, power: sql`excluded.power`, segments: sql`excluded.segments`,
+        },
+      });
+      const withFit = batch.map((i, k) => ({ i, id: ids[k].id })).filter((x) => x.i.fit);
+      const withoutFit = batch.map((i, k) => ({ i, id: ids[k].id })).filter((x) => !x.i.fit);
+      if (withFit.length) {
+        await tx.insert(intervalFits).values(withFit.map(({ i, id }) => ({ intervalId: id, ...i.fit! })))
+          .onConflictDoUpdate({
+            target: intervalFits.intervalId,
+            set: { modes: sql`excluded.modes`, background: sql`excluded.background`, misfit: sql`excluded.misfit` },
+          });
+      }
+      if (withoutFit.length) {
+        await tx.delete(intervalFits).where(inArray(intervalFits.intervalId, withoutFit.map((x) => x.id)));
+      }
+      for (const r of ids) out.push({ id: r.id, created: Boolean(r.created) });
+    }
+  });
+  return out;
+}
+
+function where(f: IntervalFilter): SQL {
+  const parts: SQL[] = [eq(intervals.networkId, f.networkId)];
+  if (f.stationIds) parts.push(f.stationIds.length ? inArray(intervals.stationId, f.stationIds) : sql`false`);
+  if (f.components) parts.push(f.components.length ? inArray(intervals.component, f.components) : sql`false`);
+  if (f.intervalIds) parts.push(f.intervalIds.length ? inArray(intervals.id, f.intervalIds) : sql`false`);
+  if (f.from) parts.push(gte(intervals.startsAt, f.from));
+  if (f.to) parts.push(lt(intervals.startsAt, f.to));
+  if (!f.includeFlagged) parts.push(isNull(intervals.flagReason));
+  if (f.requireClean) parts.push(sql`cardinality(${intervals.qualityFlags}) = 0`);
+  return and(...parts)!;
+}
+
+/** Interval summaries with their fits (no spectra), ordered by station code, component, start. */
+export async function listIntervals(f: IntervalFilter): Promise<IntervalSummary[]> {
+  const rows = await getDb().select({ i: intervals, code: stations.code, fit: intervalFits })
+    .from(intervals)
+    .innerJoin(stations, eq(stations.id, intervals.stationId))
+    .leftJoin(intervalFits, eq(intervalFits.intervalId, intervals.id))
+    .where(where(f))
+    .orderBy(asc(stations.code), asc(intervals.component), asc(intervals.startsAt))
+    .limit(f.limit ?? 20000);
+  return rows.map(({ i, code, fit }) => ({
+    id: i.id, stationId: i.stationId, stationCode: code, component: i.component, startsAt: i.startsAt,
+    durationS: i.durationS, origin: i.origin, uploadId: i.uploadId, rejectedShare: i.rejectedShare,
+    qualityFlags: i.qualityFlags, flagReason: i.flagReason, flaggedBy: i.flaggedBy, flaggedAt: i.flaggedAt,
+    fit: fit ? { modes: fit.modes, background: fit.background, misfit: fit.misfit } : null,
+  }));
+}
+
+/** Spectra (SI units) of the intervals the filter selects, same order as listIntervals. */
+export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpectrum[]> {
+  const rows = await getDb().select({ i: intervals, code: stations.code, s: intervalSpectra })
+    .from(intervals)
+    .innerJoin(stations, eq(stations.id, intervals.stationId))
+    .innerJoin(intervalSpectra, eq(intervalSpectra.intervalId, intervals.id))
+    .where(where(f))
+    .orderBy(asc(stations.code), asc(intervals.component), asc(intervals.startsAt))
+    .limit(f.limit ?? 5000);
+  return rows.map(({ i, code, s }) => ({
+    intervalId: i.id, stationId: i.stationId, stationCode: code, component: i.component,
+    startsAt: i.startsAt, frequencies: s.frequencies, power: s.power, segments: s.segments,
+    rejectedShare: i.rejectedShare,
+  }));
+}
+
+/** Sets (reason + who) or clears (null) a person's flag; null when the interval is not in this network. */
+export async function setIntervalFlag(
+  networkId: string, intervalId: string, flag: { reason: string; userId: string } | null,
+): Promise<IntervalSummary | null> {
+  const rows = await getDb().update(intervals).set(flag
+    ? { flagReason: flag.reason, flaggedBy: flag.userId, flaggedAt: new Date() }
+    : { flagReason: null, flaggedBy: null, flaggedAt: null })
+    .where(and(eq(intervals.id, intervalId), eq(intervals.networkId, networkId))).returning({ id: intervals.id });
+  if (!rows.length) return null;
+  const [one] = await listIntervals({ networkId, intervalIds: [intervalId], includeFlagged: true });
+  return one ?? null;
+}
+
+/** Deletes the intervals of one station that start in [from, to); returns how many. */
+export async function deleteIntervals(networkId: string, stationId: string, from: Date, to: Date): Promise<number> {
+  const rows = await getDb().delete(intervals).where(and(
+    eq(intervals.networkId, networkId), eq(intervals.stationId, stationId),
+    gte(intervals.startsAt, from), lt(intervals.startsAt, to),
+  )).returning({ id: intervals.id });
+  return rows.length;
+}
+
+/** UTC days (YYYY-MM-DD) on which a station has intervals, newest first. */
+export async function listStationDays(networkId: string, stationId: string): Promise<string[]> {
+  const rows = await getDb().select({
+    day: sql<string>`to_char(${intervals.startsAt} at time zone 'UTC', 'YYYY-MM-DD')`,
+  }).from(intervals)
+    .where(and(eq(intervals.networkId, networkId), eq(intervals.stationId, stationId)))
+    .groupBy(sql`1`).orderBy(sql`1 desc`).limit(400);
+  return rows.map((r) => r.day);
+}
