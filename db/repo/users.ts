@@ -1,0 +1,149 @@
+/**
+ * Accounts, sessions, password-reset tokens, sign-in throttling rows and
+ * instance settings. The only place with queries on these tables.
+ */
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
+import { getDb } from '../client';
+import { instanceSettings, passwordResets, sessions, signInThrottle, users } from '../schema';
+import { conflict, gone, notFound } from '@/src/server/errors';
+
+export type UserRow = typeof users.$inferSelect;
+export type ThrottleRow = typeof signInThrottle.$inferSelect;
+
+/** The lucia session adapter over our users/sessions tables. */
+export function sessionAdapter() {
+  return new DrizzlePostgreSQLAdapter(getDb(), sessions, users);
+}
+
+/** Normal form of an e-mail address as stored. */
+export function normalizeEmail(email: string): string {
+  return email.trim().toLowerCase();
+}
+
+function isUniqueViolation(e: unknown): boolean {
+  const code = (e as { code?: string; cause?: { code?: string } })?.code ?? (e as { cause?: { code?: string } })?.cause?.code;
+  return code === '23505';
+}
+
+export interface NewUser {
+  id: string;
+  email: string;
+  name: string;
+  passwordHash: string;
+  isAdmin?: boolean;
+}
+
+type Tx = Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0];
+type Executor = ReturnType<typeof getDb> | Tx;
+
+export async function insertUser(u: NewUser, db: Executor = getDb()): Promise<UserRow> {
+  try {
+    const [row] = await db
+      .insert(users)
+      .values({ ...u, email: normalizeEmail(u.email), isAdmin: u.isAdmin ?? false })
+      .returning();
+    return row;
+  } catch (e) {
+    if (isUniqueViolation(e)) throw conflict('An account with this e-mail address already exists. Sign in instead.', 'email');
+    throw e;
+  }
+}
+
+export async function findUserByEmail(email: string): Promise<UserRow | null> {
+  const [row] = await getDb().select().from(users).where(eq(users.email, normalizeEmail(email)));
+  return row ?? null;
+}
+
+export async function getUserById(id: string): Promise<UserRow | null> {
+  const [row] = await getDb().select().from(users).where(eq(users.id, id));
+  return row ?? null;
+}
+
+export async function setUserAdmin(id: string, isAdmin: boolean): Promise<void> {
+  await getDb().update(users).set({ isAdmin }).where(eq(users.id, id));
+}
+
+export async function updateUserPassword(id: string, passwordHash: string): Promise<void> {
+  await getDb().update(users).set({ passwordHash }).where(eq(users.id, id));
+}
+
+export async function deleteUserSessions(userId: string): Promise<void> {
+  await getDb().delete(sessions).where(eq(sessions.userId, userId));
+}
+
+// ── Password reset ───────────────────────────────────────────────────────────
+
+export async function insertPasswordReset(userId: string, tokenHash: string, expiresAt: Date): Promise<void> {
+  await getDb().insert(passwordResets).values({ userId, tokenHash, expiresAt });
+}
+
+/**
+ * In one transaction: check the token is known, unused and unexpired, mark it
+ * used, set the new password and end every session of the account.
+ */
+export async function consumePasswordReset(tokenHash: string, newPasswordHash: string, now: Date): Promise<string> {
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).for('update');
+    if (!row || row.usedAt) throw notFound('This reset link is unknown or was already used. Ask for a new one.');
+    if (row.expiresAt.getTime() <= now.getTime()) throw gone('This reset link has expired. Ask for a new one.');
+    await tx.update(passwordResets).set({ usedAt: now }).where(eq(passwordResets.tokenHash, tokenHash));
+    await tx.update(users).set({ passwordHash: newPasswordHash }).where(eq(users.id, row.userId));
+    await tx.delete(sessions).where(eq(sessions.userId, row.userId));
+    return row.userId;
+  });
+}
+
+export async function findPasswordReset(tokenHash: string) {
+  const [row] = await getDb()
+    .select()
+    .from(passwordResets)
+    .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt)));
+  return row ?? null;
+}
+
+// ── Sign-in throttling ───────────────────────────────────────────────────────
+
+export async function getThrottleRows(keys: string[]): Promise<ThrottleRow[]> {
+  if (keys.length === 0) return [];
+  return getDb().select().from(signInThrottle).where(inArray(signInThrottle.key, keys));
+}
+
+export async function saveThrottleRow(row: ThrottleRow): Promise<void> {
+  await getDb()
+    .insert(signInThrottle)
+    .values(row)
+    .onConflictDoUpdate({
+      target: signInThrottle.key,
+      set: { failures: row.failures, firstFailureAt: row.firstFailureAt, lockedUntil: row.lockedUntil },
+    });
+}
+
+export async function clearThrottleRows(keys: string[]): Promise<void> {
+  if (keys.length === 0) return;
+  await getDb().delete(signInThrottle).where(inArray(signInThrottle.key, keys));
+}
+
+// ── Instance settings ────────────────────────────────────────────────────────
+
+export async function readSettings(): Promise<Record<string, unknown>> {
+  const rows = await getDb().select().from(instanceSettings);
+  return Object.fromEntries(rows.map((r) => [r.key, r.value]));
+}
+
+export async function writeSettings(values: Record<string, unknown>): Promise<void> {
+  const db = getDb();
+  await db.transaction(async (tx) => {
+    for (const [key, value] of Object.entries(values)) {
+      await tx
+        .insert(instanceSettings)
+        .values({ key, value })
+        .onConflictDoUpdate({ target: instanceSettings.key, set: { value, updatedAt: sql`now()` } });
+    }
+  });
+}
+
+export async function countUsers(): Promise<number> {
+  const [row] = await getDb().select({ n: sql<number>`count(*)::int` }).from(users);
+  return row.n;
+}

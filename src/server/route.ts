@@ -1,0 +1,85 @@
+/**
+ * Wrapper for every JSON route handler: runs the handler inside a request
+ * context, turns AppError / ZodError into the one error shape with the right
+ * status, never leaks a stack trace, and attaches queued Set-Cookie headers.
+ *
+ *   export const POST = route(async (req, { params }) => {
+ *     const { networkId } = await params;
+ *     await requireNetworkAction(networkId, 'runs.launch');
+ *     const body = await parseJson(req, schema);
+ *     return json(await launchRun(networkId, body), 201);
+ *   });
+ */
+import { ZodError, type z } from 'zod';
+import { AppError, badRequest, type ErrorBody } from './errors';
+import { currentRequestContext, runWithRequest } from './request-context';
+
+type Handler<P> = (req: Request, ctx: { params: P }) => Promise<Response | unknown>;
+
+export function json(data: unknown, status = 200, headers?: HeadersInit): Response {
+  return Response.json(data, { status, headers });
+}
+
+export function errorResponse(status: number, body: ErrorBody): Response {
+  return Response.json(body, { status, headers: { 'cache-control': 'no-store' } });
+}
+
+function fieldOf(path: ReadonlyArray<PropertyKey>): string | undefined {
+  return path.length ? path.map(String).join('.') : undefined;
+}
+
+/** Map any thrown value to a Response in the one error shape. */
+export function toErrorResponse(e: unknown): Response {
+  if (e instanceof AppError) {
+    const error: ErrorBody['error'] = { code: e.code, message: e.message };
+    if (e.field) error.field = e.field;
+    return errorResponse(e.status, { error });
+  }
+  if (e instanceof ZodError) {
+    const issue = e.issues[0];
+    const field = issue ? fieldOf(issue.path) : undefined;
+    const message = issue ? (field ? `${field}: ${issue.message}` : issue.message) : 'The request is not valid.';
+    const error: ErrorBody['error'] = { code: 'invalid_input', message };
+    if (field) error.field = field;
+    return errorResponse(400, { error });
+  }
+  console.error('[cavitas] unhandled error in route handler', e);
+  return errorResponse(500, {
+    error: { code: 'internal', message: 'Something went wrong on the server. The problem has been logged; please try again.' },
+  });
+}
+
+export function route<P = Record<string, string>>(handler: Handler<P>) {
+  return async (req: Request, ctx?: { params: Promise<P> }): Promise<Response> =>
+    runWithRequest(req, async () => {
+      let res: Response;
+      try {
+        const params = (ctx?.params ? await ctx.params : {}) as P;
+        const out = await handler(req, { params });
+        res = out instanceof Response ? out : json(out ?? { ok: true });
+      } catch (e) {
+        res = toErrorResponse(e);
+      }
+      const pending = currentRequestContext()?.setCookies ?? [];
+      for (const c of pending) res.headers.append('set-cookie', c);
+      return res;
+    });
+}
+
+/** Parse and validate a JSON body; a body that is not JSON is a 400 naming the problem. */
+export async function parseJson<S extends z.ZodType>(req: Request, schema: S): Promise<z.infer<S>> {
+  let data: unknown;
+  try {
+    const text = await req.text();
+    data = text.trim() === '' ? {} : JSON.parse(text);
+  } catch {
+    throw badRequest('The request body is not valid JSON.');
+  }
+  return schema.parse(data);
+}
+
+/** Parse and validate the query string (all values arrive as strings). */
+export function parseQuery<S extends z.ZodType>(req: Request, schema: S): z.infer<S> {
+  const params = new URL(req.url).searchParams;
+  return schema.parse(Object.fromEntries(params.entries()));
+}
