@@ -1,0 +1,41 @@
+/**
+ * The worker process (`npm run worker`, also started by `npm start`): serves every job kind in
+ * the registry until SIGINT/SIGTERM, then lets running jobs finish (up to 60 s) and exits.
+ * Start as many as you like, on as many machines, against the same DATABASE_URL.
+ */
+import { jobs } from './registry';
+import { serveJobs } from './run';
+import { closeDb } from '@/db/client';
+
+async function main(): Promise<void> {
+  if (!process.env.DATABASE_URL) {
+    console.error('[worker] DATABASE_URL is not set: point it at the Cavitas database (npm start sets it).');
+    process.exit(2);
+  }
+  const handle = await serveJobs(jobs);
+  console.log(`[worker] ready (pid ${process.pid}); queues: ${handle.queues.join(', ') || 'none registered'}`);
+  let stopping = false;
+  const shutdown = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`[worker] ${signal}: finishing running jobs…`);
+    handle
+      .stop(60_000)
+      .then(() => closeDb())
+      .then(() => {
+        console.log('[worker] stopped');
+        process.exit(0);
+      })
+      .catch((err) => {
+        console.error(`[worker] shutdown error: ${err instanceof Error ? err.message : err}`);
+        process.exit(1);
+      });
+  };
+  process.on('SIGINT', () => shutdown('SIGINT'));
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+}
+
+main().catch((err) => {
+  console.error(`[worker] ${err instanceof Error ? err.stack ?? err.message : err}`);
+  process.exit(1);
+});

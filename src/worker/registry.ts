@@ -1,0 +1,8 @@
+/**
+ * The job kinds the worker process serves. Owners add one import and one list entry for
+ * each file in src/worker/jobs/.
+ */
+import type { JobDefinition } from './types';
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export const jobs: JobDefinition<any>[] = [];
