@@ -1,0 +1,195 @@
+/**
+ * Runs, their finished intervals and cached misfit surfaces.
+ *
+ * A run's intervals are written once each: (run, interval start) is unique and
+ * the insert ignores a second copy, so a job that is retried after a crash can
+ * redo an interval whose write it did not see without duplicating it.
+ */
+import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { getDb } from '../client';
+import { cavityModels, runIntervals, runs, runSurfaces, sourceGrids, type RunProgress } from '../schema/runs';
+
+export type RunRow = typeof runs.$inferSelect;
+export type RunIntervalRow = typeof runIntervals.$inferSelect;
+export type SurfaceRow = typeof runSurfaces.$inferSelect;
+export type RunState = RunRow['state'];
+export type { RunProgress };
+
+export interface NewRun {
+  networkId: string;
+  name: string;
+  config: Record<string, unknown>;
+  modelId: string;
+  gridId: string;
+  engineVersion: string;
+  intervalStarts: string[];
+  startsPerInterval: number;
+  createdBy: string | null;
+}
+
+export async function createRun(r: NewRun): Promise<RunRow> {
+  const [row] = await getDb().insert(runs).values({
+    networkId: r.networkId, name: r.name, config: r.config, modelId: r.modelId, gridId: r.gridId,
+    engineVersion: r.engineVersion, intervalStarts: r.intervalStarts, createdBy: r.createdBy,
+    progress: {
+      phase: 'waiting for a worker', intervalsDone: 0, intervalsTotal: r.intervalStarts.length,
+      startsDone: 0, startsTotal: r.startsPerInterval, etaSeconds: null,
+    },
+  }).returning();
+  return row;
+}
+
+export async function getRun(networkId: string, runId: string): Promise<RunRow | null> {
+  const [row] = await getDb().select().from(runs).where(and(eq(runs.id, runId), eq(runs.networkId, networkId)));
+  return row ?? null;
+}
+
+/** For the worker, which knows only the run id. */
+export async function getRunById(runId: string): Promise<RunRow | null> {
+  const [row] = await getDb().select().from(runs).where(eq(runs.id, runId));
+  return row ?? null;
+}
+
+export interface RunListEntry {
+  id: string; name: string; state: RunState; progress: RunProgress; createdAt: Date; finishedAt: Date | null;
+  modelName: string; modelVersion: number; gridName: string; gridVersion: number; intervals: number; error: string | null;
+}
+
+export async function listRuns(networkId: string): Promise<RunListEntry[]> {
+  const rows = await getDb().select({
+    r: runs, modelName: cavityModels.name, modelVersion: cavityModels.version,
+    gridName: sourceGrids.name, gridVersion: sourceGrids.version,
+  }).from(runs)
+    .innerJoin(cavityModels, eq(cavityModels.id, runs.modelId))
+    .innerJoin(sourceGrids, eq(sourceGrids.id, runs.gridId))
+    .where(eq(runs.networkId, networkId))
+    .orderBy(desc(runs.createdAt)).limit(500);
+  return rows.map(({ r, ...m }) => ({
+    id: r.id, name: r.name, state: r.state, progress: r.progress, createdAt: r.createdAt, finishedAt: r.finishedAt,
+    intervals: r.intervalStarts.length, error: r.error, ...m,
+  }));
+}
+
+/**
+ * The worker takes a run: queued/running (a crashed attempt) become running.
+ * Returns null when the run is gone, already ended, or cancelled meanwhile.
+ */
+export async function claimRun(runId: string, workerId: string): Promise<RunRow | null> {
+  const [row] = await getDb().update(runs).set({
+    state: 'running', workerId, heartbeatAt: new Date(), attempts: sql`${runs.attempts} + 1`,
+    startedAt: sql`coalesce(${runs.startedAt}, now())`, error: null,
+  }).where(and(eq(runs.id, runId), inArray(runs.state, ['queued', 'running']), eq(runs.cancelRequested, false)))
+    .returning();
+  return row ?? null;
+}
+
+/** Writes progress and a heartbeat; returns whether someone asked to cancel. */
+export async function reportProgress(runId: string, progress: RunProgress): Promise<{ cancelRequested: boolean }> {
+  const [row] = await getDb().update(runs).set({ progress, heartbeatAt: new Date() })
+    .where(eq(runs.id, runId)).returning({ cancelRequested: runs.cancelRequested });
+  return { cancelRequested: row ? row.cancelRequested : true };
+}
+
+export async function isCancelRequested(runId: string): Promise<boolean> {
+  const [row] = await getDb().select({ c: runs.cancelRequested }).from(runs).where(eq(runs.id, runId));
+  return row ? row.c : true;
+}
+
+/** Stores one finished interval (once) and the run's progress, in one transaction. */
+export async function saveRunInterval(
+  runId: string, entry: { startsAt: Date; nData: number; result: Record<string, unknown>; seconds: number }, progress: RunProgress,
+): Promise<{ inserted: boolean }> {
+  return getDb().transaction(async (tx) => {
+    const ins = await tx.insert(runIntervals).values({ runId, ...entry })
+      .onConflictDoNothing({ target: [runIntervals.runId, runIntervals.startsAt] }).returning({ id: runIntervals.id });
+    await tx.update(runs).set({ progress, heartbeatAt: new Date() }).where(eq(runs.id, runId));
+    return { inserted: ins.length > 0 };
+  });
+}
+
+export async function listRunIntervals(runId: string): Promise<RunIntervalRow[]> {
+  return getDb().select().from(runIntervals).where(eq(runIntervals.runId, runId)).orderBy(asc(runIntervals.startsAt));
+}
+
+export async function finishedIntervalStarts(runId: string): Promise<Set<string>> {
+  const rows = await getDb().select({ t: runIntervals.startsAt }).from(runIntervals).where(eq(runIntervals.runId, runId));
+  return new Set(rows.map((r) => r.t.toISOString()));
+}
+
+/** Ends a run (finished, failed or cancelled) with its last progress and, for a failure, why. */
+export async function endRun(runId: string, state: 'finished' | 'failed' | 'cancelled', progress: RunProgress | null, error: string | null = null): Promise<void> {
+  await getDb().update(runs).set({
+    state, error, finishedAt: new Date(), heartbeatAt: new Date(), ...(progress ? { progress } : {}),
+  }).where(eq(runs.id, runId));
+}
+
+/**
+ * Asks a run to stop. A queued run ends at once; a running one is stopped by
+ * its worker at the next check. Returns the run, or null when not in this network.
+ */
+export async function requestCancel(networkId: string, runId: string): Promise<RunRow | null> {
+  return getDb().transaction(async (tx) => {
+    const [row] = await tx.update(runs).set({ cancelRequested: true })
+      .where(and(eq(runs.id, runId), eq(runs.networkId, networkId))).returning();
+    if (!row) return null;
+    if (row.state === 'queued') {
+      const [ended] = await tx.update(runs).set({ state: 'cancelled', finishedAt: new Date(), progress: { ...row.progress, phase: 'cancelled before it started' } })
+        .where(eq(runs.id, runId)).returning();
+      return ended;
+    }
+    return row;
+  });
+}
+
+/** Puts a failed or cancelled run back in the queue; its finished intervals are kept and skipped. */
+export async function requeueRun(networkId: string, runId: string): Promise<RunRow | null> {
+  const [row] = await getDb().update(runs).set({
+    state: 'queued', cancelRequested: false, error: null, finishedAt: null,
+    progress: sql`jsonb_set(${runs.progress}, '{phase}', '"waiting for a worker"')`,
+  }).where(and(eq(runs.id, runId), eq(runs.networkId, networkId), inArray(runs.state, ['failed', 'cancelled']))).returning();
+  return row ?? null;
+}
+
+export async function deleteRun(networkId: string, runId: string): Promise<boolean> {
+  const rows = await getDb().delete(runs).where(and(eq(runs.id, runId), eq(runs.networkId, networkId))).returning({ id: runs.id });
+  return rows.length > 0;
+}
+
+/** Runs stuck in 'running' whose worker stopped reporting (for the sweeper to requeue). */
+export async function staleRunningRuns(olderThanS: number): Promise<RunRow[]> {
+  return getDb().select().from(runs).where(and(
+    eq(runs.state, 'running'), sql`${runs.heartbeatAt} < now() - make_interval(secs => ${olderThanS})`,
+  ));
+}
+
+// ── misfit surfaces ────────────────────────────────────────────────────────
+
+/** Returns the cached surface for this spec, creating a queued one if none exists. */
+export async function getOrCreateSurface(runId: string, specKey: string, spec: Record<string, unknown>): Promise<{ row: SurfaceRow; created: boolean }> {
+  const ins = await getDb().insert(runSurfaces).values({ runId, specKey, spec })
+    .onConflictDoNothing({ target: [runSurfaces.runId, runSurfaces.specKey] }).returning();
+  if (ins.length) return { row: ins[0], created: true };
+  const [row] = await getDb().select().from(runSurfaces).where(and(eq(runSurfaces.runId, runId), eq(runSurfaces.specKey, specKey)));
+  return { row, created: false };
+}
+
+export async function getSurface(runId: string, surfaceId: string): Promise<SurfaceRow | null> {
+  const [row] = await getDb().select().from(runSurfaces).where(and(eq(runSurfaces.id, surfaceId), eq(runSurfaces.runId, runId)));
+  return row ?? null;
+}
+
+export async function getSurfaceById(surfaceId: string): Promise<SurfaceRow | null> {
+  const [row] = await getDb().select().from(runSurfaces).where(eq(runSurfaces.id, surfaceId));
+  return row ?? null;
+}
+
+export async function setSurface(surfaceId: string, state: SurfaceRow['state'], result: Record<string, unknown> | null = null, error: string | null = null): Promise<void> {
+  await getDb().update(runSurfaces).set({
+    state, result, error, finishedAt: state === 'ready' || state === 'failed' ? new Date() : null,
+  }).where(eq(runSurfaces.id, surfaceId));
+}
+
+/** Lets a failed surface be asked for again. */
+export async function resetSurface(surfaceId: string): Promise<void> {
+  await getDb().update(runSurfaces).set({ state: 'queued', error: null, result: null }).where(eq(runSurfaces.id, surfaceId));
+}
