@@ -7,3 +7,4 @@ export * from './auth';
 export * from './networks';
 export * from './stations';
 export * from './runs';
+export * from './mail';
