@@ -1,0 +1,50 @@
+/**
+ * Station registry service: validated input in, AppErrors naming the field out.
+ */
+import * as repo from '@/db/repo/stations';
+import { conflict, notFound } from '@/src/server/errors';
+import { isUniqueViolation } from './pg-errors';
+import type { StationInputBody } from './station-input';
+
+export type { Station, StationSummary } from '@/db/repo/stations';
+
+function toInput(body: StationInputBody): repo.StationInput {
+  return { ...body, mainsHz: body.mainsHz as 50 | 60 };
+}
+
+function duplicate(code: string) {
+  return conflict(`This network already has a station with code ${code}; choose another code.`, 'code');
+}
+
+export async function createStation(networkId: string, body: StationInputBody): Promise<repo.Station> {
+  try {
+    return await repo.createStation(networkId, toInput(body));
+  } catch (e) {
+    if (isUniqueViolation(e)) throw duplicate(body.code);
+    throw e;
+  }
+}
+
+export async function updateStation(networkId: string, stationId: string, body: StationInputBody): Promise<repo.Station> {
+  let out: repo.Station | null;
+  try {
+    out = await repo.updateStation(networkId, stationId, toInput(body));
+  } catch (e) {
+    if (isUniqueViolation(e)) throw duplicate(body.code);
+    throw e;
+  }
+  if (!out) throw notFound('No such station in this network.');
+  return out;
+}
+
+export async function requireStation(networkId: string, stationId: string): Promise<repo.Station> {
+  const s = await repo.getStation(networkId, stationId);
+  if (!s) throw notFound('No such station in this network.');
+  return s;
+}
+
+export async function deleteStation(networkId: string, stationId: string): Promise<void> {
+  if (!(await repo.deleteStation(networkId, stationId))) throw notFound('No such station in this network.');
+}
+
+export const listStations = repo.listStations;
