@@ -34,3 +34,47 @@ export const MINIMA_MISFIT_ABS_TOL = 1e-6;
 export const MINIMA_UNBOUNDED_SCALE = 1;
 
 // ── Signal processing and mode fits ──────────────────────────────────────────
+/** Welch segment length in seconds (10–20 s is common practice for Schumann-resonance spectra). */
+export const SIGNAL_SEGMENT_SECONDS = 10;
+/** Length of one processing interval in seconds (10 minutes, common practice). */
+export const SIGNAL_INTERVAL_SECONDS = 600;
+/** Transient screen: a segment is rejected when ln(variance) exceeds the median by this many robust sigmas (1.4826 MAD)… */
+export const TRANSIENT_MAD_FACTOR = 5;
+/** …and also by at least ln of this ratio, so that very steady records do not lose segments to tiny scatter. */
+export const TRANSIENT_MIN_RATIO = 2.5;
+/** Half-width (Hz) of the notch around the mains line and each harmonic (covers grid-frequency wander and the Hann main lobe). */
+export const MAINS_LINE_HALF_WIDTH_HZ = 0.5;
+/** Default half-width (Hz) of the notch around a listed interference line. */
+export const INTERFERENCE_LINE_HALF_WIDTH_HZ = 0.3;
+/** Bins on each side of a notch averaged to anchor the interpolation across it. */
+export const LINE_ANCHOR_BINS = 3;
+/** Flag 'too-much-rejected' when more than this share of an interval's segments was rejected or missing. */
+export const REJECTED_SHARE_LIMIT = 0.5;
+/** Flag 'clipping' when this share of samples sits at the recorder's full scale (or at the interval's extreme value). */
+export const CLIPPING_SHARE_LIMIT = 1e-3;
+/** Lowest frequency (Hz) used by a mode fit by default. */
+export const MODE_FIT_MIN_HZ = 3;
+/** A mode fit's band reaches this far (Hz) past the usual frequency of its highest mode. */
+export const MODE_FIT_TOP_MARGIN_HZ = 3.5;
+/** A fitted mode may move at most this far (Hz) from its initial guess (bound in the fit). */
+export const MODE_FREQUENCY_WINDOW_HZ = 2.5;
+/** Bounds on a fitted half-width g_n (Hz). */
+export const MODE_HALF_WIDTH_MIN_HZ = 0.2;
+export const MODE_HALF_WIDTH_MAX_HZ = 8;
+/** 'implausible-modes' when a Q-factor lies outside this range (observed Q are about 3–8, common practice). */
+export const MODE_Q_MIN = 1.5;
+export const MODE_Q_MAX = 20;
+/** 'implausible-modes' when a mode's relative amplitude error exceeds this. */
+export const MODE_AMPLITUDE_REL_ERROR_MAX = 1;
+/**
+ * Correlation of power between neighbouring Welch segments of a Hann window at 50 % overlap
+ * (Harris 1978, Proc. IEEE 66, 51, Table 1: 16.7 %); the effective number of averages is
+ * K / (1 + 2 rho^2) (Welch 1967).
+ */
+export const HANN_HALF_OVERLAP_CORRELATION = 0.167;
+/**
+ * Error inflation for fits to Hann-windowed spectra: the power in bins k and k+1 is correlated by
+ * |W2(1)/W2(0)|^2 = (2/3)^2 and in bins k, k+2 by (1/6)^2, W2 being the DFT of w^2 = 3/8 - cos/2 + cos2/8;
+ * summing the correlations gives sqrt(1 + 2(4/9) + 2(1/36)).
+ */
+export const HANN_BIN_CORRELATION_INFLATION = Math.sqrt(1 + 2 * (4 / 9) + 2 * (1 / 36));
