@@ -1,0 +1,145 @@
+/**
+ * Types of the inverse problem, defined once and shared by the CLI, the
+ * worker and the UI: what goes in (data, unknowns, options) and what comes
+ * out (minima of a run, an interval series, a misfit surface).
+ */
+import type { Component } from '@/src/engine/components';
+import type { StopReason } from '@/src/engine/optim/types';
+
+export type ParamKind = 'intensity' | 'lat' | 'lon' | 'spread';
+export type Range = { min: number; max: number };
+
+/** One region to find: each quantity fixed (a number) or free within a range. */
+export interface RegionUnknown {
+  name: string;
+  /** C^2 km^2 / s; optimised as its logarithm. */
+  intensity: number | Range;
+  lat: number | Range;
+  lon: number | Range;
+  /** Angular spread in degrees (moving spot region); absent = point source. */
+  spread?: number | Range;
+}
+
+export interface StationSite {
+  code: string;
+  lat: number;
+  lon: number;
+}
+
+/** One observed power spectrum (SI units) with the standard deviation of ln(power). */
+export interface ObservedSeries {
+  station: string;
+  component: Component;
+  frequencies: ArrayLike<number>;
+  power: ArrayLike<number>;
+  sigmaLog: number;
+}
+
+/** A frequency band left out of the misfit. */
+export interface ExcludedBand {
+  minHz: number;
+  maxHz: number;
+}
+
+/** Which bins count: mains line and harmonics (± halfWidthHz), and user bands, are left out. */
+export interface BinSelection {
+  mainsHz?: number;
+  mainsHalfWidthHz?: number;
+  exclude?: ExcludedBand[];
+}
+
+/** One observed Schumann mode (from a Lorentzian fit) with its own sigmas. */
+export interface ObservedMode {
+  frequency: number;
+  /** Peak power density of the mode, SI units of its component. */
+  intensity: number;
+  halfWidth: number;
+  sigmaFrequency: number;
+  /** Standard deviation of ln(intensity). */
+  sigmaLogIntensity: number;
+  sigmaHalfWidth: number;
+}
+
+export interface ObservedModes {
+  station: string;
+  component: Component;
+  modes: ObservedMode[];
+}
+
+export interface SourceEstimate {
+  name: string;
+  lat: number;
+  lon: number;
+  intensity: number;
+  spread?: number;
+}
+
+export interface NamedMatrix {
+  names: string[];
+  matrix: number[][];
+}
+
+/** A distinct minimum of the misfit. */
+export interface Minimum {
+  /** chi-square at the minimum. */
+  misfit: number;
+  /** misfit / (nData - nParams). */
+  reducedChi2: number;
+  /** Number of starts that ended here (failed starts join the nearest minimum). */
+  count: number;
+  /** Starts (indexes) that ended here. */
+  startIndexes: number[];
+  sources: SourceEstimate[];
+  /** Free parameters in physical units (intensity in C^2 km^2/s, degrees). */
+  params: Record<string, number>;
+  /** Internal free vector (log intensity, unwrapped longitude), for warm starts and surfaces. */
+  internal: number[];
+  /** One-sigma errors per region and quantity (physical units; intensity by the delta method). */
+  stdErrors: Record<string, Partial<Record<ParamKind, number>>>;
+  correlation: NamedMatrix;
+  resolution: NamedMatrix;
+  /** J^T W J cannot be inverted: some parameter combination is not resolved by the data. */
+  singular: boolean;
+  rank: number;
+  /** How the starts in this minimum stopped. */
+  stopReasons: Partial<Record<StopReason, number>>;
+}
+
+export interface InversionResult {
+  starts: number;
+  seed: number;
+  seconds: number;
+  nData: number;
+  nParams: number;
+  paramNames: string[];
+  /** Starts that did not converge (counted within the minimum they ended nearest). */
+  unconverged: number;
+  minima: Minimum[];
+}
+
+export interface InversionProgress {
+  done: number;
+  total: number;
+  bestMisfit: number;
+}
+
+export interface InversionCallbacks {
+  onProgress?: (p: InversionProgress) => void;
+  shouldCancel?: () => boolean;
+}
+
+/** chi-square over a grid of two parameters. */
+export interface MisfitSurface {
+  xName: string;
+  yName: string;
+  x: number[];
+  y: number[];
+  /** misfit[iy][ix]. */
+  misfit: number[][];
+  mode: 'fixed' | 'profile';
+}
+
+export interface IntervalResult {
+  index: number;
+  result: InversionResult;
+}
