@@ -1,0 +1,13 @@
+/** Upload limits, configurable through the environment. */
+
+/** Largest accepted upload in bytes: UPLOAD_MAX_MB (default 200 MB). */
+export function maxUploadBytes(): number {
+  const mb = Number(process.env.UPLOAD_MAX_MB ?? 200);
+  return Math.round((Number.isFinite(mb) && mb > 0 ? mb : 200) * 1024 * 1024);
+}
+
+export function formatBytes(n: number): string {
+  if (n >= 1024 * 1024) return `${(n / (1024 * 1024)).toFixed(n >= 10 * 1024 * 1024 ? 0 : 1)} MB`;
+  if (n >= 1024) return `${(n / 1024).toFixed(0)} kB`;
+  return `${n} bytes`;
+}
