@@ -12,7 +12,7 @@ export const COMPONENTS = ['Ez', 'Bns', 'Bew'] as const;
 
 export const regionUnknownSchema = z.object({
   region: z.string().min(1),
-  intensity: bounds.refine((b) => b.min >= 0, { message: 'intensity cannot be negative' }),
+  intensity: bounds.refine((b) => b.min > 0, { message: 'the lowest intensity must be above 0 C^2 km^2/s' }),
   /** Moving regions only: the range their centre may take (inside the region's own bounds). */
   lat: bounds.optional(),
   lon: bounds.optional(),

@@ -1,0 +1,43 @@
+/**
+ * Saving cavity models and source grids: validate, then store a new version.
+ * Every problem names its field; nothing stored is changed by a bad edit.
+ */
+import { addGridVersion, createGrid, type GridRow } from '@/db/repo/grids';
+import { addModelVersion, createModel, type ModelRow } from '@/db/repo/models';
+import { badRequest, notFound } from '@/src/server/errors';
+import { resolveCavity } from '@/src/engine/cavity/resolve';
+import { gridProblems, type GridInput } from './grid-spec';
+import type { ModelInput } from './model-spec';
+
+function checkModel(input: ModelInput): void {
+  try {
+    resolveCavity(input.config);
+  } catch (e) {
+    throw badRequest(`config: ${(e as Error).message}`, 'config');
+  }
+}
+
+function checkGrid(input: GridInput): void {
+  const problems = gridProblems(input);
+  if (problems.length) throw badRequest(`${problems[0].field}: ${problems[0].message}`, problems[0].field);
+}
+
+/** A new model (version 1), or with `baseId` the next version of that model. */
+export async function saveModel(networkId: string, userId: string | null, input: ModelInput, baseId?: string): Promise<ModelRow> {
+  checkModel(input);
+  const fields = { name: input.name, notes: input.notes, config: input.config as unknown as Record<string, unknown> };
+  if (!baseId) return createModel(networkId, userId, fields);
+  const row = await addModelVersion(networkId, baseId, userId, fields);
+  if (!row) throw notFound('That cavity model is not in this network.');
+  return row;
+}
+
+export async function saveGrid(networkId: string, userId: string | null, input: GridInput, baseId?: string): Promise<GridRow> {
+  checkGrid(input);
+  const regions = input.regions.map((r) => (r.kind === 'cells' ? { ...r, cells: [...new Set(r.cells)].sort((a, b) => a - b) } : r));
+  const fields = { name: input.name, notes: input.notes, cellSizeDeg: input.cellSizeDeg, regions };
+  if (!baseId) return createGrid(networkId, userId, fields);
+  const row = await addGridVersion(networkId, baseId, userId, fields);
+  if (!row) throw notFound('That source grid is not in this network.');
+  return row;
+}

@@ -1,0 +1,113 @@
+/**
+ * The run driver: solves a run's intervals in order, stores each finished
+ * interval at once (exactly once: unique (run, start), insert-or-ignore), and
+ * writes progress as it goes. It resumes where a crashed attempt stopped —
+ * intervals already stored are skipped — honours cancellation between and
+ * within starts, and on a failure keeps what it finished and says why.
+ *
+ * The solver is passed in (src/runs/solver.ts binds the engine's multi-start
+ * inverter), so the driver knows no physics.
+ */
+import {
+  claimRun, endRun, finishedIntervalStarts, isCancelRequested, reportProgress, saveRunInterval,
+  type RunProgress,
+} from '@/db/repo/runs';
+import { loadRunContext } from './context';
+import { countData, loadObservations } from './observations';
+import type { IntervalCase, IntervalSolver, ObservedSeries, RunContext } from './types';
+
+export interface ExecuteOptions {
+  solve: IntervalSolver;
+  workerId: string;
+  /** Loads one interval's observations (default: from stored spectra/fits). */
+  observe?: (ctx: RunContext, startsAt: Date) => Promise<ObservedSeries[]>;
+  /** Minimum milliseconds between progress writes within an interval. Default 1000. */
+  progressEveryMs?: number;
+  /** Called after each stored interval; throwing here simulates a crash (tests). */
+  afterInterval?: (index: number) => void;
+}
+
+export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'not-runnable';
+
+function eta(startedMs: number, done: number, total: number, doneThisAttempt: number): number | null {
+  if (doneThisAttempt <= 0) return null;
+  const perInterval = (Date.now() - startedMs) / 1000 / doneThisAttempt;
+  return Math.round(perInterval * (total - done));
+}
+
+export async function executeRun(runId: string, opts: ExecuteOptions): Promise<ExecuteOutcome> {
+  const run = await claimRun(runId, opts.workerId);
+  if (!run) return 'not-runnable';
+  const every = opts.progressEveryMs ?? 1000;
+  const observe = opts.observe ?? ((ctx: RunContext, t: Date) => loadObservations(ctx.networkId, ctx.config, t));
+  const total = run.intervalStarts.length;
+  const startsTotal = (run.config as { starts?: number }).starts ?? 1;
+  const progress: RunProgress = { ...run.progress, phase: 'loading the model, grid and stations', intervalsTotal: total, startsTotal, startsDone: 0 };
+  let ctx: RunContext;
+  try {
+    ctx = await loadRunContext(run);
+  } catch (e) {
+    await endRun(runId, 'failed', { ...progress, phase: 'failed' }, `Could not prepare the run: ${(e as Error).message}`);
+    return 'failed';
+  }
+  const finished = await finishedIntervalStarts(runId);
+  progress.intervalsDone = finished.size;
+  const t0 = Date.now();
+  let doneThisAttempt = 0;
+  let cancelled = false;
+  for (let i = 0; i < total; i++) {
+    const startsAt = run.intervalStarts[i];
+    if (finished.has(new Date(startsAt).toISOString())) continue;
+    if (await isCancelRequested(runId)) { cancelled = true; break; }
+    const label = new Date(startsAt).toISOString().slice(0, 16).replace('T', ' ');
+    progress.phase = `interval ${label} UT: loading data`;
+    progress.startsDone = 0;
+    await reportProgress(runId, progress);
+    let outcome;
+    try {
+      const observed = await observe(ctx, new Date(startsAt));
+      const c: IntervalCase = { startsAt, observed };
+      if (countData(observed) === 0) {
+        outcome = { nData: 0, result: { skipped: 'no unflagged data for this interval', minima: [] } };
+      } else {
+        let lastWrite = 0;
+        let stop = false;
+        let pending: Promise<unknown> = Promise.resolve();
+        const t1 = Date.now();
+        outcome = await opts.solve(ctx, c, {
+          onStart(done, all) {
+            progress.startsDone = done;
+            progress.startsTotal = all;
+            progress.phase = `interval ${label} UT: start ${done} of ${all}`;
+            if (Date.now() - lastWrite >= every) {
+              lastWrite = Date.now();
+              pending = pending.then(() => reportProgress(runId, { ...progress })).then((r) => { if (r.cancelRequested) stop = true; });
+            }
+          },
+          shouldStop: () => stop,
+        });
+        await pending;
+        if (outcome !== 'cancelled') outcome = { ...outcome, seconds: (Date.now() - t1) / 1000 };
+      }
+    } catch (e) {
+      const msg = e instanceof Error ? e.message : String(e);
+      await endRun(runId, 'failed', { ...progress, phase: 'failed' }, `Interval ${label} UT failed: ${msg}`);
+      return 'failed';
+    }
+    if (outcome === 'cancelled') { cancelled = true; break; }
+    progress.intervalsDone++;
+    doneThisAttempt++;
+    progress.etaSeconds = eta(t0, progress.intervalsDone, total, doneThisAttempt);
+    progress.phase = `interval ${label} UT finished`;
+    const seconds = (outcome as { seconds?: number }).seconds ?? 0;
+    await saveRunInterval(runId, { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds }, { ...progress });
+    opts.afterInterval?.(i);
+  }
+  if (cancelled) {
+    await endRun(runId, 'cancelled', { ...progress, phase: `cancelled after ${progress.intervalsDone} of ${total} intervals`, etaSeconds: null });
+    return 'cancelled';
+  }
+  const stored = await finishedIntervalStarts(runId);
+  await endRun(runId, 'finished', { ...progress, intervalsDone: stored.size, phase: 'finished', etaSeconds: 0 });
+  return 'finished';
+}

@@ -1,0 +1,117 @@
+/**
+ * Checking and launching a run. `checkLaunch` resolves a configuration
+ * against the stored model, grid and data and lists every problem (each with
+ * the form field it belongs to) plus a preview: data, parameters, starts,
+ * intervals and a rough time. `launchRun` refuses a configuration with
+ * problems, stores the run with its full configuration and engine version,
+ * and queues it — it returns as soon as the job is queued.
+ */
+import { getModel } from '@/db/repo/models';
+import { getGrid } from '@/db/repo/grids';
+import { createRun, type RunRow } from '@/db/repo/runs';
+import { listIntervals } from '@/db/repo/intervals';
+import { listStations } from '@/db/repo/stations';
+import { enqueue } from '@/db/jobs';
+import { badRequest } from '@/src/server/errors';
+import { countParameters, type RunConfig } from './config';
+import { regionSchema, type Region } from './grid-spec';
+import { countData, loadObservations } from './observations';
+import { engineVersion } from './engine-version';
+import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
+
+export type LaunchProblem = { field: string; message: string };
+export interface LaunchPreview {
+  nData: number; nParams: number; starts: number; intervals: number; series: number;
+  estimateSeconds: number; intervalStarts: string[];
+}
+
+/** At most one week of 10-minute intervals per run. */
+export const MAX_INTERVALS = 7 * 144;
+/**
+ * Rough cost of one misfit evaluation per datum and parameter, seconds; about
+ * 40 evaluations per start. A measured figure from `npm run bench` on this
+ * machine class, used only to give the preview an order of magnitude.
+ */
+const SECONDS_PER_DATUM_PARAM_EVAL = 4e-7;
+const EVALS_PER_START = 40;
+
+export async function checkLaunch(networkId: string, config: RunConfig): Promise<{ problems: LaunchProblem[]; preview: LaunchPreview | null }> {
+  const problems: LaunchProblem[] = [];
+  const model = await getModel(networkId, config.modelId);
+  if (!model) problems.push({ field: 'modelId', message: 'that cavity model is not in this network' });
+  const grid = await getGrid(networkId, config.gridId);
+  if (!grid) problems.push({ field: 'gridId', message: 'that source grid is not in this network' });
+  const stations = await listStations(networkId);
+  const known = new Set(stations.map((s) => s.id));
+  config.data.stationIds.forEach((id, i) => {
+    if (!known.has(id)) problems.push({ field: `data.stationIds.${i}`, message: 'that station is not in this network' });
+  });
+  if (config.observables.kind === 'spectrum' && model?.config && (model.config as { model?: string }).model === 'table') {
+    const rows = ((model.config as { table?: { rows: number[][] } }).table?.rows) ?? [];
+    if (rows.length && (config.observables.minHz < rows[0][0] || config.observables.maxHz > rows[rows.length - 1][0])) {
+      problems.push({ field: 'observables.maxHz', message: `the band must lie inside the model table (${rows[0][0]}–${rows[rows.length - 1][0]} Hz)` });
+    }
+  }
+  if (grid) {
+    const regions = new Map<string, Region>(grid.regions.map((r) => regionSchema.parse(r)).map((r) => [r.key, r]));
+    const seen = new Set<string>();
+    config.regions.forEach((u, i) => {
+      const at = `regions.${i}`;
+      const r = regions.get(u.region);
+      if (!r) { problems.push({ field: `${at}.region`, message: `region "${u.region}" is not in this grid version` }); return; }
+      if (seen.has(u.region)) problems.push({ field: `${at}.region`, message: `region "${r.name}" is chosen twice` });
+      seen.add(u.region);
+      if (r.kind === 'cells') {
+        if (r.cells.length === 0) problems.push({ field: `${at}.region`, message: `region "${r.name}" has no cells` });
+        if (u.lat || u.lon) problems.push({ field: `${at}.lat`, message: `region "${r.name}" is made of fixed cells: only its intensity can be free` });
+      } else {
+        for (const k of ['lat', 'lon'] as const) {
+          const b = u[k];
+          const g = r.bounds[k];
+          if (b && (b.min < g.min || b.max > g.max)) {
+            problems.push({ field: `${at}.${k}`, message: `the ${k === 'lat' ? 'latitude' : 'longitude'} range of "${r.name}" (${b.min}..${b.max}) leaves the region's bounds in the grid (${g.min}..${g.max})` });
+          }
+        }
+      }
+    });
+  }
+  const to = new Date(Date.parse(config.data.to) + 1);
+  const rows = await listIntervals({
+    networkId, stationIds: config.data.stationIds.filter((id) => known.has(id)), components: config.data.components,
+    from: new Date(config.data.from), to, includeFlagged: config.data.includeFlagged, limit: 50_000,
+  });
+  const starts = [...new Set(rows.map((r) => r.startsAt.toISOString()))].sort();
+  if (starts.length === 0) {
+    problems.push({ field: 'data.from', message: config.data.includeFlagged
+      ? 'no data for these stations and components in the chosen range'
+      : 'no unflagged data for these stations and components in the chosen range' });
+  } else if (starts.length > MAX_INTERVALS) {
+    problems.push({ field: 'data.to', message: `the range holds ${starts.length} intervals; at most ${MAX_INTERVALS} (one week) per run` });
+  }
+  if (problems.length || !model || !grid) return { problems, preview: null };
+  const observed = await loadObservations(networkId, config, new Date(starts[0]));
+  const nData = countData(observed);
+  const nParams = countParameters(config);
+  if (nData === 0) problems.push({ field: 'observables', message: 'the chosen band or modes hold no data in the first interval' });
+  else if (nParams > nData) problems.push({ field: 'regions', message: `too many free parameters (${nParams}) for the data (${nData} values per interval)` });
+  const estimateSeconds = starts.length * config.starts * EVALS_PER_START * nData * Math.max(1, nParams) * SECONDS_PER_DATUM_PARAM_EVAL;
+  return {
+    problems,
+    preview: { nData, nParams, starts: config.starts, intervals: starts.length, series: observed.length, estimateSeconds, intervalStarts: starts },
+  };
+}
+
+export async function launchRun(networkId: string, userId: string | null, config: RunConfig): Promise<RunRow> {
+  const { problems, preview } = await checkLaunch(networkId, config);
+  if (problems.length || !preview) {
+    const p = problems[0] ?? { field: 'data', message: 'the run cannot start' };
+    throw badRequest(`${p.field}: ${p.message}`, p.field);
+  }
+  const run = await createRun({
+    networkId, name: config.name, config: config as unknown as Record<string, unknown>,
+    modelId: config.modelId, gridId: config.gridId, engineVersion: engineVersion(),
+    intervalStarts: preview.intervalStarts, startsPerInterval: config.starts, createdBy: userId,
+  });
+  await enqueue(RUN_QUEUE, { runId: run.id }, RUN_JOB_OPTIONS);
+  return run;
+}

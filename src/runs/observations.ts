@@ -1,0 +1,83 @@
+/**
+ * Turns stored interval spectra into the observations of one run interval:
+ * the chosen stations and components, bins inside the band (every k-th),
+ * sigma of ln(power) from the Welch segment count.
+ *
+ * A Welch estimate averaged over K segments scatters by about 1/sqrt(K)
+ * relative per bin (Welch 1967, IEEE Trans. Audio Electroacoust. 15, 70;
+ * common practice), so sigmaLog = 1/sqrt(K).
+ */
+import { getIntervalSpectra, listIntervals, type IntervalSpectrum } from '@/db/repo/intervals';
+import type { RunConfig } from './config';
+import type { ObservedSeries } from './types';
+
+const TEN_MINUTES_MS = 600_000;
+
+function bandSeries(s: IntervalSpectrum, minHz: number, maxHz: number, every: number): ObservedSeries | null {
+  const frequencies: number[] = [];
+  const power: number[] = [];
+  let k = 0;
+  for (let i = 0; i < s.frequencies.length; i++) {
+    const f = s.frequencies[i];
+    if (f < minHz || f > maxHz) continue;
+    if (k++ % every !== 0) continue;
+    const p = s.power[i];
+    if (!(p > 0) || !Number.isFinite(p)) continue;
+    frequencies.push(f);
+    power.push(p);
+  }
+  if (frequencies.length === 0) return null;
+  return { station: s.stationCode, component: s.component, frequencies, power, sigmaLog: 1 / Math.sqrt(Math.max(1, s.segments)) };
+}
+
+/** Observations of the interval starting at `startsAt` (spectrum observables). */
+export async function loadSpectrumObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedSeries[]> {
+  const o = config.observables;
+  if (o.kind !== 'spectrum') throw new Error('loadSpectrumObservations needs spectrum observables');
+  const spectra = await getIntervalSpectra({
+    networkId, stationIds: config.data.stationIds, components: config.data.components,
+    from: startsAt, to: new Date(startsAt.getTime() + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
+  });
+  return spectra.map((s) => bandSeries(s, o.minHz, o.maxHz, o.every)).filter((s): s is ObservedSeries => s !== null);
+}
+
+/**
+ * Observations from stored mode fits: the fitted peak power of each mode
+ * (amplitude plus background at the mode frequency) as a one-bin spectrum per
+ * mode, sigma from the amplitude error relative to the peak.
+ */
+export async function loadModeObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedSeries[]> {
+  const o = config.observables;
+  if (o.kind !== 'modes') throw new Error('loadModeObservations needs mode observables');
+  const rows = await listIntervals({
+    networkId, stationIds: config.data.stationIds, components: config.data.components,
+    from: startsAt, to: new Date(startsAt.getTime() + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
+  });
+  const out: ObservedSeries[] = [];
+  for (const r of rows) {
+    if (!r.fit) continue;
+    const modes = [...r.fit.modes].sort((a, b) => a.frequency - b.frequency).slice(0, o.modes);
+    const frequencies: number[] = [];
+    const power: number[] = [];
+    let relErr = 0;
+    for (const m of modes) {
+      const peak = m.amplitude + r.fit.background.b0 + r.fit.background.b1 * m.frequency;
+      if (!(peak > 0)) continue;
+      frequencies.push(m.frequency);
+      power.push(peak);
+      relErr = Math.max(relErr, (m.errors?.amplitude ?? 0) / peak);
+    }
+    if (frequencies.length) out.push({ station: r.stationCode, component: r.component, frequencies, power, sigmaLog: Math.max(0.02, relErr) });
+  }
+  return out;
+}
+
+export function loadObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedSeries[]> {
+  return config.observables.kind === 'spectrum'
+    ? loadSpectrumObservations(networkId, config, startsAt)
+    : loadModeObservations(networkId, config, startsAt);
+}
+
+export function countData(observed: ObservedSeries[]): number {
+  return observed.reduce((n, s) => n + s.power.length, 0);
+}

@@ -1,0 +1,10 @@
+/**
+ * Queue names and job options of the run jobs. A run job is retried with the
+ * same run id after a crash (the driver resumes from the stored intervals);
+ * an attempt that stops reporting expires and is retried.
+ */
+export const RUN_QUEUE = 'run-inversion';
+export const SURFACE_QUEUE = 'misfit-surface';
+
+export const RUN_JOB_OPTIONS = { retryLimit: 5, retryDelay: 5, retryBackoff: true, expireInSeconds: 6 * 3600 };
+export const SURFACE_JOB_OPTIONS = { retryLimit: 2, retryDelay: 5, expireInSeconds: 1800 };
