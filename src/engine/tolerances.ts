@@ -6,7 +6,25 @@
 
 // ── Special functions (complex-degree Legendre, digamma) ─────────────────────
 
+/** Digamma: shift Re z up to this before the asymptotic series (7 Bernoulli terms give ~1e-16). */
+export const DIGAMMA_ASYMPTOTIC_MIN = 12;
+/** Legendre series: stop when the next term is below this fraction of the running sum. */
+export const LEGENDRE_SERIES_REL_TOL = 1e-17;
+/** Legendre series: hard cap on the number of terms (never reached for |nu| < 100 and z or w <= 1/2). */
+export const LEGENDRE_MAX_TERMS = 4000;
+
 // ── Kernel tables and interpolation ──────────────────────────────────────────
+
+/** Kernel tables: theta grid step, degrees (quintic Hermite in log power; see kernel-table.ts). */
+export const KERNEL_GRID_STEP_DEG = 0.1;
+/** Kernel tables: smallest tabulated distance, degrees; closer sources are clamped to it. */
+export const KERNEL_MIN_THETA_DEG = 0.1;
+/** Kernel tables: promised relative accuracy of interpolated power vs direct evaluation for theta >= 0.5 deg. */
+export const KERNEL_INTERP_REL_TOL = 1e-4;
+/** Kernel tables: smallest distance (degrees) at which the accuracy above is promised. */
+export const KERNEL_ACCURATE_FROM_DEG = 0.5;
+/** Kernel tables: how many (cavity, band) tables the in-process cache keeps. */
+export const KERNEL_CACHE_SIZE = 6;
 
 // ── Inverse problem (Levenberg–Marquardt, multi-start, minima) ───────────────
 

@@ -1,0 +1,2 @@
+export { caseSchema, forwardCaseSchema, invertCaseSchema, bandSchema, stationSchema, sourceSchema, observedSchema, unknownSchema } from './schema';
+export type { CaseFile } from './schema';
