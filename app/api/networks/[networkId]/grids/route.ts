@@ -1,0 +1,18 @@
+import { requireNetworkAction } from '@/src/auth/permissions';
+import { json, parseJson, route } from '@/src/server/route';
+import { listGrids } from '@/db/repo/grids';
+import { gridInputSchema } from '@/src/runs/grid-spec';
+import { saveGrid } from '@/src/runs/catalogue';
+
+type P = { networkId: string };
+
+export const GET = route<P>(async (_req, { params }) => {
+  await requireNetworkAction(params.networkId, 'network.read');
+  return json({ grids: await listGrids(params.networkId) });
+});
+
+export const POST = route<P>(async (req, { params }) => {
+  const { user } = await requireNetworkAction(params.networkId, 'grids.edit');
+  const body = await parseJson(req, gridInputSchema);
+  return json({ grid: await saveGrid(params.networkId, user.id, body) }, 201);
+});

@@ -1,0 +1,18 @@
+import { requireNetworkAction } from '@/src/auth/permissions';
+import { json, parseJson, route } from '@/src/server/route';
+import { listModels } from '@/db/repo/models';
+import { modelInputSchema } from '@/src/runs/model-spec';
+import { saveModel } from '@/src/runs/catalogue';
+
+type P = { networkId: string };
+
+export const GET = route<P>(async (_req, { params }) => {
+  await requireNetworkAction(params.networkId, 'network.read');
+  return json({ models: await listModels(params.networkId) });
+});
+
+export const POST = route<P>(async (req, { params }) => {
+  const { user } = await requireNetworkAction(params.networkId, 'models.edit');
+  const body = await parseJson(req, modelInputSchema);
+  return json({ model: await saveModel(params.networkId, user.id, body) }, 201);
+});
