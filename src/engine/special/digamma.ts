@@ -18,7 +18,8 @@ export function digammaInto(re: number, im: number, out: Float64Array | number[]
     // psi(z) = psi(1 - z) - pi cot(pi z); cot(x + iy) = (sin 2x - i sinh 2y) / (cosh 2y - cos 2x)
     const x2 = 2 * Math.PI * re;
     const y2 = 2 * Math.PI * im;
-    const den = Math.cosh(y2) - Math.cos(x2);
+    // cosh 2y - cos 2x = 2 (sinh^2 y + sin^2 x), without cancellation near the poles
+    const den = 2 * (Math.sinh(Math.PI * im) ** 2 + Math.sin(Math.PI * re) ** 2);
     accRe -= (Math.PI * Math.sin(x2)) / den;
     accIm -= (Math.PI * -Math.sinh(y2)) / den;
     re = 1 - re;

@@ -45,7 +45,7 @@ export function prepareDegree(nuRe: number, nuIm: number): LegendreDegree {
   // pi cot(pi nu), cot(x + iy) = (sin 2x - i sinh 2y) / (cosh 2y - cos 2x)
   const x2 = 2 * Math.PI * nuRe;
   const y2 = 2 * Math.PI * nuIm;
-  const den = Math.cosh(y2) - Math.cos(x2);
+  const den = 2 * (Math.sinh(Math.PI * nuIm) ** 2 + Math.sin(Math.PI * nuRe) ** 2); // = cosh 2y - cos 2x
   const pcRe = (Math.PI * Math.sin(x2)) / den;
   const pcIm = (-Math.PI * Math.sinh(y2)) / den;
   // sin(pi nu) = sin(x) cosh(y) + i cos(x) sinh(y)
