@@ -1,0 +1,62 @@
+/**
+ * From grouped start outcomes to reported minima: misfit, reduced chi-square,
+ * counts, physical parameters, standard errors from (J^T W J)^-1 (optionally
+ * times the reduced chi-square), correlation and resolution matrices, and
+ * the singular flag.
+ */
+import { covarianceFromJtJ } from '@/src/engine/optim/covariance';
+import type { StopReason } from '@/src/engine/optim/types';
+import { groupMinima } from './grouping';
+import { physicalParams, sourcesOf, type Parameterisation } from './parameters';
+import type { StartOutcome } from './run-starts';
+import type { Minimum, ParamKind } from './types';
+
+function square(a: Float64Array, n: number): number[][] {
+  return Array.from({ length: n }, (_, i) => Array.from(a.subarray(i * n, i * n + n)));
+}
+
+export function buildMinima(
+  outcomes: StartOutcome[],
+  par: Parameterisation,
+  nData: number,
+  scaleErrors: boolean,
+): Minimum[] {
+  const n = par.slots.length;
+  const periodic = Uint8Array.from(par.slots, (s) => (s.kind === 'lon' ? 1 : 0));
+  const byIndex = new Map(outcomes.map((o) => [o.index, o]));
+  const groups = groupMinima(outcomes, { lower: par.lower, upper: par.upper, periodic });
+  const dof = Math.max(1, nData - n);
+  return groups.map((g) => {
+    const best = byIndex.get(g.best.index)!;
+    const reducedChi2 = best.chi2 / dof;
+    const cov = covarianceFromJtJ(best.jtj, n, { scale: scaleErrors ? reducedChi2 : 1 });
+    const physical = physicalParams(par, best.params);
+    const stdErrors: Record<string, Partial<Record<ParamKind, number>>> = {};
+    par.slots.forEach((s, j) => {
+      const e = cov.stdErrors[j];
+      const region = par.regions[s.region].name;
+      // intensity is optimised as ln I: sigma_I = I sigma_lnI (delta method)
+      (stdErrors[region] ??= {})[s.kind] = s.kind === 'intensity' ? physical[s.name] * e : e;
+    });
+    const stopReasons: Partial<Record<StopReason, number>> = {};
+    for (const m of g.members) {
+      const r = byIndex.get(m.index)!.stopReason;
+      stopReasons[r] = (stopReasons[r] ?? 0) + 1;
+    }
+    return {
+      misfit: best.chi2,
+      reducedChi2,
+      count: g.members.length,
+      startIndexes: g.members.map((m) => m.index),
+      sources: sourcesOf(par, best.params),
+      params: physical,
+      internal: Array.from(best.params),
+      stdErrors,
+      correlation: { names: par.names, matrix: square(cov.correlation, n) },
+      resolution: { names: par.names, matrix: square(cov.resolution, n) },
+      singular: cov.singular,
+      rank: cov.rank,
+      stopReasons,
+    };
+  });
+}

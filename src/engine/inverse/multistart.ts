@@ -1,0 +1,92 @@
+/**
+ * Multi-start driver: runs LM from `starts` reproducible start points (warm
+ * starts first, then the seeded quasi-random sequence) in the calling thread
+ * (threads = 1) or on the worker pool, with progress and cancellation
+ * callbacks. Outcomes come back ordered by start index, so grouping does not
+ * depend on the thread count or on scheduling.
+ */
+import { availableParallelism } from 'node:os';
+import type { LeastSquaresProblem, LmOptions } from '@/src/engine/optim/types';
+import { InversionInputError } from './errors';
+import { runPoolTask } from './pool';
+import type { ProblemRecipe } from './recipes';
+import { runStarts, type StartOutcome, type StartPlan } from './run-starts';
+import type { InversionCallbacks } from './types';
+
+export interface MultiStartOptions {
+  /** Number of starts (default 64). */
+  starts: number;
+  /** Seed of the quasi-random start sequence (default 1). */
+  seed: number;
+  /** Worker threads; 1 runs in the calling thread (default: all cores). */
+  threads: number;
+  /** Explicit start points (internal units) used for the first indexes. */
+  warm: number[][];
+  /** Options of each LM run. */
+  lm: Partial<LmOptions>;
+  /** Scale standard errors by the reduced chi-square (default false: sigmas are trusted). */
+  scaleErrors: boolean;
+}
+
+export function resolveMultiStartOptions(o: Partial<MultiStartOptions> = {}): MultiStartOptions {
+  const r: MultiStartOptions = {
+    starts: o.starts ?? 64,
+    seed: o.seed ?? 1,
+    threads: o.threads ?? availableParallelism(),
+    warm: o.warm ?? [],
+    lm: o.lm ?? {},
+    scaleErrors: o.scaleErrors ?? false,
+  };
+  if (!Number.isInteger(r.starts) || r.starts < 1) throw new InversionInputError(`starts must be a whole number >= 1, got ${r.starts}`);
+  if (!Number.isInteger(r.seed) || r.seed < 0) throw new InversionInputError(`seed must be a whole number >= 0, got ${r.seed}`);
+  if (!Number.isInteger(r.threads) || r.threads < 1) throw new InversionInputError(`threads must be a whole number >= 1, got ${r.threads}`);
+  if (r.warm.length > r.starts) r.warm = r.warm.slice(0, r.starts);
+  return r;
+}
+
+let runCounter = 0;
+
+export async function multiStart(
+  recipe: ProblemRecipe,
+  problem: LeastSquaresProblem,
+  options: MultiStartOptions,
+  callbacks: InversionCallbacks = {},
+): Promise<StartOutcome[]> {
+  const total = options.starts;
+  const plan: StartPlan = { seed: options.seed, warm: options.warm, lm: options.lm };
+  let done = 0;
+  let bestMisfit = Infinity;
+  const note = (o: StartOutcome) => {
+    done++;
+    if (o.chi2 < bestMisfit) bestMisfit = o.chi2;
+    callbacks.onProgress?.({ done, total, bestMisfit });
+  };
+  const indexes = Array.from({ length: total }, (_, i) => i);
+  if (options.threads === 1) {
+    return runStarts(problem, indexes, plan, callbacks.shouldCancel, note);
+  }
+  const cancel = new SharedArrayBuffer(4);
+  const flag = new Int32Array(cancel);
+  const key = `${process.pid}:${++runCounter}`;
+  const chunk = Math.max(1, Math.ceil(total / (options.threads * 4)));
+  const chunks: number[][] = [];
+  for (let i = 0; i < total; i += chunk) chunks.push(indexes.slice(i, i + chunk));
+  const timer = callbacks.shouldCancel
+    ? setInterval(() => {
+        if (callbacks.shouldCancel!()) Atomics.store(flag, 0, 1);
+      }, 20)
+    : null;
+  try {
+    const parts = await Promise.all(
+      chunks.map((ix) =>
+        runPoolTask(options.threads, { key, recipe, plan, indexes: ix, cancel }).then((res) => {
+          res.forEach(note);
+          return res;
+        }),
+      ),
+    );
+    return parts.flat().sort((a, b) => a.index - b.index);
+  } finally {
+    if (timer) clearInterval(timer);
+  }
+}

@@ -1,0 +1,36 @@
+/**
+ * A shared worker-thread pool (piscina) for multi-start runs. Workers load
+ * TypeScript through pool-bootstrap.mjs (tsx's ESM API). The pool is kept
+ * between runs (an interval series reuses it) and closed by
+ * closeInversionPool().
+ */
+import { Piscina } from 'piscina';
+import type { PoolTask } from './pool-worker';
+import type { StartOutcome } from './run-starts';
+
+let pool: Piscina | null = null;
+let poolThreads = 0;
+
+export function inversionPool(threads: number): Piscina {
+  if (pool && poolThreads === threads) return pool;
+  if (pool) void pool.destroy();
+  pool = new Piscina({
+    filename: new URL('./pool-bootstrap.mjs', import.meta.url).href,
+    minThreads: threads,
+    maxThreads: threads,
+    idleTimeout: 60_000,
+  });
+  poolThreads = threads;
+  return pool;
+}
+
+export function runPoolTask(threads: number, task: PoolTask): Promise<StartOutcome[]> {
+  return inversionPool(threads).run(task) as Promise<StartOutcome[]>;
+}
+
+export async function closeInversionPool(): Promise<void> {
+  const p = pool;
+  pool = null;
+  poolThreads = 0;
+  if (p) await p.destroy();
+}

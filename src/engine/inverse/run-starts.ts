@@ -1,0 +1,62 @@
+/**
+ * Runs Levenberg–Marquardt from a list of start indexes on one problem, in
+ * the calling thread. Used directly when threads = 1 and inside each pool
+ * worker otherwise; start i's point depends only on (seed, i), so results do
+ * not depend on scheduling.
+ */
+import { levenbergMarquardt } from '@/src/engine/optim/levenberg-marquardt';
+import type { LeastSquaresProblem, LmOptions, StopReason } from '@/src/engine/optim/types';
+import { startPoint } from './starts';
+
+export interface StartOutcome {
+  index: number;
+  params: Float64Array;
+  chi2: number;
+  converged: boolean;
+  stopReason: StopReason;
+  iterations: number;
+  evaluations: number;
+  jtj: Float64Array;
+}
+
+export interface StartPlan {
+  seed: number;
+  /** Explicit start points used for the first indexes (warm starts); quasi-random after them. */
+  warm?: number[][];
+  lm?: Partial<LmOptions>;
+}
+
+export function startFor(plan: StartPlan, index: number, problem: LeastSquaresProblem): Float64Array {
+  const warm = plan.warm ?? [];
+  if (index < warm.length) return Float64Array.from(warm[index]);
+  const n = problem.nParams;
+  const lo = problem.lower ?? new Float64Array(n).fill(-Infinity);
+  const hi = problem.upper ?? new Float64Array(n).fill(Infinity);
+  return startPoint(index - warm.length, plan.seed, lo, hi);
+}
+
+export function runStarts(
+  problem: LeastSquaresProblem,
+  indexes: number[],
+  plan: StartPlan,
+  shouldStop?: () => boolean,
+  onEach?: (o: StartOutcome) => void,
+): StartOutcome[] {
+  const out: StartOutcome[] = [];
+  for (const index of indexes) {
+    const r = levenbergMarquardt(problem, startFor(plan, index, problem), plan.lm ?? {}, { shouldStop });
+    const o: StartOutcome = {
+      index,
+      params: Float64Array.from(r.params),
+      chi2: r.chi2,
+      converged: r.converged,
+      stopReason: r.stopReason,
+      iterations: r.iterations,
+      evaluations: r.evaluations,
+      jtj: r.jtj,
+    };
+    out.push(o);
+    onEach?.(o);
+  }
+  return out;
+}
