@@ -21,3 +21,17 @@ export async function flagInterval(networkId: string, intervalId: string, userId
 
 export const listIntervals = repo.listIntervals;
 export const getIntervalSpectra = repo.getIntervalSpectra;
+
+/** Spectra cut to a frequency band (keeps responses small for the day views). */
+export async function daySpectra(filter: repo.IntervalFilter, minHz: number, maxHz: number) {
+  const rows = await repo.getIntervalSpectra({ ...filter, limit: filter.limit ?? 3 * 24 * 6 * 2 });
+  return rows.map((s) => {
+    let lo = 0;
+    while (lo < s.frequencies.length && s.frequencies[lo] < minHz) lo++;
+    let hi = lo;
+    while (hi < s.frequencies.length && s.frequencies[hi] <= maxHz) hi++;
+    return { ...s, frequencies: s.frequencies.slice(lo, hi), power: s.power.slice(lo, hi) };
+  });
+}
+
+export const listStationDays = repo.listStationDays;

@@ -48,3 +48,9 @@ export async function deleteStation(networkId: string, stationId: string): Promi
 }
 
 export const listStations = repo.listStations;
+
+/** The station, or null when the id is malformed or not in this network (pages turn that into a 404). */
+export async function getStationOrNull(networkId: string, stationId: string): Promise<repo.Station | null> {
+  if (!/^[0-9a-f-]{36}$/i.test(stationId)) return null;
+  return repo.getStation(networkId, stationId);
+}

@@ -1,0 +1,189 @@
+'use client';
+/**
+ * One station, one component, one UTC day: spectrogram (interval × frequency),
+ * mode frequency / Q / intensity over time, the intervals table with quality
+ * flags and flagging, and the spectrum of a chosen interval with its fit.
+ */
+import { useMemo, useState } from 'react';
+import useSWR from 'swr';
+import * as Plot from '@observablehq/plot';
+import { PlotFigure } from '@/src/web/charts/PlotFigure';
+import { Badge, Button, DataTable, EmptyState, FormField, Notice, inputClass } from '@/src/web/ui';
+import { api, ApiFailure, displayUnit, fetcher, toDisplayPower } from './api';
+
+interface Mode { frequency: number; amplitude: number; halfWidth: number; q: number; errors: { frequency: number; amplitude: number; halfWidth: number } }
+interface Fit { modes: Mode[]; background: { b0: number; b1: number }; misfit: number }
+interface Interval {
+  id: string; component: string; startsAt: string; rejectedShare: number; qualityFlags: string[];
+  flagReason: string | null; fit: Fit | null;
+}
+interface Spectrum { intervalId: string; startsAt: string; frequencies: number[]; power: number[]; segments: number }
+
+const SLOT_MS = 600_000;
+
+/** The fitted model P(f) = sum A_n / (1 + ((f - f_n)/g_n)^2) + b0 + b1 f (Lorentzian modes plus linear background). */
+export function fitModel(fit: Fit, f: number): number {
+  let p = fit.background.b0 + fit.background.b1 * f;
+  for (const m of fit.modes) p += m.amplitude / (1 + ((f - m.frequency) / m.halfWidth) ** 2);
+  return p;
+}
+
+export function DayView({ networkId, stationId, components, days, canFlag }: {
+  networkId: string; stationId: string; components: string[]; days: string[]; canFlag: boolean;
+}) {
+  const [day, setDay] = useState(days[0] ?? '');
+  const [component, setComponent] = useState(components[0] ?? 'Ez');
+  const [chosen, setChosen] = useState<string | null>(null);
+  const q = `station=${stationId}&day=${day}&component=${component}&flagged=include`;
+  const base = `/api/networks/${networkId}`;
+  const list = useSWR<{ intervals: Interval[] }>(day ? `${base}/intervals?${q}` : null, fetcher);
+  const spec = useSWR<{ spectra: Spectrum[] }>(day ? `${base}/intervals/spectra?${q}&minHz=3&maxHz=45` : null, fetcher);
+  const unit = displayUnit(component);
+  const dayStart = Date.parse(`${day}T00:00:00Z`);
+  const intervals = useMemo(() => list.data?.intervals ?? [], [list.data]);
+
+  const raster = useMemo(() => {
+    const spectra = spec.data?.spectra ?? [];
+    if (!spectra.length) return null;
+    const freqs = spectra[0].frequencies;
+    const ny = freqs.length;
+    const nx = 144;
+    const values = new Float64Array(nx * ny).fill(NaN);
+    for (const s of spectra) {
+      const col = Math.floor((Date.parse(s.startsAt) - dayStart) / SLOT_MS);
+      if (col < 0 || col >= nx) continue;
+      for (let j = 0; j < ny && j < s.power.length; j++) {
+        const p = toDisplayPower(component, s.power[j]);
+        values[(ny - 1 - j) * nx + col] = p > 0 ? Math.log10(p) : NaN;
+      }
+    }
+    return { values, nx, ny, fMin: freqs[0], fMax: freqs[ny - 1] };
+  }, [spec.data, dayStart, component]);
+
+  const modePoints = useMemo(() => intervals.flatMap((iv) => (iv.fit?.modes ?? []).slice(0, 4).map((m, n) => ({
+    t: new Date(iv.startsAt), mode: `mode ${n + 1}`, f: m.frequency, df: m.errors.frequency, q: m.q,
+    a: toDisplayPower(component, m.amplitude), flagged: !!iv.flagReason,
+  }))), [intervals, component]);
+
+  const selected = intervals.find((i) => i.id === chosen) ?? null;
+  const selectedSpectrum = spec.data?.spectra.find((s) => s.intervalId === chosen) ?? null;
+
+  async function flag(iv: Interval) {
+    try {
+      if (iv.flagReason) await api(`${base}/intervals/${iv.id}`, { method: 'PATCH', jsonBody: { flagged: false } });
+      else {
+        const reason = window.prompt('Why should runs leave this interval out?', 'local interference');
+        if (!reason) return;
+        await api(`${base}/intervals/${iv.id}`, { method: 'PATCH', jsonBody: { flagged: true, reason } });
+      }
+      await list.mutate();
+    } catch (e) {
+      window.alert(e instanceof ApiFailure ? e.message : String(e));
+    }
+  }
+
+  if (!days.length) {
+    return <EmptyState title="No intervals yet">Upload a station file or set up a push token; processed intervals appear here by UTC day.</EmptyState>;
+  }
+  const rows = intervals.map((iv) => ({
+    id: iv.id, startsAt: iv.startsAt, rejected: iv.rejectedShare * 100,
+    f1: iv.fit?.modes[0]?.frequency, q1: iv.fit?.modes[0]?.q, f2: iv.fit?.modes[1]?.frequency, misfit: iv.fit?.misfit,
+    quality: iv.qualityFlags.join(', '), flag: iv.flagReason ?? '', raw: iv,
+  }));
+  const timeX = { type: 'utc' as const, domain: [new Date(dayStart), new Date(dayStart + 86_400_000)] };
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap gap-3">
+        <FormField id="dv-day" label="UTC day">
+          <select className={inputClass} value={day} onChange={(e) => { setDay(e.target.value); setChosen(null); }}>
+            {days.map((d) => <option key={d} value={d}>{d}</option>)}
+          </select>
+        </FormField>
+        <FormField id="dv-comp" label="Component">
+          <select className={inputClass} value={component} onChange={(e) => { setComponent(e.target.value); setChosen(null); }}>
+            {components.map((c) => <option key={c} value={c}>{c}</option>)}
+          </select>
+        </FormField>
+      </div>
+      {list.error ? <Notice tone="error">{String(list.error.message)}</Notice> : null}
+      {raster ? (
+        <PlotFigure title={`Spectrogram, ${component}, ${day}`} xLabel="Interval start (UTC)" yLabel="Frequency (Hz)" height={300}
+          caption={`Colour: log10 of power spectral density in ${unit}; gaps are intervals without data.`}
+          options={{
+            x: timeX, y: { domain: [raster.fMin, raster.fMax] },
+            color: { type: 'linear', scheme: 'viridis', legend: true, label: `log10 PSD (${unit})` },
+            marks: [Plot.raster(raster.values, {
+              width: raster.nx, height: raster.ny, x1: dayStart, x2: dayStart + 86_400_000, y1: raster.fMax, y2: raster.fMin,
+              imageRendering: 'pixelated',
+            } as Plot.RasterOptions)],
+          }} />
+      ) : <p className="text-sm text-muted">{spec.isLoading ? 'Loading spectra…' : 'No spectra on this day.'}</p>}
+      {modePoints.length ? (
+        <div className="grid gap-6 lg:grid-cols-3">
+          <PlotFigure title="Mode frequencies" xLabel="Interval start (UTC)" yLabel="Frequency (Hz)" height={240}
+            options={{ x: timeX, color: { legend: true }, marks: [
+              Plot.ruleX(modePoints, { x: 't', y1: (d: { f: number; df: number }) => d.f - d.df, y2: (d: { f: number; df: number }) => d.f + d.df, stroke: 'mode', strokeOpacity: 0.4 }),
+              Plot.dot(modePoints, { x: 't', y: 'f', fill: 'mode', r: 2 }),
+            ] }} />
+          <PlotFigure title="Q-factors" xLabel="Interval start (UTC)" yLabel="Q (dimensionless)" height={240}
+            options={{ x: timeX, marks: [Plot.dot(modePoints, { x: 't', y: 'q', fill: 'mode', r: 2 })] }} />
+          <PlotFigure title="Mode intensities" xLabel="Interval start (UTC)" yLabel={`Peak amplitude (${unit})`} height={240}
+            options={{ x: timeX, y: { type: 'log' }, marks: [Plot.dot(modePoints.filter((d) => d.a > 0), { x: 't', y: 'a', fill: 'mode', r: 2 })] }} />
+        </div>
+      ) : null}
+      {selected && selectedSpectrum ? (
+        <SpectrumWithFit interval={selected} spectrum={selectedSpectrum} component={component} unit={unit} />
+      ) : null}
+      <DataTable caption={`Intervals, ${component}, ${day}`} rows={rows} initialSort={{ key: 'startsAt' }}
+        empty={<EmptyState title="No intervals for this component on this day">Pick another day or component.</EmptyState>}
+        columns={[
+          { key: 'startsAt', header: 'Start', time: true },
+          { key: 'rejected', header: 'Rejected', unit: '%', numeric: true, digits: 1 },
+          { key: 'f1', header: 'f₁', unit: 'Hz', numeric: true, digits: 2 },
+          { key: 'q1', header: 'Q₁', numeric: true, digits: 1 },
+          { key: 'f2', header: 'f₂', unit: 'Hz', numeric: true, digits: 2 },
+          { key: 'misfit', header: 'Fit misfit', numeric: true, digits: 1 },
+          { key: 'quality', header: 'Quality', render: (r) => (r.quality ? <Badge tone="storm">{String(r.quality)}</Badge> : <Badge tone="ok">clean</Badge>) },
+          { key: 'flag', header: 'Flag', render: (r) => (r.flag ? <Badge tone="danger">{String(r.flag)}</Badge> : '') },
+          { key: 'id', header: '', sortable: false, render: (r) => (
+            <span className="flex gap-2">
+              <Button size="sm" tone="quiet" onClick={() => setChosen(String(r.id))}>Spectrum</Button>
+              {canFlag ? <Button size="sm" tone="secondary" onClick={() => flag(r.raw as Interval)}>{r.flag ? 'Unflag' : 'Flag'}</Button> : null}
+            </span>) },
+        ]} />
+    </div>
+  );
+}
+
+function SpectrumWithFit({ interval, spectrum, component, unit }: { interval: Interval; spectrum: Spectrum; component: string; unit: string }) {
+  const pts = spectrum.frequencies.map((f, i) => ({ f, p: toDisplayPower(component, spectrum.power[i]) })).filter((d) => d.p > 0);
+  const fit = interval.fit;
+  const model = fit ? spectrum.frequencies.map((f) => ({ f, p: toDisplayPower(component, fitModel(fit, f)) })).filter((d) => d.p > 0) : [];
+  return (
+    <div className="space-y-2">
+      <PlotFigure title={`Spectrum and fit, ${component}, interval from ${interval.startsAt.slice(11, 16)} UTC`}
+        xLabel="Frequency (Hz)" yLabel={`PSD (${unit})`} height={300}
+        caption={`Measured spectrum (grey), Lorentzian fit (teal), fitted mode frequencies (dashed). ${spectrum.segments} Welch segments.`}
+        options={{ y: { type: 'log' }, marks: [
+          Plot.line(pts, { x: 'f', y: 'p', stroke: 'var(--c-muted, grey)' }),
+          Plot.line(model, { x: 'f', y: 'p', stroke: 'var(--c-accent, teal)', strokeWidth: 2 }),
+          ...(fit ? [Plot.ruleX(fit.modes.map((m) => m.frequency), { strokeDasharray: '3,3', strokeOpacity: 0.6 })] : []),
+        ] }} />
+      {fit ? (
+        <DataTable caption="Fitted modes" rows={fit.modes.map((m, i) => ({ id: i + 1, n: i + 1, f: m.frequency, df: m.errors.frequency,
+          g: m.halfWidth, dg: m.errors.halfWidth, q: m.q, a: toDisplayPower(component, m.amplitude), da: toDisplayPower(component, m.errors.amplitude) }))}
+          columns={[
+            { key: 'n', header: 'Mode', numeric: true, digits: 0 },
+            { key: 'f', header: 'Frequency', unit: 'Hz', numeric: true, digits: 3 },
+            { key: 'df', header: '± frequency', unit: 'Hz', numeric: true, digits: 3 },
+            { key: 'g', header: 'Half-width', unit: 'Hz', numeric: true, digits: 3 },
+            { key: 'dg', header: '± half-width', unit: 'Hz', numeric: true, digits: 3 },
+            { key: 'q', header: 'Q', numeric: true, digits: 2 },
+            { key: 'a', header: 'Amplitude', unit, numeric: true, digits: 3 },
+            { key: 'da', header: '± amplitude', unit, numeric: true, digits: 3 },
+          ]} />
+      ) : <Notice tone="storm">No mode fit for this interval ({interval.qualityFlags.join(', ') || 'not fitted'}).</Notice>}
+    </div>
+  );
+}
