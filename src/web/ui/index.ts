@@ -1,0 +1,11 @@
+export { Button, ButtonLink, buttonClass } from './Button';
+export { Card, Panel } from './Card';
+export { EmptyState } from './EmptyState';
+export { FormField, inputClass } from './FormField';
+export { ProgressBar, formatDuration } from './ProgressBar';
+export { Notice, Caution } from './Notice';
+export { Badge } from './Badge';
+export { formatNumber, formatUtc, formatUtcDate } from './format';
+export { cx } from './cx';
+export { DataTable, type DataColumn } from './DataTable';
+export { Tabs, type TabItem } from './Tabs';
