@@ -1,0 +1,34 @@
+/**
+ * Result types of a Lorentzian mode fit, shared by the command line, the
+ * worker and the interface. Model (Ondrášková et al. 2007, Radio Science 42):
+ *   P(f) = sum_n A_n / (1 + ((f - f_n) / g_n)^2) + b0 + b1 f,
+ * g_n the half-width at half maximum, Q_n = f_n / (2 g_n).
+ */
+
+export interface FittedMode {
+  frequency: number;
+  amplitude: number;
+  halfWidth: number;
+  q: number;
+  /** One-standard-deviation errors from the fit covariance. */
+  errors: { frequency: number; amplitude: number; halfWidth: number };
+}
+
+/** Quality flags a fit can raise (names shared with the interval flags). */
+export type FitFlag = 'fit-failed' | 'implausible-modes';
+
+export interface ModeFit {
+  modes: FittedMode[];
+  background: { b0: number; b1: number };
+  /** chi-square of the final weighted fit. */
+  misfit: number;
+  /** Bins used minus parameters. */
+  dof: number;
+  band: { minHz: number; maxHz: number };
+  converged: boolean;
+  flags: FitFlag[];
+}
+
+/** Parameter vector layout: [f_1, A_1, g_1, ..., f_N, A_N, g_N, b0, b1]. */
+export const PARAMS_PER_MODE = 3;
+export const paramCount = (modes: number) => PARAMS_PER_MODE * modes + 2;
