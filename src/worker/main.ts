@@ -5,7 +5,7 @@
  */
 import { jobs } from './registry';
 import { serveJobs } from './run';
-import { closeDb } from '@/db/client';
+import { closeDatabase } from '@/db/lifecycle';
 
 async function main(): Promise<void> {
   if (!process.env.DATABASE_URL) {
@@ -21,7 +21,7 @@ async function main(): Promise<void> {
     console.log(`[worker] ${signal}: finishing running jobs…`);
     handle
       .stop(60_000)
-      .then(() => closeDb())
+      .then(() => closeDatabase())
       .then(() => {
         console.log('[worker] stopped');
         process.exit(0);

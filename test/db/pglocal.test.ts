@@ -2,7 +2,6 @@ import { afterAll, describe, expect, it } from 'vitest';
 import postgres from 'postgres';
 import { migrate } from '@/db/migrate';
 import { resetDatabase, closeDatabase } from '../helpers/db';
-import { getSql } from '@/db/client';
 
 // The globalSetup (or `npm test`) provides DATABASE_URL pointing at a loopback server.
 describe('test database', () => {
@@ -26,7 +25,7 @@ describe('test database', () => {
   });
 
   it('resetDatabase() empties an application table and leaves the schema in place', async () => {
-    const sql = getSql();
+    const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
     await sql`CREATE TABLE IF NOT EXISTS infra_reset_probe (id serial primary key, label text)`;
     await sql`INSERT INTO infra_reset_probe (label) VALUES ('a'), ('b')`;
     await resetDatabase();
@@ -36,5 +35,6 @@ describe('test database', () => {
     const [{ id }] = await sql<{ id: number }[]>`INSERT INTO infra_reset_probe (label) VALUES ('c') RETURNING id`;
     expect(id).toBe(1);
     await sql`DROP TABLE infra_reset_probe`;
+    await sql.end();
   });
 });

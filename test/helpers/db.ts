@@ -6,7 +6,7 @@
  * `resetDatabase()` in beforeAll/beforeEach without disturbing another file.
  */
 import { truncateAppTables } from '@/db/reset';
-import { closeDb } from '@/db/client';
+import { closeDatabase as closeDb } from '@/db/lifecycle';
 
 /** Truncates all application tables (not drizzle's journal, not pg-boss's schema). */
 export async function resetDatabase(): Promise<void> {

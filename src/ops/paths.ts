@@ -1,0 +1,20 @@
+/** Folders and files the operations scripts work with, resolved from the project root. */
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+export const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
+export const dataRoot = path.join(projectRoot, '.data');
+export const nextBin = path.join(projectRoot, 'node_modules', 'next', 'dist', 'bin', 'next');
+export const vitestBin = path.join(projectRoot, 'node_modules', 'vitest', 'vitest.mjs');
+/** Serialises `next build` between everyone sharing this machine. */
+export const NEXT_LOCK = '/tmp/cavitas-next.lock';
+
+/** Loads `.env` from the project root into process.env (existing variables win). */
+export function loadDotEnv(): void {
+  const file = path.join(projectRoot, '.env');
+  try {
+    process.loadEnvFile(file);
+  } catch (err) {
+    if ((err as NodeJS.ErrnoException).code !== 'ENOENT') throw err;
+  }
+}

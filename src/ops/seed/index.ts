@@ -1,0 +1,37 @@
+/**
+ * Demo data, seeded idempotently by `npm start` and the browser tests: the area seeders run in
+ * order (accounts first: stations and runs belong to the demo network it creates).
+ * Area owners add their module here: `import * as accounts from './accounts';` and an entry
+ * `['accounts', accounts]`. Run alone with `npx tsx src/ops/seed/index.ts`.
+ */
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { DemoSignIn, SeedModule } from './types';
+
+export type { DemoSignIn, SeedModule };
+
+export const seeders: ReadonlyArray<readonly [area: string, module: SeedModule]> = [];
+
+export async function runSeeds(log: (l: string) => void = () => {}): Promise<void> {
+  for (const [area, mod] of seeders) {
+    const t = Date.now();
+    await mod.seed();
+    log(`[seed] ${area} ready (${Date.now() - t} ms)`);
+  }
+}
+
+/** Demo sign-ins from the seeders that export them. */
+export function demoSignIns(): DemoSignIn[] {
+  return seeders.flatMap(([, mod]) => [...(mod.DEMO_SIGN_INS ?? [])]);
+}
+
+if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  const { closeDatabase: closeDb } = await import('@/db/lifecycle');
+  runSeeds(console.log)
+    .then(() => closeDb())
+    .catch(async (err) => {
+      console.error(err instanceof Error ? err.stack : err);
+      await closeDb();
+      process.exit(1);
+    });
+}

@@ -1,0 +1,87 @@
+/**
+ * The running application: mail catcher, worker and web server as supervised children, all
+ * pointed at one DATABASE_URL. Used by `npm start`, `npm run dev` and the browser tests.
+ */
+import net from 'node:net';
+import path from 'node:path';
+import { Supervisor, waitForHttp } from './supervisor';
+import { nextBin, projectRoot } from './paths';
+import { portInUse } from '@/db/pglocal';
+
+export interface StackOptions {
+  mode: 'production' | 'dev';
+  databaseUrl: string;
+  port: number;
+  smtpPort: number;
+  /** Public address of the app (default http://127.0.0.1:<port>). */
+  appUrl?: string;
+  log?: (line: string) => void;
+  onUnexpectedExit?: (name: string, code: number | null) => void;
+  /** Extra variables for every child. */
+  env?: NodeJS.ProcessEnv;
+}
+
+export interface Stack {
+  appUrl: string;
+  port: number;
+  smtpPort: number;
+  stop(): Promise<void>;
+}
+
+function waitForTcp(port: number, timeoutMs: number): Promise<void> {
+  const until = Date.now() + timeoutMs;
+  return new Promise((resolve, reject) => {
+    const attempt = () => {
+      const s = net.connect(port, '127.0.0.1');
+      s.once('connect', () => {
+        s.destroy();
+        resolve();
+      });
+      s.once('error', () => {
+        s.destroy();
+        if (Date.now() > until) reject(new Error(`nothing listens on 127.0.0.1:${port} after ${timeoutMs / 1000} s`));
+        else setTimeout(attempt, 200);
+      });
+    };
+    attempt();
+  });
+}
+
+export async function startStack(o: StackOptions): Promise<Stack> {
+  const log = o.log ?? ((l: string) => console.log(l));
+  for (const [what, port, variable] of [['web server', o.port, 'PORT'], ['mail catcher', o.smtpPort, 'SMTP_PORT']] as const) {
+    if (await portInUse(port)) throw new Error(`port ${port} on 127.0.0.1 (${what}) is already in use; choose another with ${variable}=<port>`);
+  }
+  const appUrl = o.appUrl ?? `http://127.0.0.1:${o.port}`;
+  const { NODE_ENV: _nodeEnv, ...inherited } = process.env; // next sets NODE_ENV per command
+  const env: NodeJS.ProcessEnv = {
+    ...inherited,
+    ...o.env,
+    DATABASE_URL: o.databaseUrl,
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(o.smtpPort),
+    APP_URL: appUrl,
+    COOKIE_SECURE: process.env.COOKIE_SECURE ?? 'false',
+    PORT: String(o.port),
+    NEXT_TELEMETRY_DISABLED: '1',
+  };
+  const sup = new Supervisor(log, o.onUnexpectedExit);
+  const tsx = (file: string) => ['--import', 'tsx', path.join(projectRoot, file)];
+  try {
+    sup.start({ name: 'mail', command: process.execPath, args: tsx('src/mail/catcher.ts'), env, cwd: projectRoot });
+    await waitForTcp(o.smtpPort, 30_000);
+    sup.start({ name: 'worker', command: process.execPath, args: tsx('src/worker/main.ts'), env, cwd: projectRoot });
+    const web = sup.start({
+      name: 'web',
+      command: process.execPath,
+      args: [nextBin, o.mode === 'dev' ? 'dev' : 'start', '-H', '127.0.0.1', '-p', String(o.port)],
+      env,
+      cwd: projectRoot,
+    });
+    await waitForHttp(`http://127.0.0.1:${o.port}/`, o.mode === 'dev' ? 180_000 : 60_000, () => web.exitCode === null && web.signalCode === null);
+  } catch (err) {
+    await sup.stopAll(5_000);
+    throw err;
+  }
+  return { appUrl, port: o.port, smtpPort: o.smtpPort, stop: () => sup.stopAll() };
+}
