@@ -54,7 +54,7 @@ export async function startStack(o: StackOptions): Promise<Stack> {
   }
   const appUrl = o.appUrl ?? `http://127.0.0.1:${o.port}`;
   const { NODE_ENV: _nodeEnv, ...inherited } = process.env; // next sets NODE_ENV per command
-  const env: NodeJS.ProcessEnv = {
+  const env = {
     ...inherited,
     ...o.env,
     DATABASE_URL: o.databaseUrl,
@@ -64,7 +64,7 @@ export async function startStack(o: StackOptions): Promise<Stack> {
     COOKIE_SECURE: process.env.COOKIE_SECURE ?? 'false',
     PORT: String(o.port),
     NEXT_TELEMETRY_DISABLED: '1',
-  };
+  } as NodeJS.ProcessEnv;
   const sup = new Supervisor(log, o.onUnexpectedExit);
   const tsx = (file: string) => ['--import', 'tsx', path.join(projectRoot, file)];
   try {
