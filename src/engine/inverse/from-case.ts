@@ -1,0 +1,41 @@
+/**
+ * From a validated case file (src/engine/case) to the inverter's input.
+ * Unknown intensity ranges that start at 0 start at max * 1e-9 instead,
+ * because the intensity is searched as its logarithm.
+ */
+import type { CaseFile } from '@/src/engine/case';
+import type { CavityConfig } from '@/src/engine/cavity';
+import type { Component } from '@/src/engine/components';
+import { InversionInputError } from './errors';
+import type { SpectrumInversionInput } from './spectrum-setup';
+import type { BinSelection, RegionUnknown } from './types';
+
+const ZERO_INTENSITY_FLOOR = 1e-9;
+
+export function inputFromCase(c: CaseFile, selection?: BinSelection): SpectrumInversionInput {
+  if (!c.observed?.length) throw new InversionInputError('observed: invert needs at least one observed spectrum');
+  if (!c.unknowns?.length) throw new InversionInputError('unknowns: invert needs at least one unknown source');
+  const unknowns: RegionUnknown[] = c.unknowns.map((u) => {
+    const spread = (u as { spread?: number | { min: number; max: number } }).spread;
+    return {
+      name: u.name,
+      intensity: u.intensity.min > 0 ? u.intensity : { min: u.intensity.max * ZERO_INTENSITY_FLOOR, max: u.intensity.max },
+      lat: u.lat,
+      lon: u.lon,
+      ...(spread !== undefined ? { spread } : {}),
+    };
+  });
+  return {
+    cavity: c.cavity as CavityConfig,
+    stations: c.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),
+    observed: c.observed.map((o) => ({
+      station: o.station,
+      component: o.component as Component,
+      frequencies: o.frequencies,
+      power: o.power,
+      sigmaLog: o.sigmaLog,
+    })),
+    unknowns,
+    selection,
+  };
+}
