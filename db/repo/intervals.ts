@@ -205,3 +205,9 @@ export async function listStationDays(networkId: string, stationId: string): Pro
     .groupBy(sql`1`).orderBy(sql`1 desc`).limit(400);
   return rows.map((r) => r.day);
 }
+
+/** Deletes the intervals made from one upload (after its processing failed part-way). */
+export async function deleteIntervalsOfUpload(uploadId: string): Promise<number> {
+  const rows = await getDb().delete(intervals).where(eq(intervals.uploadId, uploadId)).returning({ id: intervals.id });
+  return rows.length;
+}
