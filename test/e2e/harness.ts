@@ -1,0 +1,58 @@
+/**
+ * Browser-test harness.
+ *
+ * `startTestApp()` seeds the demo data into the test DATABASE_URL, builds the app if stale
+ * (under the machine-wide next build lock), and runs `next start`, the worker and the mail
+ * catcher on free loopback ports. `launchBrowser()` starts Debian's chromium through
+ * playwright-core, headless; every launch gets a fresh temporary profile.
+ */
+import { chromium, type Browser } from 'playwright-core';
+import { freePort } from '@/db/pglocal';
+import { migrate } from '@/db/migrate';
+import { closeDatabase } from '@/db/lifecycle';
+import { runSeeds, demoSignIns, type DemoSignIn } from '@/src/ops/seed';
+import { buildIfStale } from '@/src/ops/build';
+import { startStack } from '@/src/ops/stack';
+import { CHROMIUM } from '@/src/ops/test-plan';
+
+export interface TestApp {
+  baseUrl: string;
+  smtpPort: number;
+  /** Output of the children, for failure messages. */
+  logs: string[];
+  signIns: DemoSignIn[];
+  stop(): Promise<void>;
+}
+
+export async function startTestApp(): Promise<TestApp> {
+  const databaseUrl = process.env.DATABASE_URL;
+  if (!databaseUrl) throw new Error('DATABASE_URL is not set (run through npm test or the e2e vitest config)');
+  await migrate(databaseUrl);
+  await runSeeds();
+  await closeDatabase();
+  const logs: string[] = [];
+  const log = (l: string) => {
+    logs.push(l);
+    if (process.env.E2E_VERBOSE) console.log(l);
+  };
+  buildIfStale({ ...process.env, DATABASE_URL: databaseUrl }, log);
+  const [port, smtpPort] = [await freePort(), await freePort()];
+  const stack = await startStack({ mode: 'production', databaseUrl, port, smtpPort, log });
+  return { baseUrl: stack.appUrl, smtpPort, logs, signIns: demoSignIns(), stop: stack.stop };
+}
+
+export const CHROMIUM_FLAGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-dev-shm-usage',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+/** Headless chromium; playwright gives each launch a new temporary profile folder. */
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROMIUM_FLAGS });
+}
