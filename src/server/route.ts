@@ -11,7 +11,7 @@
  *   });
  */
 import { ZodError, type z } from 'zod';
-import { AppError, badRequest, type ErrorBody } from './errors';
+import { AppError, badRequest, forbidden, type ErrorBody } from './errors';
 import { currentRequestContext, runWithRequest } from './request-context';
 
 type Handler<P> = (req: Request, ctx: { params: P }) => Promise<Response | unknown>;
@@ -54,6 +54,7 @@ export function route<P = Record<string, string>>(handler: Handler<P>) {
     runWithRequest(req, async () => {
       let res: Response;
       try {
+        assertSameOrigin(req);
         const params = (ctx?.params ? await ctx.params : {}) as P;
         const out = await handler(req, { params });
         res = out instanceof Response ? out : json(out ?? { ok: true });
@@ -64,6 +65,30 @@ export function route<P = Record<string, string>>(handler: Handler<P>) {
       for (const c of pending) res.headers.append('set-cookie', c);
       return res;
     });
+}
+
+/** Writes from another site's page are refused (defence in depth beside SameSite=Lax cookies). */
+function assertSameOrigin(req: Request): void {
+  if (req.method === 'GET' || req.method === 'HEAD') return;
+  const origin = req.headers.get('origin');
+  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
+  if (!origin || !host || origin === 'null') return;
+  try {
+    if (new URL(origin).host === host) return;
+  } catch {
+    // fall through
+  }
+  throw forbidden('This request came from another site and was refused.');
+}
+
+/** Public origin for links in e-mails: APP_URL when set, else the request's own origin. */
+export function requestOrigin(req: Request): string {
+  const configured = process.env.APP_URL?.replace(/\/+$/, '');
+  if (configured) return configured;
+  const url = new URL(req.url);
+  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
+  const proto = req.headers.get('x-forwarded-proto') ?? url.protocol.replace(':', '');
+  return host ? `${proto}://${host}` : url.origin;
 }
 
 /** Parse and validate a JSON body; a body that is not JSON is a 400 naming the problem. */
