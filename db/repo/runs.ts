@@ -71,16 +71,26 @@ export async function listRuns(networkId: string): Promise<RunListEntry[]> {
 }
 
 /**
- * The worker takes a run: queued/running (a crashed attempt) become running.
- * Returns null when the run is gone, already ended, or cancelled meanwhile.
+ * A worker takes a run: a queued run, or a running one whose worker has not
+ * reported for `leaseSeconds` (it crashed), becomes running under this worker.
+ * Returns null when the run is gone, ended, cancelled, or alive elsewhere.
  */
-export async function claimRun(runId: string, workerId: string): Promise<RunRow | null> {
+export async function claimRun(runId: string, workerId: string, leaseSeconds = 30): Promise<RunRow | null> {
   const [row] = await getDb().update(runs).set({
     state: 'running', workerId, heartbeatAt: new Date(), attempts: sql`${runs.attempts} + 1`,
     startedAt: sql`coalesce(${runs.startedAt}, now())`, error: null,
-  }).where(and(eq(runs.id, runId), inArray(runs.state, ['queued', 'running']), eq(runs.cancelRequested, false)))
-    .returning();
+  }).where(and(
+    eq(runs.id, runId), eq(runs.cancelRequested, false),
+    sql`(${runs.state} = 'queued' or (${runs.state} = 'running' and (${runs.heartbeatAt} is null
+      or ${runs.heartbeatAt} < now() - make_interval(secs => ${leaseSeconds}))))`,
+  )).returning();
   return row ?? null;
+}
+
+/** A worker hands a run back (its time slice is over); the next job takes it up. */
+export async function releaseRun(runId: string, workerId: string, progress: RunProgress): Promise<void> {
+  await getDb().update(runs).set({ state: 'queued', workerId: null, heartbeatAt: null, progress })
+    .where(and(eq(runs.id, runId), eq(runs.workerId, workerId), eq(runs.state, 'running')));
 }
 
 /** Writes progress and a heartbeat; returns whether someone asked to cancel. */

@@ -9,7 +9,7 @@
  * inverter), so the driver knows no physics.
  */
 import {
-  claimRun, endRun, finishedIntervalStarts, isCancelRequested, reportProgress, saveRunInterval,
+  claimRun, endRun, finishedIntervalStarts, isCancelRequested, releaseRun, reportProgress, saveRunInterval,
   type RunProgress,
 } from '@/db/repo/runs';
 import { loadRunContext } from './context';
@@ -25,9 +25,14 @@ export interface ExecuteOptions {
   progressEveryMs?: number;
   /** Called after each stored interval; throwing here simulates a crash (tests). */
   afterInterval?: (index: number) => void;
+  /** Seconds without a heartbeat after which a 'running' run counts as crashed. Default 30. */
+  leaseSeconds?: number;
+  /** After this many milliseconds the driver hands the run back after the current interval ('yielded'). */
+  budgetMs?: number;
 }
 
-export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'not-runnable';
+/** 'yielded': the time slice ended with intervals left; queue a continuation job. */
+export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'yielded' | 'not-runnable';
 
 function eta(startedMs: number, done: number, total: number, doneThisAttempt: number): number | null {
   if (doneThisAttempt <= 0) return null;
@@ -36,7 +41,7 @@ function eta(startedMs: number, done: number, total: number, doneThisAttempt: nu
 }
 
 export async function executeRun(runId: string, opts: ExecuteOptions): Promise<ExecuteOutcome> {
-  const run = await claimRun(runId, opts.workerId);
+  const run = await claimRun(runId, opts.workerId, opts.leaseSeconds ?? 30);
   if (!run) return 'not-runnable';
   const every = opts.progressEveryMs ?? 1000;
   const observe = opts.observe ?? ((ctx: RunContext, t: Date) => loadObservations(ctx.networkId, ctx.config, t));
@@ -70,23 +75,25 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
       if (countData(observed) === 0) {
         outcome = { nData: 0, result: { skipped: 'no unflagged data for this interval', minima: [] } };
       } else {
-        let lastWrite = 0;
         let stop = false;
-        let pending: Promise<unknown> = Promise.resolve();
         const t1 = Date.now();
-        outcome = await opts.solve(ctx, c, {
-          onStart(done, all) {
-            progress.startsDone = done;
-            progress.startsTotal = all;
-            progress.phase = `interval ${label} UT: start ${done} of ${all}`;
-            if (Date.now() - lastWrite >= every) {
-              lastWrite = Date.now();
-              pending = pending.then(() => reportProgress(runId, { ...progress })).then((r) => { if (r.cancelRequested) stop = true; });
-            }
-          },
-          shouldStop: () => stop,
-        });
-        await pending;
+        // Progress and heartbeat on a timer (the solver may run on worker threads and
+        // keep this event loop free); the same write brings back a cancel request.
+        const timer = setInterval(() => {
+          reportProgress(runId, { ...progress }).then((r) => { if (r.cancelRequested) stop = true; }, () => {});
+        }, every);
+        try {
+          outcome = await opts.solve(ctx, c, {
+            onStart(done, all) {
+              progress.startsDone = done;
+              progress.startsTotal = all;
+              progress.phase = `interval ${label} UT: start ${done} of ${all}`;
+            },
+            shouldStop: () => stop,
+          });
+        } finally {
+          clearInterval(timer);
+        }
         if (outcome !== 'cancelled') outcome = { ...outcome, seconds: (Date.now() - t1) / 1000 };
       }
     } catch (e) {
@@ -102,6 +109,10 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     const seconds = (outcome as { seconds?: number }).seconds ?? 0;
     await saveRunInterval(runId, { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds }, { ...progress });
     opts.afterInterval?.(i);
+    if (opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs && i < total - 1) {
+      await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
+      return 'yielded';
+    }
   }
   if (cancelled) {
     await endRun(runId, 'cancelled', { ...progress, phase: `cancelled after ${progress.intervalsDone} of ${total} intervals`, etaSeconds: null });

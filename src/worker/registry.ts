@@ -3,6 +3,8 @@
  * each file in src/worker/jobs/.
  */
 import type { JobDefinition } from './types';
+import { job as runInversion } from './jobs/run-inversion';
+import { job as misfitSurface } from './jobs/misfit-surface';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const jobs: JobDefinition<any>[] = [];
+export const jobs: JobDefinition<any>[] = [runInversion, misfitSurface];

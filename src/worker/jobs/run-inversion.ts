@@ -1,0 +1,35 @@
+/**
+ * Runs inversions. Each job works on one run for a time slice (default 5
+ * minutes, CAVITAS_RUN_SLICE_S), storing every finished interval at once, then
+ * queues a continuation and returns — so a job never outlives its expiry, a
+ * crashed attempt is retried by pg-boss with the same run id, and the retry
+ * resumes after the last stored interval. Any number of workers may serve
+ * this queue: a run is held by one worker at a time through its heartbeat.
+ */
+import { hostname } from 'node:os';
+import type { JobDefinition } from '../types';
+import { enqueue } from '@/db/jobs';
+import { executeRun } from '@/src/runs/execute';
+import { engineSolver } from '@/src/runs/solver';
+import { RUN_JOB_OPTIONS, RUN_QUEUE } from '@/src/runs/queues';
+
+function sliceMs(): number {
+  const s = Number(process.env.CAVITAS_RUN_SLICE_S);
+  return (Number.isFinite(s) && s > 0 ? s : 300) * 1000;
+}
+
+export const job: JobDefinition<{ runId: string }> = {
+  queue: RUN_QUEUE,
+  handler: async (jobs) => {
+    const out: string[] = [];
+    for (const j of jobs) {
+      const outcome = await executeRun(j.data.runId, {
+        solve: engineSolver, workerId: `${hostname()}:${process.pid}:${j.id}`, budgetMs: sliceMs(),
+      });
+      if (outcome === 'yielded') await enqueue(RUN_QUEUE, { runId: j.data.runId }, RUN_JOB_OPTIONS);
+      out.push(outcome);
+    }
+    return out;
+  },
+  queueOptions: { retryLimit: RUN_JOB_OPTIONS.retryLimit, retryDelay: RUN_JOB_OPTIONS.retryDelay, expireInSeconds: RUN_JOB_OPTIONS.expireInSeconds },
+};
