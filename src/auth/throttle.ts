@@ -54,8 +54,13 @@ export async function clearAccountThrottle(email: string): Promise<void> {
   await clearThrottleRows([`account:${email.trim().toLowerCase()}`]);
 }
 
-/** Client address as seen by the app (first X-Forwarded-For hop, else X-Real-IP, else "local"). */
+/**
+ * Client address for throttling. Behind a reverse proxy (TRUST_PROXY=true) it
+ * is the first X-Forwarded-For hop, else X-Real-IP; otherwise the headers could
+ * be forged by the client, and all direct callers share the key "local".
+ */
 export function clientAddress(req: Request): string {
+  if (process.env.TRUST_PROXY !== 'true') return 'local';
   const fwd = req.headers.get('x-forwarded-for');
   if (fwd) return fwd.split(',')[0].trim();
   return req.headers.get('x-real-ip')?.trim() || 'local';
