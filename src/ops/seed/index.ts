@@ -7,10 +7,13 @@
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { DemoSignIn, SeedModule } from './types';
+import * as accounts from './accounts';
 
 export type { DemoSignIn, SeedModule };
 
-export const seeders: ReadonlyArray<readonly [area: string, module: SeedModule]> = [];
+export const seeders: ReadonlyArray<readonly [area: string, module: SeedModule]> = [
+  ['accounts', accounts],
+];
 
 export async function runSeeds(log: (l: string) => void = () => {}): Promise<void> {
   for (const [area, mod] of seeders) {
