@@ -24,7 +24,7 @@ export interface ExecuteOptions {
   /** Minimum milliseconds between progress writes within an interval. Default 1000. */
   progressEveryMs?: number;
   /** Called after each stored interval; throwing here simulates a crash (tests). */
-  afterInterval?: (index: number) => void;
+  afterInterval?: (index: number) => void | Promise<void>;
   /** Seconds without a heartbeat after which a 'running' run counts as crashed. Default 30. */
   leaseSeconds?: number;
   /** After this many milliseconds the driver hands the run back after the current interval ('yielded'). */
@@ -108,7 +108,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     progress.phase = `interval ${label} UT finished`;
     const seconds = (outcome as { seconds?: number }).seconds ?? 0;
     await saveRunInterval(runId, { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds }, { ...progress });
-    opts.afterInterval?.(i);
+    await opts.afterInterval?.(i);
     if (opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs && i < total - 1) {
       await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
       return 'yielded';
