@@ -56,6 +56,11 @@ export const MINIMA_UNBOUNDED_SCALE = 1;
 export const SIGNAL_SEGMENT_SECONDS = 10;
 /** Length of one processing interval in seconds (10 minutes, common practice). */
 export const SIGNAL_INTERVAL_SECONDS = 600;
+/** Band (Hz) of the spectrum kept for each interval by default (covers the first seven modes). */
+export const SPECTRUM_BAND_MIN_HZ = 3;
+export const SPECTRUM_BAND_MAX_HZ = 48;
+/** Default number of modes fitted per interval. */
+export const DEFAULT_MODE_COUNT = 5;
 /** Transient screen: a segment is rejected when ln(variance) exceeds the median by this many robust sigmas (1.4826 MAD)… */
 export const TRANSIENT_MAD_FACTOR = 5;
 /** …and also by at least ln of this ratio, so that very steady records do not lose segments to tiny scatter. */
