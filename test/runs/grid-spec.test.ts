@@ -1,0 +1,52 @@
+/** Cell geometry of source grids and the centroid of cell regions. */
+import { describe, expect, it } from 'vitest';
+import { cellAt, cellBox, cellsInBox, gridShape, gridProblems, CELL_SIZES } from '@/src/runs/grid-spec';
+import { cellCentroid } from '@/src/runs/unknowns';
+
+const D = Math.PI / 180;
+
+describe('global grid cells', () => {
+  it('tile the sphere: cell areas add up to 4 pi (area of a lat/lon cell = dlon (sin north - sin south), Snyder 1987, Map Projections USGS PP 1395)', () => {
+    for (const d of CELL_SIZES) {
+      const { cells } = gridShape(d);
+      let area = 0;
+      for (let i = 0; i < cells; i++) {
+        const b = cellBox(d, i);
+        area += (b.east - b.west) * D * (Math.sin(b.north * D) - Math.sin(b.south * D));
+      }
+      expect(area).toBeCloseTo(4 * Math.PI, 9);
+    }
+  });
+
+  it('find the cell holding a point, consistent with its box', () => {
+    for (const [lat, lon] of [[0.1, 0.1], [-89.9, -179.9], [89.9, 179.9], [12.3, -45.6]]) {
+      const b = cellBox(5, cellAt(5, lat, lon));
+      expect(lat).toBeGreaterThanOrEqual(b.south);
+      expect(lat).toBeLessThanOrEqual(b.north);
+      expect(lon).toBeGreaterThanOrEqual(b.west);
+      expect(lon).toBeLessThanOrEqual(b.east);
+    }
+  });
+
+  it('select cells in a box that crosses the antimeridian', () => {
+    const cells = cellsInBox(10, { south: -10, north: 10, west: 170, east: -170 });
+    expect(cells.map((c) => cellBox(10, c).lon).sort((a, b) => a - b)).toEqual([-175, -175, 175, 175]);
+  });
+
+  it('centroid of cells symmetric about the equator and a meridian lies on both', () => {
+    const cells = [cellAt(10, 5, 15), cellAt(10, -5, 15), cellAt(10, 5, 25), cellAt(10, -5, 25)];
+    const c = cellCentroid(10, cells);
+    expect(c.lat).toBeCloseTo(0, 12);
+    expect(c.lon).toBeCloseTo(20, 12);
+  });
+
+  it('report duplicate names and a centre outside its bounds', () => {
+    const p = gridProblems({
+      name: 'g', notes: '', cellSizeDeg: 10, regions: [
+        { key: 'a', name: 'Same', colour: '#E69F00', kind: 'cells', cells: [1] },
+        { key: 'b', name: 'same', colour: '#56B4E9', kind: 'moving', centre: { lat: 50, lon: 0 }, bounds: { lat: { min: -10, max: 10 }, lon: { min: -10, max: 10 } }, spreadDeg: 0 },
+      ],
+    });
+    expect(p.map((x) => x.field)).toEqual(['regions.1.name', 'regions.1.centre']);
+  });
+});
