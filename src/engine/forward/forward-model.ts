@@ -56,7 +56,7 @@ export function createForwardModel(cavity: Cavity, band: Band | Float64Array, st
             const weight = src.intensity * nodes[o + 2];
             if (weight === 0) continue;
             greatCircleInto(st.lat, st.lon, nodes[o], nodes[o + 1], gc);
-            table.sample(gc.theta, sample);
+            table.samplePower(gc.theta, sample);
             const sb = Math.sin(gc.bearing);
             const cb = Math.cos(gc.bearing);
             const wns = weight * sb * sb;

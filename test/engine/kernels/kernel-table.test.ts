@@ -75,6 +75,17 @@ describe('kernel tables against direct (table-free) evaluation', () => {
     }
   });
 
+  it('samplePower gives the same powers as sample', () => {
+    const table = getKernelTable(resolveCavity(configs[2]), freqs);
+    const a = createKernelSample(freqs.length), b = createKernelSample(freqs.length);
+    for (const thDeg of [0.01, 0.7, 33.3, 120.5, 180]) {
+      table.sample(thDeg * DEG, a);
+      table.samplePower(thDeg * DEG, b);
+      expect(Array.from(b.ez)).toEqual(Array.from(a.ez));
+      b.bh.forEach((v, j) => expect(Math.abs(v - a.bh[j])).toBeLessThanOrEqual(1e-14 * a.bh[j]));
+    }
+  });
+
   it('caches tables by cavity key and band', () => {
     const c1 = resolveCavity(configs[0]);
     const t1 = getKernelTable(c1, freqs);
