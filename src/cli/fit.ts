@@ -1,0 +1,35 @@
+/**
+ * `cli fit <spectrum.json> [--modes N]`: Lorentzian mode fit
+ * P(f) = sum A_n / (1 + ((f - f_n)/g_n)^2) + b0 + b1 f of a power spectrum,
+ * modes sorted by frequency with errors from the fit covariance. Optional
+ * input fields: `averages` (Welch segments behind each bin: absolute errors),
+ * `minHz`, `maxHz` (fitted band).
+ */
+import { parseSpectrumJson } from '@/src/engine/formats/pipeline-json';
+import { fitModes, ModeFitError } from '@/src/engine/modes/fit-modes';
+import { ModeFitOptionError } from '@/src/engine/modes/options';
+import { MAX_MODES, MIN_MODES } from '@/src/engine/modes/usual-modes';
+import { readPipelineJson } from './pipeline-input';
+import { CliError, parseArgs, type Verb } from './verb';
+
+const fit: Verb = async (args) => {
+  const { positional, flags } = parseArgs(args, ['modes']);
+  if (positional.length > 1) throw new CliError(`fit takes one spectrum file, got ${positional.length} arguments`);
+  let modes: number | undefined;
+  if (flags.modes !== undefined) {
+    modes = Number(flags.modes);
+    if (!Number.isInteger(modes) || modes < MIN_MODES || modes > MAX_MODES) {
+      throw new CliError(`--modes must be a whole number from ${MIN_MODES} to ${MAX_MODES}, got "${flags.modes}"`);
+    }
+  }
+  const s = await readPipelineJson(positional[0], 'spectrum', parseSpectrumJson);
+  try {
+    const r = fitModes(s.frequencies, s.power, { modes, averages: s.averages, minHz: s.minHz, maxHz: s.maxHz });
+    return { modes: r.modes, background: r.background, misfit: r.misfit, dof: r.dof, band: r.band, converged: r.converged, flags: r.flags };
+  } catch (e) {
+    if (e instanceof ModeFitError || e instanceof ModeFitOptionError) throw new CliError(`${positional[0]}: ${e.message}`);
+    throw e;
+  }
+};
+
+export default fit;
