@@ -7,6 +7,7 @@
  */
 import { availableParallelism } from 'node:os';
 import type { LeastSquaresProblem, LmOptions } from '@/src/engine/optim/types';
+import { INVERSION_LM_MISFIT_TOL, INVERSION_LM_STEP_TOL } from '@/src/engine/tolerances';
 import { InversionInputError } from './errors';
 import { runPoolTask } from './pool';
 import type { ProblemRecipe } from './recipes';
@@ -22,7 +23,7 @@ export interface MultiStartOptions {
   threads: number;
   /** Explicit start points (internal units) used for the first indexes. */
   warm: number[][];
-  /** Options of each LM run. */
+  /** Options of each LM run (default: looser misfit and step tolerances than the optimiser's own). */
   lm: Partial<LmOptions>;
   /** Scale standard errors by the reduced chi-square (default false: sigmas are trusted). */
   scaleErrors: boolean;
@@ -34,7 +35,7 @@ export function resolveMultiStartOptions(o: Partial<MultiStartOptions> = {}): Mu
     seed: o.seed ?? 1,
     threads: o.threads ?? availableParallelism(),
     warm: o.warm ?? [],
-    lm: o.lm ?? {},
+    lm: { misfitTol: INVERSION_LM_MISFIT_TOL, stepTol: INVERSION_LM_STEP_TOL, ...o.lm },
     scaleErrors: o.scaleErrors ?? false,
   };
   if (!Number.isInteger(r.starts) || r.starts < 1) throw new InversionInputError(`starts must be a whole number >= 1, got ${r.starts}`);

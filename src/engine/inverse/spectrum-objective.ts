@@ -75,19 +75,19 @@ export function spectrumProblem(
     if (!same(p)) sampleAt(p);
     for (const se of layout.series) {
       const { bins, component, offset } = se;
-      for (let k = 0; k < bins.length; k++) {
-        const b = bins[k];
-        let sum = 0;
-        for (let r = 0; r < nR; r++) {
-          const i = se.station * nR + r;
-          const kb = buf[i];
-          const bearing = gc[i].bearing;
-          const v = component === 0 ? kb.ez[b] : component === 1 ? kb.bh[b] * Math.sin(bearing) ** 2 : kb.bh[b] * Math.cos(bearing) ** 2;
-          sum += inten[r] * v;
-        }
-        predicted[offset + k] = sum;
-        out[offset + k] = scale === 'log' ? (Math.log(sum) - se.lnObs[k]) * se.invSigma : (sum / se.obs[k] - 1) * se.invSigma;
+      const nb = bins.length;
+      for (let k = 0; k < nb; k++) predicted[offset + k] = 0;
+      for (let r = 0; r < nR; r++) {
+        const i = se.station * nR + r;
+        const kb = buf[i];
+        const bearing = gc[i].bearing;
+        const coef = inten[r] * (component === 0 ? 1 : component === 1 ? Math.sin(bearing) ** 2 : Math.cos(bearing) ** 2);
+        const K = component === 0 ? kb.ez : kb.bh;
+        for (let k = 0; k < nb; k++) predicted[offset + k] += coef * K[bins[k]];
       }
+      const inv = se.invSigma;
+      if (scale === 'log') for (let k = 0; k < nb; k++) out[offset + k] = (Math.log(predicted[offset + k]) - se.lnObs[k]) * inv;
+      else for (let k = 0; k < nb; k++) out[offset + k] = (predicted[offset + k] / se.obs[k] - 1) * inv;
     }
   }
 
