@@ -49,7 +49,11 @@ function waitForTcp(port: number, timeoutMs: number): Promise<void> {
 
 export async function startStack(o: StackOptions): Promise<Stack> {
   const log = o.log ?? ((l: string) => console.log(l));
-  for (const [what, port, variable] of [['web server', o.port, 'PORT'], ['mail catcher', o.smtpPort, 'SMTP_PORT']] as const) {
+  // A real relay in SMTP_HOST replaces the local catcher.
+  const relay = !!process.env.SMTP_HOST && !['127.0.0.1', 'localhost', '::1'].includes(process.env.SMTP_HOST);
+  const ports: Array<[string, number, string]> = [['web server', o.port, 'PORT']];
+  if (!relay) ports.push(['mail catcher', o.smtpPort, 'SMTP_PORT']);
+  for (const [what, port, variable] of ports) {
     if (await portInUse(port)) throw new Error(`port ${port} on 127.0.0.1 (${what}) is already in use; choose another with ${variable}=<port>`);
   }
   const appUrl = o.appUrl ?? `http://127.0.0.1:${o.port}`;
@@ -58,8 +62,8 @@ export async function startStack(o: StackOptions): Promise<Stack> {
     ...inherited,
     ...o.env,
     DATABASE_URL: o.databaseUrl,
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: String(o.smtpPort),
+    SMTP_HOST: relay ? process.env.SMTP_HOST : '127.0.0.1',
+    SMTP_PORT: relay ? process.env.SMTP_PORT : String(o.smtpPort),
     APP_URL: appUrl,
     COOKIE_SECURE: process.env.COOKIE_SECURE ?? 'false',
     PORT: String(o.port),
@@ -68,8 +72,10 @@ export async function startStack(o: StackOptions): Promise<Stack> {
   const sup = new Supervisor(log, o.onUnexpectedExit);
   const tsx = (file: string) => ['--import', 'tsx', path.join(projectRoot, file)];
   try {
-    sup.start({ name: 'mail', command: process.execPath, args: tsx('src/mail/catcher.ts'), env, cwd: projectRoot });
-    await waitForTcp(o.smtpPort, 30_000);
+    if (!relay) {
+      sup.start({ name: 'mail', command: process.execPath, args: tsx('src/mail/catcher.ts'), env, cwd: projectRoot });
+      await waitForTcp(o.smtpPort, 30_000);
+    }
     sup.start({ name: 'worker', command: process.execPath, args: tsx('src/worker/main.ts'), env, cwd: projectRoot });
     const web = sup.start({
       name: 'web',
@@ -79,6 +85,7 @@ export async function startStack(o: StackOptions): Promise<Stack> {
       cwd: projectRoot,
     });
     await waitForHttp(`http://127.0.0.1:${o.port}/`, o.mode === 'dev' ? 180_000 : 60_000, () => web.exitCode === null && web.signalCode === null);
+    log(`[start] web server answers on http://127.0.0.1:${o.port}/`);
   } catch (err) {
     await sup.stopAll(5_000);
     throw err;
