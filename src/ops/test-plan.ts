@@ -2,7 +2,7 @@
 export const CHROMIUM = '/usr/bin/chromium';
 
 /** Browser tests: run with chromium; without it, fail under CI (CI=true or 1), else skip loudly. */
-export function browserPlan(env: NodeJS.ProcessEnv, chromiumExists: boolean): 'run' | 'skip' | 'fail' {
+export function browserPlan(env: { CI?: string }, chromiumExists: boolean): 'run' | 'skip' | 'fail' {
   if (chromiumExists) return 'run';
   return env.CI === 'true' || env.CI === '1' ? 'fail' : 'skip';
 }
