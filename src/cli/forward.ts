@@ -11,14 +11,15 @@ const forward: Verb = async (args) => {
   const { positional } = parseArgs(args, []);
   if (positional.length > 1) throw new CliError(`forward takes one case file, got ${positional.length} arguments`);
   const c = await readJsonFile(positional[0], forwardCaseSchema, 'case');
-  let cavity;
   try {
-    cavity = resolveCavity(c.cavity);
+    const cavity = resolveCavity(c.cavity);
+    const spectra = predictSpectra({ cavity, band: c.band, stations: c.stations, sources: c.sources ?? [] });
+    return { spectra };
   } catch (e) {
-    throw new CliError((e as Error).message);
+    // the engine reports impossible physics (e.g. a lossless table on a resonance) as RangeError
+    if (e instanceof RangeError) throw new CliError(`${positional[0]}: ${e.message}`);
+    throw e;
   }
-  const spectra = predictSpectra({ cavity, band: c.band, stations: c.stations, sources: c.sources ?? [] });
-  return { spectra };
 };
 
 export default forward;

@@ -6,6 +6,8 @@
 import type { Cavity } from '../cavity/types';
 import { LEGENDRE_OUT, legendreInto, prepareDegree } from '../special/legendre';
 import { fieldFactors } from './field-constants';
+import { KERNEL_MIN_THETA_DEG } from '../tolerances';
+import { DEG } from '../constants';
 
 export type DirectKernel = {
   /** (V/m)^2/Hz per C^2 km^2/s */
@@ -17,7 +19,9 @@ export type DirectKernel = {
   dBh: number;
 };
 
+/** theta is clamped to [KERNEL_MIN_THETA_DEG, 180 deg] like the tables (the source point itself is singular). */
 export function directKernel(cavity: Cavity, fHz: number, theta: number): DirectKernel {
+  theta = Math.min(Math.PI, Math.max(KERNEL_MIN_THETA_DEG * DEG, theta));
   const nu = cavity.nu(fHz);
   const { eFactor, bFactor } = fieldFactors(nu, fHz, cavity.radiusM, cavity.heightM);
   const out = new Float64Array(LEGENDRE_OUT);

@@ -69,6 +69,10 @@ export function buildKernelTable(cavity: Cavity, freqs: Float64Array, options?: 
     const { eFactor, bFactor } = fieldFactors(nu, freqs[j], cavity.radiusM, cavity.heightM);
     const lnE = Math.log(eFactor);
     const lnB = Math.log(bFactor);
+    if (!Number.isFinite(lnE) || !Number.isFinite(lnB))
+      throw new RangeError(
+        `the cavity has no loss at ${freqs[j]} Hz (nu = ${nu.re} ${nu.im < 0 ? '-' : '+'} ${Math.abs(nu.im)}i sits on a resonance): fields are unbounded; give the propagation table a positive attenuation`,
+      );
     const deg = prepareDegree(nu.re, nu.im);
     for (let i = 0; i < nodes; i++) {
       legendreInto(deg, i === nodes - 1 ? Math.PI : thetaMin + i * h, L);

@@ -121,3 +121,11 @@ describe('resonance structure of the cavity (facts of the trade)', () => {
     expect(peaks(fs, bh).filter((f) => f > 5.5 && f < 11).length).toBe(1);
   });
 });
+
+describe('degenerate cavities', () => {
+  it('a lossless table whose nu hits an integer is refused with the frequency named (fields unbounded at resonance)', () => {
+    const cavity = resolveCavity({ model: 'table', ...base, table: { columns: 'nu', rows: [[5, -0.5, -1e-300], [9, 0.5, -1e-300]] } });
+    // nu = 0 - 1e-300 i at 7 Hz: |sin(pi nu)|^2 underflows to 0
+    expect(() => buildKernelTable(cavity, new Float64Array([6, 7, 8]))).toThrow(/at 7 Hz/);
+  });
+});
