@@ -1,0 +1,40 @@
+'use client';
+import Link from 'next/link';
+import { useRouter } from 'next/navigation';
+import { apiSend } from '@/src/web/swr';
+import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
+import { useApiForm } from './useApiForm';
+
+export function SignUpForm() {
+  const router = useRouter();
+  const f = useApiForm();
+  const fields = ['name', 'email', 'password'];
+  const submit = f.onSubmit(async (d) => {
+    await apiSend('POST', '/api/auth/sign-up', { name: d.get('name'), email: d.get('email'), password: d.get('password') });
+    router.push('/networks');
+    router.refresh();
+  });
+  return (
+    <form onSubmit={submit} noValidate className="space-y-4">
+      {f.formError(fields) ? <Notice tone="error">{f.formError(fields)}</Notice> : null}
+      <FormField id="name" label="Your name" error={f.fieldError('name')}>
+        <input name="name" autoComplete="name" required maxLength={120} className={inputClass} />
+      </FormField>
+      <FormField id="email" label="E-mail address" error={f.fieldError('email')}>
+        <input name="email" type="email" autoComplete="email" required className={inputClass} />
+      </FormField>
+      <FormField id="password" label="Password" hint="At least 10 characters. A few unrelated words work well." error={f.fieldError('password')}>
+        <input name="password" type="password" autoComplete="new-password" required minLength={10} className={inputClass} />
+      </FormField>
+      <Button type="submit" busy={f.busy} className="w-full">
+        Create account
+      </Button>
+      <p className="text-sm">
+        Already have an account?{' '}
+        <Link href="/sign-in" className="text-accent">
+          Sign in
+        </Link>
+      </p>
+    </form>
+  );
+}
