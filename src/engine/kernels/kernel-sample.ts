@@ -1,3 +1,5 @@
+/** Kernel tables' public shape and the preallocated output of KernelTable.sample (one value per frequency bin). */
+
 /** Preallocated output of KernelTable.sample: one value per frequency bin. */
 export type KernelSample = {
   /** Ez power per unit intensity, (V/m)^2/Hz per C^2 km^2/s */
@@ -12,4 +14,18 @@ export type KernelSample = {
 
 export function createKernelSample(n: number): KernelSample {
   return { ez: new Float64Array(n), bh: new Float64Array(n), dEz: new Float64Array(n), dBh: new Float64Array(n) };
+}
+
+export interface KernelTable {
+  readonly freqs: Float64Array;
+  /** number of frequency bins */
+  readonly n: number;
+  /** theta grid: first node, step, node count (radians) */
+  readonly thetaMin: number;
+  readonly step: number;
+  readonly nodes: number;
+  /** Fills out.ez, out.bh, out.dEz, out.dBh at angular distance theta (radians). No allocation. */
+  sample(theta: number, out: KernelSample): void;
+  /** Fills only out.ez and out.bh (no derivatives; cheaper, for misfit-only evaluations). */
+  samplePower(theta: number, out: Pick<KernelSample, 'ez' | 'bh'>): void;
 }
