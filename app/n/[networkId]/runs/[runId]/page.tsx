@@ -1,0 +1,31 @@
+import { notFound } from 'next/navigation';
+import { pageNetworkAction } from '@/src/auth/pages';
+import { can } from '@/src/auth/permissions';
+import { listStations } from '@/db/repo/stations';
+import { getRunView } from '@/src/runs/results';
+import { AppError } from '@/src/server/errors';
+import { Panel } from '@/src/web/ui';
+import { RunPage } from '@/src/web/runs/RunPage';
+import { SettingsSummary } from '@/src/web/runs/SettingsSummary';
+
+export const metadata = { title: 'Run · Cavitas' };
+
+export default async function RunDetailPage({ params }: { params: Promise<{ networkId: string; runId: string }> }) {
+  const { networkId, runId } = await params;
+  const { membership } = await pageNetworkAction(networkId, 'network.read');
+  const view = await getRunView(networkId, /^[0-9a-f-]{36}$/i.test(runId) ? runId : '00000000-0000-0000-0000-000000000000').catch((e) => {
+    if (e instanceof AppError && e.status === 404) notFound();
+    throw e;
+  });
+  const stations = await listStations(networkId);
+  const codes = view.config.data.stationIds.map((id) => stations.find((s) => s.id === id)?.code ?? 'removed station');
+  return (
+    <div className="space-y-6">
+      <Panel heading={view.run.name} description="What was asked: the settings this run used, one click from the model and grid versions it pinned.">
+        <SettingsSummary view={view} stationCodes={codes} networkId={networkId} />
+      </Panel>
+      <RunPage networkId={networkId} initial={JSON.parse(JSON.stringify(view))}
+        canCancel={can(membership.role, 'runs.cancel')} canLaunch={can(membership.role, 'runs.launch')} canDelete={can(membership.role, 'runs.delete')} />
+    </div>
+  );
+}

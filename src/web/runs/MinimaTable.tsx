@@ -1,0 +1,64 @@
+'use client';
+/** The distinct minima of one interval, sortable; clicking a row selects that minimum everywhere on the page. */
+import { useMemo, useState } from 'react';
+import { fmt, type InversionResult } from './types';
+
+type Key = 'rank' | 'misfit' | 'reduced' | 'count';
+
+export function MinimaTable({ result, selected, onSelect }: { result: InversionResult; selected: number; onSelect: (i: number) => void }) {
+  const [sort, setSort] = useState<{ key: Key; desc: boolean }>({ key: 'rank', desc: false });
+  const names = result.paramNames;
+  const rows = useMemo(() => {
+    const r = result.minima.map((m, i) => ({ i, rank: i + 1, misfit: m.misfit, reduced: m.reducedChi2, count: m.count, m }));
+    r.sort((a, b) => (a[sort.key] - b[sort.key]) * (sort.desc ? -1 : 1));
+    return r;
+  }, [result, sort]);
+  const head = (key: Key, label: string) => (
+    <th scope="col" className="px-2 py-1.5 text-right font-medium" aria-sort={sort.key === key ? (sort.desc ? 'descending' : 'ascending') : 'none'}>
+      <button type="button" className="hover:text-accent" onClick={() => setSort((s) => ({ key, desc: s.key === key ? !s.desc : false }))}>
+        {label}{sort.key === key ? (sort.desc ? ' ▾' : ' ▴') : ''}
+      </button>
+    </th>
+  );
+  const value = (m: (typeof rows)[number]['m'], name: string) => {
+    const [region, kind] = name.split(/\.(?=[^.]+$)/);
+    const s = m.sources.find((x) => x.name === region);
+    const v = s ? (s as unknown as Record<string, number>)[kind] : m.params[name];
+    const e = m.stdErrors[region]?.[kind as 'lat'];
+    return `${fmt(v)} ± ${fmt(e, 2)}`;
+  };
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm tabular-nums">
+        <caption className="sr-only">Distinct minima of this interval; select a row to show it in every figure</caption>
+        <thead className="border-b border-line text-muted">
+          <tr>
+            {head('rank', '#')}
+            {head('misfit', 'Misfit χ²')}
+            {head('reduced', 'Reduced χ²')}
+            {head('count', 'Starts')}
+            {names.map((n) => (
+              <th key={n} scope="col" className="px-2 py-1.5 text-right font-medium">
+                {n}{n.endsWith('.intensity') ? ' (C² km²/s)' : ' (°)'}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((r) => (
+            <tr key={r.i} onClick={() => onSelect(r.i)} aria-selected={r.i === selected}
+              className={`cursor-pointer border-b border-line/60 ${r.i === selected ? 'bg-accent-soft' : 'hover:bg-surface-2'}`}>
+              <td className="px-2 py-1 text-right">
+                <button type="button" className="underline-offset-2 hover:underline" onClick={() => onSelect(r.i)} aria-label={`Select minimum ${r.rank}`}>{r.rank}</button>
+              </td>
+              <td className="px-2 py-1 text-right">{fmt(r.misfit, 5)}</td>
+              <td className="px-2 py-1 text-right">{fmt(r.reduced)}</td>
+              <td className="px-2 py-1 text-right">{r.count}</td>
+              {names.map((n) => <td key={n} className="px-2 py-1 text-right">{value(r.m, n)}</td>)}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,124 @@
+'use client';
+/**
+ * The run page below its settings summary: live progress (SWR polling while
+ * the run is queued or running), then the result of the chosen interval and
+ * minimum — map, minima table, fits, correlation matrix, misfit surface,
+ * multi-start picture — and for interval series the daily curves.
+ * Selecting a minimum updates every view.
+ */
+import { useMemo, useState } from 'react';
+import { useRouter } from 'next/navigation';
+import { Button, ButtonLink, Caution, Notice, Panel, ProgressBar } from '@/src/web/ui';
+import { apiSend, useApi } from '@/src/web/swr';
+import { RunMap } from './RunMap';
+import { MinimaTable } from './MinimaTable';
+import { FitsPanel, useFits } from './FitsPanel';
+import { CorrelationHeatmap } from './CorrelationHeatmap';
+import { SurfacePanel } from './SurfacePanel';
+import { StartsPicture } from './StartsPicture';
+import { SeriesCurves } from './SeriesCurves';
+import { runApi, type RunJson } from './types';
+
+const LIVE = new Set(['queued', 'running']);
+const STATE_WORDS: Record<string, string> = {
+  queued: 'Waiting for a worker', running: 'Computing', finished: 'Finished', failed: 'Stopped by an error', cancelled: 'Cancelled',
+};
+
+export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }: {
+  networkId: string; initial: RunJson; canCancel: boolean; canLaunch: boolean; canDelete: boolean;
+}) {
+  const router = useRouter();
+  const base = runApi(networkId, initial.run.id);
+  const { data, mutate } = useApi<RunJson>(base, {
+    fallbackData: initial,
+    refreshInterval: (d) => (d && LIVE.has(d.run.state) ? 1500 : 0),
+  });
+  const view = data ?? initial;
+  const { run } = view;
+  const solved = view.intervals.filter((i) => i.result && i.result.minima.length);
+  const [intervalPick, setIntervalPick] = useState<string | null>(null);
+  const interval = solved.find((i) => i.startsAt === intervalPick) ?? solved.at(-1) ?? null;
+  const [minimum, setMinimum] = useState(0);
+  const result = interval?.result ?? null;
+  const m = result?.minima[Math.min(minimum, result.minima.length - 1)] ?? null;
+  const fits = useFits(base, interval?.startsAt ?? null, Math.min(minimum, (result?.minima.length ?? 1) - 1));
+  const [actionError, setActionError] = useState<string | null>(null);
+  const colours = useMemo(() => Object.fromEntries(view.grid.regions.map((r) => [r.name, r.colour])), [view.grid.regions]);
+
+  const p = run.progress;
+  const fraction = p.intervalsTotal ? (p.intervalsDone + (run.state === 'running' && p.startsTotal ? p.startsDone / p.startsTotal : 0)) / p.intervalsTotal : null;
+
+  async function act(path: string, method: 'POST' | 'DELETE' = 'POST') {
+    setActionError(null);
+    try {
+      await apiSend(method, path);
+      if (method === 'DELETE') router.push(`/n/${networkId}/runs`);
+      else await mutate();
+    } catch (e) {
+      setActionError((e as Error).message);
+    }
+  }
+
+  return (
+    <div className="space-y-6">
+      <Panel heading="How it went" actions={
+        <>
+          {LIVE.has(run.state) && canCancel ? <Button type="button" onClick={() => act(`${base}/cancel`)} disabled={run.cancelRequested}>{run.cancelRequested ? 'Stopping…' : 'Cancel run'}</Button> : null}
+          {(run.state === 'failed' || run.state === 'cancelled') && canLaunch ? <Button type="button" tone="primary" onClick={() => act(`${base}/rerun`)}>Run the rest again</Button> : null}
+          {!LIVE.has(run.state) && canDelete ? <Button type="button" onClick={() => { if (confirm('Delete this run and its results?')) void act(base, 'DELETE'); }}>Delete</Button> : null}
+        </>
+      }>
+        <p className="mb-2 text-sm"><span className="font-semibold" data-testid="run-state">{STATE_WORDS[run.state]}</span> · {p.intervalsDone} of {p.intervalsTotal} intervals · attempt {run.attempts || 0}</p>
+        <ProgressBar value={run.state === 'finished' ? 1 : fraction} label={p.phase} remainingSeconds={LIVE.has(run.state) ? p.etaSeconds : null} />
+        {run.state === 'failed' ? <Notice tone="error" className="mt-3" title="The run stopped">{run.error} Finished intervals are kept; fix the cause and run the rest again.</Notice> : null}
+        {actionError ? <Notice tone="error" className="mt-3" title="That did not work">{actionError}</Notice> : null}
+      </Panel>
+
+      {result && m && interval ? (
+        <>
+          <Panel heading="What came out" description="The selected minimum of the selected interval. Select another minimum in the table to update every figure."
+            actions={
+              <>
+                <ButtonLink href={`${base}/export?format=csv&what=minima`}>Minima (CSV)</ButtonLink>
+                <ButtonLink href={`${base}/export?format=json&what=minima`}>Minima (JSON)</ButtonLink>
+                {solved.length > 1 ? <ButtonLink href={`${base}/export?format=csv&what=series`}>Series (CSV)</ButtonLink> : null}
+              </>
+            }>
+            {solved.length > 1 ? (
+              <label className="mb-3 block text-sm">Interval (UT){' '}
+                <select className="ml-2 rounded border border-line-strong bg-surface px-2 py-1" value={interval.startsAt}
+                  onChange={(e) => { setIntervalPick(e.target.value); setMinimum(0); }}>
+                  {solved.map((i) => <option key={i.startsAt} value={i.startsAt}>{i.startsAt.slice(0, 16).replace('T', ' ')}</option>)}
+                </select>
+              </label>
+            ) : null}
+            <RunMap regions={view.grid.regions} cellSizeDeg={view.grid.cellSizeDeg} minimum={m} stations={fits.data?.stations ?? []} />
+            <h3 className="mt-4 mb-1 text-sm font-semibold">Minima</h3>
+            <MinimaTable result={result} selected={minimum} onSelect={setMinimum} />
+            <Caution topic="research" className="mt-4" />
+          </Panel>
+          <Panel heading="How good it is" description="Observed and predicted spectra at each station and component, with weighted residuals.">
+            <FitsPanel fits={fits.data} error={fits.error} />
+          </Panel>
+          <Panel heading="How sure we are" description="Trade-offs between parameters, the misfit around the minimum, and where the starts ended.">
+            <div className="grid gap-6 lg:grid-cols-2">
+              <CorrelationHeatmap minimum={m} />
+              <StartsPicture result={result} selected={minimum} />
+            </div>
+            <h3 className="mt-6 mb-2 text-sm font-semibold">Misfit surface</h3>
+            <SurfacePanel base={base} interval={interval.startsAt} minimum={minimum} paramNames={result.paramNames} canRequest={canLaunch} />
+          </Panel>
+          {solved.length > 1 ? (
+            <Panel heading="Through the day">
+              <SeriesCurves intervals={view.intervals} colours={colours} />
+            </Panel>
+          ) : null}
+        </>
+      ) : (
+        <Panel heading="What came out">
+          <p className="text-sm text-muted">{LIVE.has(run.state) ? 'Results appear here as soon as the first interval is finished.' : 'This run has no finished interval with data.'}</p>
+        </Panel>
+      )}
+    </div>
+  );
+}

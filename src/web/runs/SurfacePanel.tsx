@@ -1,0 +1,70 @@
+'use client';
+/** Misfit surface over two chosen parameters around the selected minimum, computed by the worker on request and cached. */
+import { useMemo, useState } from 'react';
+import * as Plot from '@observablehq/plot';
+import { PlotFigure } from '@/src/web/charts/PlotFigure';
+import { SEQUENTIAL_MISFIT } from '@/src/web/charts/scales';
+import { Button, Notice } from '@/src/web/ui';
+import { apiSend, useApi } from '@/src/web/swr';
+
+type Surface = { id: string; state: 'queued' | 'running' | 'ready' | 'failed'; error: string | null;
+  result: { xName: string; yName: string; x: number[]; y: number[]; misfit: number[][]; centre: { x: number; y: number; misfit: number } } | null };
+
+const unit = (n: string) => (n.endsWith('.intensity') ? `${n} (C² km²/s)` : `${n} (°)`);
+
+export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }: {
+  base: string; interval: string; minimum: number; paramNames: string[]; canRequest: boolean;
+}) {
+  const [x, setX] = useState(paramNames[0] ?? '');
+  const [y, setY] = useState(paramNames[1] ?? paramNames[0] ?? '');
+  const [id, setId] = useState<string | null>(null);
+  const [err, setErr] = useState<string | null>(null);
+  const { data } = useApi<{ surface: Surface }>(id ? `${base}/surfaces/${id}` : null, {
+    refreshInterval: (d) => (d && (d.surface.state === 'ready' || d.surface.state === 'failed') ? 0 : 1000),
+  });
+  const s = data?.surface;
+  const options = useMemo(() => {
+    if (!s?.result) return null;
+    const r = s.result;
+    const cells = r.y.flatMap((yv, j) => r.x.map((xv, i) => ({ x: xv, y: yv, m: r.misfit[j][i] })));
+    const logX = r.xName.endsWith('.intensity');
+    const logY = r.yName.endsWith('.intensity');
+    return {
+      x: logX ? { type: 'log' } : {}, y: logY ? { type: 'log' } : {},
+      color: { type: 'log', scheme: SEQUENTIAL_MISFIT, legend: true, label: 'misfit χ² (dimensionless)' },
+      marks: [
+        Plot.dot(cells, { x: 'x', y: 'y', fill: 'm', r: 6, symbol: 'square', title: (d: { x: number; y: number; m: number }) => `χ² = ${d.m.toPrecision(5)}` }),
+        Plot.dot([r.centre], { x: 'x', y: 'y', r: 5, stroke: 'white', strokeWidth: 2, symbol: 'cross' }),
+      ],
+    } as unknown as Plot.PlotOptions;
+  }, [s]);
+  async function ask() {
+    setErr(null);
+    try {
+      const res = await apiSend<{ surface: Surface }>('POST', `${base}/surfaces`, { interval, minimum, x, y });
+      setId(res.surface.id);
+    } catch (e) {
+      setErr((e as Error).message);
+    }
+  }
+  if (paramNames.length < 2) return <p className="text-sm text-muted">A misfit surface needs at least two free parameters.</p>;
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-end gap-3 text-sm">
+        <label>Horizontal <select aria-label="Horizontal parameter" className="ml-1 rounded border border-line-strong bg-surface px-2 py-1" value={x} onChange={(e) => setX(e.target.value)}>
+          {paramNames.map((n) => <option key={n}>{n}</option>)}</select></label>
+        <label>Vertical <select aria-label="Vertical parameter" className="ml-1 rounded border border-line-strong bg-surface px-2 py-1" value={y} onChange={(e) => setY(e.target.value)}>
+          {paramNames.map((n) => <option key={n}>{n}</option>)}</select></label>
+        <Button type="button" onClick={ask} disabled={!canRequest || x === y}>Map the misfit</Button>
+        {!canRequest ? <span className="text-muted">Analysts and owners can ask for a surface.</span> : null}
+      </div>
+      {err ? <Notice tone="error" title="The surface was not requested">{err}</Notice> : null}
+      {s && s.state !== 'ready' && s.state !== 'failed' ? <p role="status" className="text-sm text-muted">The worker is computing the surface ({s.state})…</p> : null}
+      {s?.state === 'failed' ? <Notice tone="error" title="The surface failed">{s.error}. Ask again to retry.</Notice> : null}
+      {options && s?.result ? (
+        <PlotFigure title={`Misfit over ${s.result.xName} and ${s.result.yName}`} xLabel={unit(s.result.xName)} yLabel={unit(s.result.yName)}
+          caption="Other parameters held at the minimum (cross); ±3 standard errors around it." options={options} height={340} />
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,27 @@
+/** Client-side shapes of the run API (JSON of src/runs/results.ts RunView). */
+import type { RunView } from '@/src/runs/results';
+import type { Minimum, InversionResult } from '@/src/engine/inverse/types';
+
+export type { RunView, Minimum, InversionResult };
+export type RunJson = RunView;
+
+export function runApi(networkId: string, runId: string): string {
+  return `/api/networks/${networkId}/runs/${runId}`;
+}
+
+/** Latitude/longitude standard errors and their correlation for one source of a minimum. */
+export function centreCovariance(m: Minimum, name: string): { sLat: number; sLon: number; rho: number } | null {
+  const e = m.stdErrors[name];
+  if (!e || e.lat === undefined || e.lon === undefined) return null;
+  const i = m.correlation.names.indexOf(`${name}.lat`);
+  const j = m.correlation.names.indexOf(`${name}.lon`);
+  const rho = i >= 0 && j >= 0 ? m.correlation.matrix[i][j] : 0;
+  return { sLat: e.lat, sLon: e.lon, rho: Number.isFinite(rho) ? rho : 0 };
+}
+
+export function fmt(v: number | undefined | null, digits = 3): string {
+  if (v === undefined || v === null || !Number.isFinite(v)) return '—';
+  const a = Math.abs(v);
+  if (a !== 0 && (a >= 1e5 || a < 1e-3)) return v.toExponential(digits - 1);
+  return v.toLocaleString('en-GB', { maximumSignificantDigits: digits + 1 });
+}
