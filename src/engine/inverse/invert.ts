@@ -5,7 +5,8 @@
 import { buildMinima } from './minima';
 import { multiStart, resolveMultiStartOptions, type MultiStartOptions } from './multistart';
 import { prepareSpectrum, type SpectrumInversionInput } from './spectrum-setup';
-import type { InversionCallbacks, InversionResult } from './types';
+import { misfitSurface, type SurfaceRequest } from './surface';
+import type { InversionCallbacks, InversionResult, MisfitSurface } from './types';
 
 export async function invertSpectra(
   input: SpectrumInversionInput,
@@ -27,4 +28,10 @@ export async function invertSpectra(
     unconverged: outcomes.filter((x) => !x.converged).length,
     minima,
   };
+}
+
+/** chi-square surface over two free parameters of a spectrum inversion (see surface.ts). */
+export function spectrumSurface(input: SpectrumInversionInput, request: SurfaceRequest, shouldCancel?: () => boolean): MisfitSurface {
+  const { problem, par } = prepareSpectrum(input);
+  return misfitSurface(problem, par, request, shouldCancel);
 }
