@@ -5,6 +5,7 @@
 import type { JobDefinition } from './types';
 import { job as runInversion } from './jobs/run-inversion';
 import { job as misfitSurface } from './jobs/misfit-surface';
+import { job as processUpload } from './jobs/process-upload';
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-export const jobs: JobDefinition<any>[] = [runInversion, misfitSurface];
+export const jobs: JobDefinition<any>[] = [runInversion, misfitSurface, processUpload];

@@ -1,0 +1,159 @@
+/**
+ * Station files as the data area reads them, on top of the engine's parsers:
+ * which layout a file is, a full check at upload time (against the station it
+ * is uploaded to), and the stream of raw intervals the worker processes.
+ *
+ * Layouts: the time-series CSV ("# cavitas-series 1"), the spectra CSV
+ * ("# cavitas-spectra 1"), and the JSON series of the `spectrum` command
+ * with three more fields for uploads: "station", "component", "startUtc".
+ */
+import { FormatError } from '@/src/engine/formats/format-error';
+import { openSeriesCsv, SERIES_SIGNATURE, type SeriesHeader } from '@/src/engine/formats/series-csv';
+import { readSpectraCsv, SPECTRA_SIGNATURE } from '@/src/engine/formats/spectra-csv';
+import { parseJsonText } from '@/src/engine/formats/json-text';
+import { parseSeriesJson } from '@/src/engine/formats/pipeline-json';
+import { parseUtc } from '@/src/engine/formats/header-lines';
+import { splitIntervals } from '@/src/engine/pipeline/interval-splitter';
+import { getStationByCode, type ComponentName, type Station } from '@/db/repo/stations';
+import type { UploadFormat } from '@/db/repo/uploads';
+import { textOf } from './text';
+import { INTERVAL_SECONDS, sampleUnitFactor, spectrumUnitFactor, type RawInterval } from './interval-processing';
+import { COMPONENTS } from './station-input';
+
+/** A problem with a file's content: the message names file, line and field. */
+export class FileProblem extends Error {
+  constructor(message: string, readonly field: string) { super(message); }
+}
+
+export interface FileContext { fileName: string; station: Station }
+type Chunks = AsyncIterable<Uint8Array>;
+
+function problem(e: unknown): never {
+  if (e instanceof FormatError) throw new FileProblem(e.message, e.field ?? 'file');
+  throw e;
+}
+
+/** Which layout a file uses, from its first bytes (and name, for the message). */
+export function sniffFormat(fileName: string, head: string): UploadFormat {
+  const text = head.replace(/^\uFEFF/, '').trimStart();
+  if (text.startsWith('{')) return 'series-json';
+  const first = text.split(/\r?\n/, 1)[0].replace(/\s+/g, ' ').trim();
+  if (first.startsWith(`# ${SERIES_SIGNATURE}`) || first.startsWith(`#${SERIES_SIGNATURE}`)) return 'series-csv';
+  if (first.startsWith(`# ${SPECTRA_SIGNATURE}`) || first.startsWith(`#${SPECTRA_SIGNATURE}`)) return 'spectra-csv';
+  throw new FileProblem(
+    `${fileName}, line 1: not a Cavitas station file — the first line should read "# ${SERIES_SIGNATURE} 1" or "# ${SPECTRA_SIGNATURE} 1", or the file should be a JSON series starting with "{"`,
+    'file');
+}
+
+async function checkStationCode(code: string, ctx: FileContext, field: string): Promise<void> {
+  if (code === ctx.station.code) return;
+  const other = await getStationByCode(ctx.station.networkId, code);
+  if (other) throw new FileProblem(`${ctx.fileName}: the file is from station ${code}, not ${ctx.station.code}; upload it on ${code}'s page`, field);
+  throw new FileProblem(`${ctx.fileName}: unknown station code "${code}" — this network has no such station (add it first, or correct the file)`, field);
+}
+
+function checkComponent(c: string, ctx: FileContext, field: string): ComponentName {
+  if (!COMPONENTS.includes(c as ComponentName)) throw new FileProblem(`${ctx.fileName}: "${c}" is not a component (Ez, Bns or Bew)`, field);
+  if (!ctx.station.components.some((x) => x.component === c)) {
+    throw new FileProblem(`${ctx.fileName}: station ${ctx.station.code} has no ${c} component installed (add it to the station first)`, field);
+  }
+  return c as ComponentName;
+}
+
+function checkRate(rate: number, ctx: FileContext, field: string) {
+  if (Math.abs(rate - ctx.station.sampleRateHz) > 1e-9 * rate) {
+    throw new FileProblem(`${ctx.fileName}: ${field} ${rate} Hz disagrees with station ${ctx.station.code}'s registered ${ctx.station.sampleRateHz} Hz (correct the file or the station)`, field);
+  }
+}
+
+async function checkSeriesHeader(h: SeriesHeader, ctx: FileContext): Promise<Partial<Record<ComponentName, number>>> {
+  await checkStationCode(h.station, ctx, 'station');
+  checkRate(h.sampleRateHz, ctx, 'sample-rate-hz');
+  const factors: Partial<Record<ComponentName, number>> = {};
+  for (const c of h.components) {
+    checkComponent(c, ctx, c);
+    const f = sampleUnitFactor(h.units[c] ?? '');
+    if (f !== undefined) factors[c] = f;
+  }
+  return factors;
+}
+
+interface JsonUpload { component: ComponentName; startMs: number; sampleRateHz: number; samples: number[] }
+
+async function readJsonUpload(chunks: Chunks, ctx: FileContext): Promise<JsonUpload> {
+  const file = ctx.fileName;
+  const data = parseJsonText(await textOf(chunks), file) as Record<string, unknown>;
+  if (!data || typeof data !== 'object' || Array.isArray(data)) throw new FileProblem(`${file}: the JSON must be an object`, 'file');
+  for (const key of ['station', 'component', 'startUtc'] as const) {
+    if (typeof data[key] !== 'string') throw new FileProblem(`${file}, field "${key}": an uploaded JSON series needs "${key}" (a string)`, key);
+  }
+  const series = parseSeriesJson({ segmentSeconds: 10, ...data }, file);
+  await checkStationCode(data.station as string, ctx, 'station');
+  const component = checkComponent(data.component as string, ctx, 'component');
+  const startMs = parseUtc(data.startUtc as string);
+  if (startMs === null) throw new FileProblem(`${file}, field "startUtc": "${data.startUtc}" is not a UTC time like 2026-03-14T00:00:00Z`, 'startUtc');
+  checkRate(series.sampleRateHz, ctx, 'sampleRateHz');
+  return { component, startMs, sampleRateHz: series.sampleRateHz, samples: series.samples };
+}
+
+/** Reads the whole file once, as the upload arrives; throws FileProblem naming file, line and field. */
+export async function checkFile(format: UploadFormat, chunks: Chunks, ctx: FileContext): Promise<{ intervals: number }> {
+  try {
+    if (format === 'series-csv') {
+      const reader = await openSeriesCsv(chunks, ctx.fileName);
+      await checkSeriesHeader(reader.header, ctx);
+      let last = -1;
+      for await (const b of reader.blocks) last = b.firstSample + b.length - 1;
+      const spanS = (last + 1) / reader.header.sampleRateHz;
+      return { intervals: Math.max(1, Math.ceil(spanS / INTERVAL_SECONDS)) };
+    }
+    if (format === 'spectra-csv') {
+      const f = await readSpectraCsv(chunks, ctx.fileName);
+      await checkStationCode(f.station, ctx, 'station');
+      checkComponent(f.component, ctx, 'component');
+      return { intervals: f.intervals.length };
+    }
+    await readJsonUpload(chunks, ctx);
+    return { intervals: 1 };
+  } catch (e) {
+    return problem(e);
+  }
+}
+
+/** The file's raw intervals, 10 minutes each aligned to UTC, one component at a time. */
+export async function* readUploadIntervals(format: UploadFormat, chunks: Chunks, ctx: FileContext): AsyncGenerator<RawInterval> {
+  try {
+    if (format === 'series-csv') {
+      const reader = await openSeriesCsv(chunks, ctx.fileName);
+      const h = reader.header;
+      const factors = await checkSeriesHeader(h, ctx);
+      const split = splitIntervals(reader.blocks, { sampleRateHz: h.sampleRateHz, startMs: h.startMs, components: h.components.length, intervalSeconds: INTERVAL_SECONDS });
+      for await (const iv of split) {
+        for (let c = 0; c < h.components.length; c++) {
+          yield { kind: 'samples', component: h.components[c], startsAt: new Date(iv.startMs), durationS: INTERVAL_SECONDS,
+            sampleRateHz: h.sampleRateHz, samples: iv.columns[c], siFactor: factors[h.components[c]] };
+        }
+      }
+      return;
+    }
+    if (format === 'spectra-csv') {
+      const f = await readSpectraCsv(chunks, ctx.fileName);
+      await checkStationCode(f.station, ctx, 'station');
+      const component = checkComponent(f.component, ctx, 'component');
+      const siFactor = spectrumUnitFactor(f.units);
+      for (const iv of f.intervals) {
+        yield { kind: 'spectrum', component, startsAt: new Date(iv.startMs), durationS: f.intervalSeconds,
+          frequencies: f.frequencies, power: iv.power, siFactor };
+      }
+      return;
+    }
+    const j = await readJsonUpload(chunks, ctx);
+    const blocks = (async function* () { yield { firstSample: 0, length: j.samples.length, columns: [j.samples] }; })();
+    for await (const iv of splitIntervals(blocks, { sampleRateHz: j.sampleRateHz, startMs: j.startMs, components: 1, intervalSeconds: INTERVAL_SECONDS })) {
+      yield { kind: 'samples', component: j.component, startsAt: new Date(iv.startMs), durationS: INTERVAL_SECONDS,
+        sampleRateHz: j.sampleRateHz, samples: iv.columns[0] };
+    }
+  } catch (e) {
+    problem(e);
+  }
+}

@@ -1,0 +1,102 @@
+/**
+ * One raw interval of a station (samples, or a spectrum already computed) to
+ * the row the database keeps: the engine's per-interval processing for
+ * samples (calibration, Welch, transient rejection, line suppression, mode
+ * fit, quality flags); the mode fit alone for spectra. Station settings
+ * (mains, interference lines, calibration) come from the registry.
+ */
+import { processInterval } from '@/src/engine/pipeline/process-interval';
+import type { ProcessingConfig } from '@/src/engine/pipeline/types';
+import { calibrateSpectrum, type Calibration } from '@/src/engine/signal/calibration';
+import { fitModes, ModeFitError } from '@/src/engine/modes/fit-modes';
+import { ModeFitOptionError } from '@/src/engine/modes/options';
+import { SIGNAL_INTERVAL_SECONDS, SIGNAL_SEGMENT_SECONDS, SPECTRUM_BAND_MAX_HZ, MODE_FREQUENCY_WINDOW_HZ } from '@/src/engine/tolerances';
+import { MIN_MODES, USUAL_MODE_FREQUENCIES_HZ } from '@/src/engine/modes/usual-modes';
+import type { IntervalResultInput } from '@/db/repo/intervals';
+import type { ComponentName, Station } from '@/db/repo/stations';
+
+export const INTERVAL_SECONDS = SIGNAL_INTERVAL_SECONDS;
+/** Most modes fitted for stored intervals. */
+export const STORED_MODE_COUNT = 5;
+
+/** Modes to fit below a spectrum's top frequency: the usual modes whose search window fits, at most STORED_MODE_COUNT; 0 when fewer than three. */
+export function modeCountBelow(topHz: number): number {
+  const n = USUAL_MODE_FREQUENCIES_HZ.filter((f) => f + MODE_FREQUENCY_WINDOW_HZ < topHz).length;
+  return n >= MIN_MODES ? Math.min(STORED_MODE_COUNT, n) : 0;
+}
+
+export type RawInterval = { component: ComponentName; startsAt: Date; durationS: number } & (
+  | {
+    kind: 'samples'; sampleRateHz: number; samples: Float64Array;
+    /** Physical samples: multiply by this to reach SI (V/m, T); the station calibration is then skipped. */
+    siFactor?: number;
+  }
+  | {
+    kind: 'spectrum'; frequencies: ArrayLike<number>; power: ArrayLike<number>;
+    /** Physical power: multiply by this to reach SI ((V/m)^2/Hz, T^2/Hz); otherwise the calibration applies. */
+    siFactor?: number;
+  });
+
+/** Units of samples that are already physical, as factors to SI. */
+const SAMPLE_UNITS: Record<string, number> = { 'V/m': 1, 'mV/m': 1e-3, 'uV/m': 1e-6, 'µV/m': 1e-6, T: 1, nT: 1e-9, pT: 1e-12, fT: 1e-15 };
+/** Units of spectra that are already physical, as factors to SI. */
+const SPECTRUM_UNITS: Record<string, number> = {
+  '(V/m)^2/Hz': 1, '(mV/m)^2/Hz': 1e-6, 'T^2/Hz': 1, 'nT^2/Hz': 1e-18, 'pT^2/Hz': 1e-24, 'fT^2/Hz': 1e-30,
+};
+export const sampleUnitFactor = (unit: string): number | undefined => SAMPLE_UNITS[unit.trim()];
+export const spectrumUnitFactor = (unit: string): number | undefined => SPECTRUM_UNITS[unit.replace(/\s+/g, '')];
+
+function calibrationOf(station: Station, component: ComponentName): Calibration {
+  const c = station.components.find((x) => x.component === component);
+  if (!c) throw new Error(`${station.code} has no ${component} component installed`);
+  return c.calibration;
+}
+
+/** Processing settings of one station component (samples in physical units when siFactor is given). */
+export function processingConfigFor(station: Station, component: ComponentName, sampleRateHz: number, siFactor?: number): ProcessingConfig {
+  return {
+    sampleRateHz,
+    segmentSeconds: SIGNAL_SEGMENT_SECONDS,
+    mainsHz: station.mainsHz,
+    interferenceLines: station.interferenceLines.map((l) => ({ frequencyHz: l.frequencyHz })),
+    // physical units: raw = field / siFactor, i.e. a flat response of 1/siFactor per SI unit
+    calibration: siFactor !== undefined ? { kind: 'gain', gain: 1 / siFactor } : calibrationOf(station, component),
+    modes: modeCountBelow(Math.min(SPECTRUM_BAND_MAX_HZ, sampleRateHz / 2)),
+  };
+}
+
+export type ProcessedRow = Omit<IntervalResultInput, 'uploadId' | 'origin'>;
+
+export function processRawInterval(station: Station, raw: RawInterval): ProcessedRow {
+  const base = {
+    networkId: station.networkId, stationId: station.id, component: raw.component,
+    startsAt: raw.startsAt, durationS: raw.durationS,
+  };
+  if (raw.kind === 'samples') {
+    const r = processInterval(raw.samples, processingConfigFor(station, raw.component, raw.sampleRateHz, raw.siFactor));
+    return {
+      ...base, rejectedShare: r.rejectedShare, qualityFlags: r.flags,
+      spectrum: r.spectrum ? { ...r.spectrum, segments: r.segments } : { frequencies: [], power: [], segments: 0 },
+      fit: r.fit ? { modes: r.fit.modes, background: r.fit.background, misfit: r.fit.misfit } : null,
+    };
+  }
+  const power = raw.siFactor !== undefined
+    ? Array.from(raw.power, (p) => p * raw.siFactor!)
+    : Array.from(calibrateSpectrum(raw.frequencies, raw.power, calibrationOf(station, raw.component)).power);
+  const frequencies = Array.from(raw.frequencies);
+  // A file's spectrum carries no segment count: assume the usual 10-s Hann segments with 50 % overlap.
+  const segments = Math.max(1, Math.floor((2 * raw.durationS) / SIGNAL_SEGMENT_SECONDS) - 1);
+  const flags: string[] = [];
+  let fit = null;
+  const modes = modeCountBelow(frequencies[frequencies.length - 1] ?? 0);
+  if (modes === 0) flags.push('fit-failed');
+  else try {
+    const f = fitModes(frequencies, power, { modes, averages: segments });
+    fit = { modes: f.modes, background: f.background, misfit: f.misfit };
+    flags.push(...f.flags);
+  } catch (e) {
+    if (!(e instanceof ModeFitError) && !(e instanceof ModeFitOptionError)) throw e;
+    flags.push('fit-failed');
+  }
+  return { ...base, rejectedShare: 0, qualityFlags: flags, spectrum: { frequencies, power, segments }, fit };
+}
