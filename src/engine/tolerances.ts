@@ -92,6 +92,12 @@ export const MODE_Q_MIN = 1.5;
 export const MODE_Q_MAX = 20;
 /** 'implausible-modes' when a mode's relative amplitude error exceeds this. */
 export const MODE_AMPLITUDE_REL_ERROR_MAX = 1;
+/** Mode fits stop when chi2 changes by less than this fraction (far below the data's scatter; looser than the inverter's). */
+export const MODE_FIT_MISFIT_REL_TOL = 1e-9;
+/** Mode fits stop when the scaled step is below this fraction of the parameters. */
+export const MODE_FIT_STEP_REL_TOL = 1e-8;
+/** Mode fits: limit on optimiser iterations per pass. */
+export const MODE_FIT_MAX_ITERATIONS = 200;
 /**
  * Correlation of power between neighbouring Welch segments of a Hann window at 50 % overlap
  * (Harris 1978, Proc. IEEE 66, 51, Table 1: 16.7 %); the effective number of averages is

@@ -1,6 +1,12 @@
 /** Options of a mode fit, with every default resolved in one place. */
 import type { LmOptions } from '@/src/engine/optim/types';
-import { MODE_FIT_MIN_HZ, MODE_FIT_TOP_MARGIN_HZ } from '@/src/engine/tolerances';
+import {
+  MODE_FIT_MAX_ITERATIONS,
+  MODE_FIT_MIN_HZ,
+  MODE_FIT_MISFIT_REL_TOL,
+  MODE_FIT_STEP_REL_TOL,
+  MODE_FIT_TOP_MARGIN_HZ,
+} from '@/src/engine/tolerances';
 import { MAX_MODES, MIN_MODES, USUAL_MODE_FREQUENCIES_HZ } from './usual-modes';
 
 export interface ModeFitOptions {
@@ -17,7 +23,8 @@ export interface ModeFitOptions {
   exclude?: Uint8Array;
   /** Starting frequencies, one per mode; default the usual mode frequencies. */
   guessHz: number[];
-  lm?: Partial<LmOptions>;
+  /** Optimiser settings; defaults MODE_FIT_* tolerances. */
+  lm: Partial<LmOptions>;
   shouldStop?: () => boolean;
 }
 
@@ -43,5 +50,6 @@ export function resolveModeFitOptions(options: Partial<ModeFitOptions>, frequenc
   if (averages !== undefined && !(averages > 0)) throw new ModeFitOptionError(`averages must be positive, got ${averages}`);
   const errorInflation = options.errorInflation ?? 1;
   if (!(errorInflation > 0)) throw new ModeFitOptionError(`errorInflation must be positive, got ${errorInflation}`);
-  return { ...options, modes, minHz, maxHz, averages, errorInflation, guessHz: [...guessHz] };
+  const lm = { misfitTol: MODE_FIT_MISFIT_REL_TOL, stepTol: MODE_FIT_STEP_REL_TOL, maxIterations: MODE_FIT_MAX_ITERATIONS, ...options.lm };
+  return { ...options, modes, minHz, maxHz, averages, errorInflation, guessHz: [...guessHz], lm };
 }
