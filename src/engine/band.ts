@@ -1,8 +1,8 @@
 /** Frequency band of a run: the grid minHz, minHz + stepHz, ... <= maxHz. */
 export type Band = { minHz: number; maxHz: number; stepHz: number };
 
-/** Largest number of bins a band may hold (keeps kernel tables bounded). */
-export const MAX_BAND_BINS = 20_000;
+/** Largest number of bins a band may hold (keeps kernel tables bounded: about 86 kB per bin). */
+export const MAX_BAND_BINS = 2_000;
 
 /** Number of bins of a band (tolerant of rounding at the top edge). */
 export function bandSize(band: Band): number {

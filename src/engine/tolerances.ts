@@ -25,6 +25,8 @@ export const KERNEL_INTERP_REL_TOL = 1e-4;
 export const KERNEL_ACCURATE_FROM_DEG = 0.5;
 /** Kernel tables: how many (cavity, band) tables the in-process cache keeps. */
 export const KERNEL_CACHE_SIZE = 6;
+/** Kernel tables: memory budget of the cache, bytes (a 141-bin band on the 0.1 deg grid takes about 12 MB). */
+export const KERNEL_CACHE_BYTES = 256e6;
 
 // ── Inverse problem (Levenberg–Marquardt, multi-start, minima) ───────────────
 

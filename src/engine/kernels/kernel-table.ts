@@ -12,7 +12,7 @@ import { bandKey } from '../band';
 import type { Cavity } from '../cavity/types';
 import { LEGENDRE_OUT, legendreInto, prepareDegree } from '../special/legendre';
 import { DEG } from '../constants';
-import { KERNEL_CACHE_SIZE, KERNEL_GRID_STEP_DEG, KERNEL_MIN_THETA_DEG } from '../tolerances';
+import { KERNEL_CACHE_BYTES, KERNEL_CACHE_SIZE, KERNEL_GRID_STEP_DEG, KERNEL_MIN_THETA_DEG } from '../tolerances';
 import { fieldFactors } from './field-constants';
 import type { KernelTable } from './kernel-sample';
 import { createHermiteSampler } from './hermite-sampler';
@@ -40,7 +40,9 @@ export function getKernelTable(cavity: Cavity, freqs: Float64Array, options?: Pa
   }
   const table = buildKernelTable(cavity, freqs, o);
   cache.set(key, table);
-  while (cache.size > KERNEL_CACHE_SIZE) cache.delete(cache.keys().next().value as string);
+  // evict least recently used tables beyond the count or memory budget (always keep the newest)
+  const bytes = () => [...cache.values()].reduce((a, t) => a + t.nodes * t.n * 48, 0);
+  while (cache.size > 1 && (cache.size > KERNEL_CACHE_SIZE || bytes() > KERNEL_CACHE_BYTES)) cache.delete(cache.keys().next().value as string);
   return table;
 }
 
