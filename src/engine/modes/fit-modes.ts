@@ -12,6 +12,8 @@
  */
 import { covarianceFromJtJ } from '@/src/engine/optim/covariance';
 import { CONVERGED_REASONS } from '@/src/engine/optim/types';
+import { OptimInputError } from '@/src/engine/optim/errors';
+import { MODE_FREQUENCY_WINDOW_HZ } from '@/src/engine/tolerances';
 import { initialGuess } from './initial-guess';
 import { lorentzianModel } from './lorentzian';
 import { resolveModeFitOptions, type ModeFitOptions } from './options';
@@ -40,16 +42,25 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
   const data = raw.map((v) => v / unit);
   const rel = o.averages ? 1 / Math.sqrt(o.averages) : 1;
 
+  o.guessHz.forEach((u, n) => {
+    if (u + MODE_FREQUENCY_WINDOW_HZ < freqs[0] || u - MODE_FREQUENCY_WINDOW_HZ > freqs[freqs.length - 1]) {
+      throw new ModeFitError(`mode ${n + 1} (near ${u} Hz) lies outside the fitted band ${freqs[0]}–${freqs[freqs.length - 1]} Hz; fit fewer modes or widen the band`);
+    }
+  });
   const guess = initialGuess(freqs, data, o.guessHz);
   const sigma = data.map((v) => rel * v);
   const common = { modes: o.modes, freqs, data, lower: guess.lower, upper: guess.upper, lm: o.lm, shouldStop: o.shouldStop };
-  const first = weightedLorentzianFit({ ...common, sigma, start: guess.start });
-  const model = new Float64Array(freqs.length);
-  lorentzianModel(first.params, o.modes, freqs, model);
-  const modelOk = model.every((v) => v > 0 && Number.isFinite(v));
-  const final = modelOk
-    ? weightedLorentzianFit({ ...common, sigma: model.map((v) => rel * v), start: first.params })
-    : first;
+  let first, final;
+  try {
+    first = weightedLorentzianFit({ ...common, sigma, start: guess.start });
+    const model = new Float64Array(freqs.length);
+    lorentzianModel(first.params, o.modes, freqs, model);
+    const modelOk = model.every((v) => v > 0 && Number.isFinite(v));
+    final = modelOk ? weightedLorentzianFit({ ...common, sigma: model.map((v) => rel * v), start: first.params }) : first;
+  } catch (e) {
+    if (e instanceof OptimInputError) throw new ModeFitError(`the fit could not start: ${e.message}`);
+    throw e;
+  }
 
   const dof = freqs.length - np;
   const reduced = dof > 0 ? final.chi2 / dof : Infinity;

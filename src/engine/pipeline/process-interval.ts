@@ -5,6 +5,7 @@
  * quality flags. Pure: no I/O, no clocks.
  */
 import { fitModes, ModeFitError } from '@/src/engine/modes/fit-modes';
+import { ModeFitOptionError } from '@/src/engine/modes/options';
 import { calibrateSpectrum, responseAt } from '@/src/engine/signal/calibration';
 import { listedLines, mainsLines, suppressLines, type SpectralLine } from '@/src/engine/signal/line-suppression';
 import { segmentLayout, segmentStats } from '@/src/engine/signal/segments';
@@ -60,7 +61,7 @@ export function processInterval(samples: Float64Array, config: ProcessingConfig)
       });
       for (const f of fit.flags) if (!flags.includes(f)) flags.push(f);
     } catch (e) {
-      if (!(e instanceof ModeFitError)) throw e;
+      if (!(e instanceof ModeFitError) && !(e instanceof ModeFitOptionError)) throw e;
       flags.push('fit-failed');
     }
   }

@@ -76,3 +76,15 @@ describe('per-interval processing', () => {
     expect(() => processInterval(x, { sampleRateHz: fs, calibration: { kind: 'gain', gain: 0 } })).toThrow(/gain/);
   });
 });
+
+describe('per-interval processing at a low sample rate', () => {
+  it('reports a failed fit, not a crash, when the band cannot hold the modes asked for', () => {
+    // 20 Hz sampling: Nyquist 10 Hz, so only the first mode is inside the band
+    const rand = mulberry32(8);
+    const x = Float64Array.from({ length: 600 * 20 }, () => gaussian(rand));
+    const r = processInterval(x, { sampleRateHz: 20, modes: 5, band: { minHz: 3, maxHz: 10 } });
+    expect(r.flags).toEqual(['fit-failed']);
+    expect(r.fit).toBeNull();
+    expect(r.spectrum!.frequencies.at(-1)).toBe(10);
+  });
+});
