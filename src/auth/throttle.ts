@@ -1,19 +1,20 @@
 /**
  * Sign-in throttling, per account and per client address, kept in PostgreSQL.
- * Five failures within fifteen minutes lock the key; each further failure
- * doubles the lock (30 s, 60 s, 120 s …) up to fifteen minutes.
+ * Five failures for an account (twenty for an address, which many people may
+ * share) within fifteen minutes lock the key; each further failure doubles
+ * the lock (30 s, 60 s, 120 s …) up to fifteen minutes.
  */
 import { clearThrottleRows, getThrottleRows, saveThrottleRow, type ThrottleRow } from '@/db/repo/users';
 import { tooManyRequests } from '@/src/server/errors';
 
-export const THROTTLE = { allowance: 5, windowMs: 15 * 60_000, baseLockMs: 30_000, maxLockMs: 15 * 60_000 } as const;
+export const THROTTLE = { allowance: 5, addressAllowance: 20, windowMs: 15 * 60_000, baseLockMs: 30_000, maxLockMs: 15 * 60_000 } as const;
 
 /** Pure: the row after one more failure at `now`. */
 export function afterFailure(prev: ThrottleRow | undefined, key: string, now: Date): ThrottleRow {
   const stale = !prev || (now.getTime() - prev.firstFailureAt.getTime() > THROTTLE.windowMs && !isLocked(prev, now));
   const failures = stale ? 1 : prev!.failures + 1;
   const firstFailureAt = stale ? now : prev!.firstFailureAt;
-  const over = failures - THROTTLE.allowance;
+  const over = failures - (key.startsWith('address:') ? THROTTLE.addressAllowance : THROTTLE.allowance);
   const lockedUntil =
     over >= 0 ? new Date(now.getTime() + Math.min(THROTTLE.maxLockMs, THROTTLE.baseLockMs * 2 ** over)) : null;
   return { key, failures, firstFailureAt, lockedUntil };

@@ -48,3 +48,14 @@ describe('throttle policy', () => {
     expect(describeWait(14 * 60_000 + 1)).toBe('15 minutes');
   });
 });
+
+describe('per-address allowance', () => {
+  it('an address (shared by many people) is locked only after twenty failures', () => {
+    let row = afterFailure(undefined, 'address:192.0.2.7', t0);
+    for (let i = 2; i <= 19; i++) row = afterFailure(row, 'address:192.0.2.7', t0);
+    expect(isLocked(row, t0)).toBe(false);
+    row = afterFailure(row, 'address:192.0.2.7', t0);
+    expect(row.failures).toBe(20);
+    expect(isLocked(row, t0)).toBe(true);
+  });
+});
