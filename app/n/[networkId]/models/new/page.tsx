@@ -1,0 +1,15 @@
+import { pageNetworkAction } from '@/src/auth/pages';
+import { Panel } from '@/src/web/ui';
+import { ModelEditor } from '@/src/web/models/ModelEditor';
+
+export const metadata = { title: 'Describe a cavity model · Cavitas' };
+
+export default async function NewModelPage({ params }: { params: Promise<{ networkId: string }> }) {
+  const { networkId } = await params;
+  await pageNetworkAction(networkId, 'models.edit');
+  return (
+    <Panel heading="Describe a cavity model" description="The figures below follow your entries; check them before saving.">
+      <ModelEditor networkId={networkId} />
+    </Panel>
+  );
+}
