@@ -47,13 +47,18 @@ export function resolveProcessingConfig(config: ProcessingConfig): ResolvedProce
   if (mainsHz !== null && !(mainsHz > 0)) throw new ProcessingConfigError(`mainsHz must be positive, got ${mainsHz}`);
   const calibration = config.calibration ?? { kind: 'gain', gain: 1 };
   checkCalibration(calibration);
+  const interferenceLines = config.interferenceLines ?? [];
+  interferenceLines.forEach((l, i) => {
+    if (!(l.frequencyHz > 0) || !Number.isFinite(l.frequencyHz)) throw new ProcessingConfigError(`interference line ${i + 1}: frequencyHz must be a positive number, got ${l.frequencyHz}`);
+    if (l.halfWidthHz !== undefined && !(l.halfWidthHz > 0)) throw new ProcessingConfigError(`interference line ${i + 1}: halfWidthHz must be positive, got ${l.halfWidthHz}`);
+  });
   const fullScale = config.fullScale ?? null;
   if (fullScale !== null && !(fullScale > 0)) throw new ProcessingConfigError(`fullScale must be positive, got ${fullScale}`);
   return {
     sampleRateHz: fs,
     segmentLength,
     mainsHz,
-    interferenceLines: config.interferenceLines ?? [],
+    interferenceLines,
     calibration,
     band,
     modes,

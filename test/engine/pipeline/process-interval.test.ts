@@ -74,6 +74,7 @@ describe('per-interval processing', () => {
     expect(() => processInterval(x, { sampleRateHz: fs, modes: 9 })).toThrow(/modes/);
     expect(() => processInterval(x, { sampleRateHz: fs, band: { minHz: 3, maxHz: 150 } })).toThrow(/Nyquist/);
     expect(() => processInterval(x, { sampleRateHz: fs, calibration: { kind: 'gain', gain: 0 } })).toThrow(/gain/);
+    expect(() => processInterval(x, { sampleRateHz: fs, interferenceLines: [{ frequencyHz: 16.7 }, { frequencyHz: -3 }] })).toThrow(/interference line 2/);
   });
 });
 
