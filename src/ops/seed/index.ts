@@ -8,11 +8,13 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { DemoSignIn, SeedModule } from './types';
 import * as accounts from './accounts';
+import * as stations from './stations';
 
 export type { DemoSignIn, SeedModule };
 
 export const seeders: ReadonlyArray<readonly [area: string, module: SeedModule]> = [
   ['accounts', accounts],
+  ['stations', stations],
 ];
 
 export async function runSeeds(log: (l: string) => void = () => {}): Promise<void> {
