@@ -7,9 +7,10 @@ export function hasGaps(samples: ArrayLike<number>): boolean {
 
 /**
  * Share of samples that sit at the recorder's limit. With a known full scale,
- * samples with |x| >= fullScale count; without it, samples exactly equal to the
- * interval's largest or smallest value (a clipped recorder repeats its limit,
- * while a live analogue signal almost never repeats its extreme to the last bit).
+ * samples with |x| >= fullScale count; without it, samples that repeat the
+ * interval's largest or smallest value in runs of two or more (a clipped
+ * recorder stays on its rail for consecutive samples, while coarsely quantised
+ * live noise touches its extreme only now and then).
  */
 export function clippedShare(samples: ArrayLike<number>, fullScale: number | null): number {
   let n = 0;
@@ -33,12 +34,10 @@ export function clippedShare(samples: ArrayLike<number>, fullScale: number | nul
     if (v < min) min = v;
   }
   if (n === 0 || max === min) return 0;
-  let atMax = 0;
-  let atMin = 0;
   for (let i = 0; i < samples.length; i++) {
-    if (samples[i] === max) atMax++;
-    else if (samples[i] === min) atMin++;
+    const v = samples[i];
+    if (v !== max && v !== min) continue;
+    if ((i > 0 && samples[i - 1] === v) || (i + 1 < samples.length && samples[i + 1] === v)) count++;
   }
-  // a single extreme sample is normal; repeats are what clipping looks like
-  return (Math.max(0, atMax - 1) + Math.max(0, atMin - 1)) / n;
+  return count / n;
 }
