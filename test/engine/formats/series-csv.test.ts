@@ -83,4 +83,12 @@ describe('series CSV reader', () => {
     for await (const b of reader.blocks) out.push(...b.columns[0]);
     expect(out).toEqual([1.5, -2, 0.3]);
   });
+
+  it('decodes UTF-8 split between chunks (a unit written with the micro sign)', async () => {
+    const text = '# cavitas-series 1\n# station: A1\n# sample-rate-hz: 2\n# start-utc: 2026-03-14T00:00:00Z\n# units: Ez=\u00b5V/m\nseconds,Ez\n0,1\n0.5,2\n';
+    const bytes = new TextEncoder().encode(text);
+    const cut = bytes.indexOf(0xc2) + 1; // between the two bytes of U+00B5
+    const reader = await openSeriesCsv([bytes.subarray(0, cut), bytes.subarray(cut)], 'micro.csv');
+    expect(reader.header.units.Ez).toBe('\u00b5V/m');
+  });
 });
