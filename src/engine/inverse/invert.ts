@@ -1,33 +1,43 @@
 /**
- * invertSpectra: the multi-start inversion of observed spectra for regional
- * intensities (and centres), returning the distinct minima best first.
+ * The multi-start inversions for regional intensities (and centres):
+ * invertSpectra (log-power misfit of observed spectra) and invertModes
+ * (misfit of observed mode parameters), returning distinct minima best first.
  */
 import { buildMinima } from './minima';
 import { multiStart, resolveMultiStartOptions, type MultiStartOptions } from './multistart';
-import { prepareSpectrum, type SpectrumInversionInput } from './spectrum-setup';
+import { prepareRecipe, type ProblemRecipe } from './recipes';
+import { prepareSpectrum, type ModeInversionInput, type SpectrumInversionInput } from './spectrum-setup';
 import { misfitSurface, type SurfaceRequest } from './surface';
 import type { InversionCallbacks, InversionResult, MisfitSurface } from './types';
 
-export async function invertSpectra(
-  input: SpectrumInversionInput,
-  options: Partial<MultiStartOptions> = {},
-  callbacks: InversionCallbacks = {},
+async function runInversion(
+  recipe: Extract<ProblemRecipe, { kind: 'spectrum' | 'modes' }>,
+  options: Partial<MultiStartOptions>,
+  callbacks: InversionCallbacks,
 ): Promise<InversionResult> {
   const t0 = performance.now();
   const o = resolveMultiStartOptions(options);
-  const prepared = prepareSpectrum(input);
-  const outcomes = await multiStart({ kind: 'spectrum', input }, prepared.problem, o, callbacks);
-  const minima = buildMinima(outcomes, prepared.par, prepared.layout.nData, o.scaleErrors);
+  const prepared = prepareRecipe(recipe);
+  const par = prepared.par!;
+  const outcomes = await multiStart(recipe, prepared.problem, o, callbacks);
   return {
     starts: o.starts,
     seed: o.seed,
     seconds: (performance.now() - t0) / 1000,
-    nData: prepared.layout.nData,
-    nParams: prepared.par.slots.length,
-    paramNames: prepared.par.names,
+    nData: prepared.nData,
+    nParams: par.slots.length,
+    paramNames: par.names,
     unconverged: outcomes.filter((x) => !x.converged).length,
-    minima,
+    minima: buildMinima(outcomes, par, prepared.nData, o.scaleErrors),
   };
+}
+
+export function invertSpectra(input: SpectrumInversionInput, options: Partial<MultiStartOptions> = {}, callbacks: InversionCallbacks = {}): Promise<InversionResult> {
+  return runInversion({ kind: 'spectrum', input }, options, callbacks);
+}
+
+export function invertModes(input: ModeInversionInput, options: Partial<MultiStartOptions> = {}, callbacks: InversionCallbacks = {}): Promise<InversionResult> {
+  return runInversion({ kind: 'modes', input }, options, callbacks);
 }
 
 /** chi-square surface over two free parameters of a spectrum inversion (see surface.ts). */

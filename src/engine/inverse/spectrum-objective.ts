@@ -17,7 +17,8 @@ import { createKernelBuffers, type KernelBuffers, type KernelSampler } from './k
 import { regionValue, type Parameterisation } from './parameters';
 import { InversionInputError } from './errors';
 
-export type MisfitScale = 'log' | 'linear';
+/** 'log': ln-power misfit; 'linear': relative power misfit; 'power': r = P / (sigma P_obs), the bare model (for derived objectives). */
+export type MisfitScale = 'log' | 'linear' | 'power';
 
 export interface SpectrumProblem extends LeastSquaresProblem {
   nData: number;
@@ -87,7 +88,8 @@ export function spectrumProblem(
       }
       const inv = se.invSigma;
       if (scale === 'log') for (let k = 0; k < nb; k++) out[offset + k] = (Math.log(predicted[offset + k]) - se.lnObs[k]) * inv;
-      else for (let k = 0; k < nb; k++) out[offset + k] = (predicted[offset + k] / se.obs[k] - 1) * inv;
+      else if (scale === 'linear') for (let k = 0; k < nb; k++) out[offset + k] = (predicted[offset + k] / se.obs[k] - 1) * inv;
+      else for (let k = 0; k < nb; k++) out[offset + k] = (predicted[offset + k] / se.obs[k]) * inv;
     }
   }
 
