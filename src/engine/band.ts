@@ -30,8 +30,7 @@ export function bandProblem(band: Band): string | null {
   return null;
 }
 
-/** A stable key for caching per band. */
+/** A stable key for caching per frequency grid (any grid, uniform or not: every value counts). */
 export function bandKey(freqs: Float64Array): string {
-  const n = freqs.length;
-  return n === 0 ? 'empty' : `${n}:${freqs[0]}:${freqs[n - 1]}:${n > 1 ? freqs[1] - freqs[0] : 0}`;
+  return `${freqs.length}:${freqs.join(',')}`;
 }

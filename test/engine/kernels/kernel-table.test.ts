@@ -92,6 +92,9 @@ describe('kernel tables against direct (table-free) evaluation', () => {
     expect(getKernelTable(resolveCavity({ ...configs[0] }), bandFrequencies({ minHz: 5, maxHz: 40, stepHz: 0.25 }))).toBe(t1);
     expect(getKernelTable(resolveCavity({ model: 'linear', earthRadiusKm: 6371, heightKm: 61 }), freqs)).not.toBe(t1);
     expect(getKernelTable(c1, bandFrequencies({ minHz: 5, maxHz: 40, stepHz: 0.5 }))).not.toBe(t1);
+    const uneven = Float64Array.from(freqs);
+    uneven[70] += 0.01; // same size, ends and first step; one frequency differs
+    expect(getKernelTable(c1, uneven)).not.toBe(t1);
   });
 });
 
