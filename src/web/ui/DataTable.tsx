@@ -149,7 +149,7 @@ export function DataTable({ caption, captionHidden, columns, rows, rowKey = 'id'
                 const content = col.render ? col.render(r) : display(col, r[col.key]);
                 const href = col.hrefKey ? (r[col.hrefKey] as string | undefined) : undefined;
                 return (
-                  <td key={col.key} className={cx('px-3 py-2 align-top', col.numeric && 'num text-right font-mono text-[0.8125rem]')}>
+                  <td key={col.key} className={cx('px-3 py-2 align-baseline', col.numeric && 'num text-right font-mono')}>
                     {href ? (
                       <Link href={href} className="font-medium text-accent underline-offset-2 hover:underline">
                         {content}
