@@ -118,4 +118,14 @@ describe('mode fit', () => {
     const fit = fitModes(flat.map((_, i) => frequencies[i]), flat, { modes: 5 });
     expect(fit.flags).toContain('implausible-modes');
   });
+
+  it('flags a mode pinned to the edge of its search window', () => {
+    const frequencies = Array.from({ length: 451 }, (_, i) => i * 0.1);
+    const power = frequencies.map((f) => lorentzSum(FIVE_MODES, f));
+    // starting the first mode at 11 Hz confines it to 8.5-13.5 Hz, away from its true 7.93 Hz
+    const fit = fitModes(frequencies, power, { guessHz: [11, 14.1, 20.3, 26.4, 32.5] });
+    expect(fit.flags).toContain('implausible-modes');
+    const good = fitModes(frequencies, power, { modes: 5 });
+    expect(good.flags).toEqual([]);
+  });
 });
