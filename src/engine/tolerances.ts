@@ -46,6 +46,8 @@ export const LM_DAMPING_MAX = 1e16;
 /** Looser LM stopping for spectrum inversions: a chi-square change of 1e-9 relative is far below one unit of chi-square. */
 export const INVERSION_LM_MISFIT_TOL = 1e-9;
 export const INVERSION_LM_STEP_TOL = 1e-8;
+/** Step (degrees) of the central difference for the derivative of the misfit with respect to a region's spread. */
+export const SPREAD_DIFF_STEP_DEG = 1e-4;
 /** Eigenvalues of the scaled J^T J below this fraction of the largest count as unresolved (singular covariance). */
 export const COVARIANCE_RCOND = 1e-10;
 /** Two converged starts belong to one minimum when every parameter differs by less than this fraction of its range… */
