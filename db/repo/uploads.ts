@@ -3,7 +3,7 @@
  * file's SHA-256, so a re-sent file is recognised; processing state lives on
  * the same row.
  */
-import { and, asc, desc, eq, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, or, sql } from 'drizzle-orm';
 import { getDb } from '../client';
 import { uploads, uploadChunks, stations } from '../schema/stations';
 
@@ -136,12 +136,17 @@ export async function failUpload(uploadId: string, reason: string): Promise<void
   }).where(eq(uploads.id, uploadId));
 }
 
-/** Puts a failed upload back in the queue; null when it is not failed. */
+/** Seconds after which an upload still "processing" counts as abandoned (its worker stopped). */
+export const ABANDONED_AFTER_S = 3600;
+
+/** Puts a failed (or abandoned) upload back in the queue; null when it is neither. */
 export async function requeueFailed(networkId: string, uploadId: string): Promise<UploadRow | null> {
   const [row] = await getDb().update(uploads).set({
     state: 'queued', error: null, progress: 0, progressNote: 'queued again', finishedAt: null,
-  }).where(and(eq(uploads.id, uploadId), eq(uploads.networkId, networkId), eq(uploads.state, 'failed')))
-    .returning();
+  }).where(and(eq(uploads.id, uploadId), eq(uploads.networkId, networkId), or(
+    eq(uploads.state, 'failed'),
+    and(eq(uploads.state, 'processing'), sql`${uploads.startedAt} < now() - make_interval(secs => ${ABANDONED_AFTER_S}::float8)`),
+  ))).returning();
   return row ?? null;
 }
 

@@ -92,7 +92,7 @@ export async function retryUpload(networkId: string, uploadId: string) {
   if (!row) {
     const existing = await uploads.getUpload(networkId, uploadId);
     if (!existing) throw new AppError(404, 'not_found', 'No such upload in this network.');
-    throw new AppError(409, 'conflict', `This upload is ${existing.state}; only failed uploads can be processed again.`);
+    throw new AppError(409, 'conflict', `This upload is ${existing.state}; only failed uploads (or ones stuck processing for over an hour) can be processed again.`);
   }
   await queueProcessing(row.id);
   return (await uploads.getUpload(networkId, uploadId))!;

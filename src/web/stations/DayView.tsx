@@ -34,6 +34,7 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
   const [day, setDay] = useState(days[0] ?? '');
   const [component, setComponent] = useState(components[0] ?? 'Ez');
   const [chosen, setChosen] = useState<string | null>(null);
+  const [show, setShow] = useState<'all' | 'clean' | 'quality' | 'flagged'>('all');
   const q = `station=${stationId}&day=${day}&component=${component}&flagged=include`;
   const base = `/api/networks/${networkId}`;
   const list = useSWR<{ intervals: Interval[] }>(day ? `${base}/intervals?${q}` : null, fetcher);
@@ -85,7 +86,10 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
   if (!days.length) {
     return <EmptyState title="No intervals yet">Upload a station file or set up a push token; processed intervals appear here by UTC day.</EmptyState>;
   }
-  const rows = intervals.map((iv) => ({
+  const shown = intervals.filter((iv) => show === 'all' ? true
+    : show === 'clean' ? !iv.qualityFlags.length && !iv.flagReason
+      : show === 'quality' ? iv.qualityFlags.length > 0 : !!iv.flagReason);
+  const rows = shown.map((iv) => ({
     id: iv.id, startsAt: iv.startsAt, rejected: iv.rejectedShare * 100,
     f1: iv.fit?.modes[0]?.frequency, q1: iv.fit?.modes[0]?.q, f2: iv.fit?.modes[1]?.frequency, misfit: iv.fit?.misfit,
     quality: iv.qualityFlags.join(', '), flag: iv.flagReason ?? '', raw: iv,
@@ -103,6 +107,14 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
         <FormField id="dv-comp" label="Component">
           <select className={inputClass} value={component} onChange={(e) => { setComponent(e.target.value); setChosen(null); }}>
             {components.map((c) => <option key={c} value={c}>{c}</option>)}
+          </select>
+        </FormField>
+        <FormField id="dv-show" label="Intervals in the table">
+          <select className={inputClass} value={show} onChange={(e) => setShow(e.target.value as typeof show)}>
+            <option value="all">all</option>
+            <option value="clean">clean only</option>
+            <option value="quality">with quality flags</option>
+            <option value="flagged">flagged by a person</option>
           </select>
         </FormField>
       </div>
@@ -136,7 +148,7 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
         <SpectrumWithFit interval={selected} spectrum={selectedSpectrum} component={component} unit={unit} />
       ) : null}
       <DataTable caption={`Intervals, ${component}, ${day}`} rows={rows} initialSort={{ key: 'startsAt' }}
-        empty={<EmptyState title="No intervals for this component on this day">Pick another day or component.</EmptyState>}
+        empty={<EmptyState title="No intervals to show">Pick another day, component or table filter.</EmptyState>}
         columns={[
           { key: 'startsAt', header: 'Start', time: true },
           { key: 'rejected', header: 'Rejected', unit: '%', numeric: true, digits: 1 },
