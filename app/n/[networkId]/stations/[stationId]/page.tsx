@@ -4,7 +4,7 @@ import { can } from '@/src/auth/permissions';
 import { getStationOrNull, listStations } from '@/src/data/stations';
 import { listStationDays } from '@/src/data/intervals';
 import { formatBytes, maxUploadBytes } from '@/src/data/limits';
-import { ButtonLink, Caution, Card, Panel, Tabs, formatNumber } from '@/src/web/ui';
+import { ButtonLink, Caution, Card, Panel, Tabs, buttonClass, formatNumber } from '@/src/web/ui';
 import { StationMap } from '@/src/web/stations/StationMap';
 import { DayView } from '@/src/web/stations/DayView';
 import { UploadPanel } from '@/src/web/stations/UploadPanel';
@@ -43,8 +43,8 @@ export default async function StationPage({ params }: { params: Promise<{ networ
     <div className="space-y-6">
       <Panel heading={`${station.code} — ${station.name}`} description="Station details, its processed intervals by UTC day, and its files."
         actions={<>
-          <ButtonLink href={`${exportBase}&format=csv`} size="sm">Export CSV</ButtonLink>
-          <ButtonLink href={`${exportBase}&format=json`} size="sm">Export JSON</ButtonLink>
+          <a href={`${exportBase}&format=csv`} download className={buttonClass('secondary', 'sm')}>Export CSV</a>
+          <a href={`${exportBase}&format=json`} download className={buttonClass('secondary', 'sm')}>Export JSON</a>
           {can(role, 'stations.manage') ? <ButtonLink href={`/n/${networkId}/stations/${station.id}/edit`} size="sm">Edit</ButtonLink> : null}
         </>}>
         <div className="grid gap-4 lg:grid-cols-[1fr_22rem]">
