@@ -3,7 +3,7 @@ import { redirect } from 'next/navigation';
 import { getSessionUser } from '@/src/auth/session';
 import { getInstanceSettings } from '@/src/auth/settings';
 import { SignInForm } from '@/src/web/account/SignInForm';
-import { safeNext } from '@/src/web/account/useApiForm';
+import { safeNext } from '@/src/web/account/safe-next';
 import { Notice } from '@/src/web/ui';
 
 export const metadata: Metadata = { title: 'Sign in' };

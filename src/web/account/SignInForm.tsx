@@ -3,7 +3,8 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { apiSend } from '@/src/web/swr';
 import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
-import { safeNext, useApiForm } from './useApiForm';
+import { useApiForm } from './useApiForm';
+import { safeNext } from './safe-next';
 
 export function SignInForm({ next }: { next?: string }) {
   const router = useRouter();

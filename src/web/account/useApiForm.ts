@@ -33,7 +33,4 @@ export function useApiForm() {
   return { busy, error, onSubmit, fieldError, formError };
 }
 
-/** Only same-site paths are followed after sign-in. */
-export function safeNext(next: string | null | undefined, fallback = '/networks'): string {
-  return next && next.startsWith('/') && !next.startsWith('//') ? next : fallback;
-}
+export { safeNext } from './safe-next';
