@@ -13,14 +13,14 @@ import {
   type RunProgress,
 } from '@/db/repo/runs';
 import { loadRunContext } from './context';
-import { countData, loadObservations } from './observations';
-import type { IntervalCase, IntervalSolver, ObservedSeries, RunContext } from './types';
+import { countIntervalData, loadIntervalObservations, type IntervalObservations } from './observations';
+import type { IntervalCase, IntervalSolver, RunContext } from './types';
 
 export interface ExecuteOptions {
   solve: IntervalSolver;
   workerId: string;
   /** Loads one interval's observations (default: from stored spectra/fits). */
-  observe?: (ctx: RunContext, startsAt: Date) => Promise<ObservedSeries[]>;
+  observe?: (ctx: RunContext, startsAt: Date) => Promise<IntervalObservations>;
   /** Minimum milliseconds between progress writes within an interval. Default 1000. */
   progressEveryMs?: number;
   /** Called after each stored interval; throwing here simulates a crash (tests). */
@@ -44,7 +44,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   const run = await claimRun(runId, opts.workerId, opts.leaseSeconds ?? 30);
   if (!run) return 'not-runnable';
   const every = opts.progressEveryMs ?? 1000;
-  const observe = opts.observe ?? ((ctx: RunContext, t: Date) => loadObservations(ctx.networkId, ctx.config, t));
+  const observe = opts.observe ?? ((ctx: RunContext, t: Date) => loadIntervalObservations(ctx.networkId, ctx.config, t));
   const total = run.intervalStarts.length;
   const startsTotal = (run.config as { starts?: number }).starts ?? 1;
   const progress: RunProgress = { ...run.progress, phase: 'loading the model, grid and stations', intervalsTotal: total, startsTotal, startsDone: 0 };
@@ -70,9 +70,9 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     await reportProgress(runId, progress);
     let outcome;
     try {
-      const observed = await observe(ctx, new Date(startsAt));
-      const c: IntervalCase = { startsAt, observed };
-      if (countData(observed) === 0) {
+      const obs = await observe(ctx, new Date(startsAt));
+      const c: IntervalCase = { startsAt, ...obs };
+      if (countIntervalData(obs) === 0) {
         outcome = { nData: 0, result: { skipped: 'no unflagged data for this interval', minima: [] } };
       } else {
         let stop = false;

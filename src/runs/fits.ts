@@ -36,6 +36,7 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
   const minimum = result?.minima?.[minimumIndex];
   if (!minimum) throw badRequest('this interval has no such minimum', 'minimum');
   const ctx = await loadRunContext(run);
+  if (ctx.config.observables.kind !== 'spectrum') throw badRequest('per-bin fits are drawn for spectrum runs; this run fitted mode parameters', 'interval');
   const observed = await loadObservations(networkId, ctx.config, when);
   const { problem, layout } = prepareSpectrum({
     cavity: ctx.cavity, stations: ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),

@@ -15,7 +15,7 @@ import { enqueue } from '@/db/jobs';
 import { badRequest } from '@/src/server/errors';
 import { countParameters, type RunConfig } from './config';
 import { regionSchema, type Region } from './grid-spec';
-import { countData, loadObservations } from './observations';
+import { countIntervalData, loadIntervalObservations } from './observations';
 import { engineVersion } from './engine-version';
 import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
 
@@ -89,15 +89,15 @@ export async function checkLaunch(networkId: string, config: RunConfig): Promise
     problems.push({ field: 'data.to', message: `the range holds ${starts.length} intervals; at most ${MAX_INTERVALS} (one week) per run` });
   }
   if (problems.length || !model || !grid) return { problems, preview: null };
-  const observed = await loadObservations(networkId, config, new Date(starts[0]));
-  const nData = countData(observed);
+  const obs = await loadIntervalObservations(networkId, config, new Date(starts[0]));
+  const nData = countIntervalData(obs);
   const nParams = countParameters(config);
   if (nData === 0) problems.push({ field: 'observables', message: 'the chosen band or modes hold no data in the first interval' });
   else if (nParams > nData) problems.push({ field: 'regions', message: `too many free parameters (${nParams}) for the data (${nData} values per interval)` });
   const estimateSeconds = starts.length * config.starts * EVALS_PER_START * nData * Math.max(1, nParams) * SECONDS_PER_DATUM_PARAM_EVAL;
   return {
     problems,
-    preview: { nData, nParams, starts: config.starts, intervals: starts.length, series: observed.length, estimateSeconds, intervalStarts: starts },
+    preview: { nData, nParams, starts: config.starts, intervals: starts.length, series: obs.observed.length + (obs.modes?.length ?? 0), estimateSeconds, intervalStarts: starts },
   };
 }
 

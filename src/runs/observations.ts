@@ -1,7 +1,7 @@
 /**
  * Turns stored interval spectra into the observations of one run interval:
  * the chosen stations and components, bins inside the band (every k-th),
- * sigma of ln(power) from the Welch segment count.
+ * sigma of ln(power) from the Welch segment count; or the fitted modes.
  *
  * A Welch estimate averaged over K segments scatters by about 1/sqrt(K)
  * relative per bin (Welch 1967, IEEE Trans. Audio Electroacoust. 15, 70;
@@ -9,6 +9,7 @@
  */
 import { getIntervalSpectra, listIntervals, type IntervalSpectrum } from '@/db/repo/intervals';
 import type { RunConfig } from './config';
+import type { ObservedModes } from '@/src/engine/inverse/types';
 import type { ObservedSeries } from './types';
 
 const TEN_MINUTES_MS = 600_000;
@@ -42,40 +43,51 @@ export async function loadSpectrumObservations(networkId: string, config: RunCon
 }
 
 /**
- * Observations from stored mode fits: the fitted peak power of each mode
- * (amplitude plus background at the mode frequency) as a one-bin spectrum per
- * mode, sigma from the amplitude error relative to the peak.
+ * Observations from stored mode fits: frequency, peak power (amplitude plus
+ * background at the mode frequency) and half-width of the first `modes`
+ * modes, with the fit's own standard errors (sigma of ln peak = error of the
+ * amplitude / peak, by the delta method).
  */
-export async function loadModeObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedSeries[]> {
+export async function loadModeObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedModes[]> {
   const o = config.observables;
   if (o.kind !== 'modes') throw new Error('loadModeObservations needs mode observables');
   const rows = await listIntervals({
     networkId, stationIds: config.data.stationIds, components: config.data.components,
     from: startsAt, to: new Date(startsAt.getTime() + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
   });
-  const out: ObservedSeries[] = [];
+  const out: ObservedModes[] = [];
   for (const r of rows) {
     if (!r.fit) continue;
-    const modes = [...r.fit.modes].sort((a, b) => a.frequency - b.frequency).slice(0, o.modes);
-    const frequencies: number[] = [];
-    const power: number[] = [];
-    let relErr = 0;
-    for (const m of modes) {
-      const peak = m.amplitude + r.fit.background.b0 + r.fit.background.b1 * m.frequency;
-      if (!(peak > 0)) continue;
-      frequencies.push(m.frequency);
-      power.push(peak);
-      relErr = Math.max(relErr, (m.errors?.amplitude ?? 0) / peak);
-    }
-    if (frequencies.length) out.push({ station: r.stationCode, component: r.component, frequencies, power, sigmaLog: Math.max(0.02, relErr) });
+    const modes = [...r.fit.modes].sort((a, b) => a.frequency - b.frequency).slice(0, o.modes).flatMap((m) => {
+      const peak = m.amplitude + r.fit!.background.b0 + r.fit!.background.b1 * m.frequency;
+      const e = m.errors;
+      if (!(peak > 0) || !(e?.frequency > 0) || !(e?.amplitude > 0) || !(e?.halfWidth > 0)) return [];
+      return [{
+        frequency: m.frequency, intensity: peak, halfWidth: m.halfWidth,
+        sigmaFrequency: e.frequency, sigmaLogIntensity: e.amplitude / peak, sigmaHalfWidth: e.halfWidth,
+      }];
+    });
+    if (modes.length) out.push({ station: r.stationCode, component: r.component, modes });
   }
   return out;
 }
 
+export interface IntervalObservations { observed: ObservedSeries[]; modes?: ObservedModes[] }
+
+/** Observations of one interval for the run's observables. */
+export async function loadIntervalObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<IntervalObservations> {
+  if (config.observables.kind === 'spectrum') return { observed: await loadSpectrumObservations(networkId, config, startsAt) };
+  return { observed: [], modes: await loadModeObservations(networkId, config, startsAt) };
+}
+
+/** Number of data: one per bin, or three per observed mode (frequency, peak, half-width). */
+export function countIntervalData(o: IntervalObservations): number {
+  return countData(o.observed) + (o.modes ?? []).reduce((n, s) => n + 3 * s.modes.length, 0);
+}
+
+/** Spectrum observations only (fits and surfaces are drawn for spectrum runs). */
 export function loadObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedSeries[]> {
-  return config.observables.kind === 'spectrum'
-    ? loadSpectrumObservations(networkId, config, startsAt)
-    : loadModeObservations(networkId, config, startsAt);
+  return loadSpectrumObservations(networkId, config, startsAt);
 }
 
 export function countData(observed: ObservedSeries[]): number {

@@ -1,9 +1,9 @@
 /**
- * The production interval solver: the engine's multi-start spectrum
- * inversion on one interval's observations. Threads per run come from
- * CAVITAS_RUN_THREADS (default: the engine's own default, all cores).
+ * The production interval solver: the engine's multi-start inversion of one
+ * interval — log-power spectra, or fitted mode parameters. Threads per run
+ * come from CAVITAS_RUN_THREADS (default: the engine's own default, all cores).
  */
-import { invertSpectra } from '@/src/engine/inverse/invert';
+import { invertModes, invertSpectra } from '@/src/engine/inverse/invert';
 import type { IntervalSolver } from './types';
 import { buildUnknowns } from './unknowns';
 
@@ -12,24 +12,24 @@ export function runThreads(): number | undefined {
   return Number.isInteger(t) && t >= 1 ? t : undefined;
 }
 
+/** Frequency grid on which mode runs evaluate predicted spectra (fine enough to resolve the modes). */
+export const MODE_BAND = { minHz: 4, maxHz: 45, stepHz: 0.1 };
+
 export const engineSolver: IntervalSolver = async (ctx, c, hooks) => {
   const { config } = ctx;
-  const result = await invertSpectra(
-    {
-      cavity: ctx.cavity,
-      stations: ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),
-      observed: c.observed,
-      unknowns: buildUnknowns(config, ctx.grid),
-    },
-    {
-      starts: config.starts,
-      seed: config.seed,
-      ...(runThreads() ? { threads: runThreads() } : {}),
-      lm: { initialDamping: config.damping.initialLambda, maxIterations: config.damping.maxIterations },
-      scaleErrors: config.damping.scaleCovariance,
-    },
-    { onProgress: (p) => hooks.onStart(p.done, p.total), shouldCancel: hooks.shouldStop },
-  );
+  const stations = ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon }));
+  const unknowns = buildUnknowns(config, ctx.grid);
+  const options = {
+    starts: config.starts,
+    seed: config.seed,
+    ...(runThreads() ? { threads: runThreads() } : {}),
+    lm: { initialDamping: config.damping.initialLambda, maxIterations: config.damping.maxIterations },
+    scaleErrors: config.damping.scaleCovariance,
+  };
+  const callbacks = { onProgress: (p: { done: number; total: number }) => hooks.onStart(p.done, p.total), shouldCancel: hooks.shouldStop };
+  const result = c.modes
+    ? await invertModes({ cavity: ctx.cavity, band: MODE_BAND, stations, modes: c.modes, unknowns }, options, callbacks)
+    : await invertSpectra({ cavity: ctx.cavity, stations, observed: c.observed, unknowns }, options, callbacks);
   if (hooks.shouldStop()) return 'cancelled';
   return { nData: result.nData, result: result as unknown as Record<string, unknown> };
 };

@@ -1,12 +1,13 @@
 /**
- * Computing a cached misfit surface: chi-square over a grid of two free
- * parameters with the others held at the chosen minimum ("fixed" section).
- * The grid spans +-3 standard errors around the minimum (in the internal
- * parameterisation: log intensity, degrees), clipped to the bounds. The misfit
- * is the engine's own least-squares problem evaluated point by point.
+ * Computing a cached misfit surface with the engine's spectrumSurface: chi-square
+ * over a grid of two free parameters, the others held at the chosen minimum
+ * ('fixed') or re-minimised at every point ('profile'). The grid spans +-3
+ * standard errors around the minimum (in the internal parameterisation: log
+ * intensity, degrees), clipped to the bounds.
  */
 import { getRunById, getSurfaceById, setSurface } from '@/db/repo/runs';
 import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import { spectrumSurface } from '@/src/engine/inverse/invert';
 import type { InversionResult, MisfitSurface } from '@/src/engine/inverse/types';
 import { loadRunContext } from './context';
 import { loadObservations } from './observations';
@@ -38,11 +39,12 @@ export async function computeSurface(surfaceId: string): Promise<'ready' | 'fail
     const minimum = result?.minima?.[spec.minimum];
     if (!result || !minimum) throw new Error('the interval or minimum has no stored result');
     const observed = await loadObservations(ctx.networkId, ctx.config, new Date(spec.interval));
-    const prepared = prepareSpectrum({
+    if (ctx.config.observables.kind !== 'spectrum') throw new Error('misfit surfaces are drawn for spectrum runs');
+    const input = {
       cavity: ctx.cavity, stations: ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),
       observed, unknowns: buildUnknowns(ctx.config, ctx.grid),
-    });
-    const { problem, par } = prepared;
+    };
+    const { par } = prepareSpectrum(input);
     const ix = par.names.indexOf(spec.x);
     const iy = par.names.indexOf(spec.y);
     if (ix < 0 || iy < 0) throw new Error(`unknown parameter ${ix < 0 ? spec.x : spec.y}`);
@@ -53,22 +55,12 @@ export async function computeSurface(surfaceId: string): Promise<'ready' | 'fail
       if (e === undefined) return NaN;
       return slot.kind === 'intensity' ? e / Math.exp(p0[i]) : e;
     };
-    const xs = axis(p0[ix], sigmaOf(ix), par.lower[ix], par.upper[ix], spec.points);
-    const ys = axis(p0[iy], sigmaOf(iy), par.lower[iy], par.upper[iy], spec.points);
-    const r = new Float64Array(problem.nResiduals);
-    const p = Float64Array.from(p0);
-    const misfit = ys.map((y) => xs.map((x) => {
-      p[ix] = x;
-      p[iy] = y;
-      problem.residuals(p, r);
-      let s = 0;
-      for (let k = 0; k < r.length; k++) s += r[k] * r[k];
-      return s;
-    }));
     const phys = (i: number, v: number) => (par.slots[i].kind === 'intensity' ? Math.exp(v) : v);
+    const xs = axis(p0[ix], sigmaOf(ix), par.lower[ix], par.upper[ix], spec.points).map((v) => phys(ix, v));
+    const ys = axis(p0[iy], sigmaOf(iy), par.lower[iy], par.upper[iy], spec.points).map((v) => phys(iy, v));
+    const computed = spectrumSurface(input, { xName: spec.x, yName: spec.y, x: xs, y: ys, mode: spec.mode, at: minimum.internal });
     const surface: MisfitSurface & { centre: { x: number; y: number; misfit: number } } = {
-      xName: spec.x, yName: spec.y, x: xs.map((v) => phys(ix, v)), y: ys.map((v) => phys(iy, v)), misfit, mode: 'fixed',
-      centre: { x: phys(ix, p0[ix]), y: phys(iy, p0[iy]), misfit: minimum.misfit },
+      ...computed, centre: { x: phys(ix, p0[ix]), y: phys(iy, p0[iy]), misfit: minimum.misfit },
     };
     await setSurface(surfaceId, 'ready', surface as unknown as Record<string, unknown>);
     return 'ready';

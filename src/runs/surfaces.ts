@@ -17,7 +17,7 @@ export const surfaceSpecSchema = z.object({
   x: z.string().min(1),
   y: z.string().min(1),
   points: z.number().int().min(5).max(41).default(21),
-  mode: z.enum(['fixed']).default('fixed'),
+  mode: z.enum(['fixed', 'profile']).default('fixed'),
 }).refine((s) => s.x !== s.y, { message: 'choose two different parameters', path: ['y'] });
 export type SurfaceSpec = z.infer<typeof surfaceSpecSchema>;
 

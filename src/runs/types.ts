@@ -29,7 +29,7 @@ export interface RunContext {
   stations: RunStation[];
 }
 
-export interface IntervalCase { startsAt: string; observed: ObservedSeries[] }
+export interface IntervalCase { startsAt: string; observed: ObservedSeries[]; modes?: import('@/src/engine/inverse/types').ObservedModes[] }
 
 export interface SolveHooks {
   /** Called after each finished start. */

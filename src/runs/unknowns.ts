@@ -2,11 +2,13 @@
  * From a run's chosen regions to the inverter's unknowns.
  *
  * - A moving region: centre free within the run's lat/lon ranges (fixed at the
- *   region's centre where no range is given), intensity free.
- * - A region of grid cells: a source fixed at the cells' area-weighted
- *   centroid (mean of unit vectors weighted by cell area, which on a sphere is
- *   proportional to sin(north) - sin(south)), intensity free. The spread of a
- *   cell region over its cells is not modelled yet: it acts as one point.
+ *   region's centre where no range is given), spread fixed at the region's
+ *   spread (a spot region), intensity free.
+ * - A region of grid cells: a uniform spot of the same area centred at the
+ *   cells' area-weighted centroid (mean of unit vectors weighted by cell area,
+ *   which on a sphere is proportional to sin(north) - sin(south)); a spherical
+ *   cap of area A has angular radius acos(1 - A / 2 pi) (unit sphere). Centre
+ *   and spread fixed, intensity free.
  */
 import type { RegionUnknown } from '@/src/engine/inverse/types';
 import type { RunConfig } from './config';
@@ -28,6 +30,16 @@ export function cellCentroid(cellSizeDeg: number, cells: number[]): { lat: numbe
   return { lat: Math.asin(z / r) / D, lon: Math.atan2(y, x) / D };
 }
 
+/** Angular radius (degrees) of a spherical cap with the cells' total area. */
+export function equalAreaRadius(cellSizeDeg: number, cells: number[]): number {
+  let area = 0;
+  for (const c of cells) {
+    const b = cellBox(cellSizeDeg, c);
+    area += cellSizeDeg * D * (Math.sin(b.north * D) - Math.sin(b.south * D));
+  }
+  return Math.acos(Math.max(-1, 1 - area / (2 * Math.PI))) / D;
+}
+
 export function buildUnknowns(config: RunConfig, grid: { cellSizeDeg: number; regions: Region[] }): RegionUnknown[] {
   const byKey = new Map(grid.regions.map((r) => [r.key, r]));
   return config.regions.map((u) => {
@@ -35,8 +47,11 @@ export function buildUnknowns(config: RunConfig, grid: { cellSizeDeg: number; re
     if (!r) throw new Error(`region "${u.region}" is not in the run's grid`);
     if (r.kind === 'cells') {
       const c = cellCentroid(grid.cellSizeDeg, r.cells);
-      return { name: r.name, intensity: u.intensity, lat: c.lat, lon: c.lon };
+      return { name: r.name, intensity: u.intensity, lat: c.lat, lon: c.lon, spread: equalAreaRadius(grid.cellSizeDeg, r.cells) };
     }
-    return { name: r.name, intensity: u.intensity, lat: u.lat ?? r.centre.lat, lon: u.lon ?? r.centre.lon };
+    return {
+      name: r.name, intensity: u.intensity, lat: u.lat ?? r.centre.lat, lon: u.lon ?? r.centre.lon,
+      ...(r.spreadDeg > 0 ? { spread: r.spreadDeg } : {}),
+    };
   });
 }

@@ -12,6 +12,10 @@ import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
 import { engineVersion } from '@/src/runs/engine-version';
 import type { InversionResult } from '@/src/engine/inverse/types';
+import { fitsAt } from '@/src/runs/fits';
+import { requestSurfaceRow } from './surface-helper';
+import { computeSurface } from '@/src/runs/surface-compute';
+import { getSurfaceById } from '@/db/repo/runs';
 import { makeRunWorld, TRUTH } from './world';
 
 process.env.CAVITAS_RUN_THREADS = '1';
@@ -54,6 +58,21 @@ describe('run driver', () => {
     const done = await getRunById(run.id);
     expect(done!.state).toBe('finished');
     expect(done!.progress.intervalsDone).toBe(2);
+
+    // Fits at the best minimum: predicted equals observed, so every weighted residual vanishes.
+    const t = rows[0].startsAt.toISOString();
+    const fits = await fitsAt(w.networkId, run.id, t, 0);
+    expect(fits.series).toHaveLength(9);
+    for (const s of fits.series) for (const r of s.residual) expect(Math.abs(r)).toBeLessThan(1e-3);
+
+    // Misfit surface around the minimum: the minimum is the lowest point of the grid
+    // (chi2 >= 0 with equality only at the exact model).
+    const surfaceId = await requestSurfaceRow(run.id, { interval: t, minimum: 0, x: 'East basin.lat', y: 'East basin.lon', points: 7, mode: 'fixed' });
+    expect(await computeSurface(surfaceId)).toBe('ready');
+    const surf = (await getSurfaceById(surfaceId))!.result as { misfit: number[][]; centre: { misfit: number } };
+    const all = surf.misfit.flat();
+    expect(Math.min(...all)).toBeGreaterThanOrEqual(surf.centre.misfit - 1e-9);
+    expect(surf.misfit[3][3]).toBeCloseTo(surf.centre.misfit, 6);
   });
 
   it('resumes after a crash with every interval stored exactly once', async () => {

@@ -6,7 +6,7 @@
 import { randomUUID } from 'node:crypto';
 import { insertUser } from '@/db/repo/users';
 import { createNetwork } from '@/db/repo/networks';
-import { createStation, type StationInput } from '@/db/repo/stations';
+import { createStation, type Station, type StationInput } from '@/db/repo/stations';
 import { saveIntervals } from '@/db/repo/intervals';
 import { predictSpectra } from '@/src/engine/forward/predict';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
@@ -48,7 +48,7 @@ export async function makeRunWorld(intervalCount = 4) {
   const userId = `u-${randomUUID()}`;
   await insertUser({ id: userId, email: `${userId}@example.test`, name: 'Run tester', passwordHash: 'x' });
   const network = await createNetwork(`runs ${userId}`, userId);
-  const stations = [];
+  const stations: Station[] = [];
   for (const s of SITES) stations.push(await createStation(network.id, station(s)));
   const model = await saveModel(network.id, userId, { name: 'Linear test', notes: '', config: CAVITY });
   const grid = await saveGrid(network.id, userId, GRID);

@@ -17,6 +17,7 @@ export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }
 }) {
   const [x, setX] = useState(paramNames[0] ?? '');
   const [y, setY] = useState(paramNames[1] ?? paramNames[0] ?? '');
+  const [mode, setMode] = useState<'fixed' | 'profile'>('fixed');
   const [id, setId] = useState<string | null>(null);
   const [err, setErr] = useState<string | null>(null);
   const { data } = useApi<{ surface: Surface }>(id ? `${base}/surfaces/${id}` : null, {
@@ -41,7 +42,7 @@ export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }
   async function ask() {
     setErr(null);
     try {
-      const res = await apiSend<{ surface: Surface }>('POST', `${base}/surfaces`, { interval, minimum, x, y });
+      const res = await apiSend<{ surface: Surface }>('POST', `${base}/surfaces`, { interval, minimum, x, y, mode });
       setId(res.surface.id);
     } catch (e) {
       setErr((e as Error).message);
@@ -55,6 +56,8 @@ export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }
           {paramNames.map((n) => <option key={n}>{n}</option>)}</select></label>
         <label>Vertical <select aria-label="Vertical parameter" className="ml-1 rounded border border-line-strong bg-surface px-2 py-1" value={y} onChange={(e) => setY(e.target.value)}>
           {paramNames.map((n) => <option key={n}>{n}</option>)}</select></label>
+        <label>Others <select aria-label="Other parameters" className="ml-1 rounded border border-line-strong bg-surface px-2 py-1" value={mode} onChange={(e) => setMode(e.target.value as 'fixed' | 'profile')}>
+          <option value="fixed">held at the minimum</option><option value="profile">re-minimised (profile)</option></select></label>
         <Button type="button" onClick={ask} disabled={!canRequest || x === y}>Map the misfit</Button>
         {!canRequest ? <span className="text-muted">Analysts and owners can ask for a surface.</span> : null}
       </div>
@@ -63,7 +66,7 @@ export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }
       {s?.state === 'failed' ? <Notice tone="error" title="The surface failed">{s.error}. Ask again to retry.</Notice> : null}
       {options && s?.result ? (
         <PlotFigure title={`Misfit over ${s.result.xName} and ${s.result.yName}`} xLabel={unit(s.result.xName)} yLabel={unit(s.result.yName)}
-          caption="Other parameters held at the minimum (cross); ±3 standard errors around it." options={options} height={340} />
+          caption={`${s.result && (s.result as { mode?: string }).mode === 'profile' ? 'Other parameters re-minimised at each point' : 'Other parameters held at the minimum'}; the cross marks the minimum; ±3 standard errors around it.`} options={options} height={340} />
       ) : null}
     </div>
   );
