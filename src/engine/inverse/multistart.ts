@@ -27,6 +27,11 @@ export interface MultiStartOptions {
   lm: Partial<LmOptions>;
   /** Scale standard errors by the reduced chi-square (default false: sigmas are trusted). */
   scaleErrors: boolean;
+  /**
+   * With threads > 1, the calling thread computes starts too (default true). Set false to keep
+   * the caller's event loop free (a server process): all starts then go to `threads` workers.
+   */
+  callerWorks: boolean;
 }
 
 export function resolveMultiStartOptions(o: Partial<MultiStartOptions> = {}): MultiStartOptions {
@@ -37,6 +42,7 @@ export function resolveMultiStartOptions(o: Partial<MultiStartOptions> = {}): Mu
     warm: o.warm ?? [],
     lm: { misfitTol: INVERSION_LM_MISFIT_TOL, stepTol: INVERSION_LM_STEP_TOL, ...o.lm },
     scaleErrors: o.scaleErrors ?? false,
+    callerWorks: o.callerWorks ?? true,
   };
   if (!Number.isInteger(r.starts) || r.starts < 1) throw new InversionInputError(`starts must be a whole number >= 1, got ${r.starts}`);
   if (!Number.isInteger(r.seed) || r.seed < 0) throw new InversionInputError(`seed must be a whole number >= 0, got ${r.seed}`);
@@ -66,28 +72,61 @@ export async function multiStart(
   if (options.threads === 1) {
     return runStarts(problem, indexes, plan, callbacks.shouldCancel, note);
   }
+  // threads > 1: the calling thread works through chunks itself while threads - 1 pool
+  // workers take others, so the caller's kernel table is put to use and only threads - 1
+  // workers pay the start-up. When the caller runs out of chunks it also computes the
+  // starts still out on the pool (results are a function of the start index only, so a
+  // duplicate is identical); whichever copy arrives first counts.
   const cancel = new SharedArrayBuffer(4);
   const flag = new Int32Array(cancel);
   const key = `${process.pid}:${++runCounter}`;
+  const workers = options.callerWorks ? options.threads - 1 : options.threads;
   const chunk = Math.max(1, Math.ceil(total / (options.threads * 4)));
-  const chunks: number[][] = [];
-  for (let i = 0; i < total; i += chunk) chunks.push(indexes.slice(i, i + chunk));
-  const timer = callbacks.shouldCancel
-    ? setInterval(() => {
-        if (callbacks.shouldCancel!()) Atomics.store(flag, 0, 1);
-      }, 20)
-    : null;
-  try {
-    const parts = await Promise.all(
-      chunks.map((ix) =>
-        runPoolTask(options.threads, { key, recipe, plan, indexes: ix, cancel }).then((res) => {
-          res.forEach(note);
-          return res;
-        }),
-      ),
-    );
-    return parts.flat().sort((a, b) => a.index - b.index);
-  } finally {
-    if (timer) clearInterval(timer);
+  const queue: number[][] = [];
+  for (let i = 0; i < total; i += chunk) queue.push(indexes.slice(i, i + chunk));
+  const have = new Map<number, StartOutcome>();
+  const keep = (o: StartOutcome) => {
+    if (have.has(o.index)) return;
+    have.set(o.index, o);
+    note(o);
+  };
+  const inFlight = new Map<Promise<void>, number[]>();
+  let failure: unknown = null;
+  const cancelled = () => {
+    if (callbacks.shouldCancel?.()) Atomics.store(flag, 0, 1);
+    return Atomics.load(flag, 0) !== 0;
+  };
+  const dispatch = () => {
+    while (inFlight.size < workers && queue.length > 0 && failure === null) {
+      const ix = queue.pop()!;
+      const job: Promise<void> = runPoolTask(workers, { key, recipe, plan, indexes: ix, cancel })
+        .then((res) => res.forEach(keep))
+        .catch((e: unknown) => {
+          failure ??= e;
+        })
+        .finally(() => {
+          inFlight.delete(job);
+          dispatch();
+        });
+      inFlight.set(job, ix);
+    }
+  };
+  const runHere = async (ix: number[]) => {
+    for (const index of ix) {
+      if (have.has(index)) continue;
+      runStarts(problem, [index], plan, cancelled, keep);
+      // yield so that finished pool tasks are collected promptly
+      await new Promise<void>((resolve) => setImmediate(resolve));
+    }
+  };
+  dispatch();
+  if (options.callerWorks) {
+    while (queue.length > 0 && failure === null) await runHere(queue.shift()!);
+    for (const ix of [...inFlight.values()]) if (failure === null) await runHere(ix);
   }
+  while (have.size < total && failure === null && inFlight.size > 0) await Promise.race(inFlight.keys());
+  if (failure !== null) throw failure;
+  // every start is in hand: stale copies still running on the pool stop at their next check
+  Atomics.store(flag, 0, 1);
+  return [...have.values()].sort((a, b) => a.index - b.index);
 }

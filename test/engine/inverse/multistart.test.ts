@@ -39,9 +39,9 @@ describe('quasi-random starts', () => {
 describe('multi-start on BoxBOD', () => {
   const problem = curveProblem(recipe.kind === 'curve' ? recipe.curve : (undefined as never));
 
-  it('finds the certified minimum as the best one, in-process and on 2 threads alike', async () => {
+  it('finds the certified minimum as the best one, in-process and on 2 pool workers alike', async () => {
     const one = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 1 }));
-    const two = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 2 }));
+    const two = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 2, callerWorks: false }));
     expect(two.map((o) => o.index)).toEqual(one.map((o) => o.index));
     for (let i = 0; i < one.length; i++) {
       expect(Array.from(two[i].params)).toEqual(Array.from(one[i].params));
@@ -63,6 +63,24 @@ describe('multi-start on BoxBOD', () => {
       shouldCancel: () => ++calls > 3,
     });
     expect(seen).toEqual(Array.from({ length: 10 }, (_, i) => i + 1));
+    expect(out.some((o) => o.stopReason === 'cancelled')).toBe(true);
+  });
+});
+
+describe('multi-start on 2 threads', () => {
+  it('counts every start once and stops early when cancelled', async () => {
+    const problem = curveProblem(recipe.kind === 'curve' ? recipe.curve : (undefined as never));
+    const seen: number[] = [];
+    let calls = 0;
+    const out = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2 }), {
+      onProgress: (p) => seen.push(p.done),
+      shouldCancel: () => ++calls > 50,
+    });
+    // and all on the pool, without the caller computing
+    const pooled = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2, callerWorks: false }));
+    expect(pooled.map((o) => o.index)).toEqual(Array.from({ length: 40 }, (_, i) => i));
+    expect(out.map((o) => o.index)).toEqual(Array.from({ length: 40 }, (_, i) => i));
+    expect(seen).toEqual(Array.from({ length: 40 }, (_, i) => i + 1));
     expect(out.some((o) => o.stopReason === 'cancelled')).toBe(true);
   });
 });
