@@ -80,7 +80,8 @@ export function MembersManager({ networkId, canManage, currentUserId, initial }:
       ) : null}
 
       <Card title="Members" description={`${members.length} ${members.length === 1 ? 'person' : 'people'} in this network`} flush>
-        <table className="w-full text-sm">
+        <div className="relative overflow-x-auto">
+        <table className="w-full min-w-[40rem] text-sm">
           <caption className="sr-only">Members and their roles</caption>
           <thead>
             <tr className="border-b border-line text-left">
@@ -145,6 +146,7 @@ export function MembersManager({ networkId, canManage, currentUserId, initial }:
             ))}
           </tbody>
         </table>
+        </div>
       </Card>
 
       {canManage ? (

@@ -16,7 +16,7 @@ export function Brand({ href = '/' }: { href?: string }) {
   return (
     <Link href={href} className="flex items-center gap-2 rounded-md text-chrome-fg no-underline">
       <BrandMark />
-      <span className="text-[0.95rem] font-semibold tracking-[0.08em] uppercase">Cavitas</span>
+      <span className="text-[0.95rem] font-semibold tracking-[0.08em] uppercase max-sm:sr-only">Cavitas</span>
     </Link>
   );
 }

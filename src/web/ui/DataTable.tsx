@@ -99,7 +99,7 @@ export function DataTable({ caption, captionHidden, columns, rows, rowKey = 'id'
   const byId = new Map(columns.map((c) => [c.key, c]));
 
   return (
-    <div className={cx('overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface', className)}>
+    <div className={cx('relative overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface', className)}>
       <table className="w-full border-collapse text-sm">
         <caption className={captionHidden ? 'sr-only' : 'px-3 pt-3 pb-1 text-left text-sm font-semibold'}>{caption}</caption>
         <thead>
