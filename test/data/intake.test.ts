@@ -159,3 +159,24 @@ describe('rejected uploads store nothing and say why', () => {
     expect(await listUploads(w.networkId)).toHaveLength(0);
   });
 });
+
+describe('the process-upload worker job', () => {
+  it('picks up a queued upload and processes it', async () => {
+    const { serveJobs } = await import('@/src/worker/run');
+    const { job } = await import('@/src/worker/jobs/process-upload');
+    const handle = await serveJobs([{ ...job, pollingIntervalSeconds: 0.5 }], () => {});
+    try {
+      const w = await makeWorld(station100);
+      const { upload: u } = await upload(w, seriesCsv(spec({ seed: 21 })), 'queued.csv');
+      let state = u.state;
+      for (let i = 0; i < 240 && state !== 'done' && state !== 'failed'; i++) {
+        await new Promise((r) => setTimeout(r, 500));
+        state = (await getUpload(w.networkId, u.id))!.state;
+      }
+      expect(state).toBe('done');
+      expect((await listIntervals({ networkId: w.networkId })).length).toBe(2);
+    } finally {
+      await handle.stop(5000);
+    }
+  });
+});
