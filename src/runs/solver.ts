@@ -15,14 +15,21 @@ export function runThreads(): number | undefined {
 /** Frequency grid on which mode runs evaluate predicted spectra (fine enough to resolve the modes). */
 export const MODE_BAND = { minHz: 4, maxHz: 45, stepHz: 0.1 };
 
-export const engineSolver: IntervalSolver = async (ctx, c, hooks) => {
+/** The solver with a fixed thread count (1 = in the calling thread, no pool). */
+export function makeEngineSolver(threads?: number): IntervalSolver {
+  return (ctx, c, hooks) => solve(ctx, c, hooks, threads ?? runThreads());
+}
+
+export const engineSolver: IntervalSolver = (ctx, c, hooks) => solve(ctx, c, hooks, runThreads());
+
+const solve = async (...[ctx, c, hooks, threads]: [...Parameters<IntervalSolver>, number | undefined]) => {
   const { config } = ctx;
   const stations = ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon }));
   const unknowns = buildUnknowns(config, ctx.grid);
   const options = {
     starts: config.starts,
     seed: config.seed,
-    ...(runThreads() ? { threads: runThreads() } : {}),
+    ...(threads ? { threads } : {}),
     lm: { initialDamping: config.damping.initialLambda, maxIterations: config.damping.maxIterations },
     scaleErrors: config.damping.scaleCovariance,
   };
@@ -30,6 +37,6 @@ export const engineSolver: IntervalSolver = async (ctx, c, hooks) => {
   const result = c.modes
     ? await invertModes({ cavity: ctx.cavity, band: MODE_BAND, stations, modes: c.modes, unknowns }, options, callbacks)
     : await invertSpectra({ cavity: ctx.cavity, stations, observed: c.observed, unknowns }, options, callbacks);
-  if (hooks.shouldStop()) return 'cancelled';
+  if (hooks.shouldStop()) return 'cancelled' as const;
   return { nData: result.nData, result: result as unknown as Record<string, unknown> };
 };

@@ -9,12 +9,14 @@ import { fileURLToPath } from 'node:url';
 import type { DemoSignIn, SeedModule } from './types';
 import * as accounts from './accounts';
 import * as stations from './stations';
+import * as runs from './runs';
 
 export type { DemoSignIn, SeedModule };
 
 export const seeders: ReadonlyArray<readonly [area: string, module: SeedModule]> = [
   ['accounts', accounts],
   ['stations', stations],
+  ['runs', runs],
 ];
 
 export async function runSeeds(log: (l: string) => void = () => {}): Promise<void> {

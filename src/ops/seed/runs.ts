@@ -1,0 +1,83 @@
+/**
+ * Demo runs seeder: two cavity models (Ishaq–Jones and linear), a source grid
+ * with the three invented tropical belts of the demo day as moving spot
+ * regions plus a fixed region of land cells, and one finished run on the demo
+ * stations' data for the afternoon peak of the middle belt (14:00–16:00 UT). Idempotent: models
+ * and grid are matched by name; the run is matched by name and resumed if a
+ * previous seeding stopped half-way. Everything here is invented.
+ */
+import { findModelByName } from '@/db/repo/models';
+import { findGridByName } from '@/db/repo/grids';
+import { createRun, getRunById, listRuns } from '@/db/repo/runs';
+import { listStations } from '@/db/repo/stations';
+import { saveGrid, saveModel } from '@/src/runs/catalogue';
+import { checkLaunch } from '@/src/runs/launch';
+import { executeRun } from '@/src/runs/execute';
+import { makeEngineSolver } from '@/src/runs/solver';
+import { engineVersion } from '@/src/runs/engine-version';
+import type { RunConfig } from '@/src/runs/config';
+import type { GridInput } from '@/src/runs/grid-spec';
+import { makeGlobalGrid } from '@/src/engine/sources/grid';
+import { landCellsInBox } from '@/src/engine/sources/land-mask';
+import { demoNetworkId } from './accounts';
+import { DEMO_DAY } from './stations';
+
+export const DEMO_MODEL = 'Ishaq–Jones, 60 km';
+export const DEMO_LINEAR_MODEL = 'Linear reference';
+export const DEMO_GRID = 'Three tropical belts';
+export const DEMO_RUN = 'Afternoon peak of the middle belt';
+
+function demoGrid(): GridInput {
+  const cell = 10;
+  return {
+    name: DEMO_GRID, notes: 'Demo grid: three moving belts and a fixed patch of land cells (invented scenario).', cellSizeDeg: cell,
+    regions: [
+      { key: 'west-belt', name: 'West belt', colour: '#0072B2', kind: 'moving', centre: { lat: -6, lon: -58 }, bounds: { lat: { min: -25, max: 15 }, lon: { min: -85, max: -35 } }, spreadDeg: 10 },
+      { key: 'middle-belt', name: 'Middle belt', colour: '#E69F00', kind: 'moving', centre: { lat: 2, lon: 22 }, bounds: { lat: { min: -20, max: 20 }, lon: { min: -5, max: 45 } }, spreadDeg: 10 },
+      { key: 'east-belt', name: 'East belt', colour: '#009E73', kind: 'moving', centre: { lat: 4, lon: 112 }, bounds: { lat: { min: -15, max: 25 }, lon: { min: 90, max: 140 } }, spreadDeg: 12 },
+      { key: 'northern-patch', name: 'Northern land patch', colour: '#CC79A7', kind: 'cells',
+        cells: landCellsInBox(makeGlobalGrid(cell), { latMin: 30, latMax: 50, lonMin: 60, lonMax: 100 }) },
+    ],
+  };
+}
+
+export async function seedDemoRuns(networkId: string): Promise<void> {
+  const model = (await findModelByName(networkId, DEMO_MODEL))
+    ?? await saveModel(networkId, null, { name: DEMO_MODEL, notes: 'Demo model: Ishaq & Jones (1977) velocity and attenuation.', config: { model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 } });
+  if (!(await findModelByName(networkId, DEMO_LINEAR_MODEL))) {
+    await saveModel(networkId, null, { name: DEMO_LINEAR_MODEL, notes: 'Demo model: the linear propagation parameter.', config: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 } });
+  }
+  const grid = (await findGridByName(networkId, DEMO_GRID)) ?? await saveGrid(networkId, null, demoGrid());
+  const existing = (await listRuns(networkId)).find((r) => r.name === DEMO_RUN);
+  let runId = existing?.id;
+  if (!runId) {
+    const stations = await listStations(networkId);
+    const config: RunConfig = {
+      name: DEMO_RUN, modelId: model.id, gridId: grid.id,
+      data: { stationIds: stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'], from: `${DEMO_DAY}T14:00:00.000Z`, to: `${DEMO_DAY}T16:00:00.000Z`, includeFlagged: false },
+      observables: { kind: 'spectrum', minHz: 6, maxHz: 26, every: 5 },
+      regions: [
+        { region: 'middle-belt', intensity: { min: 1e3, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 0, max: 40 } },
+        { region: 'west-belt', intensity: { min: 1e3, max: 1e6 } },
+        { region: 'east-belt', intensity: { min: 1e3, max: 1e6 } },
+      ],
+      damping: { initialLambda: 1e-2, maxIterations: 100, scaleCovariance: true },
+      starts: 4, seed: 1,
+    };
+    const { problems, preview } = await checkLaunch(networkId, config);
+    if (problems.length || !preview) throw new Error(`demo run cannot start: ${problems.map((p) => `${p.field}: ${p.message}`).join('; ')}`);
+    const run = await createRun({
+      networkId, name: DEMO_RUN, config: config as unknown as Record<string, unknown>, modelId: model.id, gridId: grid.id,
+      engineVersion: engineVersion(), intervalStarts: preview.intervalStarts, startsPerInterval: config.starts, createdBy: null,
+    });
+    runId = run.id;
+  }
+  const run = await getRunById(runId);
+  if (run && run.state !== 'finished') {
+    await executeRun(runId, { solve: makeEngineSolver(1), workerId: 'demo-seeder', leaseSeconds: 0 });
+  }
+}
+
+export async function seed(): Promise<void> {
+  await seedDemoRuns(await demoNetworkId());
+}
