@@ -74,6 +74,7 @@ export interface IntervalFilter {
   includeFlagged?: boolean;
   requireClean?: boolean;
   intervalIds?: string[];
+  /** At most this many rows (default: all). */
   limit?: number;
 }
 
@@ -149,7 +150,7 @@ export async function listIntervals(f: IntervalFilter): Promise<IntervalSummary[
     .leftJoin(intervalFits, eq(intervalFits.intervalId, intervals.id))
     .where(where(f))
     .orderBy(asc(stations.code), asc(intervals.component), asc(intervals.startsAt))
-    .limit(f.limit ?? 20000);
+    .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
   return rows.map(({ i, code, fit }) => ({
     id: i.id, stationId: i.stationId, stationCode: code, component: i.component, startsAt: i.startsAt,
     durationS: i.durationS, origin: i.origin, uploadId: i.uploadId, rejectedShare: i.rejectedShare,
@@ -166,7 +167,7 @@ export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpe
     .innerJoin(intervalSpectra, eq(intervalSpectra.intervalId, intervals.id))
     .where(where(f))
     .orderBy(asc(stations.code), asc(intervals.component), asc(intervals.startsAt))
-    .limit(f.limit ?? 5000);
+    .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
   return rows.map(({ i, code, s }) => ({
     intervalId: i.id, stationId: i.stationId, stationCode: code, component: i.component,
     startsAt: i.startsAt, frequencies: s.frequencies, power: s.power, segments: s.segments,
