@@ -24,6 +24,8 @@ export interface StartPlan {
   /** Explicit start points used for the first indexes (warm starts); quasi-random after them. */
   warm?: number[][];
   lm?: Partial<LmOptions>;
+  /** Let the problem improve quasi-random starts (e.g. intensities by linear least squares); default true. */
+  refine?: boolean;
 }
 
 export function startFor(plan: StartPlan, index: number, problem: LeastSquaresProblem): Float64Array {
@@ -32,7 +34,9 @@ export function startFor(plan: StartPlan, index: number, problem: LeastSquaresPr
   const n = problem.nParams;
   const lo = problem.lower ?? new Float64Array(n).fill(-Infinity);
   const hi = problem.upper ?? new Float64Array(n).fill(Infinity);
-  return startPoint(index - warm.length, plan.seed, lo, hi);
+  const p = startPoint(index - warm.length, plan.seed, lo, hi);
+  if (plan.refine !== false) problem.refineStart?.(p);
+  return p;
 }
 
 export function runStarts(

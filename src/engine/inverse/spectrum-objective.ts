@@ -16,6 +16,7 @@
  * difference of the effective kernel (SPREAD_DIFF_STEP_DEG).
  */
 import { greatCircleInto, type GreatCircle } from '@/src/engine/geometry/great-circle';
+import { choleskyFactor, choleskySolve } from '@/src/engine/optim/cholesky';
 import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { SPOT_MAX_NODES, SPOT_STRIDE, spotNodesInto } from '@/src/engine/sources/spot';
 import { SPREAD_DIFF_STEP_DEG } from '@/src/engine/tolerances';
@@ -31,6 +32,12 @@ export interface SpectrumProblem extends LeastSquaresProblem {
   nData: number;
   /** Predicted power per residual at the last evaluated point. */
   predicted: Float64Array;
+  /**
+   * Replace the free intensities of a start point by the bounded linear least-squares
+   * fit of the relative power misfit for its centres (P is linear in the intensities),
+   * so that LM starts with the right intensity scale.
+   */
+  refineStart(p: Float64Array): void;
 }
 
 export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: Parameterisation, scale: MisfitScale = 'log'): SpectrumProblem {
@@ -205,5 +212,54 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
     }
   }
 
-  return { nParams: n, nResiduals: m, nData: m, lower: par.lower, upper: par.upper, residuals, jacobian, predicted };
+  function refineStart(p: Float64Array): void {
+    const free = par.regions.map((r, i) => ({ r: i, j: r.index.intensity })).filter((x) => x.j >= 0);
+    if (free.length === 0) return;
+    sampleAt(p);
+    const active = free.map(() => true);
+    const value = free.map(({ j }) => Math.exp(Math.min(par.upper[j], Math.max(par.lower[j], p[j]))));
+    for (let pass = 0; pass <= free.length; pass++) {
+      const idx = free.map((_, a) => a).filter((a) => active[a]);
+      if (idx.length === 0) break;
+      const k = idx.length;
+      const ata = new Float64Array(k * k);
+      const atb = new Float64Array(k);
+      for (const se of layout.series) {
+        const w = se.invSigma;
+        for (let q = 0; q < se.bins.length; q++) {
+          const b = se.bins[q];
+          const o = se.obs[q];
+          // known part: fixed-intensity regions and intensities held at a bound
+          let known = 0;
+          for (let r = 0; r < nR; r++) {
+            const fi = free.findIndex((f) => f.r === r);
+            if (fi < 0) known += inten[r] * eff[se.station * nR + r][se.component][b];
+            else if (!active[fi]) known += value[fi] * eff[se.station * nR + r][se.component][b];
+          }
+          const rhs = (1 - known / o) * w;
+          for (let a = 0; a < k; a++) {
+            const ea = (eff[se.station * nR + free[idx[a]].r][se.component][b] / o) * w;
+            atb[a] += ea * rhs;
+            for (let c = 0; c < k; c++) ata[a * k + c] += ea * (eff[se.station * nR + free[idx[c]].r][se.component][b] / o) * w;
+          }
+        }
+      }
+      if (!choleskyFactor(ata, k)) return;
+      choleskySolve(ata, k, atb);
+      let clamped = false;
+      idx.forEach((a, c) => {
+        const { j } = free[a];
+        const lo = Math.exp(par.lower[j]);
+        if (!(atb[c] > lo)) {
+          value[a] = lo;
+          active[a] = false;
+          clamped = true;
+        } else value[a] = Math.min(Math.exp(par.upper[j]), atb[c]);
+      });
+      if (!clamped) break;
+    }
+    free.forEach(({ j }, a) => (p[j] = Math.log(value[a])));
+  }
+
+  return { nParams: n, nResiduals: m, nData: m, lower: par.lower, upper: par.upper, residuals, jacobian, predicted, refineStart };
 }

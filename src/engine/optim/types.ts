@@ -13,6 +13,8 @@ export interface LeastSquaresProblem {
   residuals(p: Float64Array, out: Float64Array): void;
   /** Jacobian d r_i / d p_j, row-major nResiduals x nParams, written into out. */
   jacobian(p: Float64Array, out: Float64Array): void;
+  /** Optional: improve a quasi-random start point in place before a multi-start run uses it. */
+  refineStart?(p: Float64Array): void;
 }
 
 /** Why a Levenberg–Marquardt run ended. */
