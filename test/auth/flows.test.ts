@@ -122,6 +122,13 @@ describe('sign-up and sign-in', () => {
     expect(Number(row.days)).toBeGreaterThan(29.9);
   });
 
+  it('an expired session counts as signed out', async () => {
+    const u = await makeUser('Expired', 'flows');
+    const sid = u.cookie.split('=')[1];
+    await getSql()`update sessions set expires_at = now() - interval '1 minute' where id = ${sid}`;
+    expect((await call(networks.GET, u)).status).toBe(401);
+  });
+
   it('signing out ends the session on the server', async () => {
     const u = await makeUser('Leaving', 'flows');
     expect((await call(signOut.POST, u, { method: 'POST' })).status).toBe(200);
