@@ -94,7 +94,11 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
     f1: iv.fit?.modes[0]?.frequency, q1: iv.fit?.modes[0]?.q, f2: iv.fit?.modes[1]?.frequency, misfit: iv.fit?.misfit,
     quality: iv.qualityFlags.join(', '), flag: iv.flagReason ?? '', raw: iv,
   }));
-  const timeX = { type: 'utc' as const, domain: [new Date(dayStart), new Date(dayStart + 86_400_000)] };
+  // UTC clock times on the axis, the axis label centred under the ticks
+  const timeX = {
+    type: 'utc' as const, domain: [new Date(dayStart), new Date(dayStart + 86_400_000)],
+    tickFormat: '%H:%M', labelAnchor: 'center' as const, labelOffset: 34,
+  };
 
   return (
     <div className="space-y-6">
@@ -123,7 +127,7 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
         <PlotFigure title={`Spectrogram, ${component}, ${day}`} xLabel="Interval start (UTC)" yLabel="Frequency (Hz)" height={300}
           caption={`Colour: log10 of power spectral density in ${unit}; gaps are intervals without data.`}
           options={{
-            x: timeX, y: { domain: [raster.fMin, raster.fMax] },
+            marginBottom: 40, x: timeX, y: { domain: [raster.fMin, raster.fMax] },
             color: { type: 'linear', scheme: 'viridis', legend: true, label: `log10 PSD (${unit})` },
             marks: [Plot.raster(raster.values, {
               width: raster.nx, height: raster.ny, x1: dayStart, x2: dayStart + 86_400_000, y1: raster.fMax, y2: raster.fMin,
@@ -134,20 +138,20 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
       {modePoints.length ? (
         <div className="grid gap-6 lg:grid-cols-3">
           <PlotFigure title="Mode frequencies" xLabel="Interval start (UTC)" yLabel="Frequency (Hz)" height={240}
-            options={{ x: timeX, color: { legend: true }, marks: [
+            options={{ marginBottom: 40, x: timeX, color: { legend: true }, marks: [
               Plot.ruleX(modePoints, { x: 't', y1: (d: { f: number; df: number }) => d.f - d.df, y2: (d: { f: number; df: number }) => d.f + d.df, stroke: 'mode', strokeOpacity: 0.4 }),
               Plot.dot(modePoints, { x: 't', y: 'f', fill: 'mode', r: 2 }),
             ] }} />
           <PlotFigure title="Q-factors" xLabel="Interval start (UTC)" yLabel="Q (dimensionless)" height={240}
-            options={{ x: timeX, marks: [Plot.dot(modePoints, { x: 't', y: 'q', fill: 'mode', r: 2 })] }} />
+            options={{ marginBottom: 40, x: timeX, marks: [Plot.dot(modePoints, { x: 't', y: 'q', fill: 'mode', r: 2 })] }} />
           <PlotFigure title="Mode intensities" xLabel="Interval start (UTC)" yLabel={`Peak amplitude (${unit})`} height={240}
-            options={{ x: timeX, y: { type: 'log' }, marks: [Plot.dot(modePoints.filter((d) => d.a > 0), { x: 't', y: 'a', fill: 'mode', r: 2 })] }} />
+            options={{ marginBottom: 40, x: timeX, y: { type: 'log' }, marks: [Plot.dot(modePoints.filter((d) => d.a > 0), { x: 't', y: 'a', fill: 'mode', r: 2 })] }} />
         </div>
       ) : null}
       {selected && selectedSpectrum ? (
         <SpectrumWithFit interval={selected} spectrum={selectedSpectrum} component={component} unit={unit} />
       ) : null}
-      <DataTable caption={`Intervals, ${component}, ${day}`} rows={rows} initialSort={{ key: 'startsAt' }}
+      <DataTable caption={`Intervals, ${component}, ${day}`} rows={rows} initialSort={{ key: 'startsAt' }} className="max-h-[36rem] overflow-y-auto"
         empty={<EmptyState title="No intervals to show">Pick another day, component or table filter.</EmptyState>}
         columns={[
           { key: 'startsAt', header: 'Start', time: true },
