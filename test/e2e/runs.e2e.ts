@@ -1,0 +1,100 @@
+/**
+ * Browser: an analyst describes a cavity model and draws a source grid,
+ * launches a run on the stored demo data, watches the progress bar reach the
+ * end, and opens the map, minima, fits, correlation matrix and a misfit
+ * surface. The demo data are the invented synthetic day of the stations seeder.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { launchBrowser, startTestApp, type TestApp } from './harness';
+import { demoNetworkId } from '@/src/ops/seed/accounts';
+import { closeDatabase } from '@/db/lifecycle';
+
+describe('configure a model and a grid, run, and read the results', () => {
+  let app: TestApp;
+  let browser: Browser;
+  beforeAll(async () => {
+    app = await startTestApp();
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await app?.stop();
+    await closeDatabase();
+  });
+
+  it('goes from a new model and grid to a finished run with its figures', async () => {
+    const t0 = Date.now();
+    const step = (s: string) => console.log(`[runs e2e] ${((Date.now() - t0) / 1000).toFixed(1)} s: ${s}`);
+    const networkId = await demoNetworkId();
+    const analyst = app.signIns.find((s) => s.role === 'analyst')!;
+    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const page = await context.newPage();
+    await page.goto(`${app.baseUrl}/sign-in`);
+    await page.getByLabel(/e-?mail/i).fill(analyst.email);
+    await page.getByLabel(/password/i).fill(analyst.password);
+    await page.getByRole('button', { name: /sign in/i }).click();
+    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+
+    step('sign-in done');
+    // A cavity model: the linear propagation parameter.
+    await page.goto(`${app.baseUrl}/n/${networkId}/models/new`);
+    await page.getByLabel('Name').fill('E2E linear');
+    await page.getByLabel('Propagation parameter from').selectOption('linear');
+    await page.getByText('Real part of ν').first().waitFor();
+    await page.getByRole('button', { name: 'Save model' }).click();
+    await page.waitForURL(/\/models\/[0-9a-f-]{36}$/, { timeout: 30_000 });
+    await page.getByText('E2E linear · version 1').waitFor();
+
+    step('model saved');
+    // A source grid: one moving region and one region of cells dragged as a box.
+    await page.goto(`${app.baseUrl}/n/${networkId}/grids/new`);
+    await page.getByLabel('Name', { exact: true }).fill('E2E grid');
+    await page.getByRole('button', { name: 'Add a moving region' }).click();
+    await page.getByRole('button', { name: 'Add a region of cells' }).click();
+    await page.getByLabel('Drag a box', { exact: true }).check();
+    const canvas = page.getByTestId('grid-canvas');
+    const box = (await canvas.boundingBox())!;
+    await page.mouse.move(box.x + box.width * 0.52, box.y + box.height * 0.42);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width * 0.56, box.y + box.height * 0.5, { steps: 5 });
+    await page.mouse.up();
+    await expect(page.getByText(/^\d+ cells$/).first().textContent()).resolves.not.toBe('0 cells');
+    await page.getByRole('button', { name: 'Save grid' }).click();
+    await page.waitForURL(/\/grids\/[0-9a-f-]{36}$/, { timeout: 30_000 });
+
+    step('grid saved');
+    // Launch a run on one stored interval of the demo day.
+    await page.goto(`${app.baseUrl}/n/${networkId}/runs/new`);
+    await page.getByLabel('Run name').fill('E2E run');
+    await page.getByLabel('Cavity model').selectOption({ label: 'E2E linear v1' });
+    await page.getByLabel('Source grid').selectOption({ label: 'E2E grid v1' });
+    await page.getByLabel('First interval start (UT)').fill('2026-03-14T15:00');
+    await page.getByLabel('Last interval start (UT)').fill('2026-03-14T15:00');
+    await page.getByLabel('Use every k-th bin').fill('5');
+    await page.getByLabel('Starts').fill('2');
+    await page.getByRole('button', { name: 'Check and preview' }).click();
+    await page.getByTestId('run-preview').waitFor({ timeout: 30_000 });
+    await page.getByRole('button', { name: 'Launch run' }).click();
+    await page.waitForURL(/\/runs\/[0-9a-f-]{36}$/, { timeout: 30_000 });
+
+    step('run launched');
+    // The progress bar reaches the end.
+    await page.getByTestId('run-state').filter({ hasText: 'Finished' }).waitFor({ timeout: 300_000 });
+    await page.getByText('100 %').first().waitFor();
+
+    step('run finished');
+    // Map, minima, fits, correlation matrix.
+    await page.locator('svg title', { hasText: 'Source regions of the selected minimum' }).waitFor({ state: 'attached' });
+    await page.getByRole('table', { name: /Distinct minima/ }).waitFor();
+    await page.getByText(/^Power at /).first().waitFor({ timeout: 60_000 });
+    await page.getByText('Correlation matrix of the parameters').waitFor();
+    await page.getByText('Research estimate, not a lightning warning').first().waitFor();
+
+    step('figures shown');
+    // A misfit surface over the first two parameters, computed by the worker.
+    await page.getByRole('button', { name: 'Map the misfit' }).click();
+    await page.getByText(/^Misfit over /).waitFor({ timeout: 180_000 });
+    await context.close();
+  }, 600_000);
+});
