@@ -1,8 +1,11 @@
 /**
  * From a validated case file (src/engine/case) to the inverter's input.
  * Unknown intensity ranges that start at 0 start at max * 1e-9 instead,
- * because the intensity is searched as its logarithm.
+ * because the intensity is searched as its logarithm. An optional extra
+ * top-level field `selection: { mainsHz?, mainsHalfWidthHz?, exclude?: [{ minHz, maxHz }] }`
+ * leaves mains bins and bands out of the misfit.
  */
+import { z } from 'zod';
 import type { CaseFile } from '@/src/engine/case';
 import type { CavityConfig } from '@/src/engine/cavity';
 import type { Component } from '@/src/engine/components';
@@ -12,7 +15,24 @@ import type { BinSelection, RegionUnknown } from './types';
 
 const ZERO_INTENSITY_FLOOR = 1e-9;
 
-export function inputFromCase(c: CaseFile, selection?: BinSelection): SpectrumInversionInput {
+export const binSelectionSchema = z.object({
+  mainsHz: z.number().positive().optional(),
+  mainsHalfWidthHz: z.number().positive().optional(),
+  exclude: z.array(z.object({ minHz: z.number(), maxHz: z.number() }).refine((b) => b.minHz <= b.maxHz, { message: 'minHz must not exceed maxHz', path: ['maxHz'] })).optional(),
+});
+
+function selectionOf(c: CaseFile): BinSelection | undefined {
+  const raw = (c as { selection?: unknown }).selection;
+  if (raw === undefined) return undefined;
+  const parsed = binSelectionSchema.safeParse(raw);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
+    throw new InversionInputError(`selection.${issue.path.join('.')}: ${issue.message}`);
+  }
+  return parsed.data;
+}
+
+export function inputFromCase(c: CaseFile, selection: BinSelection | undefined = selectionOf(c)): SpectrumInversionInput {
   if (!c.observed?.length) throw new InversionInputError('observed: invert needs at least one observed spectrum');
   if (!c.unknowns?.length) throw new InversionInputError('unknowns: invert needs at least one unknown source');
   const unknowns: RegionUnknown[] = c.unknowns.map((u) => {

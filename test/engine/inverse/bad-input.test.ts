@@ -1,5 +1,8 @@
 /** Every bad inversion input is refused with an InversionInputError naming the problem. */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { invertCaseSchema } from '@/src/engine/case';
+import { inputFromCase } from '@/src/engine/inverse/from-case';
 import { buildDataLayout } from '@/src/engine/inverse/data-layout';
 import { InversionInputError } from '@/src/engine/inverse/errors';
 import { buildParameterisation } from '@/src/engine/inverse/parameters';
@@ -52,5 +55,17 @@ describe('bad inversion input', () => {
     const f = [49, 49.75, 50, 50.25, 51];
     const layout = buildDataLayout(stations, [series({ frequencies: f, power: f.map(() => 1e-12) })], { mainsHz: 50, mainsHalfWidthHz: 0.3 });
     expect(Array.from(layout.freqs)).toEqual([49, 51]);
+  });
+});
+
+describe('case selection field', () => {
+  it('leaves the selected mains bins out, and names a bad selection', () => {
+    const raw = JSON.parse(readFileSync('fixtures/cases/two-minima.json', 'utf8'));
+    const input = inputFromCase(invertCaseSchema.parse({ ...raw, selection: { mainsHz: 10, mainsHalfWidthHz: 0.3 } }));
+    const layout = buildDataLayout(input.stations, input.observed, input.selection);
+    // 6..30 Hz at 0.5 Hz is 49 bins; 10, 20 and 30 Hz are mains harmonics
+    expect(layout.freqs.length).toBe(46);
+    expect(Array.from(layout.freqs)).not.toContain(20);
+    expect(() => inputFromCase(invertCaseSchema.parse({ ...raw, selection: { exclude: [{ minHz: 9, maxHz: 8 }] } }))).toThrow(/selection\.exclude\.0\.maxHz/);
   });
 });
