@@ -8,7 +8,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { resetDatabase, closeDatabase } from '@/test/helpers/db';
-import { CALLERS, call, errorOf, makeUser, setupCallers, type AuthzWorld, type CallerName } from '@/test/helpers/authz';
+import { CALLERS, call, cookiePair, errorOf, makeUser, setupCallers, type AuthzWorld, type CallerName } from '@/test/helpers/authz';
 import { upsertMembership, createInvitation, getMembership } from '@/db/repo/networks';
 import { hashToken, newToken } from '@/src/auth/tokens';
 import * as networksRoute from '@/app/api/networks/route';
@@ -22,18 +22,26 @@ import * as signUpRoute from '@/app/api/auth/sign-up/route';
 import * as signInRoute from '@/app/api/auth/sign-in/route';
 import * as resetRoute from '@/app/api/auth/password-reset/route';
 import * as publicInvitationRoute from '@/app/api/invitations/[token]/route';
+import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
+import * as signOutRoute from '@/app/api/auth/sign-out/route';
+import * as resetConfirmRoute from '@/app/api/auth/password-reset/confirm/route';
+import { startSession } from '@/src/auth/session';
+import { startCatcher, type Catcher } from '@/src/mail/catcher';
 
 let w: AuthzWorld;
+let catcher: Catcher;
 let seq = 0;
 const uniq = () => `${Date.now().toString(36)}${(seq++).toString(36)}`;
 
 beforeAll(async () => {
-  process.env.SMTP_HOST = '127.0.0.1';
-  process.env.SMTP_PORT = '9'; // discard port: nothing listens, so mail fails fast and is reported, not thrown
   await resetDatabase();
+  catcher = await startCatcher({ port: 0 });
+  process.env.SMTP_HOST = '127.0.0.1';
+  process.env.SMTP_PORT = String(catcher.port);
   w = await setupCallers('matrix');
 });
 afterAll(async () => {
+  await catcher?.close();
   await closeDatabase();
 });
 
@@ -145,6 +153,36 @@ const rows: Row[] = [
         expiresAt: new Date(Date.now() + 86_400_000),
       });
       return call(publicInvitationRoute.GET, w.callers[c], { params: { token } });
+    },
+  },
+  {
+    name: 'POST /api/invitations/:token/accept (mode current, invitation to someone else)',
+    expect: [401, 403, 403, 403, 403],
+    run: async (c) => {
+      const token = newToken();
+      await createInvitation({
+        networkId: w.networkId,
+        email: `stranger.${uniq()}@example.org`,
+        role: 'viewer',
+        tokenHash: hashToken(token),
+        invitedBy: w.callers.owner.userId!,
+        expiresAt: new Date(Date.now() + 86_400_000),
+      });
+      return call(acceptRoute.POST, w.callers[c], { method: 'POST', body: { mode: 'current' }, params: { token } });
+    },
+  },
+  {
+    name: 'POST /api/auth/password-reset/confirm (unknown token)',
+    expect: [404, 404, 404, 404, 404],
+    run: (c) => call(resetConfirmRoute.POST, w.callers[c], { method: 'POST', body: { token: 'unknown-token-value', password: 'long-enough-pass' } }),
+  },
+  {
+    name: 'POST /api/auth/sign-out (on a second session of the caller)',
+    expect: [200, 200, 200, 200, 200],
+    run: async (c) => {
+      const who = w.callers[c];
+      const cookie = who.userId ? cookiePair(await startSession(who.userId)) : null;
+      return call(signOutRoute.POST, { ...who, cookie }, { method: 'POST' });
     },
   },
 ];
