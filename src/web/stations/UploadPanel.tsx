@@ -12,6 +12,7 @@ import { api, ApiFailure, fetcher } from './api';
 interface UploadItem {
   id: string; fileName: string; format: string; sizeBytes: number; state: 'queued' | 'processing' | 'done' | 'failed';
   progress: number; progressNote: string; error: string | null; intervalCount: number; createdAt: string; attempts: number;
+  startedAt: string | null;
 }
 
 type Sending = { name: string; sent: number; total: number; error?: string; note?: string };
@@ -34,6 +35,13 @@ function send(url: string, file: File, onProgress: (sent: number) => void): Prom
     };
     xhr.send(file);
   });
+}
+
+/** Time left from the pace so far (elapsed × (1 − p) / p), once a little progress is made. */
+function remaining(u: UploadItem): number | null {
+  if (u.state !== 'processing' || !u.startedAt || !(u.progress > 0.02)) return null;
+  const elapsed = (Date.now() - Date.parse(u.startedAt)) / 1000;
+  return (elapsed * (1 - u.progress)) / u.progress;
 }
 
 const STATE_TONE = { queued: 'neutral', processing: 'accent', done: 'ok', failed: 'danger' } as const;
@@ -89,7 +97,8 @@ export function UploadPanel({ networkId, stationId, stationCode, canUpload, maxB
         </div>
       ) : <Notice>Your role can read and export this station&apos;s data; analysts and owners add files.</Notice>}
       {uploads.filter((u) => u.state === 'processing' || u.state === 'queued').map((u) => (
-        <ProgressBar key={u.id} value={u.state === 'queued' ? null : u.progress} label={`${u.fileName}: ${u.progressNote || STATE_WORD[u.state]}`} />
+        <ProgressBar key={u.id} value={u.state === 'queued' ? null : u.progress} label={`${u.fileName}: ${u.progressNote || STATE_WORD[u.state]}`}
+          remainingSeconds={remaining(u)} />
       ))}
       <DataTable caption="Files of this station" rows={uploads as unknown as Record<string, unknown>[]} initialSort={{ key: 'createdAt', desc: true }}
         empty={<EmptyState title="No files yet">Choose station files above, or let the station computer send intervals with a push token.</EmptyState>}
