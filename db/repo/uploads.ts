@@ -40,6 +40,7 @@ export async function storeUpload(
   meta: UploadMeta,
   fill: (writer: UploadWriter) => Promise<{ sha256: string; sizeBytes: number }>,
 ): Promise<{ upload: UploadRow; duplicate: boolean }> {
+  let checksum: string | null = null;
   try {
     const upload = await getDb().transaction(async (tx) => {
       const [row] = await tx.insert(uploads)
@@ -61,6 +62,7 @@ export async function storeUpload(
         },
       });
       await flush();
+      checksum = sha256;
       const [existing] = await tx.select().from(uploads)
         .where(and(eq(uploads.networkId, meta.networkId), eq(uploads.sha256, sha256)));
       if (existing) throw new Duplicate(existing);
@@ -71,6 +73,13 @@ export async function storeUpload(
     return { upload, duplicate: false };
   } catch (e) {
     if (e instanceof Duplicate) return { upload: e.existing, duplicate: true };
+    // The same file committed by a parallel request between our check and our commit (23505 unique_violation).
+    const code = (e as { code?: string; cause?: { code?: string } }).code ?? (e as { cause?: { code?: string } }).cause?.code;
+    if (code === '23505' && checksum) {
+      const [existing] = await getDb().select().from(uploads)
+        .where(and(eq(uploads.networkId, meta.networkId), eq(uploads.sha256, checksum)));
+      if (existing) return { upload: existing, duplicate: true };
+    }
     throw e;
   }
 }

@@ -179,3 +179,16 @@ describe('push token rate window', () => {
     expect(found).not.toHaveProperty('secretHash');
   });
 });
+
+describe('uploads sent twice at the same moment', () => {
+  it('keep one copy and report the other as a duplicate', async () => {
+    const { networkId, station, userId } = await makeWorld();
+    const sha = 'e'.repeat(64);
+    const send = () => uploads.storeUpload({ networkId, stationId: station.id, uploadedBy: userId, fileName: 'x.csv', format: 'series-csv' },
+      async (w) => { await w.append(Buffer.from('same')); await new Promise((r) => setTimeout(r, 200)); return { sha256: sha, sizeBytes: 4 }; });
+    const [a, b] = await Promise.all([send(), send()]);
+    expect([a.duplicate, b.duplicate].sort()).toEqual([false, true]);
+    expect(a.upload.id).toBe(b.upload.id);
+    expect(await uploads.listUploads(networkId)).toHaveLength(1);
+  });
+});
