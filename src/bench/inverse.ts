@@ -5,7 +5,7 @@
  * included) and warm; peak resident memory; and a day of 144 intervals x 16
  * warm-started starts. Data: the engine's kernels with seeded log-normal noise.
  */
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { bandFrequencies } from '@/src/engine/band';
 import type { Component } from '@/src/engine/components';
 import { greatCircle } from '@/src/engine/geometry/great-circle';
@@ -70,28 +70,35 @@ function rssMb(): string {
 export default async function bench(): Promise<void> {
   const threads = availableParallelism();
   const input = synthetic(0.25, 99);
-  console.log(`data: 12 stations x 3 components x ${freqs.length} bins; 9 free parameters; threads ${threads}`);
-  for (const label of ['cold (pool start + kernel tables in workers)', 'warm']) {
+  console.log(`data: 12 stations x 3 components x ${freqs.length} bins; 9 free parameters; threads ${threads}; load average ${loadavg()[0].toFixed(1)}`);
+  // wall time, and CPU time of all threads of this process (less sensitive to other load)
+  const timed = async (label: string, t: number) => {
+    const c0 = process.cpuUsage();
     const t0 = performance.now();
-    const r = await invertSpectra(input, { starts: 64, seed: 1, threads });
+    const r = await invertSpectra(input, { starts: 64, seed: 1, threads: t });
     const s = (performance.now() - t0) / 1000;
-    console.log(`64 starts, ${label}: ${s.toFixed(2)} s; ${r.minima.length} minima, best misfit ${r.minima[0].misfit.toFixed(1)} (N = ${r.nData}), best count ${r.minima[0].count}`);
-  }
-  {
-    const t0 = performance.now();
-    await invertSpectra(input, { starts: 64, seed: 1, threads: 1 });
-    console.log(`64 starts, in-process (1 thread): ${((performance.now() - t0) / 1000).toFixed(2)} s`);
-  }
+    const c = process.cpuUsage(c0);
+    console.log(
+      `64 starts, ${label}: ${s.toFixed(2)} s wall, ${((c.user + c.system) / 1e6).toFixed(2)} s CPU; ${r.minima.length} minima, best misfit ${r.minima[0].misfit.toFixed(1)} (N = ${r.nData}), best count ${r.minima[0].count}`,
+    );
+  };
+  await timed('cold (pool start + kernel tables in workers)', threads);
+  await timed('warm', threads);
+  await timed('in-process (1 thread)', 1);
   console.log(`memory after the 64-start runs: ${rssMb()}`);
   const day = Array.from({ length: 144 }, (_, i) => synthetic(i / 144, 1000 + i));
   const t0 = performance.now();
+  const c0 = process.cpuUsage();
   let good = 0;
   await invertSeries(day, { starts: 16, seed: 1, threads }, {
     onInterval: ({ result }) => {
       if (result.minima[0].reducedChi2 < 1.2) good++;
     },
   });
-  console.log(`day: 144 intervals x 16 starts (warm-started): ${((performance.now() - t0) / 1000).toFixed(1)} s; intervals with reduced chi2 < 1.2: ${good}`);
+  const c = process.cpuUsage(c0);
+  console.log(
+    `day: 144 intervals x 16 starts (warm-started): ${((performance.now() - t0) / 1000).toFixed(1)} s wall, ${((c.user + c.system) / 1e6).toFixed(1)} s CPU; intervals with reduced chi2 < 1.2: ${good}; load average ${loadavg()[0].toFixed(1)}`,
+  );
   console.log(`memory after the day: ${rssMb()}`);
   await closeInversionPool();
 }
