@@ -1,7 +1,7 @@
 import { json, route, toErrorResponse } from '@/src/server/route';
 import { badRequest } from '@/src/server/errors';
 import { authenticatePush, pushRateLimit } from '@/src/data/push-tokens';
-import { PUSH_MAX_BYTES, pushBodySchema, receivePush } from '@/src/data/push';
+import { pushBodySchema, readPushBody, receivePush } from '@/src/data/push';
 
 /**
  * A station computer sends one 10-minute interval:
@@ -11,11 +11,10 @@ import { PUSH_MAX_BYTES, pushBodySchema, receivePush } from '@/src/data/push';
  */
 const handler = route(async (req) => {
   const token = await authenticatePush(req.headers.get('authorization'));
-  const length = Number(req.headers.get('content-length') ?? 0);
-  if (length > PUSH_MAX_BYTES) throw badRequest(`A push may carry at most ${PUSH_MAX_BYTES >> 20} MB; send one interval per request.`, 'body');
+  const text = await readPushBody(req);
   let data: unknown;
   try {
-    data = JSON.parse(await req.text());
+    data = JSON.parse(text);
   } catch {
     throw badRequest('The request body is not valid JSON.', 'body');
   }
