@@ -35,9 +35,15 @@ export async function startTestApp(): Promise<TestApp> {
     logs.push(l);
     if (process.env.E2E_VERBOSE) console.log(l);
   };
-  buildIfStale({ ...process.env, DATABASE_URL: databaseUrl }, log);
   const [port, smtpPort] = [await freePort(), await freePort()];
-  const stack = await startStack({ mode: 'production', databaseUrl, port, smtpPort, log });
+  let stack;
+  try {
+    buildIfStale({ ...process.env, DATABASE_URL: databaseUrl }, log);
+    stack = await startStack({ mode: 'production', databaseUrl, port, smtpPort, log });
+  } catch (err) {
+    const tail = logs.slice(-40).join('\n');
+    throw new Error(`${(err as Error).message}\n--- last output of the app ---\n${tail}`);
+  }
   return { baseUrl: stack.appUrl, smtpPort, logs, signIns: demoSignIns(), stop: stack.stop };
 }
 
