@@ -15,15 +15,16 @@
  * sin(2b) for Bns and -sin(2b) for Bew. The spread derivative is a central
  * difference of the effective kernel (SPREAD_DIFF_STEP_DEG).
  */
-import { greatCircleInto, type GreatCircle } from '@/src/engine/geometry/great-circle';
-import { choleskyFactor, choleskySolve } from '@/src/engine/optim/cholesky';
+import type { GreatCircle } from '@/src/engine/geometry/great-circle';
 import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { SPOT_MAX_NODES, SPOT_STRIDE, spotNodesInto } from '@/src/engine/sources/spot';
 import { SPREAD_DIFF_STEP_DEG } from '@/src/engine/tolerances';
 import type { DataLayout } from './data-layout';
+import { centreDerivatives, effectiveKernels } from './effective-kernel';
 import { InversionInputError } from './errors';
 import { createKernelBuffers, type KernelBuffers, type KernelSampler } from './kernel-sampler';
 import { regionValue, type Parameterisation } from './parameters';
+import { linearStartIntensities } from './start-intensities';
 
 /** 'log': ln-power misfit; 'linear': relative power misfit; 'power': r = P / (sigma P_obs), the bare model (for derived objectives). */
 export type MisfitScale = 'log' | 'linear' | 'power';
@@ -73,32 +74,10 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
   const last = new Float64Array(n).fill(NaN);
   const predicted = new Float64Array(m);
   const scratchNodes = new Float64Array(SPOT_MAX_NODES * SPOT_STRIDE);
-  const scratchBuf = createKernelBuffers(nb);
-  const scratchGc = {} as GreatCircle;
+  const scratchBuf = Array.from({ length: SPOT_MAX_NODES }, () => createKernelBuffers(nb));
+  const scratchGc = Array.from({ length: SPOT_MAX_NODES }, () => ({}) as GreatCircle);
   const dLat = new Float64Array(nb);
   const dLon = new Float64Array(nb);
-
-  /** Effective kernels of one station and a set of nodes into out[component]; samples into bufs/gcs. */
-  function effective(st: { lat: number; lon: number }, nodeArr: Float64Array, count: number, bufs: KernelBuffers[] | null, gcs: GreatCircle[] | null, out: Float64Array[]) {
-    out[0].fill(0);
-    out[1].fill(0);
-    out[2].fill(0);
-    for (let q = 0; q < count; q++) {
-      const o = q * SPOT_STRIDE;
-      const g = gcs ? gcs[q] : scratchGc;
-      const kb = bufs ? bufs[q] : scratchBuf;
-      greatCircleInto(st.lat, st.lon, nodeArr[o], nodeArr[o + 1], g);
-      kernel.sample(g.theta, kb);
-      const w = nodeArr[o + 2];
-      const sn = w * Math.sin(g.bearing) ** 2;
-      const cs = w * Math.cos(g.bearing) ** 2;
-      for (let k = 0; k < nb; k++) {
-        out[0][k] += w * kb.ez[k];
-        out[1][k] += sn * kb.bh[k];
-        out[2][k] += cs * kb.bh[k];
-      }
-    }
-  }
 
   function sampleAt(p: Float64Array): void {
     for (let r = 0; r < nR; r++) {
@@ -109,7 +88,7 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
       for (let s = 0; s < nS; s++) {
         if (!used[s]) continue;
         const i = s * nR + r;
-        effective(layout.stations[s], nodes[r], nodeCount[r], buf[i], gc[i], eff[i]);
+        effectiveKernels(kernel, layout.stations[s], nodes[r], nodeCount[r], buf[i], gc[i], eff[i]);
       }
     }
     last.set(p);
@@ -138,33 +117,6 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
     }
   }
 
-  /** d(effective kernel of one component)/d(centre lat, lon) into dLat, dLon. */
-  function centreDerivatives(i: number, r: number, component: number): void {
-    dLat.fill(0);
-    dLon.fill(0);
-    const nd = nodes[r];
-    for (let q = 0; q < nodeCount[r]; q++) {
-      const o = q * SPOT_STRIDE;
-      const w = nd[o + 2];
-      const g = gc[i][q];
-      const kb = buf[i][q];
-      const tLat = g.dThetaDLat * nd[o + 3] + g.dThetaDLon * nd[o + 5];
-      const tLon = g.dThetaDLat * nd[o + 4] + g.dThetaDLon * nd[o + 6];
-      const bLat = g.dBearingDLat * nd[o + 3] + g.dBearingDLon * nd[o + 5];
-      const bLon = g.dBearingDLat * nd[o + 4] + g.dBearingDLon * nd[o + 6];
-      const sb = Math.sin(g.bearing);
-      const cb = Math.cos(g.bearing);
-      const proj = component === 0 ? 1 : component === 1 ? sb * sb : cb * cb;
-      const dProj = component === 0 ? 0 : component === 1 ? 2 * sb * cb : -2 * sb * cb;
-      const K = component === 0 ? kb.ez : kb.bh;
-      const dK = component === 0 ? kb.dEz : kb.dBh;
-      for (let k = 0; k < nb; k++) {
-        dLat[k] += w * (dK[k] * tLat * proj + K[k] * dProj * bLat);
-        dLon[k] += w * (dK[k] * tLon * proj + K[k] * dProj * bLon);
-      }
-    }
-  }
-
   function jacobian(p: Float64Array, out: Float64Array): void {
     if (!same(p)) residuals(p, new Float64Array(m));
     out.fill(0);
@@ -180,8 +132,8 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
       for (let s = 0; s < nS; s++) {
         if (!used[s]) continue;
         const i = s * nR + r;
-        effective(layout.stations[s], scratchNodes, spotNodesInto(lat, lon, hi, scratchNodes), null, null, effPlus[i]);
-        effective(layout.stations[s], scratchNodes, spotNodesInto(lat, lon, lo, scratchNodes), null, null, effMinus[i]);
+        effectiveKernels(kernel, layout.stations[s], scratchNodes, spotNodesInto(lat, lon, hi, scratchNodes), scratchBuf, scratchGc, effPlus[i]);
+        effectiveKernels(kernel, layout.stations[s], scratchNodes, spotNodesInto(lat, lon, lo, scratchNodes), scratchBuf, scratchGc, effMinus[i]);
         for (let c = 0; c < 3; c++) for (let k = 0; k < nb; k++) effPlus[i][c][k] = (effPlus[i][c][k] - effMinus[i][c][k]) / (hi - lo);
       }
     }
@@ -194,7 +146,7 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
         const jLat = reg.index.lat;
         const jLon = reg.index.lon;
         const jSp = reg.index.spread;
-        if (jLat >= 0 || jLon >= 0) centreDerivatives(i, r, component);
+        if (jLat >= 0 || jLon >= 0) centreDerivatives(nodes[r], nodeCount[r], gc[i], buf[i], component, dLat, dLon);
         const E = eff[i][component];
         const dSp = jSp >= 0 ? effPlus[i][component] : null;
         const I = inten[r];
@@ -213,52 +165,8 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
   }
 
   function refineStart(p: Float64Array): void {
-    const free = par.regions.map((r, i) => ({ r: i, j: r.index.intensity })).filter((x) => x.j >= 0);
-    if (free.length === 0) return;
     sampleAt(p);
-    const active = free.map(() => true);
-    const value = free.map(({ j }) => Math.exp(Math.min(par.upper[j], Math.max(par.lower[j], p[j]))));
-    for (let pass = 0; pass <= free.length; pass++) {
-      const idx = free.map((_, a) => a).filter((a) => active[a]);
-      if (idx.length === 0) break;
-      const k = idx.length;
-      const ata = new Float64Array(k * k);
-      const atb = new Float64Array(k);
-      for (const se of layout.series) {
-        const w = se.invSigma;
-        for (let q = 0; q < se.bins.length; q++) {
-          const b = se.bins[q];
-          const o = se.obs[q];
-          // known part: fixed-intensity regions and intensities held at a bound
-          let known = 0;
-          for (let r = 0; r < nR; r++) {
-            const fi = free.findIndex((f) => f.r === r);
-            if (fi < 0) known += inten[r] * eff[se.station * nR + r][se.component][b];
-            else if (!active[fi]) known += value[fi] * eff[se.station * nR + r][se.component][b];
-          }
-          const rhs = (1 - known / o) * w;
-          for (let a = 0; a < k; a++) {
-            const ea = (eff[se.station * nR + free[idx[a]].r][se.component][b] / o) * w;
-            atb[a] += ea * rhs;
-            for (let c = 0; c < k; c++) ata[a * k + c] += ea * (eff[se.station * nR + free[idx[c]].r][se.component][b] / o) * w;
-          }
-        }
-      }
-      if (!choleskyFactor(ata, k)) return;
-      choleskySolve(ata, k, atb);
-      let clamped = false;
-      idx.forEach((a, c) => {
-        const { j } = free[a];
-        const lo = Math.exp(par.lower[j]);
-        if (!(atb[c] > lo)) {
-          value[a] = lo;
-          active[a] = false;
-          clamped = true;
-        } else value[a] = Math.min(Math.exp(par.upper[j]), atb[c]);
-      });
-      if (!clamped) break;
-    }
-    free.forEach(({ j }, a) => (p[j] = Math.log(value[a])));
+    linearStartIntensities(layout, par, (s, r, c) => eff[s * nR + r][c], inten, p);
   }
 
   return { nParams: n, nResiduals: m, nData: m, lower: par.lower, upper: par.upper, residuals, jacobian, predicted, refineStart };
