@@ -27,14 +27,24 @@ export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }
   const options = useMemo(() => {
     if (!s?.result) return null;
     const r = s.result;
-    const cells = r.y.flatMap((yv, j) => r.x.map((xv, i) => ({ x: xv, y: yv, m: r.misfit[j][i] })));
     const logX = r.xName.endsWith('.intensity');
     const logY = r.yName.endsWith('.intensity');
+    // Cell edges half-way between grid values (geometric half-way on a log axis).
+    const edges = (v: number[], log: boolean) => {
+      const mid = (a: number, b: number) => (log ? Math.sqrt(a * b) : (a + b) / 2);
+      return v.map((x, i) => [
+        i > 0 ? mid(v[i - 1], x) : (log ? x / Math.sqrt(v[1] / x) : x - (v[1] - x) / 2),
+        i < v.length - 1 ? mid(x, v[i + 1]) : (log ? x * Math.sqrt(x / v[i - 1]) : x + (x - v[i - 1]) / 2),
+      ]);
+    };
+    const ex = edges(r.x, logX);
+    const ey = edges(r.y, logY);
+    const cells = r.y.flatMap((yv, j) => r.x.map((xv, i) => ({ x1: ex[i][0], x2: ex[i][1], y1: ey[j][0], y2: ey[j][1], m: r.misfit[j][i] })));
     return {
       x: logX ? { type: 'log' } : {}, y: logY ? { type: 'log' } : {},
       color: { type: 'log', scheme: SEQUENTIAL_MISFIT, legend: true, label: 'misfit χ² (dimensionless)' },
       marks: [
-        Plot.dot(cells, { x: 'x', y: 'y', fill: 'm', r: 6, symbol: 'square', title: (d: { x: number; y: number; m: number }) => `χ² = ${d.m.toPrecision(5)}` }),
+        Plot.rect(cells, { x1: 'x1', x2: 'x2', y1: 'y1', y2: 'y2', fill: 'm', title: (d: { m: number }) => `χ² = ${d.m.toPrecision(5)}` }),
         Plot.dot([r.centre], { x: 'x', y: 'y', r: 5, stroke: 'white', strokeWidth: 2, symbol: 'cross' }),
       ],
     } as unknown as Plot.PlotOptions;
