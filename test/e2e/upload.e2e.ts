@@ -1,6 +1,6 @@
 /**
  * Browser: an analyst uploads a time-series file on a demo station's page,
- * watches processing finish, and sees the fitted modes of an interval.
+ * watches processing finish, sees the fitted modes of an interval and flags it.
  * The file is invented: Gaussian noise with a Lorentzian-mode spectrum
  * (frequency-domain synthesis, Timmer & Koenig 1995) around the usual
  * Schumann-resonance frequencies (common practice: about 7.8, 14.1, 20.3 Hz).
@@ -67,6 +67,14 @@ describe('upload a station file and see its modes', () => {
     await modes.waitFor({ timeout: 30_000 });
     const first = await modes.getByRole('row').nth(1).getByRole('cell').nth(1).textContent();
     expect(Math.abs(Number(first) - TEST_MODES[0].f)).toBeLessThan(0.5);
+
+    // an analyst flags the interval with a reason; the table shows it
+    const intervalRow = page.getByRole('row').filter({ hasText: '2026-03-15 06:00 UTC' });
+    await intervalRow.getByRole('button', { name: 'Flag', exact: true }).click();
+    await page.getByLabel(/Why should runs leave out/).fill('invented test: tractor beside the antenna');
+    await page.getByRole('button', { name: 'Flag interval' }).click();
+    await page.getByText('invented test: tractor beside the antenna').waitFor({ timeout: 30_000 });
+    await expect(intervalRow.getByRole('button', { name: 'Unflag' }).count()).resolves.toBe(1);
     await context.close();
   });
 });

@@ -69,18 +69,23 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
   const selected = intervals.find((i) => i.id === chosen) ?? null;
   const selectedSpectrum = spec.data?.spectra.find((s) => s.intervalId === chosen) ?? null;
 
-  async function flag(iv: Interval) {
+  const [flagging, setFlagging] = useState<{ id: string; start: string; reason: string } | null>(null);
+  const [flagError, setFlagError] = useState<string | null>(null);
+
+  async function setFlag(id: string, body: { flagged: true; reason: string } | { flagged: false }) {
+    setFlagError(null);
     try {
-      if (iv.flagReason) await api(`${base}/intervals/${iv.id}`, { method: 'PATCH', jsonBody: { flagged: false } });
-      else {
-        const reason = window.prompt('Why should runs leave this interval out?', 'local interference');
-        if (!reason) return;
-        await api(`${base}/intervals/${iv.id}`, { method: 'PATCH', jsonBody: { flagged: true, reason } });
-      }
+      await api(`${base}/intervals/${id}`, { method: 'PATCH', jsonBody: body });
+      setFlagging(null);
       await list.mutate();
     } catch (e) {
-      window.alert(e instanceof ApiFailure ? e.message : String(e));
+      setFlagError(e instanceof ApiFailure ? e.message : String(e));
     }
+  }
+
+  function flag(iv: Interval) {
+    if (iv.flagReason) void setFlag(iv.id, { flagged: false });
+    else setFlagging({ id: iv.id, start: iv.startsAt, reason: '' });
   }
 
   if (!days.length) {
@@ -151,6 +156,18 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
       {selected && selectedSpectrum ? (
         <SpectrumWithFit interval={selected} spectrum={selectedSpectrum} component={component} unit={unit} />
       ) : null}
+      {flagging ? (
+        <form className="flex flex-wrap items-end gap-3 rounded-[var(--radius-card)] border border-line bg-surface p-3"
+          onSubmit={(e) => { e.preventDefault(); void setFlag(flagging.id, { flagged: true, reason: flagging.reason }); }}>
+          <FormField id="dv-flag-reason" label={`Why should runs leave out the interval from ${flagging.start.slice(11, 16)} UTC?`}
+            error={flagError} className="min-w-80 flex-1">
+            <input className={inputClass} value={flagging.reason} autoFocus
+              onChange={(e) => setFlagging({ ...flagging, reason: e.target.value })} placeholder="e.g. generator running next to the antenna" />
+          </FormField>
+          <Button type="submit" size="sm">Flag interval</Button>
+          <Button type="button" size="sm" tone="quiet" onClick={() => { setFlagging(null); setFlagError(null); }}>Cancel</Button>
+        </form>
+      ) : flagError ? <Notice tone="error">{flagError}</Notice> : null}
       <DataTable caption={`Intervals, ${component}, ${day}`} rows={rows} initialSort={{ key: 'startsAt' }} className="max-h-[36rem] overflow-y-auto"
         empty={<EmptyState title="No intervals to show">Pick another day, component or table filter.</EmptyState>}
         columns={[
