@@ -105,7 +105,7 @@ function openParents(dir: string): void {
 }
 
 /** Socket folder: inside the data folder when short enough, else a short per-cluster /tmp folder. */
-function socketDirFor(dataDir: string): string {
+export function socketDirFor(dataDir: string): string {
   const inside = path.join(dataDir, 'socket');
   if (Buffer.byteLength(inside) <= MAX_SOCKET_DIR) return inside;
   const tag = createHash('sha1').update(path.resolve(dataDir)).digest('hex').slice(0, 10);

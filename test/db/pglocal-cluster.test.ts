@@ -3,7 +3,18 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import postgres from 'postgres';
-import { freePort, portInUse, startLocalPostgres, stopLocalPostgres } from '@/db/pglocal';
+import { freePort, portInUse, socketDirFor, startLocalPostgres, stopLocalPostgres } from '@/db/pglocal';
+
+async function query(url: string): Promise<{ user: string; db: string; addr: string | null }> {
+  const sql = postgres(url, { max: 1, onnotice: () => {} });
+  try {
+    const [row] = await sql<{ user: string; db: string; addr: string | null }[]>`
+      SELECT current_user AS user, current_database() AS db, host(inet_server_addr()) AS addr`;
+    return row;
+  } finally {
+    await sql.end();
+  }
+}
 
 // A second private cluster beside the test database: created, reused, stopped, restarted.
 describe('private PostgreSQL cluster', () => {
@@ -14,17 +25,6 @@ describe('private PostgreSQL cluster', () => {
     await stopLocalPostgres(dataDir);
     fs.rmSync(root, { recursive: true, force: true });
   });
-
-  async function query(url: string): Promise<{ user: string; db: string; addr: string | null }> {
-    const sql = postgres(url, { max: 1, onnotice: () => {} });
-    try {
-      const [row] = await sql<{ user: string; db: string; addr: string | null }[]>`
-        SELECT current_user AS user, current_database() AS db, host(inet_server_addr()) AS addr`;
-      return row;
-    } finally {
-      await sql.end();
-    }
-  }
 
   it('creates a cluster, listens on loopback only, reuses it when already running, stops and restarts it', async () => {
     const port = await freePort();
@@ -51,5 +51,27 @@ describe('private PostgreSQL cluster', () => {
     const bad = new URL(running.url);
     bad.password = 'wrong';
     await expect(query(bad.toString())).rejects.toThrow(/password authentication failed/);
+  });
+});
+
+// Unix socket paths are limited to 108 bytes including the terminating NUL (sun_path, unix(7)).
+describe('socket folder for a deep data folder', () => {
+  const root = fs.mkdtempSync(path.join(os.tmpdir(), 'cavitas-pgl-'));
+  fs.chmodSync(root, 0o755);
+  const deep = path.join(root, 'a-rather-long-folder-name-for-testing', 'and-another-long-one-below-it', 'pg');
+  afterAll(async () => {
+    await stopLocalPostgres(deep);
+    fs.rmSync(root, { recursive: true, force: true });
+    fs.rmSync(socketDirFor(deep), { recursive: true, force: true });
+  });
+
+  it('uses the data folder when short, a short /tmp folder otherwise, and the server starts there', async () => {
+    expect(socketDirFor('/srv/c/.data/pg')).toBe('/srv/c/.data/pg/socket');
+    const dir = socketDirFor(deep);
+    expect(dir.startsWith('/tmp/cavitas-pg-')).toBe(true);
+    expect(Buffer.byteLength(`${dir}/.s.PGSQL.65535`)).toBeLessThan(108);
+    const pg = await startLocalPostgres({ dataDir: deep, port: await freePort(), ephemeral: true });
+    expect((await query(pg.url)).addr).toBe('127.0.0.1');
+    expect(fs.readdirSync(dir).some((f) => f.startsWith('.s.PGSQL.'))).toBe(true);
   });
 });
