@@ -80,7 +80,22 @@ describe('configure a model and a grid, run, and read the results', () => {
 
     step('run launched');
     // The progress bar reaches the end.
-    await page.getByTestId('run-state').filter({ hasText: 'Finished' }).waitFor({ timeout: 300_000 });
+    // The page polls the run while it is queued or running; it must reach the end without a reload.
+    const state = page.getByTestId('run-state');
+    const deadline = Date.now() + 420_000;
+    let text = '';
+    while (Date.now() < deadline) {
+      try {
+        await state.filter({ hasText: /Finished|Stopped by an error|Cancelled/ }).waitFor({ timeout: 20_000 });
+        text = (await state.textContent()) ?? '';
+        break;
+      } catch {
+        step(`still ${(await state.textContent()) ?? '?'}`);
+      }
+    }
+    if (text !== 'Finished') {
+      throw new Error(`the run did not finish (${text || 'timed out'}): ${await page.getByRole('alert').first().textContent().catch(() => '')}\n${app.logs.slice(-40).join('\n')}`);
+    }
     await page.getByText('100 %').first().waitFor();
 
     step('run finished');
@@ -96,5 +111,5 @@ describe('configure a model and a grid, run, and read the results', () => {
     await page.getByRole('button', { name: 'Map the misfit' }).click();
     await page.getByText(/^Misfit over /).waitFor({ timeout: 180_000 });
     await context.close();
-  }, 600_000);
+  }, 900_000);
 });

@@ -20,7 +20,7 @@ export function CompareView({ a, b }: { a: RunView; b: RunView }) {
       t: new Date(r.t), I: s.intensity, series: `${k === 0 ? 'A' : 'B'} · ${s.name}`,
     }))));
     return {
-      x: { type: 'utc' }, y: { type: 'log' }, color: { legend: true },
+      x: { type: 'utc', tickFormat: '%H:%M' }, y: { type: 'log' }, color: { legend: true },
       marks: [Plot.line(pts, { x: 't', y: 'I', stroke: 'series' }), Plot.dot(pts, { x: 't', y: 'I', fill: 'series', r: 2.5, tip: true })],
     } as unknown as Plot.PlotOptions;
   }, [a, b]); // eslint-disable-line react-hooks/exhaustive-deps

@@ -29,9 +29,14 @@ export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }:
 }) {
   const router = useRouter();
   const base = runApi(networkId, initial.run.id);
+  // Poll while the run is queued or running (a fixed interval switched by the last answer:
+  // SWR's function form sees no data until the first fetch).
+  const [live, setLive] = useState(LIVE.has(initial.run.state));
   const { data, mutate } = useApi<RunJson>(base, {
     fallbackData: initial,
-    refreshInterval: (d) => (d && LIVE.has(d.run.state) ? 1500 : 0),
+    revalidateOnMount: true,
+    refreshInterval: live ? 1500 : 0,
+    onSuccess: (d) => setLive(LIVE.has(d.run.state)),
   });
   const view = data ?? initial;
   const { run } = view;
@@ -53,7 +58,10 @@ export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }:
     try {
       await apiSend(method, path);
       if (method === 'DELETE') router.push(`/n/${networkId}/runs`);
-      else await mutate();
+      else {
+        setLive(true);
+        await mutate();
+      }
     } catch (e) {
       setActionError((e as Error).message);
     }

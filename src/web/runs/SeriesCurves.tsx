@@ -18,7 +18,7 @@ export function SeriesCurves({ intervals, colours }: { intervals: IntervalView[]
     const names = [...new Set(pts.map((p) => p.region))];
     return {
       y: { type: 'log' },
-      x: { type: 'utc' },
+      x: { type: 'utc', tickFormat: '%H:%M' },
       color: { legend: true, domain: names, range: names.map((n) => colours[n] ?? '#0072B2') },
       marks: [
         Plot.areaY(pts, { x: 't', y1: 'lo', y2: 'hi', fill: 'region', fillOpacity: 0.2 }),
