@@ -28,9 +28,10 @@ export interface LaunchPreview {
 /** At most one week of 10-minute intervals per run. */
 export const MAX_INTERVALS = 7 * 144;
 /**
- * Rough cost of one misfit evaluation per datum and parameter, seconds; about
- * 40 evaluations per start. A measured figure from `npm run bench` on this
- * machine class, used only to give the preview an order of magnitude.
+ * Rough cost of one misfit evaluation per datum and parameter, seconds, with
+ * about 40 evaluations per start: the demo run (13 intervals, 4 starts, about
+ * 780 data and 5 parameters per interval) took about 0.3 s per interval on a
+ * 2-core machine. Only an order of magnitude for the preview.
  */
 const SECONDS_PER_DATUM_PARAM_EVAL = 4e-7;
 const EVALS_PER_START = 40;
