@@ -5,7 +5,7 @@
  *
  * `npx tsx src/ops/build.ts` builds if stale.
  */
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -71,6 +71,26 @@ export function buildIfStale(env: NodeJS.ProcessEnv = process.env, log: (l: stri
   });
   if (r.error) throw new Error(`cannot run flock (util-linux): ${r.error.message}`);
   if (r.status !== 0) throw new Error(`production build failed (exit ${r.status})`);
+}
+
+/**
+ * Holds a SHARED lock on the build lock file until the returned release() is called (or this
+ * process ends), so no `next build` replaces `.next` under a server that is serving it. Used by
+ * the browser-test harness; builds (exclusive) wait until it is released.
+ */
+export function holdSharedBuildLock(lockFile = NEXT_LOCK): Promise<() => void> {
+  return new Promise((resolve, reject) => {
+    // `cat` keeps the lock until its stdin closes, which also happens if we die.
+    const child = spawn('flock', ['-s', lockFile, 'sh', '-c', 'echo locked; exec cat'], { stdio: ['pipe', 'pipe', 'inherit'] });
+    child.once('error', (err) => reject(new Error(`cannot run flock (util-linux): ${err.message}`)));
+    child.stdout.once('data', () =>
+      resolve(() => {
+        child.stdin.end();
+        child.kill('SIGTERM');
+      }),
+    );
+    child.once('exit', (code) => reject(new Error(`flock -s ${lockFile} ended early (exit ${code})`)));
+  });
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {

@@ -11,7 +11,7 @@ import { freePort } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
 import { closeDatabase } from '@/db/lifecycle';
 import { runSeeds, demoSignIns, type DemoSignIn } from '@/src/ops/seed';
-import { buildIfStale } from '@/src/ops/build';
+import { buildIfStale, holdSharedBuildLock } from '@/src/ops/build';
 import { startStack } from '@/src/ops/stack';
 import { CHROMIUM } from '@/src/ops/test-plan';
 
@@ -37,14 +37,32 @@ export async function startTestApp(): Promise<TestApp> {
   };
   const [port, smtpPort] = [await freePort(), await freePort()];
   let stack;
+  let release: (() => void) | null = null;
   try {
     buildIfStale({ ...process.env, DATABASE_URL: databaseUrl }, log);
+    // Keep other checkouts' builds from replacing .next while this app serves it.
+    release = await holdSharedBuildLock();
     stack = await startStack({ mode: 'production', databaseUrl, port, smtpPort, log });
   } catch (err) {
+    release?.();
     const tail = logs.slice(-40).join('\n');
     throw new Error(`${(err as Error).message}\n--- last output of the app ---\n${tail}`);
   }
-  return { baseUrl: stack.appUrl, smtpPort, logs, signIns: demoSignIns(), stop: stack.stop };
+  const running = stack;
+  const unlock = release;
+  return {
+    baseUrl: running.appUrl,
+    smtpPort,
+    logs,
+    signIns: demoSignIns(),
+    stop: async () => {
+      try {
+        await running.stop();
+      } finally {
+        unlock();
+      }
+    },
+  };
 }
 
 export const CHROMIUM_FLAGS = [

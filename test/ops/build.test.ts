@@ -2,7 +2,8 @@ import { afterEach, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { buildStaleness, newestMtime, BUILD_INPUTS } from '@/src/ops/build';
+import { spawnSync } from 'node:child_process';
+import { buildStaleness, newestMtime, BUILD_INPUTS, holdSharedBuildLock } from '@/src/ops/build';
 
 const dirs: string[] = [];
 function project(): string {
@@ -56,5 +57,22 @@ describe('build staleness', () => {
     touch(f, 300);
     expect(newestMtime(path.join(d, 'src'))).toBe(fs.statSync(f).mtimeMs);
     expect(newestMtime(path.join(d, 'nope'))).toBe(0);
+  });
+});
+
+describe('shared build lock', () => {
+  // flock(1) semantics (util-linux): a shared lock blocks an exclusive one, not another shared one.
+  const tryLock = (mode: '-s' | '-x', file: string) => spawnSync('flock', ['-n', mode, file, 'true']).status;
+
+  it('blocks an exclusive lock while held, allows shared ones, and frees it on release', async () => {
+    const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'cavitas-lock-')), 'next.lock');
+    dirs.push(path.dirname(file));
+    const release = await holdSharedBuildLock(file);
+    expect(tryLock('-x', file)).toBe(1);
+    expect(tryLock('-s', file)).toBe(0);
+    release();
+    const until = Date.now() + 5_000;
+    while (tryLock('-x', file) !== 0 && Date.now() < until) await new Promise((r) => setTimeout(r, 50));
+    expect(tryLock('-x', file)).toBe(0);
   });
 });
