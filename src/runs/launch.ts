@@ -8,7 +8,7 @@
  */
 import { getModel } from '@/db/repo/models';
 import { getGrid } from '@/db/repo/grids';
-import { createRun, type RunRow } from '@/db/repo/runs';
+import { createRun, measuredCostPerUnit, type RunRow } from '@/db/repo/runs';
 import { listIntervals } from '@/db/repo/intervals';
 import { listStations } from '@/db/repo/stations';
 import { enqueue } from '@/db/jobs';
@@ -95,7 +95,10 @@ export async function checkLaunch(networkId: string, config: RunConfig): Promise
   const nParams = countParameters(config);
   if (nData === 0) problems.push({ field: 'observables', message: 'the chosen band or modes hold no data in the first interval' });
   else if (nParams > nData) problems.push({ field: 'regions', message: `too many free parameters (${nParams}) for the data (${nData} values per interval)` });
-  const estimateSeconds = starts.length * config.starts * EVALS_PER_START * nData * Math.max(1, nParams) * SECONDS_PER_DATUM_PARAM_EVAL;
+  // Prefer this network's own measured cost (median over recent intervals) to the built-in figure.
+  const measured = await measuredCostPerUnit(networkId);
+  const perUnit = measured ?? EVALS_PER_START * SECONDS_PER_DATUM_PARAM_EVAL;
+  const estimateSeconds = starts.length * config.starts * nData * Math.max(1, nParams) * perUnit;
   return {
     problems,
     preview: { nData, nParams, starts: config.starts, intervals: starts.length, series: obs.observed.length + (obs.modes?.length ?? 0), estimateSeconds, intervalStarts: starts },

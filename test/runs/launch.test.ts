@@ -6,7 +6,7 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { stopBoss } from '@/db/jobs';
-import { getRunById } from '@/db/repo/runs';
+import { createRun, getRunById, saveRunInterval } from '@/db/repo/runs';
 import { listModelVersions } from '@/db/repo/models';
 import { checkLaunch, launchRun } from '@/src/runs/launch';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
@@ -31,6 +31,20 @@ describe('launch checks', () => {
     expect(preview!.nData).toBe(3 * 3 * 49);
     expect(preview!.nParams).toBe(3);
     expect(preview!.intervals).toBe(3);
+    expect(preview!.estimateSeconds).toBeGreaterThan(0);
+  });
+
+  it('bases the time estimate on the network\'s own finished intervals once there are some', async () => {
+    const w = await makeRunWorld(1);
+    const { preview } = await checkLaunch(w.networkId, w.config);
+    const run = await createRun({
+      networkId: w.networkId, name: 'measured', config: w.config as never, modelId: w.model.id, gridId: w.grid.id,
+      engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: 4, createdBy: null,
+    });
+    // One stored interval that took 10 s for 100 data x 2 parameters x 5 starts: 0.01 s per unit.
+    await saveRunInterval(run.id, { startsAt: new Date(preview!.intervalStarts[0]), nData: 100, seconds: 10, result: { nParams: 2, starts: 5, minima: [] } }, run.progress);
+    const again = await checkLaunch(w.networkId, w.config);
+    expect(again.preview!.estimateSeconds).toBeCloseTo(1 * 4 * (3 * 3 * 49) * 3 * 0.01, 6);
   });
 
   it('refuses a centre range outside the region bounds of the grid', async () => {
