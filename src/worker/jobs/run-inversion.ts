@@ -4,11 +4,14 @@
  * queues a continuation and returns — so a job never outlives its expiry, a
  * crashed attempt is retried by pg-boss with the same run id, and the retry
  * resumes after the last stored interval. Any number of workers may serve
- * this queue: a run is held by one worker at a time through its heartbeat.
+ * this queue: a run is held by one worker at a time through its heartbeat; a
+ * job that finds the run held fails, so pg-boss retries it after a backoff
+ * longer than the heartbeat lease.
  */
 import { hostname } from 'node:os';
 import type { JobDefinition } from '../types';
 import { enqueue } from '@/db/jobs';
+import { getRunById } from '@/db/repo/runs';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
 import { RUN_JOB_OPTIONS, RUN_QUEUE } from '@/src/runs/queues';
@@ -27,6 +30,11 @@ export const job: JobDefinition<{ runId: string }> = {
         solve: engineSolver, workerId: `${hostname()}:${process.pid}:${j.id}`, budgetMs: sliceMs(),
       });
       if (outcome === 'yielded') await enqueue(RUN_QUEUE, { runId: j.data.runId }, RUN_JOB_OPTIONS);
+      if (outcome === 'not-runnable' && (await getRunById(j.data.runId))?.state === 'running') {
+        // Held by a heartbeat: either a live worker (then these retries run out harmlessly) or
+        // an attempt that just died (then a retry after the lease has passed takes the run over).
+        throw new Error(`run ${j.data.runId} is held by another worker's heartbeat; retrying later`);
+      }
       out.push(outcome);
     }
     return out;
