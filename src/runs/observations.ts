@@ -14,6 +14,9 @@ import type { ObservedSeries } from './types';
 
 const TEN_MINUTES_MS = 600_000;
 
+/** Frequency grid on which mode runs evaluate predicted spectra (fine enough to resolve the modes). */
+export const MODE_BAND = { minHz: 4, maxHz: 45, stepHz: 0.1 };
+
 function bandSeries(s: IntervalSpectrum, minHz: number, maxHz: number, every: number): ObservedSeries | null {
   const frequencies: number[] = [];
   const power: number[] = [];
@@ -62,6 +65,9 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
       const peak = m.amplitude + r.fit!.background.b0 + r.fit!.background.b1 * m.frequency;
       const e = m.errors;
       if (!(peak > 0) || !(e?.frequency > 0) || !(e?.amplitude > 0) || !(e?.halfWidth > 0)) return [];
+      // A mode whose half-width reaches outside the model grid is no usable resonance (observed
+      // Schumann modes have Q about 4-6, Sentman 1995); it is left out rather than failing the run.
+      if (m.frequency - m.halfWidth < MODE_BAND.minHz || m.frequency + m.halfWidth > MODE_BAND.maxHz) return [];
       return [{
         frequency: m.frequency, intensity: peak, halfWidth: m.halfWidth,
         sigmaFrequency: e.frequency, sigmaLogIntensity: e.amplitude / peak, sigmaHalfWidth: e.halfWidth,

@@ -6,14 +6,13 @@
 import { invertModes, invertSpectra } from '@/src/engine/inverse/invert';
 import type { IntervalSolver } from './types';
 import { buildUnknowns } from './unknowns';
+import { MODE_BAND } from './observations';
 
 export function runThreads(): number | undefined {
   const t = Number(process.env.CAVITAS_RUN_THREADS);
   return Number.isInteger(t) && t >= 1 ? t : undefined;
 }
 
-/** Frequency grid on which mode runs evaluate predicted spectra (fine enough to resolve the modes). */
-export const MODE_BAND = { minHz: 4, maxHz: 45, stepHz: 0.1 };
 
 /** The solver with a fixed thread count (1 = in the calling thread, no pool). */
 export function makeEngineSolver(threads?: number): IntervalSolver {

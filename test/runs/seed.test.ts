@@ -8,6 +8,12 @@ import { listModels } from '@/db/repo/models';
 import { listGrids } from '@/db/repo/grids';
 import { listRunIntervals, listRuns } from '@/db/repo/runs';
 import type { InversionResult } from '@/src/engine/inverse/types';
+import { createRun, getRunById } from '@/db/repo/runs';
+import { getRunView } from '@/src/runs/results';
+import { checkLaunch } from '@/src/runs/launch';
+import { executeRun } from '@/src/runs/execute';
+import { makeEngineSolver } from '@/src/runs/solver';
+import type { RunConfig } from '@/src/runs/config';
 
 describe('demo runs seeder', () => {
   beforeAll(async () => {
@@ -38,5 +44,32 @@ describe('demo runs seeder', () => {
     expect(await listRunIntervals(run.id)).toHaveLength(13);
     expect(await listModels(net)).toHaveLength(2);
     expect(await listGrids(net)).toHaveLength(1);
+  });
+
+  it('inverts the stored mode fits of the demo data with the engine\'s mode objective', async () => {
+    const net = await accounts.demoNetworkId();
+    const [demo] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN);
+    const view = await getRunView(net, demo.id);
+    const config: RunConfig = {
+      ...view.config, name: 'Modes', observables: { kind: 'modes', modes: 3 },
+      data: { ...view.config.data, from: '2026-03-14T15:00:00.000Z', to: '2026-03-14T15:00:00.000Z' },
+      regions: [{ region: 'middle-belt', intensity: { min: 1e3, max: 1e6 } }, { region: 'west-belt', intensity: { min: 1e3, max: 1e6 } }],
+    };
+    const { problems, preview } = await checkLaunch(net, config);
+    expect(problems).toEqual([]);
+    // Three data per observed mode (frequency, peak power, half-width).
+    expect(preview!.nData % 3).toBe(0);
+    const run = await createRun({
+      networkId: net, name: 'Modes', config: config as never, modelId: view.model.id, gridId: view.grid.id,
+      engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: null,
+    });
+    const outcome = await executeRun(run.id, { solve: makeEngineSolver(1), workerId: 'modes' });
+    expect(outcome, (await getRunById(run.id))?.error ?? '').toBe('finished');
+    const [row] = await listRunIntervals(run.id);
+    const res = row.result as unknown as InversionResult;
+    expect(res.nData).toBe(preview!.nData);
+    expect(res.paramNames).toEqual(['Middle belt.intensity', 'West belt.intensity']);
+    // Counts of starts per minimum add up to the number of starts.
+    expect(res.minima.reduce((n, m) => n + m.count, 0)).toBe(config.starts);
   });
 });
