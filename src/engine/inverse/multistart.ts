@@ -72,34 +72,32 @@ export async function multiStart(
   if (options.threads === 1) {
     return runStarts(problem, indexes, plan, callbacks.shouldCancel, note);
   }
-  // threads > 1: the calling thread works through chunks itself while threads - 1 pool
-  // workers take others, so the caller's kernel table is put to use and only threads - 1
-  // workers pay the start-up. When the caller runs out of chunks it also computes the
-  // starts still out on the pool (results are a function of the start index only, so a
-  // duplicate is identical); whichever copy arrives first counts.
+  // threads > 1: the calling thread and the pool workers take start indexes from one shared
+  // counter (Atomics.add), so no start is computed twice and a slow thread simply claims fewer.
+  // A pool task claims up to `chunk` starts and returns their outcomes; each worker is kept two
+  // tasks deep so that it never waits for the (busy) calling thread to hand it the next one.
   const cancel = new SharedArrayBuffer(4);
   const flag = new Int32Array(cancel);
+  const claim = new SharedArrayBuffer(4);
+  const next = new Int32Array(claim);
   const key = `${process.pid}:${++runCounter}`;
   const workers = options.callerWorks ? options.threads - 1 : options.threads;
-  const chunk = Math.max(1, Math.ceil(total / (options.threads * 4)));
-  const queue: number[][] = [];
-  for (let i = 0; i < total; i += chunk) queue.push(indexes.slice(i, i + chunk));
+  const chunk = Math.max(1, Math.ceil(total / (options.threads * 8)));
   const have = new Map<number, StartOutcome>();
   const keep = (o: StartOutcome) => {
     if (have.has(o.index)) return;
     have.set(o.index, o);
     note(o);
   };
-  const inFlight = new Map<Promise<void>, number[]>();
+  const inFlight = new Set<Promise<void>>();
   let failure: unknown = null;
   const cancelled = () => {
     if (callbacks.shouldCancel?.()) Atomics.store(flag, 0, 1);
     return Atomics.load(flag, 0) !== 0;
   };
   const dispatch = () => {
-    while (inFlight.size < workers && queue.length > 0 && failure === null) {
-      const ix = queue.pop()!;
-      const job: Promise<void> = runPoolTask(workers, { key, recipe, plan, indexes: ix, cancel })
+    while (inFlight.size < 2 * workers && Atomics.load(next, 0) < total && failure === null) {
+      const job: Promise<void> = runPoolTask(workers, { key, recipe, plan, total, chunk, claim, cancel })
         .then((res) => res.forEach(keep))
         .catch((e: unknown) => {
           failure ??= e;
@@ -108,25 +106,23 @@ export async function multiStart(
           inFlight.delete(job);
           dispatch();
         });
-      inFlight.set(job, ix);
-    }
-  };
-  const runHere = async (ix: number[]) => {
-    for (const index of ix) {
-      if (have.has(index)) continue;
-      runStarts(problem, [index], plan, cancelled, keep);
-      // yield so that finished pool tasks are collected promptly
-      await new Promise<void>((resolve) => setImmediate(resolve));
+      inFlight.add(job);
     }
   };
   dispatch();
   if (options.callerWorks) {
-    while (queue.length > 0 && failure === null) await runHere(queue.shift()!);
-    for (const ix of [...inFlight.values()]) if (failure === null) await runHere(ix);
+    while (failure === null) {
+      const index = Atomics.add(next, 0, 1);
+      if (index >= total) break;
+      runStarts(problem, [index], plan, cancelled, keep);
+      // yield so that finished pool tasks are collected and new ones dispatched promptly
+      await new Promise<void>((resolve) => setImmediate(resolve));
+    }
   }
-  while (have.size < total && failure === null && inFlight.size > 0) await Promise.race(inFlight.keys());
-  if (failure !== null) throw failure;
-  // every start is in hand: stale copies still running on the pool stop at their next check
-  Atomics.store(flag, 0, 1);
+  while (inFlight.size > 0 && failure === null) await Promise.race(inFlight);
+  if (failure !== null) {
+    Atomics.store(flag, 0, 1);
+    throw failure;
+  }
   return [...have.values()].sort((a, b) => a.index - b.index);
 }

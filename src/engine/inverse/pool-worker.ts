@@ -1,6 +1,8 @@
 /**
  * Pool worker: rebuilds the problem from its recipe (cached per run key) and
- * runs its share of the starts. Cancellation arrives through a shared flag.
+ * runs up to `chunk` starts, each index claimed from the run's shared counter
+ * (so the calling thread and every worker share out the starts without
+ * computing one twice). Cancellation arrives through a shared flag.
  */
 import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { buildProblem, type ProblemRecipe } from './recipes';
@@ -10,14 +12,27 @@ export interface PoolTask {
   key: string;
   recipe: ProblemRecipe;
   plan: StartPlan;
-  indexes: number[];
+  /** Number of starts of the run; indexes at or beyond it are not computed. */
+  total: number;
+  /** Most starts this task claims. */
+  chunk: number;
+  /** Int32 counter of the next unclaimed start index (Atomics.add). */
+  claim: SharedArrayBuffer;
   cancel: SharedArrayBuffer;
 }
 
 let cached: { key: string; problem: LeastSquaresProblem } | null = null;
 
 export default function runTask(task: PoolTask): StartOutcome[] {
+  const next = new Int32Array(task.claim);
+  if (Atomics.load(next, 0) >= task.total) return [];
   if (cached?.key !== task.key) cached = { key: task.key, problem: buildProblem(task.recipe) };
   const flag = new Int32Array(task.cancel);
-  return runStarts(cached.problem, task.indexes, task.plan, () => Atomics.load(flag, 0) !== 0);
+  const out: StartOutcome[] = [];
+  for (let k = 0; k < task.chunk; k++) {
+    const index = Atomics.add(next, 0, 1);
+    if (index >= task.total) break;
+    out.push(...runStarts(cached.problem, [index], task.plan, () => Atomics.load(flag, 0) !== 0));
+  }
+  return out;
 }

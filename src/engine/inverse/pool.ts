@@ -19,6 +19,8 @@ export function inversionPool(threads: number): Piscina {
     minThreads: threads,
     maxThreads: threads,
     idleTimeout: 60_000,
+    // two tasks per worker: the next one is already waiting in the worker when one finishes
+    concurrentTasksPerWorker: 2,
   });
   poolThreads = threads;
   return pool;
