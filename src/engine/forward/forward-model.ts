@@ -5,12 +5,12 @@
  *   Ez  += I w ez(theta)
  *   Bns += I w bh(theta) sin^2(bearing),  Bew += I w bh(theta) cos^2(bearing)
  * (the horizontal magnetic field is perpendicular to the great circle). Allocation-free
- * after construction.
+ * after construction (node buffers grow once to the largest source count seen).
  */
 import { bandFrequencies, type Band } from '../band';
 import type { Cavity } from '../cavity/types';
 import { greatCircleInto, type GreatCircle } from '../geometry/great-circle';
-import { createKernelSample, getKernelTable, type KernelTable } from '../kernels/kernel-table';
+import { getKernelTable, type KernelTable } from '../kernels/kernel-table';
 import { SPOT_MAX_NODES, SPOT_STRIDE, spotNodesInto } from '../sources/spot';
 import type { ForwardSource } from '../sources/types';
 import type { ForwardStation } from './types';
@@ -31,9 +31,9 @@ export function createForwardModel(cavity: Cavity, band: Band | Float64Array, st
   const freqs = band instanceof Float64Array ? band : bandFrequencies(band);
   const table = getKernelTable(cavity, freqs);
   const n = freqs.length;
-  const sample = createKernelSample(n);
   const gc = {} as GreatCircle;
-  const nodes = new Float64Array(SPOT_MAX_NODES * SPOT_STRIDE);
+  let nodes = new Float64Array(4 * SPOT_MAX_NODES * SPOT_STRIDE);
+  let counts = new Int32Array(4);
   const createOutput = (): StationPower[] =>
     stations.map(() => ({ ez: new Float64Array(n), bns: new Float64Array(n), bew: new Float64Array(n) }));
   return {
@@ -42,6 +42,13 @@ export function createForwardModel(cavity: Cavity, band: Band | Float64Array, st
     stations,
     createOutput,
     evaluate(sources, out) {
+      // quadrature nodes once per source (not per station)
+      if (nodes.length < sources.length * SPOT_MAX_NODES * SPOT_STRIDE) nodes = new Float64Array(sources.length * SPOT_MAX_NODES * SPOT_STRIDE);
+      if (counts.length < sources.length) counts = new Int32Array(sources.length);
+      for (let k = 0; k < sources.length; k++) {
+        const src = sources[k];
+        counts[k] = spotNodesInto(src.lat, src.lon, src.spreadDeg ?? 0, nodes.subarray(k * SPOT_MAX_NODES * SPOT_STRIDE));
+      }
       for (let s = 0; s < stations.length; s++) {
         const st = stations[s];
         const { ez, bns, bew } = out[s];
@@ -49,25 +56,16 @@ export function createForwardModel(cavity: Cavity, band: Band | Float64Array, st
         bns.fill(0);
         bew.fill(0);
         for (let k = 0; k < sources.length; k++) {
-          const src = sources[k];
-          const count = spotNodesInto(src.lat, src.lon, src.spreadDeg ?? 0, nodes);
-          for (let q = 0; q < count; q++) {
-            const o = q * SPOT_STRIDE;
-            const weight = src.intensity * nodes[o + 2];
+          const intensity = sources[k].intensity;
+          const base = k * SPOT_MAX_NODES * SPOT_STRIDE;
+          for (let q = 0; q < counts[k]; q++) {
+            const o = base + q * SPOT_STRIDE;
+            const weight = intensity * nodes[o + 2];
             if (weight === 0) continue;
             greatCircleInto(st.lat, st.lon, nodes[o], nodes[o + 1], gc);
-            table.samplePower(gc.theta, sample);
             const sb = Math.sin(gc.bearing);
             const cb = Math.cos(gc.bearing);
-            const wns = weight * sb * sb;
-            const wew = weight * cb * cb;
-            const e = sample.ez;
-            const b = sample.bh;
-            for (let j = 0; j < n; j++) {
-              ez[j] += weight * e[j];
-              bns[j] += wns * b[j];
-              bew[j] += wew * b[j];
-            }
+            table.addPower(gc.theta, weight, weight * sb * sb, weight * cb * cb, ez, bns, bew);
           }
         }
       }

@@ -76,5 +76,28 @@ export function createHermiteSampler(freqs: Float64Array, data: Float64Array, th
         bh[j] = s2 * Math.exp(h0 * data[a + 3] + h1 * data[a + 4] + h2 * data[a + 5] + h3 * data[b + 3] + h4 * data[b + 4] + h5 * data[b + 5]);
       }
     },
+    addPower(theta: number, wEz: number, wNs: number, wEw: number, ez: Float64Array, bns: Float64Array, bew: Float64Array): void {
+      // samplePower's values, added straight into the spectra (no intermediate arrays)
+      if (!(theta > thetaMin)) theta = thetaMin;
+      else if (theta > thetaMax) theta = thetaMax;
+      const u = (theta - thetaMin) * invH;
+      let i = Math.floor(u);
+      if (i > nodes - 2) i = nodes - 2;
+      const t = u - i;
+      const t2 = t * t, t3 = t2 * t, t4 = t3 * t, t5 = t4 * t;
+      const h0 = 1 - 10 * t3 + 15 * t4 - 6 * t5, h1 = t - 6 * t3 + 8 * t4 - 3 * t5, h2 = 0.5 * (t2 - 3 * t3 + 3 * t4 - t5);
+      const h3 = 10 * t3 - 15 * t4 + 6 * t5, h4 = -4 * t3 + 7 * t4 - 3 * t5, h5 = 0.5 * (t3 - 2 * t4 + t5);
+      const s = Math.sin(theta);
+      const s2 = s * s;
+      let a = i * stride;
+      for (let j = 0; j < n; j++, a += 6) {
+        const b = a + stride;
+        const e = Math.exp(h0 * data[a] + h1 * data[a + 1] + h2 * data[a + 2] + h3 * data[b] + h4 * data[b + 1] + h5 * data[b + 2]);
+        const p = s2 * Math.exp(h0 * data[a + 3] + h1 * data[a + 4] + h2 * data[a + 5] + h3 * data[b + 3] + h4 * data[b + 4] + h5 * data[b + 5]);
+        ez[j] += wEz * e;
+        bns[j] += wNs * p;
+        bew[j] += wEw * p;
+      }
+    },
   };
 }

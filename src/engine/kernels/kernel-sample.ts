@@ -28,4 +28,9 @@ export interface KernelTable {
   sample(theta: number, out: KernelSample): void;
   /** Fills only out.ez and out.bh (no derivatives; cheaper, for misfit-only evaluations). */
   samplePower(theta: number, out: Pick<KernelSample, 'ez' | 'bh'>): void;
+  /**
+   * Adds wEz ez, wNs bh and wEw bh at theta to ez, bns, bew (the same values samplePower gives,
+   * without the intermediate arrays; for forward sums over sources). No allocation.
+   */
+  addPower(theta: number, wEz: number, wNs: number, wEw: number, ez: Float64Array, bns: Float64Array, bew: Float64Array): void;
 }
