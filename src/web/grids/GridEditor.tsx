@@ -190,7 +190,7 @@ export function GridEditor({ networkId, initial, baseId }: { networkId: string; 
                 <select aria-label={`Region ${i + 1} colour`} className="rounded border border-line-strong bg-surface px-2 py-1" value={r.colour} onChange={(e) => update(i, { colour: e.target.value })} style={{ color: r.colour }}>
                   {REGION_PALETTE.map((c) => <option key={c} value={c} style={{ color: c }}>■ {c}</option>)}
                 </select>
-                <span className="text-muted">{r.kind === 'cells' ? `${r.cells.length} cells` : 'moving'}</span>
+                <span className="text-muted">{r.kind === 'cells' ? `${r.cells.length} cell${r.cells.length === 1 ? '' : 's'}` : 'moving'}</span>
                 {r.kind === 'cells' ? <Button type="button" size="sm" tone="quiet" onClick={() => update(i, { cells: [] } as Partial<Region>)}>Clear cells</Button> : null}
                 <Button type="button" size="sm" tone="quiet" onClick={() => { setRegions(regions.filter((_, k) => k !== i)); setActive(0); }}>Remove</Button>
               </div>
