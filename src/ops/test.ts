@@ -5,13 +5,31 @@
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { startThrowawayPostgres } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
 import { projectRoot, vitestBin } from './paths';
 import { CHROMIUM, browserPlan } from './test-plan';
 
+type Counts = { passed: number; failed: number; skipped: number };
+const totals: Counts = { passed: 0, failed: 0, skipped: 0 };
+
+/** Run one vitest suite; its JSON report adds to `totals` for the closing summary line. */
 function vitest(config: string, args: string[], env: NodeJS.ProcessEnv): number {
-  const r = spawnSync(process.execPath, [vitestBin, 'run', '--config', config, ...args], { cwd: projectRoot, stdio: 'inherit', env });
+  const report = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'cavitas-report-')), 'report.json');
+  const reporters = ['--reporter=default', '--reporter=json', `--outputFile.json=${report}`];
+  const r = spawnSync(process.execPath, [vitestBin, 'run', '--config', config, ...reporters, ...args], { cwd: projectRoot, stdio: 'inherit', env });
+  try {
+    const json = JSON.parse(fs.readFileSync(report, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number };
+    totals.passed += json.numPassedTests;
+    totals.failed += json.numFailedTests;
+    totals.skipped += json.numPendingTests + json.numTodoTests;
+  } catch {
+    // No report (vitest crashed before writing one): the exit status below still fails the run.
+  } finally {
+    fs.rmSync(path.dirname(report), { recursive: true, force: true });
+  }
   return r.status ?? 1;
 }
 
@@ -43,6 +61,8 @@ async function main(): Promise<number> {
     await pg.stop();
   }
   console.log(failed ? '[test] FAILED' : '[test] all passed');
+  // The closing line CI reads: counts over both suites.
+  console.log(`Tests: ${totals.passed} passed, ${totals.failed} failed, ${totals.skipped} skipped`);
   return failed ? 1 : 0;
 }
 
