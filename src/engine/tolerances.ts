@@ -48,6 +48,13 @@ export const INVERSION_LM_MISFIT_TOL = 1e-9;
 export const INVERSION_LM_STEP_TOL = 1e-8;
 /** Step (degrees) of the central difference for the derivative of the misfit with respect to a region's spread. */
 export const SPREAD_DIFF_STEP_DEG = 1e-4;
+/**
+ * Mode misfit, Lorentzian through three bins (lorentz-three-point.ts): smooth floors of the curvature c of 1/P,
+ * as a fraction of 1/P(f_c) per s^2 (exact while (f0 - f_c)^2 + g^2 <= s^2 / (2 x this) = 25 s^2), and of its
+ * vertex q0 = 1/A, as a fraction of 1/P(f_c) (exact while the peak is below 1/(2 x this) = 250 times P(f_c)).
+ */
+export const THREE_POINT_CURVATURE_FLOOR = 0.02;
+export const THREE_POINT_VERTEX_FLOOR = 0.002;
 /** Eigenvalues of the scaled J^T J below this fraction of the largest count as unresolved (singular covariance). */
 export const COVARIANCE_RCOND = 1e-10;
 /** Two converged starts belong to one minimum when every parameter differs by less than this fraction of its range… */
