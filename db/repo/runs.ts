@@ -89,7 +89,9 @@ export async function claimRun(runId: string, workerId: string, leaseSeconds = 3
 
 /** A worker hands a run back (its time slice is over); the next job takes it up. */
 export async function releaseRun(runId: string, workerId: string, progress: RunProgress): Promise<void> {
-  await getDb().update(runs).set({ state: 'queued', workerId: null, heartbeatAt: null, progress })
+  // The heartbeat stays set (to the hand-back time): the sweep counts a queued run as lost only
+  // once it has waited a whole lease without a pending job.
+  await getDb().update(runs).set({ state: 'queued', workerId: null, heartbeatAt: new Date(), progress })
     .where(and(eq(runs.id, runId), eq(runs.workerId, workerId), eq(runs.state, 'running')));
 }
 
@@ -170,6 +172,34 @@ export async function staleRunningRuns(olderThanS: number): Promise<RunRow[]> {
   return getDb().select().from(runs).where(and(
     eq(runs.state, 'running'), sql`${runs.heartbeatAt} < now() - make_interval(secs => ${olderThanS})`,
   ));
+}
+
+/**
+ * The crash sweep's part in the database. Under a transaction-scoped advisory lock (so two
+ * workers sweeping at once cannot both act on a run) it finds runs whose lease has lapsed —
+ * 'running' with no heartbeat for `leaseSeconds`, or 'queued' for that long since launch or
+ * hand-back — that have no pending (created or retry) job on `queue` in pg-boss's table, and
+ * calls `send(runId)` for each while the lock is held. A lapsed running run whose cancel was
+ * asked for is ended as cancelled instead (no worker will come back to stop it).
+ */
+export async function sweepLapsedRuns(
+  leaseSeconds: number, queue: string, send: (runId: string) => Promise<void>, bossSchema = 'pgboss',
+): Promise<{ continued: string[]; cancelled: string[] }> {
+  return getDb().transaction(async (tx) => {
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtext('cavitas-run-sweep'))`);
+    const lapsed = sql`(
+      (${runs.state} = 'running' and (${runs.heartbeatAt} is null or ${runs.heartbeatAt} < now() - make_interval(secs => ${leaseSeconds})))
+      or (${runs.state} = 'queued' and coalesce(${runs.heartbeatAt}, ${runs.createdAt}) < now() - make_interval(secs => ${leaseSeconds})))`;
+    const ended = await tx.update(runs).set({
+      state: 'cancelled', finishedAt: new Date(), heartbeatAt: new Date(),
+      progress: sql`jsonb_set(${runs.progress}, '{phase}', '"cancelled (its worker had stopped)"')`,
+    }).where(and(eq(runs.cancelRequested, true), lapsed)).returning({ id: runs.id });
+    const pending = sql.raw(`${bossSchema}.job`);
+    const rows = await tx.select({ id: runs.id }).from(runs).where(and(eq(runs.cancelRequested, false), lapsed, sql`not exists (
+      select 1 from ${pending} j where j.name = ${queue} and j.state in ('created', 'retry') and j.data->>'runId' = ${runs.id}::text)`));
+    for (const r of rows) await send(r.id);
+    return { continued: rows.map((r) => r.id), cancelled: ended.map((r) => r.id) };
+  });
 }
 
 // ── misfit surfaces ────────────────────────────────────────────────────────

@@ -9,3 +9,18 @@ export const SURFACE_QUEUE = 'misfit-surface';
 /** A job works at most one time slice (5 min by default), so 20 minutes without finishing means it died. */
 export const RUN_JOB_OPTIONS = { retryLimit: 8, retryDelay: 10, retryBackoff: true, expireInSeconds: 20 * 60 };
 export const SURFACE_JOB_OPTIONS = { retryLimit: 2, retryDelay: 5, expireInSeconds: 1800 };
+
+function positiveSeconds(raw: string | undefined, fallback: number): number {
+  const s = Number(raw);
+  return Number.isFinite(s) && s > 0 ? s : fallback;
+}
+
+/** Seconds without a heartbeat after which a run's worker counts as gone (CAVITAS_RUN_LEASE_S, default 30). */
+export function runLeaseSeconds(env: NodeJS.ProcessEnv = process.env): number {
+  return positiveSeconds(env.CAVITAS_RUN_LEASE_S, 30);
+}
+
+/** Seconds between the worker's sweeps for runs whose worker is gone (CAVITAS_RUN_SWEEP_S, default 30). */
+export function runSweepSeconds(env: NodeJS.ProcessEnv = process.env): number {
+  return positiveSeconds(env.CAVITAS_RUN_SWEEP_S, 30);
+}

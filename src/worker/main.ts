@@ -5,6 +5,7 @@
  */
 import { jobs } from './registry';
 import { serveJobs } from './run';
+import { startRunSweep } from './sweep';
 import { closeDatabase } from '@/db/lifecycle';
 
 async function main(): Promise<void> {
@@ -14,13 +15,15 @@ async function main(): Promise<void> {
   }
   const handle = await serveJobs(jobs);
   console.log(`[worker] ready (pid ${process.pid}); queues: ${handle.queues.join(', ') || 'none registered'}`);
+  const sweep = startRunSweep();
   let stopping = false;
   const shutdown = (signal: string) => {
     if (stopping) return;
     stopping = true;
     console.log(`[worker] ${signal}: finishing running jobs…`);
-    handle
-      .stop(60_000)
+    sweep
+      .stop()
+      .then(() => handle.stop(60_000))
       .then(() => closeDatabase())
       .then(() => {
         console.log('[worker] stopped');

@@ -14,7 +14,7 @@ import { enqueue } from '@/db/jobs';
 import { getRunById } from '@/db/repo/runs';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
-import { RUN_JOB_OPTIONS, RUN_QUEUE } from '@/src/runs/queues';
+import { RUN_JOB_OPTIONS, RUN_QUEUE, runLeaseSeconds } from '@/src/runs/queues';
 
 function sliceMs(): number {
   const s = Number(process.env.CAVITAS_RUN_SLICE_S);
@@ -27,7 +27,7 @@ export const job: JobDefinition<{ runId: string }> = {
     const out: string[] = [];
     for (const j of jobs) {
       const outcome = await executeRun(j.data.runId, {
-        solve: engineSolver, workerId: `${hostname()}:${process.pid}:${j.id}`, budgetMs: sliceMs(),
+        solve: engineSolver, workerId: `${hostname()}:${process.pid}:${j.id}`, budgetMs: sliceMs(), leaseSeconds: runLeaseSeconds(),
       });
       if (outcome === 'yielded') await enqueue(RUN_QUEUE, { runId: j.data.runId }, RUN_JOB_OPTIONS);
       if (outcome === 'not-runnable' && (await getRunById(j.data.runId))?.state === 'running') {

@@ -1,0 +1,106 @@
+/**
+ * Crash recovery with real worker processes: a worker is killed with SIGKILL in the middle of
+ * a run (no shutdown, no hand-back, its pg-boss job left 'active' until it would expire), a new
+ * worker process starts, its sweep finds the run's lapsed lease and queues a continuation,
+ * and the run finishes with every interval stored exactly once.
+ *
+ * The checks are the run's own contract: one stored row per (run, interval start) for every
+ * planned start, progress at 100 %, and — when the kill left the run marked running — the
+ * new worker's sweep saying it queued the continuation.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { spawn, type ChildProcess } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { closeDatabase, resetDatabase } from '@/test/helpers/db';
+import { stopBoss } from '@/db/jobs';
+import { getRunById, listRunIntervals } from '@/db/repo/runs';
+import { launchRun } from '@/src/runs/launch';
+import { makeRunWorld } from '@/test/runs/world';
+
+const root = fileURLToPath(new URL('../../', import.meta.url));
+const children: ChildProcess[] = [];
+
+function startWorker(): { child: ChildProcess; out: () => string } {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'src/worker/main.ts'], {
+    cwd: root,
+    env: {
+      ...process.env,
+      CAVITAS_RUN_LEASE_S: '3', CAVITAS_RUN_SWEEP_S: '1', CAVITAS_RUN_SLICE_S: '2', CAVITAS_RUN_THREADS: '1',
+      WORKER_CONCURRENCY: '1',
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  children.push(child);
+  let out = '';
+  child.stdout!.on('data', (b) => (out += b));
+  child.stderr!.on('data', (b) => (out += b));
+  return { child, out: () => out };
+}
+
+async function until<T>(what: string, probe: () => Promise<T | null | undefined | false>, timeoutMs: number, log: () => string): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const v = await probe();
+    if (v) return v;
+    if (Date.now() > deadline) throw new Error(`${what}: not reached within ${timeoutMs / 1000} s\n--- worker output ---\n${log().slice(-3000)}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+function exited(child: ChildProcess): Promise<void> {
+  return child.exitCode !== null || child.signalCode !== null ? Promise.resolve() : new Promise((r) => child.once('exit', () => r()));
+}
+
+describe('crash recovery with real worker processes', () => {
+  beforeAll(resetDatabase);
+  afterAll(async () => {
+    for (const c of children) {
+      if (c.exitCode === null && c.signalCode === null) {
+        c.kill('SIGKILL');
+        await exited(c);
+      }
+    }
+    await stopBoss(5_000);
+    await closeDatabase();
+  });
+
+  it('a run whose worker is killed is continued by the next worker and stores every interval once', async () => {
+    const w = await makeRunWorld(6);
+    const run = await launchRun(w.networkId, w.userId, { ...w.config, starts: 8 });
+    const total = run.intervalStarts.length;
+    expect(total).toBe(6);
+
+    const first = startWorker();
+    // Kill while the run is held (state 'running') and at least one interval is stored.
+    await until('first interval stored while the first worker holds the run', async () => {
+      const r = await getRunById(run.id);
+      return r && r.state === 'running' && r.progress.intervalsDone >= 1 && r.progress.intervalsDone < total;
+    }, 40_000, first.out);
+    first.child.kill('SIGKILL');
+    await exited(first.child);
+    const afterKill = await getRunById(run.id);
+    const storedAtKill = (await listRunIntervals(run.id)).length;
+    expect(storedAtKill).toBeGreaterThanOrEqual(1);
+    expect(storedAtKill).toBeLessThan(total);
+
+    const second = startWorker();
+    const done = await until('run finished by the second worker', async () => {
+      const r = await getRunById(run.id);
+      return r && ['finished', 'failed', 'cancelled'].includes(r.state) ? r : null;
+    }, 45_000, second.out);
+    expect(done.error).toBeNull();
+    expect(done.state).toBe('finished');
+
+    const rows = await listRunIntervals(run.id);
+    const starts = rows.map((r) => r.startsAt.toISOString());
+    expect(new Set(starts).size).toBe(starts.length); // no interval twice
+    expect([...starts].sort()).toEqual(run.intervalStarts.map((t) => new Date(t).toISOString()).sort()); // none missing
+    expect(done.progress.intervalsDone).toBe(total);
+    expect(done.progress.intervalsTotal).toBe(total);
+    expect(done.attempts).toBeGreaterThanOrEqual(2);
+    if (afterKill!.state === 'running') {
+      // Nothing but the sweep could have continued it: the dead worker's job stays 'active' for 20 minutes.
+      expect(second.out()).toContain(`[worker] sweep: run ${run.id} had no live worker; queued a continuation`);
+    }
+  }, 120_000);
+});
