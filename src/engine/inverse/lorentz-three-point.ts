@@ -6,48 +6,73 @@
  * with q(u) = a + b u + c u^2 and q0 = a - b^2 / (4c) its minimum. Exact for a
  * Lorentzian; the bins are fixed (f_c nearest the observed mode, s about the
  * observed half-width), so the estimate is a smooth function of the spectrum.
+ *
+ * Where the three bins make no clear peak (a dip or a slope: c <= 0, or a
+ * vertex so far off or so sharp that c or q0 nearly vanish) the formulas above
+ * blow up. The curvature c and the vertex q0 are therefore floored smoothly
+ * (C1) at fixed fractions of a = 1/P(f_c): below twice the floor, x becomes
+ * m (1 + exp(x/m - 2)), which meets x with equal slope at x = 2m and tends to
+ * m. Every output is then finite for any positive powers, the estimate is
+ * exact wherever the floors are inactive (c >= 2 c_min, q0 >= 2 q_min), and
+ * with no peak the mode reads as one far off towards the rising side (a large
+ * but finite frequency residual whose slope still points the way).
  * Also returns the derivatives of (f0, ln A, g) with respect to the three
  * powers, for the chain rule.
  */
+import { THREE_POINT_CURVATURE_FLOOR, THREE_POINT_VERTEX_FLOOR } from '@/src/engine/tolerances';
+
 export interface ThreePointMode {
   frequency: number;
   lnIntensity: number;
   halfWidth: number;
   /** d(frequency, lnIntensity, halfWidth) / d(P_minus, P_centre, P_plus), row-major 3 x 3. */
   grad: Float64Array;
-  /** False when the three bins do not make a peak (c <= 0 or q0 <= 0). */
+  /** True when the three bins make a clear peak and the estimate is the exact three-point Lorentzian (no floor active). */
   ok: boolean;
+}
+
+/** Smooth floor x -> x (x >= 2m), m (1 + exp(x/m - 2)) below; returns value and d/dx, d/dm. */
+function floorC1(x: number, m: number): [number, number, number] {
+  if (x >= 2 * m) return [x, 1, 0];
+  const e = Math.exp(x / m - 2);
+  return [m * (1 + e), e, 1 + e - (x / m) * e];
 }
 
 export function lorentzThreePoint(fc: number, s: number, pMinus: number, p0: number, pPlus: number, out?: ThreePointMode): ThreePointMode {
   const o = out ?? { frequency: NaN, lnIntensity: NaN, halfWidth: NaN, grad: new Float64Array(9), ok: false };
-  const ym = 1 / pMinus, y0 = 1 / p0, yp = 1 / pPlus;
-  const a = y0;
-  const b = (yp - ym) / (2 * s);
-  const c = (yp - 2 * y0 + ym) / (2 * s * s);
-  const q0 = a - (b * b) / (4 * c);
-  o.ok = c > 0 && q0 > 0 && Number.isFinite(q0);
-  if (!o.ok) {
-    o.frequency = o.lnIntensity = o.halfWidth = NaN;
-    o.grad.fill(NaN);
-    return o;
-  }
-  const u0 = -b / (2 * c);
-  const g = Math.sqrt(q0 / c);
-  o.frequency = fc + u0;
-  o.lnIntensity = -Math.log(q0);
-  o.halfWidth = g;
-  // derivatives with respect to y = 1/P, then dy/dP = -1/P^2
+  // Powers must be positive; a zero or negative bin (never from positive sources) is lifted to a tiny positive value.
+  const pMax = Math.max(pMinus, p0, pPlus);
+  const lift = (p: number) => (p > 0 && Number.isFinite(p) ? p : 1e-12 * pMax);
+  const raw = [pMinus, p0, pPlus];
+  const P = raw.map(lift);
+  const y = [1 / P[0], 1 / P[1], 1 / P[2]];
+  const a = y[1];
+  const b = (y[2] - y[0]) / (2 * s);
+  const c = (y[2] - 2 * y[1] + y[0]) / (2 * s * s);
+  const dA = [0, 1, 0];
   const dB = [-1 / (2 * s), 0, 1 / (2 * s)];
   const dC = [1 / (2 * s * s), -1 / (s * s), 1 / (2 * s * s)];
-  const dA = [0, 1, 0];
-  const dyDp = [-ym * ym, -y0 * y0, -yp * yp];
+  const kc = THREE_POINT_CURVATURE_FLOOR / (s * s);
+  const [ce, ceX, ceM] = floorC1(c, kc * a);
+  const q = a - (b * b) / (4 * ce);
+  const kq = THREE_POINT_VERTEX_FLOOR;
+  const [qe, qeX, qeM] = floorC1(q, kq * a);
+  const u0 = -b / (2 * ce);
+  const g = Math.sqrt(qe / ce);
+  o.ok = ceX === 1 && ceM === 0 && qeX === 1 && qeM === 0;
+  o.frequency = fc + u0;
+  o.lnIntensity = -Math.log(qe);
+  o.halfWidth = g;
   for (let i = 0; i < 3; i++) {
-    const du0 = -dB[i] / (2 * c) + (b * dC[i]) / (2 * c * c);
-    const dq0 = dA[i] - (b * dB[i]) / (2 * c) + (b * b * dC[i]) / (4 * c * c);
-    o.grad[i] = du0 * dyDp[i];
-    o.grad[3 + i] = (-dq0 / q0) * dyDp[i];
-    o.grad[6 + i] = (g / 2) * (dq0 / q0 - dC[i] / c) * dyDp[i];
+    const dce = ceX * dC[i] + ceM * kc * dA[i];
+    const du0 = -dB[i] / (2 * ce) + (b * dce) / (2 * ce * ce);
+    const dq = dA[i] - (b * dB[i]) / (2 * ce) + (b * b * dce) / (4 * ce * ce);
+    const dqe = qeX * dq + qeM * kq * dA[i];
+    const dyDp = -y[i] * y[i];
+    const lifted = P[i] === raw[i] ? 1 : 0;
+    o.grad[i] = du0 * dyDp * lifted;
+    o.grad[3 + i] = (-dqe / qe) * dyDp * lifted;
+    o.grad[6 + i] = (g / 2) * (dqe / qe - dce / ce) * dyDp * lifted;
   }
   return o;
 }
