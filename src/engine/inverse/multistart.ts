@@ -52,6 +52,8 @@ export function resolveMultiStartOptions(o: Partial<MultiStartOptions> = {}): Mu
 }
 
 let runCounter = 0;
+/** How often (ms) the caller asks shouldCancel while it waits for pool workers. */
+const CANCEL_POLL_MS = 50;
 
 export async function multiStart(
   recipe: ProblemRecipe,
@@ -84,17 +86,19 @@ export async function multiStart(
   const workers = options.callerWorks ? options.threads - 1 : options.threads;
   const chunk = Math.max(1, Math.ceil(total / (options.threads * 8)));
   const have = new Map<number, StartOutcome>();
-  const keep = (o: StartOutcome) => {
-    if (have.has(o.index)) return;
-    have.set(o.index, o);
-    note(o);
-  };
-  const inFlight = new Set<Promise<void>>();
-  let failure: unknown = null;
   const cancelled = () => {
     if (callbacks.shouldCancel?.()) Atomics.store(flag, 0, 1);
     return Atomics.load(flag, 0) !== 0;
   };
+  const keep = (o: StartOutcome) => {
+    if (have.has(o.index)) return;
+    have.set(o.index, o);
+    note(o);
+    cancelled(); // the workers see a cancellation through the shared flag, even when the caller computes nothing
+  };
+  const inFlight = new Set<Promise<void>>();
+  let failure: unknown = null;
+  cancelled();
   const dispatch = () => {
     while (inFlight.size < 2 * workers && Atomics.load(next, 0) < total && failure === null) {
       const job: Promise<void> = runPoolTask(workers, { key, recipe, plan, total, chunk, claim, cancel })
@@ -119,7 +123,12 @@ export async function multiStart(
       await new Promise<void>((resolve) => setImmediate(resolve));
     }
   }
-  while (inFlight.size > 0 && failure === null) await Promise.race(inFlight);
+  while (inFlight.size > 0 && failure === null) {
+    // wake up now and then to ask shouldCancel while only the workers compute
+    const tick = new Promise<void>((resolve) => setTimeout(resolve, CANCEL_POLL_MS));
+    await Promise.race([...inFlight, tick]);
+    cancelled();
+  }
   if (failure !== null) {
     Atomics.store(flag, 0, 1);
     throw failure;

@@ -83,4 +83,13 @@ describe('multi-start on 2 threads', () => {
     expect(seen).toEqual(Array.from({ length: 40 }, (_, i) => i + 1));
     expect(out.some((o) => o.stopReason === 'cancelled')).toBe(true);
   });
+
+  it('passes a cancellation on to the pool workers when the caller computes no starts itself', async () => {
+    const problem = curveProblem(recipe.kind === 'curve' ? recipe.curve : (undefined as never));
+    const out = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 12, seed: 9, threads: 2, callerWorks: false }), {
+      shouldCancel: () => true,
+    });
+    expect(out.map((o) => o.index)).toEqual(Array.from({ length: 12 }, (_, i) => i));
+    expect(out.every((o) => o.stopReason === 'cancelled')).toBe(true);
+  });
 });
