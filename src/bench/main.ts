@@ -7,6 +7,7 @@ const groups: Record<string, () => Promise<{ default: () => Promise<void> }>> = 
   engine: () => import('./engine'),
   inverse: () => import('./inverse'),
   pipeline: () => import('./pipeline'),
+  runs: () => import('./runs'),
 };
 
 async function main(): Promise<void> {
