@@ -40,6 +40,20 @@ function eta(startedMs: number, done: number, total: number, doneThisAttempt: nu
   return Math.round(perInterval * (total - done));
 }
 
+/**
+ * Why an interval's result cannot count as solved: its best minimum has no
+ * finite misfit (every start ended on a non-finite misfit). Null when it is fine
+ * or when the interval was skipped for lack of data (no minima at all).
+ */
+export function nonFiniteBest(result: Record<string, unknown>): string | null {
+  const minima = result.minima as { misfit?: unknown; stopReasons?: Record<string, number> }[] | undefined;
+  if (!Array.isArray(minima) || minima.length === 0) return null;
+  const best = minima[0];
+  if (typeof best.misfit === 'number' && Number.isFinite(best.misfit)) return null;
+  const reasons = Object.entries(best.stopReasons ?? {}).map(([k, n]) => `${k} ${n}`).join(', ');
+  return `no start reached a finite misfit (best minimum misfit ${String(best.misfit)}${reasons ? `; stop reasons: ${reasons}` : ''}), so there is no result to show`;
+}
+
 export async function executeRun(runId: string, opts: ExecuteOptions): Promise<ExecuteOutcome> {
   const run = await claimRun(runId, opts.workerId, opts.leaseSeconds ?? 30);
   if (!run) return 'not-runnable';
@@ -102,6 +116,11 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
       return 'failed';
     }
     if (outcome === 'cancelled') { cancelled = true; break; }
+    const notFinite = nonFiniteBest(outcome.result);
+    if (notFinite) {
+      await endRun(runId, 'failed', { ...progress, phase: 'failed' }, `Interval ${label} UT failed: ${notFinite}`);
+      return 'failed';
+    }
     progress.intervalsDone++;
     doneThisAttempt++;
     progress.etaSeconds = eta(t0, progress.intervalsDone, total, doneThisAttempt);

@@ -1,0 +1,81 @@
+/**
+ * Mode runs on the demo day's stored mode fits, with the demo grid's moving
+ * regions (the middle belt's centre free): every interval must end on finite
+ * misfits with a regular covariance. Before the mode misfit handled predicted
+ * spectra without a peak near an observed mode, every start of these
+ * intervals stopped on a non-finite misfit and the run still said "finished".
+ * Also: the driver refuses to call an interval solved when its best minimum
+ * has no finite misfit, and fails the run saying why.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDatabase, resetDatabase } from '@/test/helpers/db';
+import * as accounts from '@/src/ops/seed/accounts';
+import * as stations from '@/src/ops/seed/stations';
+import * as runs from '@/src/ops/seed/runs';
+import { createRun, getRunById, listRunIntervals, listRuns } from '@/db/repo/runs';
+import { getRunView } from '@/src/runs/results';
+import { checkLaunch } from '@/src/runs/launch';
+import { executeRun } from '@/src/runs/execute';
+import { makeEngineSolver } from '@/src/runs/solver';
+import type { RunConfig } from '@/src/runs/config';
+import type { InversionResult } from '@/src/engine/inverse/types';
+import type { IntervalSolver } from '@/src/runs/types';
+
+async function modeRun(name: string, from: string, to: string) {
+  const net = await accounts.demoNetworkId();
+  const [demo] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN);
+  const view = await getRunView(net, demo.id);
+  // The demo run's regions: the middle belt moves within its lat/lon ranges, the others hold their centres.
+  const config: RunConfig = { ...view.config, name, observables: { kind: 'modes', modes: 3 }, starts: 6, data: { ...view.config.data, from, to } };
+  expect(config.regions.some((r) => r.lat && r.lon)).toBe(true);
+  const { problems, preview } = await checkLaunch(net, config);
+  expect(problems).toEqual([]);
+  const run = await createRun({
+    networkId: net, name, config: config as never, modelId: view.model.id, gridId: view.grid.id,
+    engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: null,
+  });
+  return { run, config, preview: preview! };
+}
+
+describe('mode runs on the demo data', () => {
+  beforeAll(async () => {
+    await resetDatabase();
+    await accounts.seed();
+    await stations.seed();
+    await runs.seed();
+  });
+  afterAll(closeDatabase);
+
+  it('ends every interval on finite misfits with the moving regions free', async () => {
+    const { run, config, preview } = await modeRun('Modes, moving belts', '2026-03-14T14:50:00.000Z', '2026-03-14T15:10:00.000Z');
+    const outcome = await executeRun(run.id, { solve: makeEngineSolver(1), workerId: 'modes' });
+    expect(outcome, (await getRunById(run.id))?.error ?? '').toBe('finished');
+    const rows = await listRunIntervals(run.id);
+    expect(rows.map((r) => r.startsAt.toISOString())).toEqual(preview.intervalStarts);
+    for (const row of rows) {
+      const res = row.result as unknown as InversionResult;
+      expect(res.paramNames).toContain('Middle belt.lat');
+      // Multi-start bookkeeping: counts of starts per minimum add up to the number of starts.
+      expect(res.minima.reduce((n, m) => n + m.count, 0)).toBe(config.starts);
+      for (const m of res.minima) {
+        expect(typeof m.misfit === 'number' && Number.isFinite(m.misfit)).toBe(true);
+        expect(m.stopReasons['non-finite'] ?? 0).toBe(0);
+      }
+      const best = res.minima[0];
+      expect(best.singular).toBe(false);
+      for (const v of Object.values(best.stdErrors['Middle belt'])) expect(Number.isFinite(v as number)).toBe(true);
+    }
+  });
+
+  it('fails the run, saying why, when the best minimum of an interval has no finite misfit', async () => {
+    const { run } = await modeRun('Modes, nothing finite', '2026-03-14T15:00:00.000Z', '2026-03-14T15:10:00.000Z');
+    // A solver whose every start ended on a non-finite misfit (what the engine returned before the fix).
+    const nothingFinite: IntervalSolver = async () => ({ nData: 9, result: { minima: [{ misfit: NaN, count: 6, stopReasons: { 'non-finite': 6 } }] } });
+    expect(await executeRun(run.id, { solve: nothingFinite, workerId: 'modes' })).toBe('failed');
+    const after = await getRunById(run.id);
+    expect(after!.state).toBe('failed');
+    expect(after!.error).toMatch(/Interval 2026-03-14 15:00 UT failed: no start reached a finite misfit/);
+    expect(after!.error).toMatch(/non-finite 6/);
+    expect(await listRunIntervals(run.id)).toHaveLength(0);
+  });
+});
