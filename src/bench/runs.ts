@@ -9,7 +9,7 @@
  *      share of the time the engine took to solve them.
  * Every server, browser and database it starts is stopped at the end, also on error.
  * Run with `npm run bench -- runs`. BENCH_RUN_INTERVALS (default 144) and BENCH_RUN_STARTS
- * (default 2) scale it down or up.
+ * (default 16, as the launch form) scale it down or up.
  */
 import { randomUUID } from 'node:crypto';
 import { spawn, type ChildProcess } from 'node:child_process';
@@ -41,7 +41,7 @@ import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { launchBrowser } from '@/test/e2e/harness';
 
 const INTERVALS = Number(process.env.BENCH_RUN_INTERVALS) > 0 ? Number(process.env.BENCH_RUN_INTERVALS) : 144;
-const STARTS = Number(process.env.BENCH_RUN_STARTS) > 0 ? Number(process.env.BENCH_RUN_STARTS) : 2;
+const STARTS = Number(process.env.BENCH_RUN_STARTS) > 0 ? Number(process.env.BENCH_RUN_STARTS) : 16; // the launch form's default
 const CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 const BAND = { minHz: 6, maxHz: 30, stepHz: 0.5 };
 // An invented scenario: three huts and three source regions, not real sites.
@@ -150,7 +150,8 @@ async function measureView(networkId: string, runId: string): Promise<void> {
     times.push(performance.now() - t0);
   }
   times.shift();
-  console.log(`(b) getRunView of a finished ${INTERVALS}-interval, three-region run: median ${ms(median(times))} of ${times.length}`);
+  const kb = Buffer.byteLength(JSON.stringify(await getRunView(networkId, runId))) / 1024;
+  console.log(`(b) getRunView of a finished ${INTERVALS}-interval, three-region run: median ${ms(median(times))} of ${times.length} (${kb.toFixed(0)} KiB as JSON)`);
 }
 
 async function measurePage(databaseUrl: string, networkId: string, userId: string, runId: string, stop: Array<() => Promise<void> | void>): Promise<void> {
@@ -165,7 +166,7 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
   const { NODE_ENV: _n, ...inherited } = process.env;
   const web: ChildProcess = spawn(process.execPath, [nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: projectRoot, stdio: ['ignore', 'ignore', 'pipe'],
-    env: { ...inherited, DATABASE_URL: databaseUrl, PORT: String(port), APP_URL: `http://127.0.0.1:${port}`, COOKIE_SECURE: 'false', NEXT_TELEMETRY_DISABLED: '1' } as NodeJS.ProcessEnv,
+    env: { ...inherited, DATABASE_URL: databaseUrl, PORT: String(port), APP_URL: `http://127.0.0.1:${port}`, COOKIE_SECURE: 'false', NEXT_TELEMETRY_DISABLED: '1' } as unknown as NodeJS.ProcessEnv,
   });
   stop.push(() => new Promise<void>((resolve) => {
     if (web.exitCode !== null || web.signalCode !== null) return resolve();
