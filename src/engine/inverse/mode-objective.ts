@@ -6,7 +6,10 @@
  * observed half-width. Residuals: (f - f_obs)/sigma_f, (ln A - ln A_obs)/sigma_lnA,
  * (g - g_obs)/sigma_g. The Jacobian chains the three-point derivatives with
  * dP/dp of the spectrum model (its 'power' variant with unit data gives P and
- * dP/dp directly).
+ * dP/dp directly). Where the predicted spectrum has no peak at those bins the
+ * three-point estimate falls back smoothly to a finite one (see
+ * lorentz-three-point.ts), so residuals and Jacobian are finite for every
+ * parameter vector.
  */
 import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { COMPONENT_CODE, type DataLayout, type SeriesLayout } from './data-layout';
