@@ -184,10 +184,12 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
   const url = `${base}/n/${networkId}/runs/${runId}`;
   const times: number[] = [];
   const firstFigures: number[] = [];
+  const html: number[] = [];
   for (let i = 0; i < 6; i++) {
     const page = await context.newPage();
     const t0 = performance.now();
-    await page.goto(url);
+    await page.goto(url, { waitUntil: 'domcontentloaded' });
+    html.push(performance.now() - t0);
     await page.locator('svg title', { hasText: 'Source regions of the selected minimum' }).waitFor({ state: 'attached', timeout: 60_000 });
     await page.getByText('Regional intensity through the day').first().waitFor({ timeout: 60_000 });
     await page.getByText('Correlation matrix of the parameters').first().waitFor({ timeout: 60_000 });
@@ -198,6 +200,8 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
   }
   times.shift(); // the first load warms the server
   firstFigures.shift();
+  html.shift();
+  console.log(`(b) run page: server-rendered HTML received and parsed after a median ${ms(median(html))} of ${html.length}`);
   const note = stale.stale ? ' — note: the build in .next is older than the sources' : '';
   console.log(`(b) run page in headless chromium until map, series and correlations are drawn: median ${ms(median(firstFigures))} of ${firstFigures.length}${note}`);
   console.log(`(b) run page until the fitted spectra are drawn too (every figure): median ${ms(median(times))} of ${times.length} (target < 1 s)`);
