@@ -15,7 +15,7 @@ import { invertSeries } from '@/src/engine/inverse/interval-series';
 import { createKernelBuffers } from '@/src/engine/inverse/kernel-sampler';
 import { closeInversionPool } from '@/src/engine/inverse/pool';
 import type { SpectrumInversionInput } from '@/src/engine/inverse/spectrum-setup';
-import { mulberry32 } from '@/src/engine/inverse/starts';
+import { mulberry32 } from '@/src/engine/random';
 import type { ObservedSeries } from '@/src/engine/inverse/types';
 
 const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };

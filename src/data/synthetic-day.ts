@@ -10,6 +10,7 @@ import { asCavity } from '@/src/engine/forward/predict';
 import { fitModes } from '@/src/engine/modes/fit-modes';
 import type { ForwardSource } from '@/src/engine/sources/types';
 import type { Band } from '@/src/engine/band';
+import { gaussian, mulberry32 } from '@/src/engine/random';
 import type { Component } from '@/src/engine/components';
 import type { IntervalFit } from '@/db/repo/intervals';
 
@@ -35,23 +36,6 @@ export function centreIntensity(c: ActivityCentre, hourUtc: number): number {
   return c.baseline + c.peak * Math.exp(-0.5 * (d / c.widthHours) ** 2);
 }
 
-/** mulberry32: a small seeded generator (uniform in [0, 1)). */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** Standard normal by the Box–Muller transform. */
-export function gaussian(rand: () => number): () => number {
-  return () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
-}
-
 export interface SyntheticInterval {
   stationId: string;
   component: Component;
@@ -68,7 +52,8 @@ export function syntheticDay(stations: SyntheticStation[], dayStartMs: number, s
     stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon, components: s.components })));
   const out = model.createOutput();
   const freqs = Array.from(model.freqs);
-  const normal = gaussian(seededRandom(seed));
+  const rand = mulberry32(seed);
+  const normal = () => gaussian(rand);
   const sigma = 1 / Math.sqrt(DEMO_SEGMENTS);
   const result: SyntheticInterval[] = [];
   for (let k = 0; k < 144; k++) {

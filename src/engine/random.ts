@@ -1,4 +1,7 @@
-/** Seeded pseudo-random numbers for reproducible synthetic test data. */
+/**
+ * Seeded pseudo-random numbers: reproducible start points, synthetic demo data and
+ * test data all draw from these, so the same seed gives the same numbers everywhere.
+ */
 
 /** mulberry32: a small 32-bit generator (Tommy Ettinger's public-domain design), uniform on [0, 1). */
 export function mulberry32(seed: number): () => number {

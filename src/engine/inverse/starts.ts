@@ -6,6 +6,8 @@
  * mulberry32 generator. Start i depends only on (seed, i, bounds), never on
  * how the starts are scheduled.
  */
+import { mulberry32 } from '../random';
+
 const PRIMES = [2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43, 47, 53, 59, 61, 67, 71, 73, 79, 83, 89, 97, 101, 103, 107, 109, 113];
 
 /** Radical inverse of i in the given base (van der Corput). */
@@ -18,18 +20,6 @@ export function radicalInverse(i: number, base: number): number {
     i = Math.floor(i / base);
   }
   return r;
-}
-
-/** mulberry32: a small seeded 32-bit generator (public-domain, common practice). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /** The seeded rotation of each dimension. */

@@ -59,7 +59,7 @@ import type { Component } from '@/src/engine/components';
 import { greatCircle } from '@/src/engine/geometry/great-circle';
 import { engineKernel } from '@/src/engine/inverse/engine-kernel';
 import { createKernelBuffers } from '@/src/engine/inverse/kernel-sampler';
-import { mulberry32 } from '@/src/engine/inverse/starts';
+import { mulberry32 } from '@/src/engine/random';
 import type { ObservedSeries, StationSite } from '@/src/engine/inverse/types';
 
 export const LINEAR_CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };

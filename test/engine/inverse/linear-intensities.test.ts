@@ -17,7 +17,7 @@ import { engineKernel } from '@/src/engine/inverse/engine-kernel';
 import { createKernelBuffers } from '@/src/engine/inverse/kernel-sampler';
 import { buildParameterisation } from '@/src/engine/inverse/parameters';
 import { spectrumProblem } from '@/src/engine/inverse/spectrum-objective';
-import { mulberry32 } from '@/src/engine/inverse/starts';
+import { mulberry32 } from '@/src/engine/random';
 import type { ObservedSeries } from '@/src/engine/inverse/types';
 import { levenbergMarquardt } from '@/src/engine/optim/levenberg-marquardt';
 

@@ -13,7 +13,7 @@ import { describe, expect, it } from 'vitest';
 import { lorentzThreePoint } from '@/src/engine/inverse/lorentz-three-point';
 import { invertModes } from '@/src/engine/inverse/invert';
 import { prepareModes, type ModeInversionInput } from '@/src/engine/inverse/spectrum-setup';
-import { mulberry32 } from '@/src/engine/inverse/starts';
+import { mulberry32 } from '@/src/engine/random';
 import type { Component } from '@/src/engine/components';
 import type { ObservedModes } from '@/src/engine/inverse/types';
 import { modeProblem } from '@/src/engine/inverse/mode-objective';

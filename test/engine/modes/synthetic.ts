@@ -1,6 +1,6 @@
 /** Synthetic Lorentzian spectra and time series for the mode-fit tests (invented values). */
 import FFT from 'fft.js';
-import { gammaDeviate, gaussian, mulberry32 } from '@/test/engine/signal/random';
+import { gammaDeviate, gaussian, mulberry32 } from '@/src/engine/random';
 
 export interface TrueModes {
   f: number[];

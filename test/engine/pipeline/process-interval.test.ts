@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { processInterval } from '@/src/engine/pipeline/process-interval';
 import { lorentzSum, seriesWithPsd, type TrueModes } from '@/test/engine/modes/synthetic';
-import { gaussian, mulberry32 } from '@/test/engine/signal/random';
+import { gaussian, mulberry32 } from '@/src/engine/random';
 
 const fs = 200;
 const TRUE: TrueModes = {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { clippedShare, hasGaps } from '@/src/engine/pipeline/sample-checks';
-import { gaussian, mulberry32 } from '@/test/engine/signal/random';
+import { gaussian, mulberry32 } from '@/src/engine/random';
 import { CLIPPING_SHARE_LIMIT } from '@/src/engine/tolerances';
 
 describe('sample checks', () => {

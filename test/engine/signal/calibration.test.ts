@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { calibrateSpectrum, checkCalibration, responseAt, type Calibration } from '@/src/engine/signal/calibration';
 import { welch } from '@/src/engine/signal/welch';
-import { gaussian, mulberry32 } from './random';
+import { gaussian, mulberry32 } from '@/src/engine/random';
 
 describe('calibration', () => {
   it('interpolates a tabulated first-order high-pass response', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { listedLines, mainsLines, suppressLines } from '@/src/engine/signal/line-suppression';
 import { welch } from '@/src/engine/signal/welch';
-import { gaussian, mulberry32 } from './random';
+import { gaussian, mulberry32 } from '@/src/engine/random';
 
 describe('line suppression', () => {
   it('lists the mains line and its harmonics up to the top frequency', () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { screenTransients } from '@/src/engine/signal/transients';
 import { segmentLayout, segmentStats } from '@/src/engine/signal/segments';
 import { welch } from '@/src/engine/signal/welch';
-import { gaussian, mulberry32 } from './random';
+import { gaussian, mulberry32 } from '@/src/engine/random';
 
 describe('transient screen', () => {
   const fs = 200;

@@ -4,7 +4,7 @@ import { welch } from '@/src/engine/signal/welch';
 import { hannWindow, windowPower } from '@/src/engine/signal/hann';
 import { complexDft } from '@/src/engine/signal/complex-dft';
 import { realPowerPlan } from '@/src/engine/signal/real-power';
-import { mulberry32, gaussian } from '@/test/engine/signal/random';
+import { mulberry32, gaussian } from '@/src/engine/random';
 
 interface WelchCase {
   name: string;
