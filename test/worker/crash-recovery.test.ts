@@ -6,14 +6,17 @@
  *
  * The checks are the run's own contract: one stored row per (run, interval start) for every
  * planned start, progress at 100 %, and — when the kill left the run marked running — the
- * new worker's sweep saying it queued the continuation.
+ * new worker's sweep saying it queued the continuation. A first test sweeps three times at once
+ * over a run whose lease has lapsed and counts the pending jobs: exactly one more.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawn, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { stopBoss } from '@/db/jobs';
-import { getRunById, listRunIntervals } from '@/db/repo/runs';
+import { getBoss, stopBoss } from '@/db/jobs';
+import { claimRun, deleteRun, getRunById, listRunIntervals } from '@/db/repo/runs';
+import { sweepRuns } from '@/src/worker/sweep';
+import { RUN_QUEUE } from '@/src/runs/queues';
 import { launchRun } from '@/src/runs/launch';
 import { makeRunWorld } from '@/test/runs/world';
 
@@ -62,6 +65,25 @@ describe('crash recovery with real worker processes', () => {
     }
     await stopBoss(5_000);
     await closeDatabase();
+  });
+
+  it('sweeps queue at most one continuation per lapsed run, however many sweep at once', async () => {
+    const w = await makeRunWorld(1);
+    const run = await launchRun(w.networkId, w.userId, w.config);
+    const boss = await getBoss();
+    // Drain the launch job so only the sweep's jobs are pending (no worker runs yet).
+    const [launched] = await boss.fetch(RUN_QUEUE);
+    expect(launched.data).toEqual({ runId: run.id });
+    expect(await claimRun(run.id, 'vanished-worker', 1)).not.toBeNull();
+    expect(await sweepRuns(60)).toEqual({ continued: [], cancelled: [] }); // heartbeat still within a 60 s lease
+    await new Promise((r) => setTimeout(r, 1_200));
+    const before = await boss.getQueueSize(RUN_QUEUE);
+    const sweeps = await Promise.all([sweepRuns(1), sweepRuns(1), sweepRuns(1)]);
+    const again = await sweepRuns(1);
+    expect(sweeps.flatMap((s) => s.continued).filter((id) => id === run.id)).toHaveLength(1);
+    expect(again.continued).not.toContain(run.id); // its continuation is still pending
+    expect(await boss.getQueueSize(RUN_QUEUE)).toBe(before + 1);
+    expect(await deleteRun(w.networkId, run.id)).toBe(true); // the pending job will find no run
   });
 
   it('a run whose worker is killed is continued by the next worker and stores every interval once', async () => {
