@@ -6,7 +6,7 @@
  * catcher on free loopback ports. `launchBrowser()` starts Debian's chromium through
  * playwright-core, headless; every launch gets a fresh temporary profile.
  */
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
 import { freePort } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
 import { closeDatabase } from '@/db/lifecycle';
@@ -79,4 +79,13 @@ export const CHROMIUM_FLAGS = [
 /** Headless chromium; playwright gives each launch a new temporary profile folder. */
 export function launchBrowser(): Promise<Browser> {
   return chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROMIUM_FLAGS });
+}
+
+/** Sign in through the sign-in form and wait until the app has left it. */
+export async function signInAs(page: Page, baseUrl: string, who: { email: string; password: string }): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel(/e-?mail/i).fill(who.email);
+  await page.getByLabel(/password/i).fill(who.password);
+  await page.getByRole('button', { name: /sign in/i }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
 }

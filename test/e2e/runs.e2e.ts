@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { launchBrowser, startTestApp, type TestApp } from './harness';
+import { launchBrowser, startTestApp, type TestApp, signInAs } from './harness';
 import { demoNetworkId } from '@/src/ops/seed/accounts';
 import { closeDatabase } from '@/db/lifecycle';
 
@@ -30,11 +30,7 @@ describe('configure a model and a grid, run, and read the results', () => {
     const analyst = app.signIns.find((s) => s.role === 'analyst')!;
     const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
-    await page.goto(`${app.baseUrl}/sign-in`);
-    await page.getByLabel(/e-?mail/i).fill(analyst.email);
-    await page.getByLabel(/password/i).fill(analyst.password);
-    await page.getByRole('button', { name: /sign in/i }).click();
-    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+    await signInAs(page, app.baseUrl, analyst);
 
     step('sign-in done');
     // A cavity model: the linear propagation parameter.

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { launchBrowser, startTestApp, type TestApp } from './harness';
+import { launchBrowser, startTestApp, type TestApp, signInAs } from './harness';
 
 describe('smoke: the built app in a real browser', () => {
   let app: TestApp;
@@ -27,11 +27,7 @@ describe('smoke: the built app in a real browser', () => {
     expect(owner, 'the accounts seeder exports DEMO_SIGN_INS with an owner').toBeDefined();
     const context = await browser.newContext();
     const page = await context.newPage();
-    await page.goto(app.baseUrl + '/sign-in');
-    await page.getByLabel(/e-?mail/i).fill(owner!.email);
-    await page.getByLabel(/password/i).fill(owner!.password);
-    await page.getByRole('button', { name: /sign in/i }).click();
-    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+    await signInAs(page, app.baseUrl, owner!);
     const cookies = await context.cookies();
     expect(cookies.some((c) => c.httpOnly)).toBe(true); // a session cookie was set
     await context.close();

@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { launchBrowser, startTestApp, type TestApp } from './harness';
+import { launchBrowser, startTestApp, type TestApp, signInAs } from './harness';
 import { demoNetworkId } from '@/src/ops/seed/accounts';
 import { getStationByCode } from '@/db/repo/stations';
 import { closeDatabase } from '@/db/lifecycle';
@@ -45,11 +45,7 @@ describe('upload a station file and see its modes', () => {
     const analyst = app.signIns.find((s) => s.role === 'analyst')!;
     const context = await browser.newContext();
     const page = await context.newPage();
-    await page.goto(`${app.baseUrl}/sign-in`);
-    await page.getByLabel(/e-?mail/i).fill(analyst.email);
-    await page.getByLabel(/password/i).fill(analyst.password);
-    await page.getByRole('button', { name: /sign in/i }).click();
-    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+    await signInAs(page, app.baseUrl, analyst);
 
     await page.goto(`${app.baseUrl}/n/${networkId}/stations/${station.id}`);
     await expect(page.getByText('Field safety').first().isVisible()).resolves.toBe(true);
