@@ -38,7 +38,7 @@ import { SESSION_COOKIE } from '@/src/auth/lucia';
 import { nextBin, projectRoot } from '@/src/ops/paths';
 import { waitForHttp } from '@/src/ops/supervisor';
 import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
-import { launchBrowser } from '@/test/e2e/harness';
+import { launchBrowser } from '@/src/ops/browser';
 
 const INTERVALS = Number(process.env.BENCH_RUN_INTERVALS) > 0 ? Number(process.env.BENCH_RUN_INTERVALS) : 144;
 const STARTS = Number(process.env.BENCH_RUN_STARTS) > 0 ? Number(process.env.BENCH_RUN_STARTS) : 16; // the launch form's default

@@ -6,14 +6,13 @@
  * catcher on free loopback ports. `launchBrowser()` starts Debian's chromium through
  * playwright-core, headless; every launch gets a fresh temporary profile.
  */
-import { chromium, type Browser, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { freePort } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
 import { closeDatabase } from '@/db/lifecycle';
 import { runSeeds, demoSignIns, type DemoSignIn } from '@/src/ops/seed';
 import { buildIfStale, holdSharedBuildLock } from '@/src/ops/build';
 import { startStack } from '@/src/ops/stack';
-import { CHROMIUM } from '@/src/ops/test-plan';
 
 export interface TestApp {
   baseUrl: string;
@@ -65,21 +64,7 @@ export async function startTestApp(): Promise<TestApp> {
   };
 }
 
-export const CHROMIUM_FLAGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-dev-shm-usage',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
-
-/** Headless chromium; playwright gives each launch a new temporary profile folder. */
-export function launchBrowser(): Promise<Browser> {
-  return chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROMIUM_FLAGS });
-}
+export { CHROMIUM_FLAGS, launchBrowser } from '@/src/ops/browser';
 
 /** Sign in through the sign-in form and wait until the app has left it. */
 export async function signInAs(page: Page, baseUrl: string, who: { email: string; password: string }): Promise<void> {
