@@ -7,22 +7,15 @@
  */
 import { availableParallelism, loadavg } from 'node:os';
 import { bandFrequencies } from '@/src/engine/band';
-import type { Component } from '@/src/engine/components';
-import { greatCircle } from '@/src/engine/geometry/great-circle';
-import { engineKernel } from '@/src/engine/inverse/engine-kernel';
 import { invertSpectra } from '@/src/engine/inverse/invert';
 import { invertSeries } from '@/src/engine/inverse/interval-series';
-import { createKernelBuffers } from '@/src/engine/inverse/kernel-sampler';
 import { closeInversionPool } from '@/src/engine/inverse/pool';
 import type { SpectrumInversionInput } from '@/src/engine/inverse/spectrum-setup';
-import { mulberry32 } from '@/src/engine/random';
-import type { ObservedSeries } from '@/src/engine/inverse/types';
+import { syntheticObserved } from '@/src/engine/inverse/synthetic';
 
 const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 const band = { minHz: 5, maxHz: 40, stepHz: 0.25 };
 const freqs = bandFrequencies(band);
-const kernel = engineKernel(cavity, freqs);
-const buf = createKernelBuffers(freqs.length);
 // Invented station layout for the benchmark.
 const stations = Array.from({ length: 12 }, (_, i) => ({
   code: `B${String(i + 1).padStart(2, '0')}`,
@@ -42,24 +35,7 @@ function synthetic(t: number, seed: number): SpectrumInversionInput {
     { lat: 4 - 5 * t, lon: 18 + 8 * t, intensity: 4e4 * (1 + Math.cos(2 * Math.PI * t)) + 5e3 },
     { lat: 2 + 4 * t, lon: 118 - 12 * t, intensity: 2e4 * (1.2 + Math.sin(2 * Math.PI * (t + 0.3))) },
   ];
-  const rnd = mulberry32(seed);
-  const gauss = () => Math.sqrt(-2 * Math.log(1 - rnd())) * Math.cos(2 * Math.PI * rnd());
-  const observed: ObservedSeries[] = [];
-  for (const st of stations) {
-    const sums: Record<Component, Float64Array> = { Ez: new Float64Array(freqs.length), Bns: new Float64Array(freqs.length), Bew: new Float64Array(freqs.length) };
-    for (const s of truth) {
-      const g = greatCircle(st.lat, st.lon, s.lat, s.lon);
-      kernel.sample(g.theta, buf);
-      for (let k = 0; k < freqs.length; k++) {
-        sums.Ez[k] += s.intensity * buf.ez[k];
-        sums.Bns[k] += s.intensity * buf.bh[k] * Math.sin(g.bearing) ** 2;
-        sums.Bew[k] += s.intensity * buf.bh[k] * Math.cos(g.bearing) ** 2;
-      }
-    }
-    for (const c of ['Ez', 'Bns', 'Bew'] as Component[]) {
-      observed.push({ station: st.code, component: c, frequencies: freqs, power: sums[c].map((p) => p * Math.exp(0.1 * gauss())), sigmaLog: 0.1 });
-    }
-  }
+  const observed = syntheticObserved(cavity, stations, truth, freqs, 0.1, seed);
   return { cavity, stations, observed, unknowns };
 }
 

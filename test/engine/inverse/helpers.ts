@@ -55,44 +55,12 @@ export function maxColumnRelativeError(a: Float64Array, b: Float64Array, m: numb
   return worst;
 }
 
-import type { Component } from '@/src/engine/components';
-import { greatCircle } from '@/src/engine/geometry/great-circle';
-import { engineKernel } from '@/src/engine/inverse/engine-kernel';
-import { createKernelBuffers } from '@/src/engine/inverse/kernel-sampler';
-import { mulberry32 } from '@/src/engine/random';
+import { syntheticObserved as observedFor, type SyntheticSource } from '@/src/engine/inverse/synthetic';
 import type { ObservedSeries, StationSite } from '@/src/engine/inverse/types';
 
 export const LINEAR_CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 
-/** Spectra from the engine's kernel tables for point sources, with seeded log-normal noise sigma. */
-export function syntheticObserved(
-  stations: StationSite[],
-  sources: { lat: number; lon: number; intensity: number }[],
-  freqs: Float64Array,
-  sigma: number,
-  seed: number,
-): ObservedSeries[] {
-  const kernel = engineKernel(LINEAR_CAVITY, freqs);
-  const buf = createKernelBuffers(freqs.length);
-  const rnd = mulberry32(seed);
-  const gauss = () => Math.sqrt(-2 * Math.log(1 - rnd())) * Math.cos(2 * Math.PI * rnd());
-  return stations.flatMap((st) => {
-    const sums = { Ez: new Float64Array(freqs.length), Bns: new Float64Array(freqs.length), Bew: new Float64Array(freqs.length) };
-    for (const s of sources) {
-      const g = greatCircle(st.lat, st.lon, s.lat, s.lon);
-      kernel.sample(g.theta, buf);
-      for (let k = 0; k < freqs.length; k++) {
-        sums.Ez[k] += s.intensity * buf.ez[k];
-        sums.Bns[k] += s.intensity * buf.bh[k] * Math.sin(g.bearing) ** 2;
-        sums.Bew[k] += s.intensity * buf.bh[k] * Math.cos(g.bearing) ** 2;
-      }
-    }
-    return (['Ez', 'Bns', 'Bew'] as Component[]).map((c) => ({
-      station: st.code,
-      component: c,
-      frequencies: freqs,
-      power: sums[c].map((p) => p * Math.exp(sigma * gauss())),
-      sigmaLog: sigma,
-    }));
-  });
+/** Spectra from the engine's kernel tables for point sources in the linear cavity, with seeded log-normal noise sigma. */
+export function syntheticObserved(stations: StationSite[], sources: SyntheticSource[], freqs: Float64Array, sigma: number, seed: number): ObservedSeries[] {
+  return observedFor(LINEAR_CAVITY, stations, sources, freqs, sigma, seed);
 }
