@@ -23,7 +23,7 @@ export default async function StationPage({ params }: { params: Promise<{ networ
   const pushUrl = `${process.env.APP_URL ?? ''}/api/v1/push/intervals`;
   const facts: [string, string][] = [
     ['Position', `${formatNumber(station.latitude, 3)}°, ${formatNumber(station.longitude, 3)}°${station.elevationM != null ? `, ${formatNumber(station.elevationM, 0)} m` : ''}`],
-    ['Components', station.components.map((c) => `${c.component} (${c.calibration.kind === 'gain' ? `gain ${c.calibration.gain}` : `response table, ${c.calibration.points.length} rows`})`).join('; ')],
+    ['Components', station.components.map((c) => `${c.component} (${c.calibration.kind === 'gain' ? `gain ${formatNumber(c.calibration.gain, 3)} per ${c.component === 'Ez' ? 'V/m' : 'T'}` : `response table, ${c.calibration.points.length} rows`})`).join('; ')],
     ['Sampling rate', `${station.sampleRateHz} Hz`],
     ['Mains', `${station.mainsHz} Hz and harmonics`],
     ['Other lines', station.interferenceLines.map((l) => `${l.frequencyHz} Hz ${l.label}`).join('; ') || 'none listed'],
