@@ -123,6 +123,12 @@ export async function listRunIntervals(runId: string): Promise<RunIntervalRow[]>
   return getDb().select().from(runIntervals).where(eq(runIntervals.runId, runId)).orderBy(asc(runIntervals.startsAt));
 }
 
+/** One stored interval of a run, or null. */
+export async function getRunInterval(runId: string, startsAt: Date): Promise<RunIntervalRow | null> {
+  const rows = await getDb().select().from(runIntervals).where(and(eq(runIntervals.runId, runId), eq(runIntervals.startsAt, startsAt))).limit(1);
+  return rows[0] ?? null;
+}
+
 export async function finishedIntervalStarts(runId: string): Promise<Set<string>> {
   const rows = await getDb().select({ t: runIntervals.startsAt }).from(runIntervals).where(eq(runIntervals.runId, runId));
   return new Set(rows.map((r) => r.t.toISOString()));

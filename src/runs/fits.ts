@@ -7,7 +7,7 @@
 import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import { badRequest } from '@/src/server/errors';
-import { getRun, listRunIntervals } from '@/db/repo/runs';
+import { getRun, getRunInterval } from '@/db/repo/runs';
 import { notFound } from '@/src/server/errors';
 import { loadRunContext } from './context';
 import { loadObservations } from './observations';
@@ -31,7 +31,7 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
   if (!run) throw notFound('That run is not in this network.');
   const when = new Date(intervalIso);
   if (Number.isNaN(when.getTime())) throw badRequest('interval must be a date-time', 'interval');
-  const row = (await listRunIntervals(run.id)).find((r) => r.startsAt.getTime() === when.getTime());
+  const row = await getRunInterval(run.id, when); // one row, not the whole run
   const result = row?.result as unknown as InversionResult | undefined;
   const minimum = result?.minima?.[minimumIndex];
   if (!minimum) throw badRequest('this interval has no such minimum', 'minimum');

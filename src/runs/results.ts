@@ -18,6 +18,8 @@ export interface IntervalView {
   /** Null when the interval had no data (then `skipped` says why). */
   result: InversionResult | null;
   skipped?: string;
+  /** Set by `firstView`: `result` holds only the best minimum's sources and standard errors. */
+  brief?: true;
 }
 
 export interface RunView {
@@ -52,6 +54,28 @@ export async function getRunView(networkId: string, runId: string): Promise<RunV
         startsAt: r.startsAt.toISOString(), nData: r.nData, seconds: r.seconds,
         result: res.skipped ? null : res, ...(res.skipped ? { skipped: res.skipped } : {}),
       };
+    }),
+  };
+}
+
+/**
+ * What the run page shows first: the full result of the last solved interval
+ * (the one it opens on) and, for every other interval, only the best minimum's
+ * sources and intensity errors (the daily curves). The page fetches the full
+ * view when another interval is chosen.
+ */
+export function firstView(view: RunView): RunView {
+  const solved = view.intervals.filter((i) => i.result && i.result.minima.length);
+  const open = solved.at(-1)?.startsAt;
+  return {
+    ...view,
+    intervals: view.intervals.map((iv) => {
+      if (!iv.result || iv.startsAt === open) return iv;
+      const best = iv.result.minima[0];
+      const brief = best
+        ? [{ sources: best.sources, stdErrors: Object.fromEntries(Object.entries(best.stdErrors).map(([k, e]) => [k, { intensity: e.intensity }])) } as unknown as Minimum]
+        : [];
+      return { ...iv, result: { minima: brief } as unknown as InversionResult, brief: true as const };
     }),
   };
 }

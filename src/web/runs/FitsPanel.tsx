@@ -6,12 +6,12 @@ import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import { Notice } from '@/src/web/ui';
 import { useApi } from '@/src/web/swr';
 import type { SeriesFit, StationFit } from '@/src/runs/fits';
-import { fmt } from './types';
+import { fitsUrl, fmt } from './types';
 
 const UNIT: Record<string, { k: number; unit: string }> = { Ez: { k: 1e6, unit: '(mV/m)²/Hz' }, Bns: { k: 1e24, unit: 'pT²/Hz' }, Bew: { k: 1e24, unit: 'pT²/Hz' } };
 
 export function useFits(base: string, interval: string | null, minimum: number) {
-  return useApi<{ series: SeriesFit[]; stations: StationFit[] }>(interval ? `${base}/fits?interval=${encodeURIComponent(interval)}&minimum=${minimum}` : null);
+  return useApi<{ series: SeriesFit[]; stations: StationFit[] }>(interval ? fitsUrl(base, interval, minimum) : null);
 }
 
 export function FitsPanel({ fits, error }: { fits: { series: SeriesFit[] } | undefined; error?: Error }) {

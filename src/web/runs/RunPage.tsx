@@ -32,9 +32,11 @@ export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }:
   // Poll while the run is queued or running (a fixed interval switched by the last answer:
   // SWR's function form sees no data until the first fetch).
   const [live, setLive] = useState(LIVE.has(initial.run.state));
-  const { data, mutate } = useApi<RunJson>(base, {
+  const { data, mutate, error: viewError } = useApi<RunJson>(base, {
     fallbackData: initial,
-    revalidateOnMount: true,
+    // A finished run's first view comes from the server; the full view (every interval's
+    // minima) is fetched only when another interval is chosen, or while the run is live.
+    revalidateOnMount: live,
     refreshInterval: live ? 1500 : 0,
     onSuccess: (d) => setLive(LIVE.has(d.run.state)),
   });
@@ -44,9 +46,15 @@ export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }:
   const [intervalPick, setIntervalPick] = useState<string | null>(null);
   const interval = solved.find((i) => i.startsAt === intervalPick) ?? solved.at(-1) ?? null;
   const [minimum, setMinimum] = useState(0);
-  const result = interval?.result ?? null;
+  const pending = interval?.brief === true; // chosen, full result not here yet
+  const result = pending ? null : interval?.result ?? null;
   const m = result?.minima[Math.min(minimum, result.minima.length - 1)] ?? null;
   const fits = useFits(base, interval?.startsAt ?? null, Math.min(minimum, (result?.minima.length ?? 1) - 1));
+  function pickInterval(startsAt: string) {
+    setIntervalPick(startsAt);
+    setMinimum(0);
+    if (view.intervals.find((i) => i.startsAt === startsAt)?.brief) void mutate();
+  }
   const [actionError, setActionError] = useState<string | null>(null);
   const colours = useMemo(() => Object.fromEntries(view.grid.regions.map((r) => [r.name, r.colour])), [view.grid.regions]);
 
@@ -95,7 +103,7 @@ export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }:
             {solved.length > 1 ? (
               <label className="mb-3 block text-sm">Interval (UT){' '}
                 <select className="ml-2 rounded border border-line-strong bg-surface px-2 py-1" value={interval.startsAt}
-                  onChange={(e) => { setIntervalPick(e.target.value); setMinimum(0); }}>
+                  onChange={(e) => pickInterval(e.target.value)}>
                   {solved.map((i) => <option key={i.startsAt} value={i.startsAt}>{i.startsAt.slice(0, 16).replace('T', ' ')}</option>)}
                 </select>
               </label>
@@ -124,7 +132,7 @@ export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }:
         </>
       ) : (
         <Panel heading="What came out">
-          <p className="text-sm text-muted">{LIVE.has(run.state) ? 'Results appear here as soon as the first interval is finished.' : 'This run has no finished interval with data.'}</p>
+          <p className="text-sm text-muted">{pending ? (viewError ? `The chosen interval could not be loaded: ${viewError.message}` : 'Loading the chosen interval…') : LIVE.has(run.state) ? 'Results appear here as soon as the first interval is finished.' : 'This run has no finished interval with data.'}</p>
         </Panel>
       )}
     </div>

@@ -9,6 +9,11 @@ export function runApi(networkId: string, runId: string): string {
   return `/api/networks/${networkId}/runs/${runId}`;
 }
 
+/** The per-station fits of one minimum of one interval (`GET …/runs/:id/fits`). */
+export function fitsUrl(base: string, interval: string, minimum: number): string {
+  return `${base}/fits?interval=${encodeURIComponent(interval)}&minimum=${minimum}`;
+}
+
 /** Latitude/longitude standard errors and their correlation for one source of a minimum. */
 export function centreCovariance(m: Minimum, name: string): { sLat: number; sLon: number; rho: number } | null {
   const e = m.stdErrors[name];
