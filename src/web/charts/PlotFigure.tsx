@@ -33,8 +33,11 @@ export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 2
   useEffect(() => {
     const host = ref.current;
     if (!host) return;
+    let drawnWidth = -1;
     const draw = () => {
       const w = width ?? Math.max(280, host.clientWidth);
+      if (w === drawnWidth) return; // the observer's first call and height-only changes need no redraw
+      drawnWidth = w;
       const fig = Plot.plot({
         style: { background: 'transparent', color: 'currentColor', fontFamily: 'var(--font-sans)', fontSize: '11px', overflow: 'visible' },
         marginLeft: 56,
