@@ -1,7 +1,7 @@
 /**
  * Demo accounts and the demo network (an invented scenario): a site
  * administrator, and an owner, an analyst and a viewer of the network
- * "Harrowgate Basin ELF Array". Idempotent: accounts are matched by e-mail,
+ * "Corrowind Basin ELF Array". Idempotent: accounts are matched by e-mail,
  * the network by name; passwords and roles are reset to the demo values.
  */
 import { findUserByEmail, insertUser, setUserAdmin, updateUserPassword } from '@/db/repo/users';
@@ -10,7 +10,7 @@ import { hashPassword, verifyPassword } from '@/src/auth/password';
 import { newUserId } from '@/src/auth/accounts';
 import type { DemoSignIn } from './types';
 
-export const DEMO_NETWORK_NAME = 'Harrowgate Basin ELF Array';
+export const DEMO_NETWORK_NAME = 'Corrowind Basin ELF Array';
 
 interface DemoAccount extends DemoSignIn {
   name: string;

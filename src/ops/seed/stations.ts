@@ -26,11 +26,11 @@ export const DEMO_STATIONS: Demo[] = [
   { code: 'ARV', name: 'Arvel Fen', latitude: 61.21, longitude: 24.73, elevationM: 96, mainsHz: 50, components: ['Bns', 'Bew'] },
   { code: 'BRQ', name: 'Brisquet Plateau', latitude: 39.42, longitude: -105.88, elevationM: 2790, mainsHz: 60, components: ['Ez', 'Bns', 'Bew'] },
   { code: 'CDL', name: 'Cordelin Sound', latitude: -33.58, longitude: 147.21, elevationM: 410, mainsHz: 50, components: ['Bns', 'Bew'] },
-  { code: 'DNM', name: 'Dunmarra Saddle', latitude: -23.12, longitude: -67.44, elevationM: 3960, mainsHz: 50, components: ['Ez', 'Bns', 'Bew'] },
+  { code: 'DNM', name: 'Dunvarrel Saddle', latitude: -23.12, longitude: -67.44, elevationM: 3960, mainsHz: 50, components: ['Ez', 'Bns', 'Bew'] },
   { code: 'EHK', name: 'Ehkari Terrace', latitude: 35.87, longitude: 138.92, elevationM: 1320, mainsHz: 60, components: ['Bns', 'Bew'] },
   { code: 'FLV', name: 'Falvorn Skerry', latitude: 64.71, longitude: -18.05, elevationM: 40, mainsHz: 50, components: ['Ez', 'Bns', 'Bew'],
     lines: [{ frequencyHz: 16.7, label: 'railway supply on the mainland' }] },
-  { code: 'GSW', name: 'Gasswater Rift', latitude: -1.31, longitude: 36.42, elevationM: 1850, mainsHz: 50, components: ['Bns', 'Bew'] },
+  { code: 'GSW', name: 'Gessvarin Rift', latitude: -1.31, longitude: 36.42, elevationM: 1850, mainsHz: 50, components: ['Bns', 'Bew'] },
   { code: 'HLC', name: 'Halcyon Shelf', latitude: -71.38, longitude: 12.24, elevationM: 120, mainsHz: 60, components: ['Bns', 'Bew'],
     lines: [{ frequencyHz: 11.3, label: 'camp generator subharmonic' }] },
 ];
