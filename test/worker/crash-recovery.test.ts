@@ -69,8 +69,10 @@ describe('crash recovery with real worker processes', () => {
 
   it('sweeps queue at most one continuation per lapsed run, however many sweep at once', async () => {
     const w = await makeRunWorld(1);
-    const run = await launchRun(w.networkId, w.userId, w.config);
     const boss = await getBoss();
+    // Earlier test files may leave run jobs queued in the shared test database: start from an empty queue.
+    await boss.purgeQueue(RUN_QUEUE);
+    const run = await launchRun(w.networkId, w.userId, w.config);
     // Drain the launch job so only the sweep's jobs are pending (no worker runs yet).
     const [launched] = await boss.fetch(RUN_QUEUE);
     expect(launched.data).toEqual({ runId: run.id });
