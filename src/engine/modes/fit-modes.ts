@@ -15,11 +15,10 @@ import { CONVERGED_REASONS } from '@/src/engine/optim/types';
 import { OptimInputError } from '@/src/engine/optim/errors';
 import { MODE_FREQUENCY_WINDOW_HZ } from '@/src/engine/tolerances';
 import { initialGuess } from './initial-guess';
-import { lorentzianModel } from './lorentzian';
 import { resolveModeFitOptions, type ModeFitOptions } from './options';
 import { qualityOfFit } from './quality';
 import { paramCount, type FittedMode, type ModeFit } from './types';
-import { weightedLorentzianFit } from './weighted-fit';
+import { twoStageLorentzianFit } from './two-stage-fit';
 
 export class ModeFitError extends Error {}
 
@@ -48,15 +47,9 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
     }
   });
   const guess = initialGuess(freqs, data, o.guessHz);
-  const sigma = data.map((v) => rel * v);
-  const common = { modes: o.modes, freqs, data, lower: guess.lower, upper: guess.upper, lm: o.lm, shouldStop: o.shouldStop };
-  let first, final;
+  let final;
   try {
-    first = weightedLorentzianFit({ ...common, sigma, start: guess.start });
-    const model = new Float64Array(freqs.length);
-    lorentzianModel(first.params, o.modes, freqs, model);
-    const modelOk = model.every((v) => v > 0 && Number.isFinite(v));
-    final = modelOk ? weightedLorentzianFit({ ...common, sigma: model.map((v) => rel * v), start: first.params }) : first;
+    final = twoStageLorentzianFit({ modes: o.modes, freqs, data, rel, start: guess.start, lower: guess.lower, upper: guess.upper, lm: o.lm, shouldStop: o.shouldStop }).final;
   } catch (e) {
     if (e instanceof OptimInputError) throw new ModeFitError(`the fit could not start: ${e.message}`);
     throw e;
