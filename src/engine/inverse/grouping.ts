@@ -5,7 +5,10 @@
  * best point (longitudes compared around the circle) and the misfits agree
  * within MINIMA_MISFIT_REL_TOL; otherwise it opens a new minimum. Starts that
  * did not converge join the minimum nearest in the same scaled distance, so
- * the counts add up to the number of starts.
+ * the counts add up to the number of starts; one that ended below that
+ * minimum's misfit becomes its best point when it lies within the same
+ * tolerances, and otherwise opens a minimum of its own. So every minimum's
+ * misfit is the smallest final misfit of its starts. Minima come best first.
  */
 import { MINIMA_MISFIT_ABS_TOL, MINIMA_MISFIT_REL_TOL, MINIMA_PARAM_TOL, MINIMA_UNBOUNDED_SCALE } from '@/src/engine/tolerances';
 
@@ -42,26 +45,36 @@ export function scaledDistance(a: Float64Array, b: Float64Array, o: GroupingOpti
   return worst;
 }
 
-export function groupMinima(finished: FinishedStart[], o: GroupingOptions): Group[] {
+function sameMinimum(f: FinishedStart, best: FinishedStart, o: GroupingOptions): boolean {
   const tol = o.paramTol ?? MINIMA_PARAM_TOL;
   const rel = o.misfitRelTol ?? MINIMA_MISFIT_REL_TOL;
-  const byMisfit = (a: FinishedStart, b: FinishedStart) => a.chi2 - b.chi2 || a.index - b.index;
+  return (
+    scaledDistance(f.params, best.params, o) <= tol &&
+    Math.abs(f.chi2 - best.chi2) <= rel * Math.max(f.chi2, best.chi2) + MINIMA_MISFIT_ABS_TOL
+  );
+}
+
+/** Misfit as a sort key: non-finite values last. */
+const key = (f: FinishedStart) => (Number.isFinite(f.chi2) ? f.chi2 : Infinity);
+
+export function groupMinima(finished: FinishedStart[], o: GroupingOptions): Group[] {
+  const byMisfit = (a: FinishedStart, b: FinishedStart) => key(a) - key(b) || a.index - b.index;
   const good = finished.filter((f) => f.converged && Number.isFinite(f.chi2)).sort(byMisfit);
   const rest = finished.filter((f) => !(f.converged && Number.isFinite(f.chi2))).sort(byMisfit);
   const groups: Group[] = [];
   for (const f of good) {
-    const g = groups.find(
-      (g) =>
-        scaledDistance(f.params, g.best.params, o) <= tol &&
-        Math.abs(f.chi2 - g.best.chi2) <= rel * Math.max(f.chi2, g.best.chi2) + MINIMA_MISFIT_ABS_TOL,
-    );
+    const g = groups.find((g) => sameMinimum(f, g.best, o));
     if (g) g.members.push(f);
     else groups.push({ best: f, members: [f] });
   }
   for (const f of rest) {
-    if (groups.length === 0 || !Number.isFinite(f.chi2)) {
-      if (groups.length > 0) groups[groups.length - 1].members.push(f);
-      else groups.push({ best: f, members: [f] });
+    if (groups.length === 0) {
+      groups.push({ best: f, members: [f] });
+      continue;
+    }
+    if (!Number.isFinite(f.chi2)) {
+      // no place to compare: counted with the worst minimum
+      groups.reduce((w, g) => (key(g.best) >= key(w.best) ? g : w)).members.push(f);
       continue;
     }
     let bestG = groups[0];
@@ -70,8 +83,12 @@ export function groupMinima(finished: FinishedStart[], o: GroupingOptions): Grou
       const d = scaledDistance(f.params, g.best.params, o);
       if (d < bestD) [bestD, bestG] = [d, g];
     }
-    bestG.members.push(f);
+    if (!(f.chi2 < bestG.best.chi2)) bestG.members.push(f);
+    else if (sameMinimum(f, bestG.best, o)) {
+      bestG.members.push(f);
+      bestG.best = f;
+    } else groups.push({ best: f, members: [f] });
   }
   for (const g of groups) g.members.sort((a, b) => a.index - b.index);
-  return groups;
+  return groups.sort((a, b) => byMisfit(a.best, b.best));
 }

@@ -3,7 +3,7 @@
  * invertSpectra (log-power misfit of observed spectra) and invertModes
  * (misfit of observed mode parameters), returning distinct minima best first.
  */
-import { buildMinima } from './minima';
+import { buildMinima, startEnds } from './minima';
 import { multiStart, resolveMultiStartOptions, type MultiStartOptions } from './multistart';
 import { prepareRecipe, type ProblemRecipe } from './recipes';
 import { prepareSpectrum, type ModeInversionInput, type SpectrumInversionInput } from './spectrum-setup';
@@ -20,6 +20,7 @@ async function runInversion(
   const prepared = prepareRecipe(recipe);
   const par = prepared.par!;
   const outcomes = await multiStart(recipe, prepared.problem, o, callbacks);
+  const minima = buildMinima(outcomes, par, prepared.nData, o.scaleErrors);
   return {
     starts: o.starts,
     seed: o.seed,
@@ -28,7 +29,8 @@ async function runInversion(
     nParams: par.slots.length,
     paramNames: par.names,
     unconverged: outcomes.filter((x) => !x.converged).length,
-    minima: buildMinima(outcomes, par, prepared.nData, o.scaleErrors),
+    minima,
+    startEnds: startEnds(outcomes, minima),
   };
 }
 

@@ -9,7 +9,7 @@ import type { StopReason } from '@/src/engine/optim/types';
 import { groupMinima } from './grouping';
 import { physicalParams, sourcesOf, type Parameterisation } from './parameters';
 import type { StartOutcome } from './run-starts';
-import type { Minimum, ParamKind } from './types';
+import type { Minimum, ParamKind, StartEnds } from './types';
 
 function square(a: Float64Array, n: number): number[][] {
   return Array.from({ length: n }, (_, i) => Array.from(a.subarray(i * n, i * n + n)));
@@ -59,4 +59,18 @@ export function buildMinima(
       stopReasons,
     };
   });
+}
+
+/** Each start's own final misfit, iterations, stop reason and minimum rank, in start order. */
+export function startEnds(outcomes: StartOutcome[], minima: Minimum[]): StartEnds {
+  const rank = new Map<number, number>();
+  minima.forEach((m, i) => m.startIndexes.forEach((s) => rank.set(s, i)));
+  const sorted = [...outcomes].sort((a, b) => a.index - b.index);
+  return {
+    index: sorted.map((o) => o.index),
+    misfit: sorted.map((o) => (Number.isFinite(o.chi2) ? o.chi2 : null)),
+    iterations: sorted.map((o) => o.iterations),
+    stopReason: sorted.map((o) => o.stopReason),
+    minimum: sorted.map((o) => rank.get(o.index) ?? -1),
+  };
 }

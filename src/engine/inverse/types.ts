@@ -64,6 +64,8 @@ export interface ObservedModes {
   station: string;
   component: Component;
   modes: ObservedMode[];
+  /** The mode fit these came from (modes fitted, band in Hz); the predicted modes go through the same fit. Absent: the default fit of as many modes as the observed ones reach. */
+  fit?: { modes: number; minHz: number; maxHz: number };
 }
 
 export interface SourceEstimate {
@@ -105,6 +107,22 @@ export interface Minimum {
   stopReasons: Partial<Record<StopReason, number>>;
 }
 
+/**
+ * How each start ended, as columns of equal length in start order. Misfits
+ * are null where the start ended on a non-finite chi-square (JSON has no NaN).
+ */
+export interface StartEnds {
+  /** Start number (0-based), ascending. */
+  index: number[];
+  /** Final chi-square of the start itself (not of its minimum). */
+  misfit: (number | null)[];
+  /** Levenberg–Marquardt iterations the start took. */
+  iterations: number[];
+  stopReason: StopReason[];
+  /** Rank (0-based, best first) of the minimum the start is counted in. */
+  minimum: number[];
+}
+
 export interface InversionResult {
   starts: number;
   seed: number;
@@ -115,6 +133,8 @@ export interface InversionResult {
   /** Starts that did not converge (counted within the minimum they ended nearest). */
   unconverged: number;
   minima: Minimum[];
+  /** Each start's own end; absent from results stored before it was recorded. */
+  startEnds?: StartEnds;
 }
 
 export interface InversionProgress {
