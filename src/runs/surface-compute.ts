@@ -1,19 +1,31 @@
 /**
- * Computing a cached misfit surface with the engine's spectrumSurface: chi-square
- * over a grid of two free parameters, the others held at the chosen minimum
- * ('fixed') or re-minimised at every point ('profile'). The grid spans +-3
- * standard errors around the minimum (in the internal parameterisation: log
- * intensity, degrees), clipped to the bounds.
+ * Computing a cached misfit surface: chi-square over a grid of two free
+ * parameters, the others held at the chosen minimum ('fixed') or re-minimised
+ * at every point ('profile'), for spectrum and mode-parameter runs alike. The
+ * least-squares problem is built from the same recipe the run solver hands the
+ * multi-start driver (log-power spectra, or fitted modes on the mode grid), so
+ * the surface passes through the stored minimum. The grid spans +-3 standard
+ * errors around the minimum (in the internal parameterisation: log intensity,
+ * degrees), clipped to the bounds.
  */
-import { getRunById, getSurfaceById, setSurface } from '@/db/repo/runs';
-import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
-import { spectrumSurface } from '@/src/engine/inverse/invert';
+import { getRunById, getSurfaceById, listRunIntervals, setSurface } from '@/db/repo/runs';
+import { prepareRecipe, type ProblemRecipe } from '@/src/engine/inverse/recipes';
+import { misfitSurface } from '@/src/engine/inverse/surface';
 import type { InversionResult, MisfitSurface } from '@/src/engine/inverse/types';
 import { loadRunContext } from './context';
-import { loadObservations } from './observations';
-import { listRunIntervals } from '@/db/repo/runs';
+import { loadIntervalObservations, MODE_BAND, type IntervalObservations } from './observations';
+import type { RunContext } from './types';
 import { buildUnknowns } from './unknowns';
 import type { SurfaceSpec } from './surfaces';
+
+/** The problem recipe of one interval, as the run solver builds its input (src/runs/solver.ts). */
+export function intervalRecipe(ctx: RunContext, obs: IntervalObservations): Extract<ProblemRecipe, { kind: 'spectrum' | 'modes' }> {
+  const stations = ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon }));
+  const unknowns = buildUnknowns(ctx.config, ctx.grid);
+  return obs.modes
+    ? { kind: 'modes', input: { cavity: ctx.cavity, band: MODE_BAND, stations, modes: obs.modes, unknowns } }
+    : { kind: 'spectrum', input: { cavity: ctx.cavity, stations, observed: obs.observed, unknowns } };
+}
 
 const SPAN_SIGMAS = 3;
 
@@ -38,13 +50,10 @@ export async function computeSurface(surfaceId: string): Promise<'ready' | 'fail
     const result = iv?.result as unknown as InversionResult | undefined;
     const minimum = result?.minima?.[spec.minimum];
     if (!result || !minimum) throw new Error('the interval or minimum has no stored result');
-    const observed = await loadObservations(ctx.networkId, ctx.config, new Date(spec.interval));
-    if (ctx.config.observables.kind !== 'spectrum') throw new Error('misfit surfaces are drawn for spectrum runs');
-    const input = {
-      cavity: ctx.cavity, stations: ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),
-      observed, unknowns: buildUnknowns(ctx.config, ctx.grid),
-    };
-    const { par } = prepareSpectrum(input);
+    const obs = await loadIntervalObservations(ctx.networkId, ctx.config, new Date(spec.interval));
+    if (obs.modes && obs.modes.length === 0) throw new Error('this interval has no stored mode fits any more');
+    const { problem, par: maybePar } = prepareRecipe(intervalRecipe(ctx, obs));
+    const par = maybePar!;
     const ix = par.names.indexOf(spec.x);
     const iy = par.names.indexOf(spec.y);
     if (ix < 0 || iy < 0) throw new Error(`unknown parameter ${ix < 0 ? spec.x : spec.y}`);
@@ -58,7 +67,7 @@ export async function computeSurface(surfaceId: string): Promise<'ready' | 'fail
     const phys = (i: number, v: number) => (par.slots[i].kind === 'intensity' ? Math.exp(v) : v);
     const xs = axis(p0[ix], sigmaOf(ix), par.lower[ix], par.upper[ix], spec.points).map((v) => phys(ix, v));
     const ys = axis(p0[iy], sigmaOf(iy), par.lower[iy], par.upper[iy], spec.points).map((v) => phys(iy, v));
-    const computed = spectrumSurface(input, { xName: spec.x, yName: spec.y, x: xs, y: ys, mode: spec.mode, at: minimum.internal });
+    const computed = misfitSurface(problem, par, { xName: spec.x, yName: spec.y, x: xs, y: ys, mode: spec.mode, at: minimum.internal });
     const surface: MisfitSurface & { centre: { x: number; y: number; misfit: number } } = {
       ...computed, centre: { x: phys(ix, p0[ix]), y: phys(iy, p0[iy]), misfit: minimum.misfit },
     };

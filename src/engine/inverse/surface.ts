@@ -2,15 +2,15 @@
  * Misfit surfaces: chi-square on a grid over two free parameters, the others
  * either held at a minimum ('fixed') or re-optimised at every grid point
  * ('profile', each point started from the minimum). Grid values are physical
- * (intensity in C^2 km^2/s, degrees).
+ * (intensity in C^2 km^2/s, degrees). Any least-squares problem over the
+ * region parameterisation will do: log-power spectra or mode parameters.
  */
 import { levenbergMarquardt } from '@/src/engine/optim/levenberg-marquardt';
 import { sumSquares } from '@/src/engine/optim/normal-equations';
 import { holdParameters } from '@/src/engine/optim/subproblem';
-import type { LmOptions } from '@/src/engine/optim/types';
+import type { LeastSquaresProblem, LmOptions } from '@/src/engine/optim/types';
 import { InversionInputError } from './errors';
 import type { Parameterisation } from './parameters';
-import type { SpectrumProblem } from './spectrum-objective';
 import type { MisfitSurface } from './types';
 
 export interface SurfaceRequest {
@@ -39,7 +39,7 @@ function toInternal(par: Parameterisation, j: number, v: number): number {
 }
 
 export function misfitSurface(
-  problem: SpectrumProblem,
+  problem: LeastSquaresProblem,
   par: Parameterisation,
   req: SurfaceRequest,
   shouldCancel?: () => boolean,

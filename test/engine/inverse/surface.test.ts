@@ -4,17 +4,22 @@
  * parameters held, chi2 rises by d^T A d (A = the 2x2 block of J^T W J); with
  * them re-optimised (profile), by d^T (C_2x2)^-1 d, C the covariance. Offsets
  * of half a standard error keep the quadratic approximation within a few %.
+ * The same for a mode-parameter inversion (fitted modes of forward-model
+ * spectra): the surface drawn around its minimum is lowest at that minimum.
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { inverse, Matrix } from 'ml-matrix';
 import { invertCaseSchema } from '@/src/engine/case';
 import { inputFromCase } from '@/src/engine/inverse/from-case';
-import { invertSpectra } from '@/src/engine/inverse/invert';
-import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import { invertModes, invertSpectra } from '@/src/engine/inverse/invert';
+import { prepareModes, prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import type { ObservedModes } from '@/src/engine/inverse/types';
+import { fitModes } from '@/src/engine/modes/fit-modes';
 import { misfitSurface } from '@/src/engine/inverse/surface';
 import { levenbergMarquardt } from '@/src/engine/optim/levenberg-marquardt';
 import { covarianceFromJtJ } from '@/src/engine/optim/covariance';
+import { LINEAR_CAVITY, syntheticObserved } from './helpers';
 
 describe('misfit surfaces', () => {
   it('rise as the quadratic form of J^T W J (fixed) and of the inverse covariance block (profile)', async () => {
@@ -53,5 +58,59 @@ describe('misfit surfaces', () => {
     expect(() => misfitSurface(problem, par, { xName: 'R9.lat', yName: 'R1.lon', x: [0], y: [0], mode: 'fixed', at: new Array(6).fill(0) })).toThrow(
       /"R9.lat" is not a free parameter/,
     );
+  });
+});
+
+describe('misfit surfaces of a mode-parameter inversion', () => {
+  const stations = [
+    { code: 'SF1', lat: 40, lon: -5 },
+    { code: 'SF2', lat: -25, lon: 30 },
+    { code: 'SF3', lat: 5, lon: 75 },
+  ];
+  const band = { minHz: 4, maxHz: 36, stepHz: 0.1 };
+  const freqs = Float64Array.from({ length: 321 }, (_, i) => band.minHz + band.stepHz * i);
+  const segments = 100;
+  const unknowns = [{ name: 'R1', intensity: { min: 1e3, max: 1e6 }, lat: { min: -20, max: 25 }, lon: { min: 0, max: 50 } }];
+  // Lorentzian mode fits of forward-model spectra with Welch-like scatter 1/sqrt(K) per bin
+  // (Welch 1967, IEEE Trans. Audio Electroacoust. 15, 70), read as a run reads stored fits.
+  const modes: ObservedModes[] = syntheticObserved(stations, [{ lat: 6, lon: 24, intensity: 3e4 }], freqs, 1 / Math.sqrt(segments), 5).map((s) => {
+    const fit = fitModes(s.frequencies, s.power, { modes: 3, minHz: 4, maxHz: 30, averages: segments });
+    return {
+      station: s.station, component: s.component,
+      modes: fit.modes.flatMap((m) => {
+        const peak = m.amplitude + fit.background.b0 + fit.background.b1 * m.frequency;
+        const e = m.errors;
+        if (!(peak > 0) || !(e.frequency > 0) || !(e.amplitude > 0) || !(e.halfWidth > 0)) return [];
+        if (m.frequency - m.halfWidth < band.minHz || m.frequency + m.halfWidth > band.maxHz) return [];
+        return [{ frequency: m.frequency, intensity: peak, halfWidth: m.halfWidth, sigmaFrequency: e.frequency, sigmaLogIntensity: e.amplitude / peak, sigmaHalfWidth: e.halfWidth }];
+      }),
+    };
+  }).filter((m) => m.modes.length > 0);
+  const input = { cavity: LINEAR_CAVITY, band, stations, modes, unknowns };
+
+  it('passes through the minimum it is drawn around, which is its lowest point', async () => {
+    const res = await invertModes(input, { starts: 6, seed: 1, threads: 1 });
+    const { problem, par } = prepareModes(input);
+    // polish the minimum so that no grid point can undercut it by a leftover descent step
+    const lm = levenbergMarquardt(problem, Float64Array.from(res.minima[0].internal), { misfitTol: 1e-15, stepTol: 1e-14 });
+    expect(lm.chi2).toBeLessThanOrEqual(res.minima[0].misfit);
+    const at = Array.from(lm.params);
+    const cov = covarianceFromJtJ(lm.jtj, at.length);
+    const ix = par.names.indexOf('R1.lat');
+    const iy = par.names.indexOf('R1.lon');
+    const grid = (j: number) => [-1, -0.5, 0, 0.5, 1].map((k) => at[j] + k * cov.stdErrors[j]);
+    for (const mode of ['fixed', 'profile'] as const) {
+      const s = misfitSurface(problem, par, { xName: 'R1.lat', yName: 'R1.lon', x: grid(ix), y: grid(iy), mode, at });
+      // the predicted modes come from an iterative Lorentzian fit of the predicted spectrum,
+      // converged to its own tolerance: the same point agrees to about 1e-8 relative
+      expect(Math.abs(s.misfit[2][2] - lm.chi2) / lm.chi2).toBeLessThan(1e-6);
+      const lowest = Math.min(...s.misfit.flat());
+      // chi-square rises away from a minimum (Press et al., Numerical Recipes 3rd ed., §15.6.5)
+      expect(lowest).toBeGreaterThanOrEqual(lm.chi2 * (1 - 1e-6));
+      expect(s.misfit.flat().indexOf(lowest)).toBe(12);
+      // one standard error out along either axis, with the other parameters held, the rise is
+      // about 1 (the quadratic form at a distance of 1 sigma of the marginal is >= 1)
+      if (mode === 'fixed') expect(s.misfit[2][4] - lm.chi2).toBeGreaterThan(0.5);
+    }
   });
 });
