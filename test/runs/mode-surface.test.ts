@@ -1,0 +1,67 @@
+/**
+ * Misfit surfaces of a mode-parameter run on the demo day's stored mode fits:
+ * the surface is computed on the same problem the run solved, so it passes
+ * through the stored minimum, and with the other parameters held ('fixed')
+ * no grid point lies below it (chi-square rises away from a minimum, Press et
+ * al., Numerical Recipes 3rd ed., §15.6.5). The stored result also carries
+ * each start's own end, and the minimum's misfit is the smallest of them.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDatabase, resetDatabase } from '@/test/helpers/db';
+import * as accounts from '@/src/ops/seed/accounts';
+import * as stations from '@/src/ops/seed/stations';
+import * as runs from '@/src/ops/seed/runs';
+import { createRun, getSurfaceById, listRunIntervals, listRuns } from '@/db/repo/runs';
+import { getRunView } from '@/src/runs/results';
+import { checkLaunch } from '@/src/runs/launch';
+import { executeRun } from '@/src/runs/execute';
+import { makeEngineSolver } from '@/src/runs/solver';
+import { computeSurface } from '@/src/runs/surface-compute';
+import type { RunConfig } from '@/src/runs/config';
+import type { InversionResult, MisfitSurface } from '@/src/engine/inverse/types';
+import { requestSurfaceRow } from './surface-helper';
+
+describe('misfit surfaces of a mode run', () => {
+  beforeAll(async () => {
+    await resetDatabase();
+    await accounts.seed();
+    await stations.seed();
+    await runs.seed();
+  });
+  afterAll(closeDatabase);
+
+  it('pass through the stored minimum, which is the lowest point of a fixed surface', async () => {
+    const net = await accounts.demoNetworkId();
+    const [demo] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN);
+    const view = await getRunView(net, demo.id);
+    const config: RunConfig = {
+      ...view.config, name: 'Modes for a surface', observables: { kind: 'modes', modes: 3 }, starts: 4,
+      data: { ...view.config.data, from: '2026-03-14T15:00:00.000Z', to: '2026-03-14T15:10:00.000Z' },
+    };
+    const { problems, preview } = await checkLaunch(net, config);
+    expect(problems).toEqual([]);
+    const run = await createRun({
+      networkId: net, name: config.name, config: config as never, modelId: view.model.id, gridId: view.grid.id,
+      engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: null,
+    });
+    expect(await executeRun(run.id, { solve: makeEngineSolver(1), workerId: 'mode-surface' })).toBe('finished');
+    const [row] = await listRunIntervals(run.id);
+    const res = row.result as unknown as InversionResult;
+    const best = res.minima[0];
+    const own = best.startIndexes.map((s) => res.startEnds!.misfit[s]).filter((v): v is number => v !== null);
+    expect(best.misfit).toBe(Math.min(...own));
+
+    const id = await requestSurfaceRow(run.id, { interval: row.startsAt.toISOString(), minimum: 0, x: 'Middle belt.lat', y: 'Middle belt.lon', points: 5, mode: 'fixed' });
+    expect(await computeSurface(id), (await getSurfaceById(id))?.error ?? '').toBe('ready');
+    const surf = (await getSurfaceById(id))!.result as unknown as MisfitSurface & { centre: { x: number; y: number; misfit: number } };
+    const all = surf.misfit.flat();
+    for (const v of all) expect(Number.isFinite(v)).toBe(true);
+    expect(surf.centre.misfit).toBe(best.misfit);
+    expect(Math.min(...all)).toBeGreaterThanOrEqual(best.misfit * (1 - 1e-6));
+    // where the grid is not clipped by the bounds, its middle point is the minimum itself
+    const ix = surf.x.findIndex((v) => Math.abs(v - surf.centre.x) < 1e-9);
+    const iy = surf.y.findIndex((v) => Math.abs(v - surf.centre.y) < 1e-9);
+    if (ix >= 0 && iy >= 0) expect(Math.abs(surf.misfit[iy][ix] - best.misfit) / best.misfit).toBeLessThan(1e-6);
+    expect(ix >= 0 || iy >= 0).toBe(true);
+  });
+});
