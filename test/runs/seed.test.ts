@@ -1,4 +1,4 @@
-/** The demo runs seeder: a model, a grid and one finished run on the demo stations' data; running it again changes nothing. */
+/** The demo runs seeder: models, a grid and two finished runs (spectra, fitted modes) on the demo stations' data; running it again changes nothing. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import * as accounts from '@/src/ops/seed/accounts';
@@ -44,6 +44,21 @@ describe('demo runs seeder', () => {
     expect(await listRunIntervals(run.id)).toHaveLength(13);
     expect(await listModels(net)).toHaveLength(2);
     expect(await listGrids(net)).toHaveLength(1);
+  });
+
+  it('stores a finished mode-parameter run that keeps each start\'s own end', async () => {
+    const net = await accounts.demoNetworkId();
+    const [run] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_MODE_RUN);
+    expect(run.state).toBe('finished');
+    const rows = await listRunIntervals(run.id);
+    expect(rows).toHaveLength(2); // 15:00 and 15:10 UT
+    for (const row of rows) {
+      const res = row.result as unknown as InversionResult;
+      expect(res.paramNames).toContain('Middle belt.lat');
+      expect(res.startEnds!.index).toEqual([0, 1, 2, 3]);
+      // each minimum's misfit is the smallest final misfit of the starts counted in it
+      for (const m of res.minima) expect(m.misfit).toBe(Math.min(...m.startIndexes.map((i) => res.startEnds!.misfit[i] ?? Infinity)));
+    }
   });
 
   it('inverts the stored mode fits of the demo data with the engine\'s mode objective', async () => {

@@ -1,9 +1,10 @@
 /**
  * Demo runs seeder: two cavity models (Ishaq–Jones and linear), a source grid
  * with the three invented tropical belts of the demo day as moving spot
- * regions plus a fixed region of land cells, and one finished run on the demo
- * stations' data for the afternoon peak of the middle belt (14:00–16:00 UT). Idempotent: models
- * and grid are matched by name; the run is matched by name and resumed if a
+ * regions plus a fixed region of land cells, and two finished runs on the demo
+ * stations' data: the afternoon peak of the middle belt from spectra (14:00–16:00 UT) and a
+ * short run from the stations' fitted modes (15:00–15:10 UT). Idempotent: models
+ * and grid are matched by name; a run is matched by name and resumed if a
  * previous seeding stopped half-way. Everything here is invented.
  */
 import { findModelByName } from '@/db/repo/models';
@@ -26,6 +27,7 @@ export const DEMO_MODEL = 'Ishaq–Jones, 60 km';
 export const DEMO_LINEAR_MODEL = 'Linear reference';
 export const DEMO_GRID = 'Three tropical belts';
 export const DEMO_RUN = 'Afternoon peak of the middle belt';
+export const DEMO_MODE_RUN = 'Middle belt from fitted modes';
 
 function demoGrid(): GridInput {
   const cell = 10;
@@ -48,26 +50,35 @@ export async function seedDemoRuns(networkId: string): Promise<void> {
     await saveModel(networkId, null, { name: DEMO_LINEAR_MODEL, notes: 'Demo model: the linear propagation parameter.', config: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 } });
   }
   const grid = (await findGridByName(networkId, DEMO_GRID)) ?? await saveGrid(networkId, null, demoGrid());
-  const existing = (await listRuns(networkId)).find((r) => r.name === DEMO_RUN);
+  const stations = await listStations(networkId);
+  const base: RunConfig = {
+    name: DEMO_RUN, modelId: model.id, gridId: grid.id,
+    data: { stationIds: stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'], from: `${DEMO_DAY}T14:00:00.000Z`, to: `${DEMO_DAY}T16:00:00.000Z`, includeFlagged: false },
+    observables: { kind: 'spectrum', minHz: 6, maxHz: 26, every: 5 },
+    regions: [
+      { region: 'middle-belt', intensity: { min: 1e3, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 0, max: 40 } },
+      { region: 'west-belt', intensity: { min: 1e3, max: 1e6 } },
+      { region: 'east-belt', intensity: { min: 1e3, max: 1e6 } },
+    ],
+    damping: { initialLambda: 1e-2, maxIterations: 100, scaleCovariance: true },
+    starts: 4, seed: 1,
+  };
+  await ensureRun(networkId, base);
+  await ensureRun(networkId, {
+    ...base, name: DEMO_MODE_RUN, observables: { kind: 'modes', modes: 3 },
+    data: { ...base.data, from: `${DEMO_DAY}T15:00:00.000Z`, to: `${DEMO_DAY}T15:10:00.000Z` },
+  });
+}
+
+/** Creates the run unless one of that name exists, and finishes it if it is not finished. */
+async function ensureRun(networkId: string, config: RunConfig): Promise<void> {
+  const existing = (await listRuns(networkId)).find((r) => r.name === config.name);
   let runId = existing?.id;
   if (!runId) {
-    const stations = await listStations(networkId);
-    const config: RunConfig = {
-      name: DEMO_RUN, modelId: model.id, gridId: grid.id,
-      data: { stationIds: stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'], from: `${DEMO_DAY}T14:00:00.000Z`, to: `${DEMO_DAY}T16:00:00.000Z`, includeFlagged: false },
-      observables: { kind: 'spectrum', minHz: 6, maxHz: 26, every: 5 },
-      regions: [
-        { region: 'middle-belt', intensity: { min: 1e3, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 0, max: 40 } },
-        { region: 'west-belt', intensity: { min: 1e3, max: 1e6 } },
-        { region: 'east-belt', intensity: { min: 1e3, max: 1e6 } },
-      ],
-      damping: { initialLambda: 1e-2, maxIterations: 100, scaleCovariance: true },
-      starts: 4, seed: 1,
-    };
     const { problems, preview } = await checkLaunch(networkId, config);
-    if (problems.length || !preview) throw new Error(`demo run cannot start: ${problems.map((p) => `${p.field}: ${p.message}`).join('; ')}`);
+    if (problems.length || !preview) throw new Error(`demo run "${config.name}" cannot start: ${problems.map((p) => `${p.field}: ${p.message}`).join('; ')}`);
     const run = await createRun({
-      networkId, name: DEMO_RUN, config: config as unknown as Record<string, unknown>, modelId: model.id, gridId: grid.id,
+      networkId, name: config.name, config: config as unknown as Record<string, unknown>, modelId: config.modelId, gridId: config.gridId,
       engineVersion: engineVersion(), intervalStarts: preview.intervalStarts, startsPerInterval: config.starts, createdBy: null,
     });
     runId = run.id;
