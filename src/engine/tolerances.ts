@@ -49,12 +49,14 @@ export const INVERSION_LM_STEP_TOL = 1e-8;
 /** Step (degrees) of the central difference for the derivative of the misfit with respect to a region's spread. */
 export const SPREAD_DIFF_STEP_DEG = 1e-4;
 /**
- * Mode misfit, Lorentzian through three bins (lorentz-three-point.ts): smooth floors of the curvature c of 1/P,
- * as a fraction of 1/P(f_c) per s^2 (exact while (f0 - f_c)^2 + g^2 <= s^2 / (2 x this) = 25 s^2), and of its
- * vertex q0 = 1/A, as a fraction of 1/P(f_c) (exact while the peak is below 1/(2 x this) = 250 times P(f_c)).
+ * Mode misfit (predicted-modes.ts): the mode fit of a predicted spectrum stops only on a scaled step below this
+ * fraction of the parameters or a gradient cosine below the next (no chi-square-change test), far tighter than a fit
+ * of noisy data, so that the fitted modes follow the source parameters smoothly (central differences agree).
  */
-export const THREE_POINT_CURVATURE_FLOOR = 0.02;
-export const THREE_POINT_VERTEX_FLOOR = 0.002;
+export const PREDICTED_MODE_FIT_STEP_TOL = 1e-13;
+export const PREDICTED_MODE_FIT_GRADIENT_TOL = 1e-14;
+/** Mode misfit: the predicted peak (amplitude plus background) is floored smoothly (C1) at this fraction of the median fitted power, so ln(peak) stays finite where the predicted spectrum shows no peak. */
+export const PREDICTED_PEAK_FLOOR = 1e-3;
 /** Eigenvalues of the scaled J^T J below this fraction of the largest count as unresolved (singular covariance). */
 export const COVARIANCE_RCOND = 1e-10;
 /** Two converged starts belong to one minimum when every parameter differs by less than this fraction of its range… */

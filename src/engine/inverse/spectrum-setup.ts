@@ -7,7 +7,7 @@ import { bandFrequencies, type Band } from '@/src/engine/band';
 import type { CavityConfig } from '@/src/engine/cavity';
 import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { InversionInputError } from './errors';
-import { modeProblem } from './mode-objective';
+import { modeProblem, type ModeProblem } from './mode-objective';
 import { buildDataLayout, type DataLayout } from './data-layout';
 import { engineKernel } from './engine-kernel';
 import type { KernelSampler } from './kernel-sampler';
@@ -53,7 +53,7 @@ export interface ModeInversionInput {
 
 export interface PreparedModes {
   par: Parameterisation;
-  problem: LeastSquaresProblem & { nData: number };
+  problem: ModeProblem;
 }
 
 export function prepareModes(input: ModeInversionInput, kernelFor = engineKernel): PreparedModes {

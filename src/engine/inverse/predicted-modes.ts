@@ -1,0 +1,172 @@
+/**
+ * The observed modes' estimator applied to a predicted spectrum: for each
+ * observed series, the same Lorentzian-plus-linear-background fit the
+ * pipeline ran on the observed spectrum (same number of modes, same band,
+ * same usual-frequency windows and bounds, same two weighted passes:
+ * two-stage-fit.ts), run on the predicted power of the grid bins in that
+ * band, warm-started at the observed frequencies and half-widths. Each
+ * observed mode is matched to the fitted mode of its window (the usual
+ * frequency it lies nearest to; the windows do not overlap).
+ *
+ * Reported per observed mode, as the observations are: frequency, ln of the
+ * peak (amplitude plus background at the mode frequency) and half-width,
+ * with their derivatives with respect to the source parameters by implicit
+ * differentiation of the fit (fit-sensitivity.ts). The peak is floored
+ * smoothly (PREDICTED_PEAK_FLOOR) so that ln(peak) stays finite where the
+ * predicted spectrum shows no peak; a mode the fit does not find (amplitude
+ * held at zero) reads as the warm start in frequency and half-width. The fit
+ * is bounded, so every output is finite for any positive spectrum.
+ */
+import { fitSensitivity } from '@/src/engine/modes/fit-sensitivity';
+import { initialGuess } from '@/src/engine/modes/initial-guess';
+import { ModeFitOptionError, resolveModeFitOptions } from '@/src/engine/modes/options';
+import { twoStageLorentzianFit, type TwoStageResult } from '@/src/engine/modes/two-stage-fit';
+import { MAX_MODES, MIN_MODES, USUAL_MODE_FREQUENCIES_HZ } from '@/src/engine/modes/usual-modes';
+import { paramCount } from '@/src/engine/modes/types';
+import {
+  MODE_FIT_MAX_ITERATIONS,
+  MODE_FREQUENCY_WINDOW_HZ,
+  PREDICTED_MODE_FIT_GRADIENT_TOL,
+  PREDICTED_MODE_FIT_STEP_TOL,
+  PREDICTED_PEAK_FLOOR,
+} from '@/src/engine/tolerances';
+import { InversionInputError } from './errors';
+import type { ObservedModes } from './types';
+
+/** How one observed series' modes are re-estimated from a predicted spectrum (fixed for a run). */
+export interface ModeSeriesSetup {
+  /** Grid indexes of the fitted bins. */
+  bins: Int32Array;
+  freqs: Float64Array;
+  modes: number;
+  guessHz: number[];
+  /** Fitted-mode slot of each observed mode. */
+  slots: number[];
+  /** Observed frequency and half-width per observed mode (the warm start). */
+  warm: { frequency: number; halfWidth: number }[];
+}
+
+/** The fit of one predicted spectrum and the per-observed-mode values (frequency, ln peak, half-width). */
+export interface PredictedSeriesModes {
+  /** The median fitted power (the fit's unit) and its bin. */
+  unit: number;
+  medianBin: number;
+  data: Float64Array;
+  lower: Float64Array;
+  upper: Float64Array;
+  fit: TwoStageResult;
+  /** 3 per observed mode: frequency (Hz), ln peak (SI), half-width (Hz). */
+  values: Float64Array;
+}
+
+const PREDICTED_LM = { misfitTol: 0, stepTol: PREDICTED_MODE_FIT_STEP_TOL, gradientTol: PREDICTED_MODE_FIT_GRADIENT_TOL, maxIterations: MODE_FIT_MAX_ITERATIONS };
+
+function slotOf(f: number): number {
+  let best = 0;
+  USUAL_MODE_FREQUENCIES_HZ.forEach((u, k) => {
+    if (Math.abs(f - u) < Math.abs(f - USUAL_MODE_FREQUENCIES_HZ[best])) best = k;
+  });
+  return best;
+}
+
+export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: string): ModeSeriesSetup {
+  const slots = m.modes.map((md, k) => {
+    const s = slotOf(md.frequency);
+    if (Math.abs(md.frequency - USUAL_MODE_FREQUENCIES_HZ[s]) > MODE_FREQUENCY_WINDOW_HZ * (1 + 1e-9)) {
+      throw new InversionInputError(`${where}.modes[${k}]: ${md.frequency} Hz lies in no mode window (usual frequency ± ${MODE_FREQUENCY_WINDOW_HZ} Hz)`);
+    }
+    return s;
+  });
+  slots.forEach((s, k) => {
+    if (slots.indexOf(s) !== k) throw new InversionInputError(`${where}.modes[${k}]: two observed modes lie in the window of mode ${s + 1}`);
+  });
+  const modes = m.fit?.modes ?? Math.min(MAX_MODES, Math.max(MIN_MODES, Math.max(...slots) + 1));
+  let o;
+  try {
+    o = resolveModeFitOptions({ modes, minHz: m.fit?.minHz, maxHz: m.fit?.maxHz }, grid);
+  } catch (e) {
+    if (e instanceof ModeFitOptionError) throw new InversionInputError(`${where}.fit: ${e.message}`);
+    throw e;
+  }
+  slots.forEach((s, k) => {
+    if (s >= modes) throw new InversionInputError(`${where}.modes[${k}]: mode ${s + 1} was not among the ${modes} fitted modes`);
+  });
+  const idx: number[] = [];
+  for (let i = 0; i < grid.length; i++) if (grid[i] >= o.minHz && grid[i] <= o.maxHz) idx.push(i);
+  const np = paramCount(modes);
+  if (idx.length < 2 * np) throw new InversionInputError(`${where}: only ${idx.length} grid bins between ${o.minHz} and ${o.maxHz} Hz for a fit of ${modes} modes`);
+  const freqs = Float64Array.from(idx, (i) => grid[i]);
+  o.guessHz.forEach((u, n) => {
+    if (u + MODE_FREQUENCY_WINDOW_HZ < freqs[0] || u - MODE_FREQUENCY_WINDOW_HZ > freqs[freqs.length - 1]) {
+      throw new InversionInputError(`${where}: mode ${n + 1} (near ${u} Hz) lies outside the grid's part of the fitted band, ${freqs[0]}–${freqs[freqs.length - 1]} Hz`);
+    }
+  });
+  return { bins: Int32Array.from(idx), freqs, modes, guessHz: o.guessHz, slots, warm: m.modes.map((md) => ({ frequency: md.frequency, halfWidth: md.halfWidth })) };
+}
+
+/** C1 floor: x (x >= 2m), m (1 + exp(x/m - 2)) below; value and derivative. */
+function softFloor(x: number, m: number): [number, number] {
+  if (x >= 2 * m) return [x, 1];
+  const e = Math.exp(x / m - 2);
+  return [m * (1 + e), e];
+}
+
+/** Fit the predicted power of the setup's bins (raw SI values) and read off the observed modes' counterparts. */
+export function predictedSeriesModes(setup: ModeSeriesSetup, power: ArrayLike<number>): PredictedSeriesModes {
+  const raw = Float64Array.from(power);
+  const medianBin = [...raw.keys()].sort((a, b) => raw[a] - raw[b])[Math.floor(raw.length / 2)];
+  const unit = raw[medianBin];
+  const data = raw.map((v) => v / unit);
+  const guess = initialGuess(setup.freqs, data, setup.guessHz);
+  setup.slots.forEach((s, k) => {
+    const inside = (v: number, j: number) => Math.min(guess.upper[j], Math.max(guess.lower[j], v));
+    guess.start[3 * s] = inside(setup.warm[k].frequency, 3 * s);
+    guess.start[3 * s + 2] = inside(setup.warm[k].halfWidth, 3 * s + 2);
+  });
+  const fit = twoStageLorentzianFit({ modes: setup.modes, freqs: setup.freqs, data, rel: 1, start: guess.start, lower: guess.lower, upper: guess.upper, lm: PREDICTED_LM });
+  const q = fit.final.params;
+  const b0 = 3 * setup.modes;
+  const values = new Float64Array(3 * setup.slots.length);
+  setup.slots.forEach((s, k) => {
+    const f = q[3 * s];
+    const [peak] = softFloor(q[3 * s + 1] + q[b0] + q[b0 + 1] * f, PREDICTED_PEAK_FLOOR);
+    // No mode found (amplitude held at zero): frequency and half-width are undetermined; read them as the warm start.
+    const absent = !(q[3 * s + 1] > 0);
+    values.set([absent ? guess.start[3 * s] : f, Math.log(peak * unit), absent ? guess.start[3 * s + 2] : q[3 * s + 2]], 3 * k);
+  });
+  return { unit, medianBin, data, lower: guess.lower, upper: guess.upper, fit, values };
+}
+
+/**
+ * Derivatives of the values (3 per observed mode, row-major x n) with respect to the source
+ * parameters, given d(power of the setup's bins)/dp (raw SI, nb x n row-major).
+ */
+export function predictedModeDerivatives(setup: ModeSeriesSetup, est: PredictedSeriesModes, dPowerDp: ArrayLike<number>, n: number, out: Float64Array): void {
+  const nbins = setup.freqs.length;
+  const dy = new Float64Array(nbins * n);
+  for (let i = 0; i < nbins * n; i++) dy[i] = dPowerDp[i] / est.unit;
+  const { fit } = est;
+  const dq = fitSensitivity(
+    { modes: setup.modes, freqs: setup.freqs, data: est.data, first: fit.first.params, final: fit.final.params, firstModel: fit.firstModel, lower: est.lower, upper: est.upper },
+    dy,
+    n,
+  );
+  const q = fit.final.params;
+  const b0 = 3 * setup.modes;
+  // The floor is a fixed fraction of the median power, so where it acts ln(peak) follows d ln(median)/dp too:
+  // d ln(unit F(x)) = (1 - F'(x) x / F(x)) d ln(unit) + F'(x) dx / F(x), x the peak in units of the median.
+  const dLnUnit = dy.subarray(est.medianBin * n, (est.medianBin + 1) * n);
+  setup.slots.forEach((s, k) => {
+    const f = q[3 * s];
+    const x = q[3 * s + 1] + q[b0] + q[b0 + 1] * f;
+    const [peak, slope] = softFloor(x, PREDICTED_PEAK_FLOOR);
+    const present = q[3 * s + 1] > 0 ? 1 : 0;
+    for (let j = 0; j < n; j++) {
+      const df = dq[3 * s * n + j] * present;
+      const dPeak = dq[(3 * s + 1) * n + j] + dq[b0 * n + j] + f * dq[(b0 + 1) * n + j] + q[b0 + 1] * df;
+      out[3 * k * n + j] = df;
+      out[(3 * k + 1) * n + j] = (slope * dPeak) / peak + (1 - (slope * x) / peak) * dLnUnit[j];
+      out[(3 * k + 2) * n + j] = dq[(3 * s + 2) * n + j] * present;
+    }
+  });
+}
