@@ -102,21 +102,26 @@ export async function reportProgress(runId: string, progress: RunProgress): Prom
   return { cancelRequested: row ? row.cancelRequested : true };
 }
 
-export async function isCancelRequested(runId: string): Promise<boolean> {
-  const [row] = await getDb().select({ c: runs.cancelRequested }).from(runs).where(eq(runs.id, runId));
-  return row ? row.c : true;
-}
-
-/** Stores one finished interval (once) and the run's progress, in one transaction. */
+/**
+ * Stores one finished interval (once) and the run's progress and heartbeat in a
+ * single statement (one round trip: the insert runs as a data-modifying CTE),
+ * and brings back whether someone asked to cancel.
+ */
 export async function saveRunInterval(
   runId: string, entry: { startsAt: Date; nData: number; result: Record<string, unknown>; seconds: number }, progress: RunProgress,
-): Promise<{ inserted: boolean }> {
-  return getDb().transaction(async (tx) => {
-    const ins = await tx.insert(runIntervals).values({ runId, ...entry })
-      .onConflictDoNothing({ target: [runIntervals.runId, runIntervals.startsAt] }).returning({ id: runIntervals.id });
-    await tx.update(runs).set({ progress, heartbeatAt: new Date() }).where(eq(runs.id, runId));
-    return { inserted: ins.length > 0 };
-  });
+): Promise<{ inserted: boolean; cancelRequested: boolean }> {
+  const rows = await getDb().execute<{ inserted: number; cancel_requested: boolean }>(sql`
+    with ins as (
+      insert into ${runIntervals} (run_id, starts_at, n_data, result, seconds)
+      values (${runId}, ${entry.startsAt.toISOString()}, ${entry.nData}, ${JSON.stringify(entry.result)}::jsonb, ${entry.seconds})
+      on conflict (run_id, starts_at) do nothing
+      returning 1
+    )
+    update ${runs} set progress = ${JSON.stringify(progress)}::jsonb, heartbeat_at = now()
+    where id = ${runId}
+    returning (select count(*)::int from ins) as inserted, cancel_requested`);
+  const row = rows[0];
+  return { inserted: (row?.inserted ?? 0) > 0, cancelRequested: row ? row.cancel_requested : true };
 }
 
 export async function listRunIntervals(runId: string): Promise<RunIntervalRow[]> {

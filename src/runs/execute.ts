@@ -5,11 +5,20 @@
  * intervals already stored are skipped — honours cancellation between and
  * within starts, and on a failure keeps what it finished and says why.
  *
+ * The database work overlaps the solving: the next interval's data are loaded
+ * while this one is solved, and an interval's result is written while the next
+ * one is solved (at most one write in flight; it is awaited before the next
+ * write, before the run ends or is handed back, and a failed write stops the
+ * run like a crash). Each write brings back whether someone asked to cancel,
+ * as does the progress timer within a solve. Once it hears of one it stops:
+ * the solve in hand ends at its next start, and nothing solved after the
+ * request is stored.
+ *
  * The solver is passed in (src/runs/solver.ts binds the engine's multi-start
  * inverter), so the driver knows no physics.
  */
 import {
-  claimRun, endRun, finishedIntervalStarts, isCancelRequested, releaseRun, reportProgress, saveRunInterval,
+  claimRun, endRun, finishedIntervalStarts, releaseRun, reportProgress, saveRunInterval,
   type RunProgress,
 } from '@/db/repo/runs';
 import { loadRunContext } from './context';
@@ -23,7 +32,7 @@ export interface ExecuteOptions {
   observe?: (ctx: RunContext, startsAt: Date) => Promise<IntervalObservations>;
   /** Minimum milliseconds between progress writes within an interval. Default 1000. */
   progressEveryMs?: number;
-  /** Called after each stored interval; throwing here simulates a crash (tests). */
+  /** Called after each stored interval, before the next one begins; throwing here simulates a crash (tests). */
   afterInterval?: (index: number) => void | Promise<void>;
   /** Seconds without a heartbeat after which a 'running' run counts as crashed. Default 30. */
   leaseSeconds?: number;
@@ -70,21 +79,34 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     return 'failed';
   }
   const finished = await finishedIntervalStarts(runId);
+  const todo = run.intervalStarts.map((t, i) => ({ t, i })).filter(({ t }) => !finished.has(new Date(t).toISOString()));
   progress.intervalsDone = finished.size;
   const t0 = Date.now();
   let doneThisAttempt = 0;
+  let cancelRequested = false; // heard from a write: stop before the next interval
   let cancelled = false;
-  for (let i = 0; i < total; i++) {
-    const startsAt = run.intervalStarts[i];
-    if (finished.has(new Date(startsAt).toISOString())) continue;
-    if (await isCancelRequested(runId)) { cancelled = true; break; }
+  let writing: Promise<unknown> = Promise.resolve();
+  const failWith = async (msg: string) => {
+    await writing; // what finished before stays stored
+    await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg);
+    return 'failed' as const;
+  };
+  const load = (k: number) => {
+    const p = k < todo.length ? observe(ctx, new Date(todo[k].t)) : null;
+    p?.catch(() => {}); // awaited (and its error reported) when its turn comes
+    return p;
+  };
+  let next = load(0);
+  for (let k = 0; k < todo.length; k++) {
+    if (cancelRequested) { cancelled = true; break; }
+    const { t: startsAt, i } = todo[k];
     const label = new Date(startsAt).toISOString().slice(0, 16).replace('T', ' ');
-    progress.phase = `interval ${label} UT: loading data`;
+    progress.phase = `interval ${label} UT: solving`;
     progress.startsDone = 0;
-    await reportProgress(runId, progress);
     let outcome;
     try {
-      const obs = await observe(ctx, new Date(startsAt));
+      const obs = await next!;
+      next = load(k + 1);
       const c: IntervalCase = { startsAt, ...obs };
       if (countIntervalData(obs) === 0) {
         outcome = { nData: 0, result: { skipped: 'no unflagged data for this interval', minima: [] } };
@@ -94,7 +116,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
         // Progress and heartbeat on a timer (the solver may run on worker threads and
         // keep this event loop free); the same write brings back a cancel request.
         const timer = setInterval(() => {
-          reportProgress(runId, { ...progress }).then((r) => { if (r.cancelRequested) stop = true; }, () => {});
+          reportProgress(runId, { ...progress }).then((r) => { if (r.cancelRequested) stop = cancelRequested = true; }, () => {});
         }, every);
         try {
           outcome = await opts.solve(ctx, c, {
@@ -103,7 +125,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
               progress.startsTotal = all;
               progress.phase = `interval ${label} UT: start ${done} of ${all}`;
             },
-            shouldStop: () => stop,
+            shouldStop: () => stop || cancelRequested,
           });
         } finally {
           clearInterval(timer);
@@ -111,28 +133,32 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
         if (outcome !== 'cancelled') outcome = { ...outcome, seconds: (Date.now() - t1) / 1000 };
       }
     } catch (e) {
-      const msg = e instanceof Error ? e.message : String(e);
-      await endRun(runId, 'failed', { ...progress, phase: 'failed' }, `Interval ${label} UT failed: ${msg}`);
-      return 'failed';
+      return failWith(`Interval ${label} UT failed: ${e instanceof Error ? e.message : String(e)}`);
     }
     if (outcome === 'cancelled') { cancelled = true; break; }
     const notFinite = nonFiniteBest(outcome.result);
-    if (notFinite) {
-      await endRun(runId, 'failed', { ...progress, phase: 'failed' }, `Interval ${label} UT failed: ${notFinite}`);
-      return 'failed';
-    }
+    if (notFinite) return failWith(`Interval ${label} UT failed: ${notFinite}`);
+    await writing; // one write in flight at a time; a failed write (or hook) ends the attempt here
+    if (cancelRequested) { cancelled = true; break; } // asked to stop before this interval was done: not kept
     progress.intervalsDone++;
     doneThisAttempt++;
     progress.etaSeconds = eta(t0, progress.intervalsDone, total, doneThisAttempt);
     progress.phase = `interval ${label} UT finished`;
     const seconds = (outcome as { seconds?: number }).seconds ?? 0;
-    await saveRunInterval(runId, { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds }, { ...progress });
-    await opts.afterInterval?.(i);
-    if (opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs && i < total - 1) {
+    const entry = { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds };
+    writing = saveRunInterval(runId, entry, { ...progress }).then(async (r) => {
+      if (r.cancelRequested) cancelRequested = true;
+      await opts.afterInterval?.(i);
+    });
+    writing.catch(() => {}); // awaited above or below; the error surfaces there
+    if (opts.afterInterval) await writing; // a hook runs before the next interval begins
+    if (opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs && k < todo.length - 1) {
+      await writing;
       await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
       return 'yielded';
     }
   }
+  await writing;
   if (cancelled) {
     await endRun(runId, 'cancelled', { ...progress, phase: `cancelled after ${progress.intervalsDone} of ${total} intervals`, etaSeconds: null });
     return 'cancelled';

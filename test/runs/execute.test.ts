@@ -109,7 +109,10 @@ describe('run driver', () => {
       afterInterval: async (i) => { if (i === 0) await requestCancel(w.networkId, run.id); },
     })).toBe('cancelled');
     expect((await getRunById(run.id))!.state).toBe('cancelled');
-    expect(await listRunIntervals(run.id)).toHaveLength(1);
+    // The driver hears of the request with its next write (its result write of the interval in
+    // hand, or the progress timer within a longer solve): the interval in hand is finished and
+    // kept, and no further interval begins.
+    expect(await listRunIntervals(run.id)).toHaveLength(2);
     expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
     expect(await executeRun(run.id, { solve: engineSolver, workerId: 'w2' })).toBe('finished');
     expect(await listRunIntervals(run.id)).toHaveLength(4);
@@ -136,5 +139,44 @@ describe('run driver', () => {
     expect(r!.state).toBe('failed');
     expect(r!.error).toMatch(/kernel table could not be built/);
     expect(await listRunIntervals(run.id)).toHaveLength(1);
+  });
+
+  it('reports a failure to load the next interval (loaded while the one before is solved) and keeps what it finished', async () => {
+    const w = await makeRunWorld(4);
+    const run = await newRun(w);
+    const { loadIntervalObservations } = await import('@/src/runs/observations');
+    const solved: string[] = [];
+    expect(await executeRun(run.id, {
+      workerId: 'w1',
+      observe: (ctx, t) => (t.toISOString() === new Date(run.intervalStarts[2]).toISOString()
+        ? Promise.reject(new Error('spectra table unreadable'))
+        : loadIntervalObservations(ctx.networkId, ctx.config, t)),
+      solve: (ctx, c, h) => { solved.push(c.startsAt); return engineSolver(ctx, c, h); },
+    })).toBe('failed');
+    const r = await getRunById(run.id);
+    expect(r!.error).toMatch(/^Interval .* UT failed: spectra table unreadable/);
+    expect(solved).toEqual(run.intervalStarts.slice(0, 2));
+    expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(run.intervalStarts.slice(0, 2).map((t) => new Date(t).toISOString()));
+  });
+
+  it('hears a cancel request made by someone else through its own writes and stores nothing solved after it', async () => {
+    const w = await makeRunWorld(5);
+    const run = await newRun(w);
+    const solved: string[] = [];
+    expect(await executeRun(run.id, {
+      workerId: 'w1',
+      solve: async (ctx, c, h) => {
+        solved.push(c.startsAt);
+        if (solved.length === 2) await requestCancel(w.networkId, run.id); // from "another process", mid-solve
+        return engineSolver(ctx, c, h);
+      },
+    })).toBe('cancelled');
+    // Interval 2's result write brings the request back (while interval 3 may already be in
+    // hand): interval 3 is stopped or dropped, nothing after it begins, intervals 1-2 stay.
+    expect(solved.length).toBeLessThanOrEqual(3);
+    expect(await listRunIntervals(run.id)).toHaveLength(2);
+    const r = await getRunById(run.id);
+    expect(r!.state).toBe('cancelled');
+    expect(r!.progress.intervalsDone).toBe(2);
   });
 });
