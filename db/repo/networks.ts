@@ -2,7 +2,7 @@
  * Networks, memberships and invitations. Multi-step writes run in one
  * transaction; the last-owner rule is enforced here under a row lock.
  */
-import { and, asc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { and, asc, eq, gt, gte, isNull, sql } from 'drizzle-orm';
 import { getDb } from '../client';
 import { invitations, memberships, networks, users } from '../schema';
 import { conflict, forbidden, gone, notFound } from '@/src/server/errors';
@@ -126,6 +126,14 @@ export interface NewInvitation {
   tokenHash: string;
   invitedBy: string;
   expiresAt: Date;
+  createdAt?: Date;
+}
+
+/** When a member sent invitations (in any network) since `since`, oldest first. */
+export async function invitationTimesSince(invitedBy: string, since: Date): Promise<Date[]> {
+  const rows = await getDb().select({ t: invitations.createdAt }).from(invitations)
+    .where(and(eq(invitations.invitedBy, invitedBy), gte(invitations.createdAt, since))).orderBy(asc(invitations.createdAt));
+  return rows.map((r) => r.t);
 }
 
 /** Refuses existing members; replaces (revokes) an earlier open invitation to the same address. */

@@ -2,7 +2,7 @@
  * Accounts, sessions, password-reset tokens, sign-in throttling rows and
  * instance settings. The only place with queries on these tables.
  */
-import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, asc, eq, gte, inArray, isNull, sql } from 'drizzle-orm';
 import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
 import { getDb } from '../client';
 import { instanceSettings, passwordResets, sessions, signInThrottle, users } from '../schema';
@@ -74,8 +74,15 @@ export async function deleteUserSessions(userId: string): Promise<void> {
 
 // ── Password reset ───────────────────────────────────────────────────────────
 
-export async function insertPasswordReset(userId: string, tokenHash: string, expiresAt: Date): Promise<void> {
-  await getDb().insert(passwordResets).values({ userId, tokenHash, expiresAt });
+export async function insertPasswordReset(userId: string, tokenHash: string, expiresAt: Date, createdAt = new Date()): Promise<void> {
+  await getDb().insert(passwordResets).values({ userId, tokenHash, expiresAt, createdAt });
+}
+
+/** When reset links were issued for an account since `since`, oldest first. */
+export async function resetTimesSince(userId: string, since: Date): Promise<Date[]> {
+  const rows = await getDb().select({ t: passwordResets.createdAt }).from(passwordResets)
+    .where(and(eq(passwordResets.userId, userId), gte(passwordResets.createdAt, since))).orderBy(asc(passwordResets.createdAt));
+  return rows.map((r) => r.t);
 }
 
 /**

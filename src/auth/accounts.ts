@@ -16,6 +16,7 @@ import {
 import { forbidden, unauthorized } from '@/src/server/errors';
 import { sendMail } from '@/src/server/mail';
 import { hashPassword, passwordSchema, verifyPassword } from './password';
+import { mayMailReset, MAIL_LIMITS } from './mail-limits';
 import { assertNotThrottled, clearAccountThrottle, recordFailure, throttleKeys } from './throttle';
 import { endSession, startSession, type User } from './session';
 import { hashToken, newToken, RESET_LIFETIME_MS } from './tokens';
@@ -82,13 +83,18 @@ export async function signOut(cookieHeader: string): Promise<string> {
 
 /**
  * Always answers the same way (no hint whether the address has an account);
- * when it has one, a single-use link valid for one hour is mailed.
+ * when it has one, a single-use link valid for one hour is mailed — at most
+ * MAIL_LIMITS.resetsPerAccount within an hour (mail-limits.ts).
  */
 export async function requestPasswordReset(email: string, origin: string, now = new Date()): Promise<void> {
   const user = await findUserByEmail(email);
   if (!user) return;
+  if (!(await mayMailReset(user.id, now))) {
+    console.warn(`[cavitas] password-reset mail for account ${user.id} not sent: ${MAIL_LIMITS.resetsPerAccount} links within the last hour`);
+    return;
+  }
   const token = newToken();
-  await insertPasswordReset(user.id, hashToken(token), new Date(now.getTime() + RESET_LIFETIME_MS));
+  await insertPasswordReset(user.id, hashToken(token), new Date(now.getTime() + RESET_LIFETIME_MS), now);
   const link = `${origin}/reset-password?token=${encodeURIComponent(token)}`;
   try {
     await sendMail({

@@ -19,6 +19,7 @@ import {
   type Role,
 } from '@/db/repo/networks';
 import { sendMail } from '@/src/server/mail';
+import { assertMayInvite } from './mail-limits';
 import { emailSchema, nameSchema, newUserId } from './accounts';
 import { hashPassword, passwordSchema } from './password';
 import { hashToken, INVITATION_LIFETIME_MS, newToken } from './tokens';
@@ -73,6 +74,7 @@ export async function inviteMember(
   origin: string,
   now = new Date(),
 ): Promise<InviteResult> {
+  await assertMayInvite(inviter.id, now);
   const token = newToken();
   const row = await createInvitation({
     networkId,
@@ -81,6 +83,7 @@ export async function inviteMember(
     tokenHash: hashToken(token),
     invitedBy: inviter.id,
     expiresAt: new Date(now.getTime() + INVITATION_LIFETIME_MS),
+    createdAt: now,
   });
   const link = `${origin}/invitations/${encodeURIComponent(token)}`;
   let mailSent = true;

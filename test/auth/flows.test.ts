@@ -11,8 +11,10 @@ import { resetDatabase, closeDatabase } from '@/test/helpers/db';
 import { call, cookiePair, errorOf, makeUser, setupCallers, TEST_PASSWORD, type AuthzWorld, type Caller } from '@/test/helpers/authz';
 import { startCatcher, type Catcher } from '@/src/mail/catcher';
 import { getMail, listMail } from '@/db/repo/mail';
-import { createInvitation, getMembership } from '@/db/repo/networks';
-import { insertPasswordReset } from '@/db/repo/users';
+import { createInvitation, createNetwork, getMembership, listOpenInvitations } from '@/db/repo/networks';
+import { getUserById, insertPasswordReset, resetTimesSince } from '@/db/repo/users';
+import { requestPasswordReset } from '@/src/auth/accounts';
+import { inviteMember } from '@/src/auth/networks';
 import { getSql } from '@/db/client';
 import { hashToken, newToken } from '@/src/auth/tokens';
 import * as signUp from '@/app/api/auth/sign-up/route';
@@ -160,6 +162,22 @@ describe('password reset', () => {
     expect((await errorOf(res)).message).toMatch(/expired/);
   });
 
+  it('mails at most three links to one account within an hour, answering the same each time', async () => {
+    const u = await makeUser('Flooded', 'flows');
+    const later = new Date(Date.now() + 24 * 3_600_000); // a quiet hour of its own
+    const mails = async () => (await listMail({ to: u.email, limit: 50 })).length;
+    const before = await mails();
+    for (let i = 0; i < 5; i++) await requestPasswordReset(u.email, 'http://cavitas.test', new Date(later.getTime() + i * 60_000));
+    expect(await resetTimesSince(u.userId, later)).toHaveLength(3);
+    for (let i = 0; i < 50 && (await mails()) < before + 3; i++) await new Promise((r) => setTimeout(r, 100));
+    expect(await mails()).toBe(before + 3);
+    // An hour after the first, one more may go.
+    await requestPasswordReset(u.email, 'http://cavitas.test', new Date(later.getTime() + 61 * 60_000));
+    expect(await resetTimesSince(u.userId, later)).toHaveLength(4);
+    // Through the route the answer does not change when a request is dropped.
+    expect((await call(resetReq.POST, anon, post({ email: u.email }))).status).toBe(202);
+  });
+
   it('answers the same for an address without an account', async () => {
     const res = await call(resetReq.POST, anon, post({ email: 'nobody.here@example.org' }));
     expect(res.status).toBe(202);
@@ -202,6 +220,22 @@ describe('networks and members', () => {
 describe('invitations', () => {
   const invite = (email: string, role = 'analyst') =>
     call(invitations.POST, w.callers.owner, { method: 'POST', body: { email, role }, params: { networkId: w.networkId } });
+
+  it('refuses a sender\'s 21st invitation within an hour with 429 and the wait', async () => {
+    const sender = await makeUser('Busy', 'flows');
+    const net = await createNetwork('Busy network flows', sender.userId);
+    const user = (await getUserById(sender.userId))!;
+    const later = new Date(Date.now() + 48 * 3_600_000);
+    for (let i = 0; i < 20; i++) {
+      await inviteMember(net.id, net.name, user, { email: `guest${i}.busy@example.org`, role: 'viewer' }, 'http://cavitas.test', new Date(later.getTime() + i * 1000));
+    }
+    const refused = await inviteMember(net.id, net.name, user, { email: 'one.more@example.org', role: 'viewer' }, 'http://cavitas.test', new Date(later.getTime() + 30 * 60_000))
+      .then(() => null, (e: { status: number; message: string }) => e);
+    expect(refused?.status).toBe(429);
+    expect(refused?.message).toMatch(/20 invitations within the last hour\. Try again in 30 minutes/);
+    // Nothing was stored for the refused one.
+    expect((await listOpenInvitations(net.id, later)).map((r) => r.email)).not.toContain('one.more@example.org');
+  });
 
   it('refuses to invite an existing member, naming the address', async () => {
     const res = await invite(w.callers.viewer.email!.toUpperCase());
