@@ -1,16 +1,20 @@
 /**
  * How well a minimum fits each station and component: observed and predicted
- * power per bin and the weighted residual (ln P_pred - ln P_obs) / sigma, from
- * the engine's own least-squares problem at the minimum's parameters (so the
- * figure shows exactly what the inversion fitted).
+ * power per bin and the weighted residual (ln P_pred - ln P_obs) / sigma for
+ * spectrum runs; for mode-parameter runs every observed mode beside the one
+ * fitted to the predicted spectrum, with the weighted residuals of frequency,
+ * ln intensity and half-width. Both come from the engine's own least-squares
+ * problem at the minimum's parameters, built from the run solver's recipe
+ * (so the figure shows exactly what the inversion fitted).
  */
-import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import { prepareModes, prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import { badRequest } from '@/src/server/errors';
 import { getRun, getRunInterval } from '@/db/repo/runs';
 import { notFound } from '@/src/server/errors';
 import { loadRunContext } from './context';
-import { loadObservations } from './observations';
+import { loadModeObservations, loadObservations } from './observations';
+import { intervalRecipe } from './surface-compute';
 import { buildUnknowns } from './unknowns';
 
 export interface SeriesFit {
@@ -24,9 +28,21 @@ export interface SeriesFit {
   chi2PerBin: number;
 }
 
+/** For mode runs: chi2PerBin is chi-square per datum and bins the number of data (three per mode). */
 export interface StationFit { station: string; lat: number; lon: number; chi2PerBin: number; bins: number }
 
-export async function fitsAt(networkId: string, runId: string, intervalIso: string, minimumIndex: number): Promise<{ series: SeriesFit[]; stations: StationFit[] }> {
+/** One observed mode of a mode-parameter run beside its prediction at the minimum. */
+export interface ModeFit {
+  station: string; component: 'Ez' | 'Bns' | 'Bew'; mode: number; // 1-based, order of the observed modes
+  observed: { frequency: number; intensity: number; halfWidth: number };
+  sigma: { frequency: number; logIntensity: number; halfWidth: number };
+  predicted: { frequency: number; intensity: number; halfWidth: number };
+  residual: { frequency: number; logIntensity: number; halfWidth: number }; // weighted, as in the misfit
+}
+
+export interface RunFits { series: SeriesFit[]; stations: StationFit[]; modes?: ModeFit[] }
+
+export async function fitsAt(networkId: string, runId: string, intervalIso: string, minimumIndex: number): Promise<RunFits> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
   const when = new Date(intervalIso);
@@ -36,7 +52,18 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
   const minimum = result?.minima?.[minimumIndex];
   if (!minimum) throw badRequest('this interval has no such minimum', 'minimum');
   const ctx = await loadRunContext(run);
-  if (ctx.config.observables.kind !== 'spectrum') throw badRequest('per-bin fits are drawn for spectrum runs; this run fitted mode parameters', 'interval');
+  if (ctx.config.observables.kind === 'modes') {
+    const recipe = intervalRecipe(ctx, { observed: [], modes: await loadModeObservations(networkId, ctx.config, when) });
+    if (recipe.kind !== 'modes') throw new Error('a mode run builds a mode recipe');
+    const modes: ModeFit[] = prepareModes(recipe.input).problem.compare(Float64Array.from(minimum.internal));
+    const stations: StationFit[] = ctx.stations.map((st) => {
+      const mine = modes.filter((m) => m.station === st.code);
+      const chi2 = mine.reduce((a, m) => a + m.residual.frequency ** 2 + m.residual.logIntensity ** 2 + m.residual.halfWidth ** 2, 0);
+      const bins = 3 * mine.length;
+      return { station: st.code, lat: st.lat, lon: st.lon, bins, chi2PerBin: bins ? chi2 / bins : NaN };
+    });
+    return { series: [], stations, modes };
+  }
   const observed = await loadObservations(networkId, ctx.config, when);
   const { problem, layout } = prepareSpectrum({
     cavity: ctx.cavity, stations: ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),

@@ -10,12 +10,17 @@
 import { getIntervalSpectra, listIntervals, type IntervalSpectrum } from '@/db/repo/intervals';
 import type { RunConfig } from './config';
 import type { ObservedModes } from '@/src/engine/inverse/types';
+import { SPECTRUM_BAND_MAX_HZ, SPECTRUM_BAND_MIN_HZ } from '@/src/engine/tolerances';
 import type { ObservedSeries } from './types';
 
 const TEN_MINUTES_MS = 600_000;
 
-/** Frequency grid on which mode runs evaluate predicted spectra (fine enough to resolve the modes). */
-export const MODE_BAND = { minHz: 4, maxHz: 45, stepHz: 0.1 };
+/**
+ * Frequency grid on which mode runs evaluate predicted spectra: the bins of the stations' default spectra
+ * (the default band in 0.1 Hz steps, 10 s Welch segments), so that the predicted modes are fitted over
+ * the same bins and band as the observed ones.
+ */
+export const MODE_BAND = { minHz: SPECTRUM_BAND_MIN_HZ, maxHz: SPECTRUM_BAND_MAX_HZ, stepHz: 0.1 };
 
 function bandSeries(s: IntervalSpectrum, minHz: number, maxHz: number, every: number): ObservedSeries | null {
   const frequencies: number[] = [];
@@ -73,7 +78,8 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
         sigmaFrequency: e.frequency, sigmaLogIntensity: e.amplitude / peak, sigmaHalfWidth: e.halfWidth,
       }];
     });
-    if (modes.length) out.push({ station: r.stationCode, component: r.component, modes });
+    // The predicted modes go through the same fit: as many modes, over the pipeline's default band.
+    if (modes.length) out.push({ station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length } });
   }
   return out;
 }

@@ -2,11 +2,16 @@
  * The observed modes' estimator applied to a predicted spectrum: for each
  * observed series, the same Lorentzian-plus-linear-background fit the
  * pipeline ran on the observed spectrum (same number of modes, same band,
- * same usual-frequency windows and bounds, same two weighted passes:
- * two-stage-fit.ts), run on the predicted power of the grid bins in that
- * band, warm-started at the observed frequencies and half-widths. Each
- * observed mode is matched to the fitted mode of its window (the usual
- * frequency it lies nearest to; the windows do not overlap).
+ * same usual-frequency windows and bounds, same starting values from
+ * initialGuess, same two weighted passes: two-stage-fit.ts), run on the
+ * predicted power of the grid bins in that band. Each observed mode is
+ * matched to the fitted mode of its window (the usual frequency it lies
+ * nearest to; the windows do not overlap).
+ *
+ * Not warm-started from the observed modes: the fit of a forward-model
+ * spectrum has several local minima (a narrow spike on a bound, one broad
+ * mode for two), and a start at the observed modes can end in a different
+ * one than the pipeline's own start, which would make a different estimator.
  *
  * Reported per observed mode, as the observations are: frequency, ln of the
  * peak (amplitude plus background at the mode frequency) and half-width,
@@ -14,7 +19,7 @@
  * differentiation of the fit (fit-sensitivity.ts). The peak is floored
  * smoothly (PREDICTED_PEAK_FLOOR) so that ln(peak) stays finite where the
  * predicted spectrum shows no peak; a mode the fit does not find (amplitude
- * held at zero) reads as the warm start in frequency and half-width. The fit
+ * held at zero) reads as the observed one in frequency and half-width. The fit
  * is bounded, so every output is finite for any positive spectrum.
  */
 import { fitSensitivity } from '@/src/engine/modes/fit-sensitivity';
@@ -42,8 +47,8 @@ export interface ModeSeriesSetup {
   guessHz: number[];
   /** Fitted-mode slot of each observed mode. */
   slots: number[];
-  /** Observed frequency and half-width per observed mode (the warm start). */
-  warm: { frequency: number; halfWidth: number }[];
+  /** Observed frequency and half-width per observed mode. */
+  observed: { frequency: number; halfWidth: number }[];
 }
 
 /** The fit of one predicted spectrum and the per-observed-mode values (frequency, ln peak, half-width). */
@@ -101,7 +106,7 @@ export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: str
       throw new InversionInputError(`${where}: mode ${n + 1} (near ${u} Hz) lies outside the grid's part of the fitted band, ${freqs[0]}–${freqs[freqs.length - 1]} Hz`);
     }
   });
-  return { bins: Int32Array.from(idx), freqs, modes, guessHz: o.guessHz, slots, warm: m.modes.map((md) => ({ frequency: md.frequency, halfWidth: md.halfWidth })) };
+  return { bins: Int32Array.from(idx), freqs, modes, guessHz: o.guessHz, slots, observed: m.modes.map((md) => ({ frequency: md.frequency, halfWidth: md.halfWidth })) };
 }
 
 /** C1 floor: x (x >= 2m), m (1 + exp(x/m - 2)) below; value and derivative. */
@@ -118,11 +123,6 @@ export function predictedSeriesModes(setup: ModeSeriesSetup, power: ArrayLike<nu
   const unit = raw[medianBin];
   const data = raw.map((v) => v / unit);
   const guess = initialGuess(setup.freqs, data, setup.guessHz);
-  setup.slots.forEach((s, k) => {
-    const inside = (v: number, j: number) => Math.min(guess.upper[j], Math.max(guess.lower[j], v));
-    guess.start[3 * s] = inside(setup.warm[k].frequency, 3 * s);
-    guess.start[3 * s + 2] = inside(setup.warm[k].halfWidth, 3 * s + 2);
-  });
   const fit = twoStageLorentzianFit({ modes: setup.modes, freqs: setup.freqs, data, rel: 1, start: guess.start, lower: guess.lower, upper: guess.upper, lm: PREDICTED_LM });
   const q = fit.final.params;
   const b0 = 3 * setup.modes;
@@ -130,9 +130,9 @@ export function predictedSeriesModes(setup: ModeSeriesSetup, power: ArrayLike<nu
   setup.slots.forEach((s, k) => {
     const f = q[3 * s];
     const [peak] = softFloor(q[3 * s + 1] + q[b0] + q[b0 + 1] * f, PREDICTED_PEAK_FLOOR);
-    // No mode found (amplitude held at zero): frequency and half-width are undetermined; read them as the warm start.
+    // No mode found (amplitude held at zero): frequency and half-width are undetermined; read them as the observed ones.
     const absent = !(q[3 * s + 1] > 0);
-    values.set([absent ? guess.start[3 * s] : f, Math.log(peak * unit), absent ? guess.start[3 * s + 2] : q[3 * s + 2]], 3 * k);
+    values.set([absent ? setup.observed[k].frequency : f, Math.log(peak * unit), absent ? setup.observed[k].halfWidth : q[3 * s + 2]], 3 * k);
   });
   return { unit, medianBin, data, lower: guess.lower, upper: guess.upper, fit, values };
 }
