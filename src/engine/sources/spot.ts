@@ -48,14 +48,17 @@ export function spotNodesInto(centerLat: number, centerLon: number, spreadDeg: n
     const sLat = sp * cr + cp * sr * ca;
     const lat = Math.asin(sLat);
     const cLat = Math.cos(lat);
-    const A = sa * sr * cp;
-    const B = cr - sp * sLat;
+    // Longitude offset in the four-part form atan2(sin az sin r, cos p cos r - sin p sin r cos az):
+    // the usual atan2(sin az sin r cos p, cos r - sin p sin(lat)) with the common factor cos p
+    // taken out of both arguments, so that it stays defined at a pole (cos p = 0), where the
+    // nodes then spread round the pole instead of collapsing onto one meridian.
+    const A = sa * sr;
+    const B = cp * cr - sp * sr * ca;
     const dl = Math.atan2(A, B);
     // derivatives with respect to the centre latitude (radians), then per degree (ratios stay)
-    const dLat = (cp * cr - sp * sr * ca) / cLat;
-    const dA = -sa * sr * sp;
-    const dB = -cp * sLat - sp * cLat * dLat;
-    const dLon = (B * dA - A * dB) / (A * A + B * B);
+    const dLat = B / cLat;
+    const dB = -sp * cr - cp * sr * ca; // dA/dp = 0
+    const dLon = (-A * dB) / (A * A + B * B);
     const o = (k + 1) * SPOT_STRIDE;
     out[o] = lat / DEG; out[o + 1] = wrapLon(centerLon + dl / DEG); out[o + 2] = 0.125;
     out[o + 3] = dLat; out[o + 4] = 0; out[o + 5] = dLon; out[o + 6] = 1;

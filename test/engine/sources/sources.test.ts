@@ -49,6 +49,20 @@ describe('spot regions (Radon 7-point rule for the disc; Stroud 1971, S2:5-1)', 
     }
   });
 
+  it('a spot centred on a pole keeps its six ring nodes spread round the pole, continuous with a centre just off it', () => {
+    const at = spotNodes(90, 30, 10);
+    const near = spotNodes(90 - 1e-9, 30, 10);
+    const ring = at.slice(1);
+    // All six at the same colatitude sqrt(2/3) R, 60 degrees of longitude apart (a regular hexagon round the pole).
+    for (const q of ring) expect(90 - q.lat).toBeCloseTo(Math.sqrt(2 / 3) * 10, 9);
+    const lons = ring.map((q) => ((q.lon % 360) + 360) % 360).sort((a, b) => a - b);
+    for (let k = 1; k < 6; k++) expect(lons[k] - lons[k - 1]).toBeCloseTo(60, 9);
+    at.forEach((q, k) => {
+      expect(q.lat).toBeCloseTo(near[k].lat, 6);
+      if (k > 0) expect(Math.cos(((q.lon - near[k].lon) * Math.PI) / 180)).toBeCloseTo(1, 9);
+    });
+  });
+
   it('spread 0 gives the centre point alone', () => {
     expect(spotNodes(12, 34, 0)).toEqual([{ lat: 12, lon: 34, weight: 1, dLatDLat: 1, dLatDLon: 0, dLonDLat: 0, dLonDLon: 1 }]);
   });
