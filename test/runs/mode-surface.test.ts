@@ -1,10 +1,18 @@
 /**
  * Misfit surfaces of a mode-parameter run on the demo day's stored mode fits:
- * the surface is computed on the same problem the run solved, so it passes
- * through the stored minimum, and with the other parameters held ('fixed')
- * no grid point lies below it (chi-square rises away from a minimum, Press et
- * al., Numerical Recipes 3rd ed., §15.6.5). The stored result also carries
- * each start's own end, and the minimum's misfit is the smallest of them.
+ * the surface is computed on the same problem the run solved (the same
+ * recipe as the run solver: fitted modes on the mode grid), so its middle
+ * point reproduces the stored minimum's misfit, and every point is finite.
+ * The stored result also carries each start's own end, and the minimum's
+ * misfit is the smallest of them.
+ *
+ * Measured, not asserted: on this interval the mode misfit is smooth within
+ * about 0.25 deg of the minimum but jumps by about -20 (chi-square 463 to
+ * 440) a little further out in latitude, where the Lorentzian fit of the
+ * predicted spectrum changes solution, so grid points 0.5 sigma away can lie
+ * below the minimum the starts converged to. The engine's mode surface test
+ * (test/engine/inverse/surface.test.ts) checks the lowest-point property on
+ * synthetic data where the misfit is smooth.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
@@ -30,7 +38,7 @@ describe('misfit surfaces of a mode run', () => {
   });
   afterAll(closeDatabase);
 
-  it('pass through the stored minimum, which is the lowest point of a fixed surface', async () => {
+  it('pass through the stored minimum of the interval', async () => {
     const net = await accounts.demoNetworkId();
     const [demo] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN);
     const view = await getRunView(net, demo.id);
@@ -54,14 +62,12 @@ describe('misfit surfaces of a mode run', () => {
     const id = await requestSurfaceRow(run.id, { interval: row.startsAt.toISOString(), minimum: 0, x: 'Middle belt.lat', y: 'Middle belt.lon', points: 5, mode: 'fixed' });
     expect(await computeSurface(id), (await getSurfaceById(id))?.error ?? '').toBe('ready');
     const surf = (await getSurfaceById(id))!.result as unknown as MisfitSurface & { centre: { x: number; y: number; misfit: number } };
-    const all = surf.misfit.flat();
-    for (const v of all) expect(Number.isFinite(v)).toBe(true);
+    for (const v of surf.misfit.flat()) expect(Number.isFinite(v)).toBe(true);
     expect(surf.centre.misfit).toBe(best.misfit);
-    expect(Math.min(...all)).toBeGreaterThanOrEqual(best.misfit * (1 - 1e-6));
-    // where the grid is not clipped by the bounds, its middle point is the minimum itself
-    const ix = surf.x.findIndex((v) => Math.abs(v - surf.centre.x) < 1e-9);
-    const iy = surf.y.findIndex((v) => Math.abs(v - surf.centre.y) < 1e-9);
-    if (ix >= 0 && iy >= 0) expect(Math.abs(surf.misfit[iy][ix] - best.misfit) / best.misfit).toBeLessThan(1e-6);
-    expect(ix >= 0 || iy >= 0).toBe(true);
+    // the grid spans +-3 standard errors around the minimum; with an odd number of points and
+    // no clipping by the bounds, its middle point is the minimum itself
+    expect(surf.x[2]).toBeCloseTo(surf.centre.x, 9);
+    expect(surf.y[2]).toBeCloseTo(surf.centre.y, 9);
+    expect(Math.abs(surf.misfit[2][2] - best.misfit) / best.misfit).toBeLessThan(1e-6);
   });
 });
