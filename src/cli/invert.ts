@@ -1,13 +1,14 @@
 /**
  * `invert <case.json> [--starts N] [--seed S] [--threads T]`: multi-start
- * inversion of the observed spectra for the unknown regions. Prints the
- * distinct minima best first; progress goes to stderr.
+ * inversion of the observed spectra (`observed`) or of observed mode
+ * parameters (`observedModes`, modes-from-case.ts) for the unknown regions.
+ * Prints the distinct minima best first; progress goes to stderr.
  */
 import { availableParallelism } from 'node:os';
-import { invertCaseSchema } from '@/src/engine/case';
 import { InversionInputError } from '@/src/engine/inverse/errors';
 import { inputFromCase } from '@/src/engine/inverse/from-case';
-import { invertSpectra } from '@/src/engine/inverse/invert';
+import { invertModes, invertSpectra } from '@/src/engine/inverse/invert';
+import { caseModes, invertAnyCaseSchema, modeInputFromCase } from '@/src/engine/inverse/modes-from-case';
 import { closeInversionPool } from '@/src/engine/inverse/pool';
 import { OptimInputError } from '@/src/engine/optim/errors';
 import { CliError, intFlag, parseArgs, readJsonFile, type Verb } from './verb';
@@ -18,18 +19,21 @@ const invert: Verb = async (args) => {
   const seed = intFlag(flags, 'seed', 1, 0, 2 ** 31 - 1);
   const threads = intFlag(flags, 'threads', availableParallelism(), 1, 256);
   const file = positional[0];
-  const c = await readJsonFile(file, invertCaseSchema, 'case');
+  const c = await readJsonFile(file, invertAnyCaseSchema, 'case');
   let lastPct = -1;
   try {
-    const result = await invertSpectra(inputFromCase(c), { starts, seed, threads }, {
-      onProgress: ({ done, total, bestMisfit }) => {
+    const callbacks = {
+      onProgress: ({ done, total, bestMisfit }: { done: number; total: number; bestMisfit: number }) => {
         const pct = Math.floor((100 * done) / total);
         if (pct >= lastPct + 10 || done === total) {
           lastPct = pct;
           process.stderr.write(`invert: ${done}/${total} starts, best misfit ${bestMisfit.toPrecision(6)}\n`);
         }
       },
-    });
+    };
+    const result = caseModes(c)
+      ? await invertModes(modeInputFromCase(c), { starts, seed, threads }, callbacks)
+      : await invertSpectra(inputFromCase(c), { starts, seed, threads }, callbacks);
     return {
       ...result,
       minima: result.minima.map((m) => ({

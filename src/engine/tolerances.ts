@@ -49,12 +49,11 @@ export const INVERSION_LM_STEP_TOL = 1e-8;
 /** Step (degrees) of the central difference for the derivative of the misfit with respect to a region's spread. */
 export const SPREAD_DIFF_STEP_DEG = 1e-4;
 /**
- * Mode misfit (predicted-modes.ts): the mode fit of a predicted spectrum stops only on a scaled step below this
- * fraction of the parameters or a gradient cosine below the next (no chi-square-change test), far tighter than a fit
- * of noisy data, so that the fitted modes follow the source parameters smoothly (central differences agree).
+ * Mode misfit (predicted-modes.ts): Newton steps (full Hessian) after each pass of the mode fit of a predicted
+ * spectrum, which stops at the pipeline's own tolerances; quadratic convergence then takes the fitted modes to full
+ * precision, so that they follow the source parameters smoothly (central differences agree).
  */
-export const PREDICTED_MODE_FIT_STEP_TOL = 1e-13;
-export const PREDICTED_MODE_FIT_GRADIENT_TOL = 1e-14;
+export const PREDICTED_MODE_NEWTON_STEPS = 4;
 /** Mode misfit: the predicted peak (amplitude plus background) is floored smoothly (C1) at this fraction of the median fitted power, so ln(peak) stays finite where the predicted spectrum shows no peak. */
 export const PREDICTED_PEAK_FLOOR = 1e-3;
 /** Eigenvalues of the scaled J^T J below this fraction of the largest count as unresolved (singular covariance). */

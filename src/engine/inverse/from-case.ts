@@ -32,10 +32,10 @@ function selectionOf(c: CaseFile): BinSelection | undefined {
   return parsed.data;
 }
 
-export function inputFromCase(c: CaseFile, selection: BinSelection | undefined = selectionOf(c)): SpectrumInversionInput {
-  if (!c.observed?.length) throw new InversionInputError('observed: invert needs at least one observed spectrum');
+/** The case's unknowns as the inverter's regions (shared by the spectrum and mode inversions). */
+export function unknownsFromCase(c: CaseFile): RegionUnknown[] {
   if (!c.unknowns?.length) throw new InversionInputError('unknowns: invert needs at least one unknown source');
-  const unknowns: RegionUnknown[] = c.unknowns.map((u) => {
+  return c.unknowns.map((u) => {
     const spread = (u as { spread?: number | { min: number; max: number } }).spread;
     return {
       name: u.name,
@@ -45,6 +45,11 @@ export function inputFromCase(c: CaseFile, selection: BinSelection | undefined =
       ...(spread !== undefined ? { spread } : {}),
     };
   });
+}
+
+export function inputFromCase(c: CaseFile, selection: BinSelection | undefined = selectionOf(c)): SpectrumInversionInput {
+  if (!c.observed?.length) throw new InversionInputError('observed: invert needs at least one observed spectrum');
+  const unknowns = unknownsFromCase(c);
   return {
     cavity: c.cavity as CavityConfig,
     stations: c.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),

@@ -3,8 +3,9 @@
  * observed series, the same Lorentzian-plus-linear-background fit the
  * pipeline ran on the observed spectrum (same number of modes, same band,
  * same usual-frequency windows and bounds, same starting values from
- * initialGuess, same two weighted passes: two-stage-fit.ts), run on the
- * predicted power of the grid bins in that band. Each observed mode is
+ * initialGuess, same two weighted passes and optimiser settings:
+ * two-stage-fit.ts), run on the predicted power of the grid bins in that
+ * band, each pass then taken to full precision by a few Newton steps. Each observed mode is
  * matched to the fitted mode of its window (the usual frequency it lies
  * nearest to; the windows do not overlap).
  *
@@ -28,13 +29,8 @@ import { ModeFitOptionError, resolveModeFitOptions } from '@/src/engine/modes/op
 import { twoStageLorentzianFit, type TwoStageResult } from '@/src/engine/modes/two-stage-fit';
 import { MAX_MODES, MIN_MODES, USUAL_MODE_FREQUENCIES_HZ } from '@/src/engine/modes/usual-modes';
 import { paramCount } from '@/src/engine/modes/types';
-import {
-  MODE_FIT_MAX_ITERATIONS,
-  MODE_FREQUENCY_WINDOW_HZ,
-  PREDICTED_MODE_FIT_GRADIENT_TOL,
-  PREDICTED_MODE_FIT_STEP_TOL,
-  PREDICTED_PEAK_FLOOR,
-} from '@/src/engine/tolerances';
+import { MODE_FREQUENCY_WINDOW_HZ, PREDICTED_MODE_NEWTON_STEPS, PREDICTED_PEAK_FLOOR } from '@/src/engine/tolerances';
+import type { LmOptions } from '@/src/engine/optim/types';
 import { InversionInputError } from './errors';
 import type { ObservedModes } from './types';
 
@@ -47,6 +43,8 @@ export interface ModeSeriesSetup {
   guessHz: number[];
   /** Fitted-mode slot of each observed mode. */
   slots: number[];
+  /** The pipeline fit's optimiser settings. */
+  lm: Partial<LmOptions>;
   /** Observed frequency and half-width per observed mode. */
   observed: { frequency: number; halfWidth: number }[];
 }
@@ -63,8 +61,6 @@ export interface PredictedSeriesModes {
   /** 3 per observed mode: frequency (Hz), ln peak (SI), half-width (Hz). */
   values: Float64Array;
 }
-
-const PREDICTED_LM = { misfitTol: 0, stepTol: PREDICTED_MODE_FIT_STEP_TOL, gradientTol: PREDICTED_MODE_FIT_GRADIENT_TOL, maxIterations: MODE_FIT_MAX_ITERATIONS };
 
 function slotOf(f: number): number {
   let best = 0;
@@ -96,6 +92,10 @@ export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: str
   slots.forEach((s, k) => {
     if (s >= modes) throw new InversionInputError(`${where}.modes[${k}]: mode ${s + 1} was not among the ${modes} fitted modes`);
   });
+  const top = grid[grid.length - 1];
+  if (o.minHz < grid[0] - 1e-9 || o.maxHz > top + 1e-9) {
+    throw new InversionInputError(`${where}.fit: the fitted band ${o.minHz}–${o.maxHz} Hz reaches outside the model grid ${grid[0]}–${top} Hz`);
+  }
   const idx: number[] = [];
   for (let i = 0; i < grid.length; i++) if (grid[i] >= o.minHz && grid[i] <= o.maxHz) idx.push(i);
   const np = paramCount(modes);
@@ -106,7 +106,7 @@ export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: str
       throw new InversionInputError(`${where}: mode ${n + 1} (near ${u} Hz) lies outside the grid's part of the fitted band, ${freqs[0]}–${freqs[freqs.length - 1]} Hz`);
     }
   });
-  return { bins: Int32Array.from(idx), freqs, modes, guessHz: o.guessHz, slots, observed: m.modes.map((md) => ({ frequency: md.frequency, halfWidth: md.halfWidth })) };
+  return { bins: Int32Array.from(idx), freqs, modes, guessHz: o.guessHz, slots, lm: o.lm, observed: m.modes.map((md) => ({ frequency: md.frequency, halfWidth: md.halfWidth })) };
 }
 
 /** C1 floor: x (x >= 2m), m (1 + exp(x/m - 2)) below; value and derivative. */
@@ -123,7 +123,7 @@ export function predictedSeriesModes(setup: ModeSeriesSetup, power: ArrayLike<nu
   const unit = raw[medianBin];
   const data = raw.map((v) => v / unit);
   const guess = initialGuess(setup.freqs, data, setup.guessHz);
-  const fit = twoStageLorentzianFit({ modes: setup.modes, freqs: setup.freqs, data, rel: 1, start: guess.start, lower: guess.lower, upper: guess.upper, lm: PREDICTED_LM });
+  const fit = twoStageLorentzianFit({ modes: setup.modes, freqs: setup.freqs, data, rel: 1, start: guess.start, lower: guess.lower, upper: guess.upper, lm: setup.lm, polish: PREDICTED_MODE_NEWTON_STEPS });
   const q = fit.final.params;
   const b0 = 3 * setup.modes;
   const values = new Float64Array(3 * setup.slots.length);

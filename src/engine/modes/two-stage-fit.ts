@@ -11,6 +11,7 @@
  */
 import type { LmOptions, LmResult } from '@/src/engine/optim/types';
 import { lorentzianModel } from './lorentzian';
+import { newtonPolish } from './newton-polish';
 import { weightedLorentzianFit } from './weighted-fit';
 
 export interface TwoStageInput {
@@ -25,6 +26,8 @@ export interface TwoStageInput {
   upper: Float64Array;
   lm?: Partial<LmOptions>;
   shouldStop?: () => boolean;
+  /** Newton steps (full Hessian) after each pass's optimiser run, to take it to full precision (newton-polish.ts); default 0. */
+  polish?: number;
 }
 
 export interface TwoStageResult {
@@ -37,10 +40,15 @@ export interface TwoStageResult {
 export function twoStageLorentzianFit(input: TwoStageInput): TwoStageResult {
   const { modes, freqs, data, rel } = input;
   const common = { modes, freqs, data, lower: input.lower, upper: input.upper, lm: input.lm, shouldStop: input.shouldStop };
-  const first = weightedLorentzianFit({ ...common, sigma: data.map((v) => rel * v), start: input.start });
+  const pass = (sigma: Float64Array, start: Float64Array): LmResult => {
+    const r = weightedLorentzianFit({ ...common, sigma, start });
+    if (!input.polish || !r.converged) return r;
+    return { ...r, ...newtonPolish({ modes, freqs, data, sigma, lower: input.lower, upper: input.upper }, r.params, input.polish) };
+  };
+  const first = pass(data.map((v) => rel * v), input.start);
   const model = new Float64Array(freqs.length);
   lorentzianModel(first.params, modes, freqs, model);
   if (!model.every((v) => v > 0 && Number.isFinite(v))) return { first, final: first, firstModel: null };
-  const final = weightedLorentzianFit({ ...common, sigma: model.map((v) => rel * v), start: first.params });
+  const final = pass(model.map((v) => rel * v), first.params);
   return { first, final, firstModel: model };
 }
