@@ -4,12 +4,15 @@
  * when the model does not fit exactly, while Newton's method with
  * H = J^T W J + sum_k W_k r_k d2L_k/dq2 converges quadratically near a
  * minimum (Nocedal & Wright, Numerical Optimization, 2nd ed., §3.3 and
- * §10.3), so a few steps take the fit to full precision. A step is kept only
- * when it lowers chi-square; parameters held on a bound stay there.
+ * §10.3), so a few steps take the fit to full precision. A step is halved
+ * until it lowers chi-square (and polishing ends when no halving does);
+ * parameters held on a bound stay there.
  */
 import { addCurvature, heldSet, solveFree } from './fit-hessian';
 import { lorentzianJacobian, lorentzianModel } from './lorentzian';
 import { paramCount } from './types';
+
+const POLISH_HALVINGS = 8;
 
 export interface PolishInput {
   modes: number;
@@ -54,14 +57,20 @@ export function newtonPolish(x: PolishInput, start: Float64Array, steps: number)
     }
     addCurvature(q, modes, freqs, c, h);
     solveFree(h, step, np, 1, heldSet(q, modes, x.lower, x.upper));
-    const trial = q.map((v, j) => Math.min(x.upper[j], Math.max(x.lower[j], v + step[j])));
-    const chi2T = chi2At(trial, x, model);
-    if (!(chi2T < chi2)) {
-      lorentzianModel(q, modes, freqs, model);
-      break;
+    // Backtracking: halve the step until chi-square drops (Nocedal & Wright §3.1).
+    let accepted = false;
+    for (let half = 0; half < POLISH_HALVINGS && !accepted; half++) {
+      const f = 0.5 ** half;
+      const trial = q.map((v, j) => Math.min(x.upper[j], Math.max(x.lower[j], v + f * step[j])));
+      const chi2T = chi2At(trial, x, model);
+      if (chi2T < chi2) {
+        q = trial;
+        chi2 = chi2T;
+        accepted = true;
+      }
     }
-    q = trial;
-    chi2 = chi2T;
+    lorentzianModel(q, modes, freqs, model);
+    if (!accepted) break;
   }
   return { params: q, chi2 };
 }
