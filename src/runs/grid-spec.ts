@@ -8,6 +8,7 @@
  * column c covers longitudes [-180 + c d, -180 + (c+1) d], index = r * cols + c.
  */
 import { z } from 'zod';
+import { cellBox, gridShape } from './grid-cells';
 
 /** Okabe & Ito (2008), "Color Universal Design": eight colours distinguishable with common colour-vision deficiencies. */
 export const REGION_PALETTE = ['#E69F00', '#56B4E9', '#009E73', '#F0E442', '#0072B2', '#D55E00', '#CC79A7', '#000000'] as const;
@@ -53,24 +54,7 @@ export const gridInputSchema = z.object({
 });
 export type GridInput = z.infer<typeof gridInputSchema>;
 
-export function gridShape(cellSizeDeg: number): { rows: number; cols: number; cells: number } {
-  const rows = Math.round(180 / cellSizeDeg);
-  const cols = Math.round(360 / cellSizeDeg);
-  return { rows, cols, cells: rows * cols };
-}
-
-/** Bounds and centre of one cell, degrees. */
-export function cellBox(cellSizeDeg: number, index: number) {
-  const { cols } = gridShape(cellSizeDeg);
-  const r = Math.floor(index / cols);
-  const c = index - r * cols;
-  const south = -90 + r * cellSizeDeg;
-  const west = -180 + c * cellSizeDeg;
-  return {
-    south, north: south + cellSizeDeg, west, east: west + cellSizeDeg,
-    lat: south + cellSizeDeg / 2, lon: west + cellSizeDeg / 2,
-  };
-}
+export { gridShape, cellBox } from './grid-cells';
 
 /** The cell holding a point (lat in [-90, 90], lon in [-180, 180]). */
 export function cellAt(cellSizeDeg: number, lat: number, lon: number): number {

@@ -4,15 +4,26 @@
  * units (`xLabel`, `yLabel`); they override any label in `options`.
  * Colours follow the theme through CSS variables (currentColor for ink).
  *
- *   <PlotFigure title="Spectrum, 06:20 UTC" xLabel="Frequency (Hz)" yLabel="PSD (pT^2/Hz)"
- *     options={{ marks: [Plot.line(points, { x: 'f', y: 'p', stroke: 'var(--c-accent)' })], y: { type: 'log' } }} />
+ * The heading, caption and a box of the figure's height come with the page;
+ * Plot itself is loaded on demand (`loadPlot`) and draws into the box. Give
+ * `options` as a function of the Plot module so the calling component needs no
+ * Plot import of its own (memoise it: a new function redraws the figure):
+ *
+ *   const options = useMemo(() => (Plot: PlotModule) => ({
+ *     marks: [Plot.line(points, { x: 'f', y: 'p', stroke: 'var(--c-accent)' })], y: { type: 'log' },
+ *   }), [points]);
+ *   <PlotFigure title="Spectrum, 06:20 UTC" xLabel="Frequency (Hz)" yLabel="PSD (pT^2/Hz)" options={options} />
  */
 import { useEffect, useRef } from 'react';
-import * as Plot from '@observablehq/plot';
+import type * as Plot from '@observablehq/plot';
+import { loadPlot, type PlotModule } from './plot-module';
+
+// A page with figures starts fetching the chart code while it hydrates, not after.
+if (typeof window !== 'undefined') loadPlot().catch(() => {});
 
 export interface PlotFigureProps {
-  /** Plot options without axis labels (given separately, below). */
-  options: Plot.PlotOptions;
+  /** Plot options without axis labels (given separately, below), or a function building them from the Plot module. */
+  options: Plot.PlotOptions | ((Plot: PlotModule) => Plot.PlotOptions);
   /** Accessible name and visible heading of the figure. */
   title: string;
   /** x-axis label with unit, e.g. "Frequency (Hz)". */
@@ -29,16 +40,27 @@ export interface PlotFigureProps {
 
 export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 280, width, className }: PlotFigureProps) {
   const ref = useRef<HTMLDivElement>(null);
+  const lastBoxWidth = useRef<number | null>(null);
 
   useEffect(() => {
     const host = ref.current;
     if (!host) return;
     let drawnWidth = -1;
+    let lib: PlotModule | null = null;
+    let built: Plot.PlotOptions | null = null;
+    let gone = false;
+    // The box's width comes from the resize observer (measured in the browser's own layout pass),
+    // never from reading clientWidth: with several figures, each read would force a fresh layout
+    // of the whole page after the previous figure went in.
+    let boxWidth = width ?? lastBoxWidth.current;
     const draw = () => {
-      const w = width ?? Math.max(280, host.clientWidth);
+      if (!lib || !built || boxWidth === null) return; // chart code or the box's width still to come
+      const w = width ?? Math.max(280, boxWidth);
       if (w === drawnWidth) return; // the observer's first call and height-only changes need no redraw
       drawnWidth = w;
-      const fig = Plot.plot({
+      const options = built;
+      const t0 = performance.now();
+      const fig = lib.plot({
         style: { background: 'transparent', color: 'currentColor', fontFamily: 'var(--font-sans)', fontSize: '11px', overflow: 'visible' },
         marginLeft: 56,
         height,
@@ -49,12 +71,32 @@ export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 2
         ariaLabel: title,
       });
       host.replaceChildren(fig);
+      performance.measure(`figure: ${title}`, { start: t0, end: performance.now() }); // read by the page benchmark
     };
-    draw();
-    if (width) return;
-    const ro = new ResizeObserver(() => draw());
-    ro.observe(host);
-    return () => ro.disconnect();
+    loadPlot().then((mod) => {
+      if (gone) return;
+      lib = mod;
+      built = typeof options === 'function' ? options(mod) : options;
+      draw();
+    }, (e: unknown) => {
+      if (gone) return;
+      const p = document.createElement('p');
+      p.className = 'text-sm text-danger';
+      p.textContent = `The figure could not be drawn: the chart code did not load (${(e as Error).message}). Reload the page to try again.`;
+      host.replaceChildren(p);
+    });
+    const ro = width ? null : new ResizeObserver((entries) => {
+      const box = entries.at(-1);
+      if (!box) return;
+      boxWidth = box.contentRect.width;
+      lastBoxWidth.current = boxWidth;
+      draw();
+    });
+    ro?.observe(host);
+    return () => {
+      gone = true;
+      ro?.disconnect();
+    };
   }, [options, title, xLabel, yLabel, height, width]);
 
   return (

@@ -2,8 +2,10 @@
 /**
  * The world map every page draws on: equal-area projection (Equal Earth,
  * Šavrič, Patterson & Jenny 2018) via d3-geo, Natural Earth land at 1:110m
- * from world-atlas, a 30° graticule. Overlays come from a render prop that
- * receives the projection:
+ * from world-atlas, a 30° graticule (`outline.ts`). Overlays come from a render
+ * prop that receives the projection. Pages that need no interaction in the
+ * outline itself can use the server-drawn `WorldFrame` instead, which keeps
+ * the coastline data out of the browser.
  *
  *   <WorldMap title="Stations" width={800} height={420}>
  *     {(projection) => stations.map((s) => {
@@ -13,14 +15,11 @@
  *   </WorldMap>
  */
 import { useId, useMemo, type ReactNode } from 'react';
-import { geoEqualEarth, geoGraticule10, geoPath, type GeoProjection } from 'd3-geo';
-import { feature } from 'topojson-client';
-import type { Topology, GeometryCollection } from 'topojson-specification';
-import landTopo from 'world-atlas/land-110m.json';
+import type { GeoProjection } from 'd3-geo';
+import { makeProjection } from './projection';
+import { worldOutline } from './outline';
 
-const land = feature(landTopo as unknown as Topology, (landTopo as unknown as Topology).objects.land as GeometryCollection);
-const sphere = { type: 'Sphere' } as const;
-const graticule = geoGraticule10();
+export { makeProjection };
 
 export interface WorldMapProps {
   width: number;
@@ -34,23 +33,10 @@ export interface WorldMapProps {
   className?: string;
 }
 
-export function makeProjection(width: number, height: number): GeoProjection {
-  return geoEqualEarth().fitExtent(
-    [
-      [2, 2],
-      [width - 2, height - 2],
-    ],
-    sphere,
-  );
-}
-
 export function WorldMap({ width, height, title, description, children, className }: WorldMapProps) {
   const id = useId();
   const projection = useMemo(() => makeProjection(width, height), [width, height]);
-  const paths = useMemo(() => {
-    const path = geoPath(projection);
-    return { sphere: path(sphere) ?? '', land: path(land) ?? '', graticule: path(graticule) ?? '' };
-  }, [projection]);
+  const paths = worldOutline(width, height); // projected once per size, then from memory
 
   return (
     <svg

@@ -1,9 +1,10 @@
 'use client';
 /** Observed vs predicted power per station/component (log scale) with the weighted residuals below. */
 import { useMemo, useState } from 'react';
-import * as Plot from '@observablehq/plot';
+import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
-import { Notice } from '@/src/web/ui';
+import type { PlotModule } from '@/src/web/charts/plot-module';
+import { Notice } from '@/src/web/ui/Notice';
 import { useApi } from '@/src/web/swr';
 import type { SeriesFit, StationFit } from '@/src/runs/fits';
 import { fitsUrl, fmt } from './types';
@@ -23,16 +24,16 @@ export function FitsPanel({ fits, error }: { fits: { series: SeriesFit[] } | und
     const pts = s.frequencies.map((f, i) => ({ f, obs: s.observed[i] * u.k, pred: s.predicted[i] * u.k, res: s.residual[i] }));
     return {
       unit: u.unit,
-      power: {
+      power: (Plot: PlotModule) => ({
         y: { type: 'log' }, color: { legend: true, domain: ['observed', 'predicted'], range: ['#0072B2', '#E69F00'] },
         marks: [
           Plot.dot(pts, { x: 'f', y: 'obs', r: 2, fill: () => 'observed', title: (d: { f: number; obs: number }) => `${d.f} Hz: ${d.obs.toExponential(3)}` }),
           Plot.line(pts, { x: 'f', y: 'pred', stroke: () => 'predicted', strokeWidth: 1.5 }),
         ],
-      } as unknown as Plot.PlotOptions,
-      residual: {
+      }) as unknown as Plot.PlotOptions,
+      residual: (Plot: PlotModule) => ({
         marks: [Plot.ruleY([0]), Plot.ruleY([-2, 2], { strokeDasharray: '3 3', strokeOpacity: 0.5 }), Plot.dot(pts, { x: 'f', y: 'res', r: 2, fill: '#0072B2' })],
-      } as Plot.PlotOptions,
+      }) as Plot.PlotOptions,
     };
   }, [s]);
   if (error) return <Notice tone="error" title="The fits could not be loaded">{error.message}</Notice>;

@@ -6,9 +6,13 @@
  * multi-start picture — and for interval series the daily curves.
  * Selecting a minimum updates every view.
  */
-import { useMemo, useState } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import { useRouter } from 'next/navigation';
-import { Button, ButtonLink, Caution, Notice, Panel, ProgressBar } from '@/src/web/ui';
+// Straight from each module, not the ui index: the index also brings the table and tab code.
+import { Button, buttonClass } from '@/src/web/ui/Button';
+import { Panel } from '@/src/web/ui/Card';
+import { Caution, Notice } from '@/src/web/ui/Notice';
+import { ProgressBar } from '@/src/web/ui/ProgressBar';
 import { apiSend, useApi } from '@/src/web/swr';
 import { RunMap } from './RunMap';
 import { MinimaTable } from './MinimaTable';
@@ -24,8 +28,15 @@ const STATE_WORDS: Record<string, string> = {
   queued: 'Waiting for a worker', running: 'Computing', finished: 'Finished', failed: 'Stopped by an error', cancelled: 'Cancelled',
 };
 
-export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }: {
+/** An export download: a plain link, so nothing fetches the file before it is asked for. */
+function Download({ href, children }: { href: string; children: ReactNode }) {
+  return <a href={href} download className={buttonClass('secondary', 'md', 'no-underline')}>{children}</a>;
+}
+
+export function RunPage({ networkId, initial, map, canCancel, canLaunch, canDelete }: {
   networkId: string; initial: RunJson; canCancel: boolean; canLaunch: boolean; canDelete: boolean;
+  /** The server-drawn map frame (`RunMapFrame`) the selected minimum is drawn into. */
+  map: ReactNode;
 }) {
   const router = useRouter();
   const base = runApi(networkId, initial.run.id);
@@ -95,9 +106,9 @@ export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }:
           <Panel heading="What came out" description="The selected minimum of the selected interval. Select another minimum in the table to update every figure."
             actions={
               <>
-                <ButtonLink href={`${base}/export?format=csv&what=minima`}>Minima (CSV)</ButtonLink>
-                <ButtonLink href={`${base}/export?format=json&what=minima`}>Minima (JSON)</ButtonLink>
-                {solved.length > 1 ? <ButtonLink href={`${base}/export?format=csv&what=series`}>Series (CSV)</ButtonLink> : null}
+                <Download href={`${base}/export?format=csv&what=minima`}>Minima (CSV)</Download>
+                <Download href={`${base}/export?format=json&what=minima`}>Minima (JSON)</Download>
+                {solved.length > 1 ? <Download href={`${base}/export?format=csv&what=series`}>Series (CSV)</Download> : null}
               </>
             }>
             {solved.length > 1 ? (
@@ -108,7 +119,7 @@ export function RunPage({ networkId, initial, canCancel, canLaunch, canDelete }:
                 </select>
               </label>
             ) : null}
-            <RunMap regions={view.grid.regions} cellSizeDeg={view.grid.cellSizeDeg} minimum={m} stations={fits.data?.stations ?? []} />
+            <RunMap frame={map} regions={view.grid.regions} cellSizeDeg={view.grid.cellSizeDeg} minimum={m} stations={fits.data?.stations ?? []} />
             <h3 className="mt-4 mb-1 text-sm font-semibold">Minima</h3>
             <MinimaTable result={result} selected={minimum} onSelect={setMinimum} />
             <Caution topic="research" className="mt-4" />

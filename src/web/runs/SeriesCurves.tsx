@@ -1,8 +1,9 @@
 'use client';
 /** Daily curves: each region's intensity (best minimum per interval) with a ±1σ band, on a UT axis. */
 import { useMemo } from 'react';
-import * as Plot from '@observablehq/plot';
+import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
+import type { PlotModule } from '@/src/web/charts/plot-module';
 import type { IntervalView } from '@/src/runs/results';
 
 export function SeriesCurves({ intervals, colours }: { intervals: IntervalView[]; colours: Record<string, string> }) {
@@ -16,7 +17,7 @@ export function SeriesCurves({ intervals, colours }: { intervals: IntervalView[]
       });
     });
     const names = [...new Set(pts.map((p) => p.region))];
-    return {
+    return (Plot: PlotModule) => ({
       y: { type: 'log' },
       x: { type: 'utc', tickFormat: '%H:%M' },
       color: { legend: true, domain: names, range: names.map((n) => colours[n] ?? '#0072B2') },
@@ -25,7 +26,7 @@ export function SeriesCurves({ intervals, colours }: { intervals: IntervalView[]
         Plot.line(pts, { x: 't', y: 'I', stroke: 'region', strokeWidth: 1.5 }),
         Plot.dot(pts, { x: 't', y: 'I', fill: 'region', r: 2, title: (d: { region: string; I: number; t: Date }) => `${d.region} ${d.t.toISOString().slice(11, 16)} UT: ${d.I.toPrecision(3)} C² km²/s` }),
       ],
-    } as unknown as Plot.PlotOptions;
+    }) as unknown as Plot.PlotOptions;
   }, [intervals, colours]);
   return <PlotFigure title="Regional intensity through the day" xLabel="Time (UT)" yLabel="Intensity (C² km²/s)"
     caption="Best minimum of each interval; the band is ±1 standard error." options={options} height={280} />;

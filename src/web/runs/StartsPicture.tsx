@@ -4,8 +4,9 @@
  * minimum it ended in, grouped by minimum (x) — how often each minimum was found.
  */
 import { useMemo } from 'react';
-import * as Plot from '@observablehq/plot';
+import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
+import type { PlotModule } from '@/src/web/charts/plot-module';
 import type { InversionResult } from './types';
 
 export function StartsPicture({ result, selected }: { result: InversionResult; selected: number }) {
@@ -13,7 +14,7 @@ export function StartsPicture({ result, selected }: { result: InversionResult; s
     const dots = result.minima.flatMap((m, i) => m.startIndexes.map((s, k) => ({
       x: i + 1 + (((k % 9) - 4) * 0.07), misfit: m.misfit, start: s, chosen: i === selected,
     })));
-    return {
+    return (Plot: PlotModule) => ({
       x: { domain: [0.4, result.minima.length + 0.6], ticks: result.minima.map((_, i) => i + 1), tickFormat: (d: number) => `#${d}` },
       y: { type: 'log' },
       marks: [
@@ -23,7 +24,7 @@ export function StartsPicture({ result, selected }: { result: InversionResult; s
           title: (d: { start: number; misfit: number }) => `start ${d.start}: misfit ${d.misfit.toPrecision(5)}`,
         }),
       ],
-    } as unknown as Plot.PlotOptions;
+    }) as unknown as Plot.PlotOptions;
   }, [result, selected]);
   return <PlotFigure title={`Where the ${result.starts} starts ended`} xLabel="Minimum (rank)" yLabel="Final misfit χ² (dimensionless)"
     caption={`${result.unconverged} starts did not converge and are counted with the nearest minimum.`} options={options} height={240} />;

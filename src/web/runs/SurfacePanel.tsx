@@ -1,10 +1,12 @@
 'use client';
 /** Misfit surface over two chosen parameters around the selected minimum, computed by the worker on request and cached. */
 import { useMemo, useState } from 'react';
-import * as Plot from '@observablehq/plot';
+import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
+import type { PlotModule } from '@/src/web/charts/plot-module';
 import { SEQUENTIAL_MISFIT } from '@/src/web/charts/scales';
-import { Button, Notice } from '@/src/web/ui';
+import { Button } from '@/src/web/ui/Button';
+import { Notice } from '@/src/web/ui/Notice';
 import { apiSend, useApi } from '@/src/web/swr';
 
 type Surface = { id: string; state: 'queued' | 'running' | 'ready' | 'failed'; error: string | null;
@@ -40,14 +42,14 @@ export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }
     const ex = edges(r.x, logX);
     const ey = edges(r.y, logY);
     const cells = r.y.flatMap((yv, j) => r.x.map((xv, i) => ({ x1: ex[i][0], x2: ex[i][1], y1: ey[j][0], y2: ey[j][1], m: r.misfit[j][i] })));
-    return {
+    return (Plot: PlotModule) => ({
       x: logX ? { type: 'log' } : {}, y: logY ? { type: 'log' } : {},
       color: { type: 'log', scheme: SEQUENTIAL_MISFIT, legend: true, label: 'misfit χ² (dimensionless)' },
       marks: [
         Plot.rect(cells, { x1: 'x1', x2: 'x2', y1: 'y1', y2: 'y2', fill: 'm', title: (d: { m: number }) => `χ² = ${d.m.toPrecision(5)}` }),
         Plot.dot([r.centre], { x: 'x', y: 'y', r: 5, stroke: 'white', strokeWidth: 2, symbol: 'cross' }),
       ],
-    } as unknown as Plot.PlotOptions;
+    }) as unknown as Plot.PlotOptions;
   }, [s]);
   async function ask() {
     setErr(null);

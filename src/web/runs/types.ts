@@ -24,9 +24,13 @@ export function centreCovariance(m: Minimum, name: string): { sLat: number; sLon
   return { sLat: e.lat, sLon: e.lon, rho: Number.isFinite(rho) ? rho : 0 };
 }
 
+const formats = new Map<number, Intl.NumberFormat>(); // one formatter per precision: building one is slow
+
 export function fmt(v: number | undefined | null, digits = 3): string {
   if (v === undefined || v === null || !Number.isFinite(v)) return '—';
   const a = Math.abs(v);
   if (a !== 0 && (a >= 1e5 || a < 1e-3)) return v.toExponential(digits - 1);
-  return v.toLocaleString('en-GB', { maximumSignificantDigits: digits + 1 });
+  let f = formats.get(digits);
+  if (!f) formats.set(digits, (f = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: digits + 1 })));
+  return f.format(v);
 }

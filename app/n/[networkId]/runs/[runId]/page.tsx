@@ -4,10 +4,11 @@ import { can } from '@/src/auth/permissions';
 import { listStations } from '@/db/repo/stations';
 import { firstView, getRunView } from '@/src/runs/results';
 import { AppError } from '@/src/server/errors';
-import { Panel } from '@/src/web/ui';
+import { Panel } from '@/src/web/ui/Card';
 import { RunPage } from '@/src/web/runs/RunPage';
 import { fitsUrl, runApi } from '@/src/web/runs/types';
 import { SettingsSummary } from '@/src/web/runs/SettingsSummary';
+import { RunMapFrame } from '@/src/web/runs/RunMapFrame';
 
 export const metadata = { title: 'Run · Cavitas' };
 
@@ -29,7 +30,7 @@ export default async function RunDetailPage({ params }: { params: Promise<{ netw
       <Panel heading={view.run.name} description="What was asked: the settings this run used, one click from the model and grid versions it pinned.">
         <SettingsSummary view={view} stationCodes={codes} networkId={networkId} />
       </Panel>
-      <RunPage networkId={networkId} initial={JSON.parse(JSON.stringify(firstView(view)))}
+      <RunPage networkId={networkId} initial={JSON.parse(JSON.stringify(firstView(view)))} map={<RunMapFrame />}
         canCancel={can(membership.role, 'runs.cancel')} canLaunch={can(membership.role, 'runs.launch')} canDelete={can(membership.role, 'runs.delete')} />
     </div>
   );

@@ -1,0 +1,20 @@
+/**
+ * The one way figures reach Observable Plot: a dynamic import shared by every
+ * `PlotFigure`, so the chart code (Plot and the d3 modules it pulls in) is a
+ * separate chunk fetched after the page has hydrated, and only once however
+ * many figures a page draws.
+ */
+export type PlotModule = typeof import('@observablehq/plot');
+
+let loading: Promise<PlotModule> | null = null;
+
+export function loadPlot(): Promise<PlotModule> {
+  loading ??= import('@observablehq/plot').then((mod) => {
+    performance.mark('chart code ready'); // read by the page benchmark
+    return mod;
+  }, (e: unknown) => {
+    loading = null; // let a later figure try again (e.g. after a dropped connection)
+    throw e;
+  });
+  return loading;
+}
