@@ -4,6 +4,8 @@
  * (9 parameters), 64 starts on all cores — cold (pool start and kernel tables
  * included) and warm; peak resident memory; and a day of 144 intervals x 16
  * warm-started starts. Data: the engine's kernels with seeded log-normal noise.
+ * Also the mode-parameter inversion of fixtures/cases/modes.json (4 stations,
+ * 27 fitted modes, 3 parameters): CPU time per start, in-process.
  */
 import { availableParallelism, loadavg } from 'node:os';
 import { bandFrequencies } from '@/src/engine/band';
@@ -12,6 +14,9 @@ import { invertSeries } from '@/src/engine/inverse/interval-series';
 import { closeInversionPool } from '@/src/engine/inverse/pool';
 import type { SpectrumInversionInput } from '@/src/engine/inverse/spectrum-setup';
 import { syntheticObserved } from '@/src/engine/inverse/synthetic';
+import { invertModes } from '@/src/engine/inverse/invert';
+import { invertAnyCaseSchema, modeInputFromCase } from '@/src/engine/inverse/modes-from-case';
+import { readFileSync } from 'node:fs';
 
 const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 const band = { minHz: 5, maxHz: 40, stepHz: 0.25 };
@@ -76,5 +81,21 @@ export default async function bench(): Promise<void> {
     `day: 144 intervals x 16 starts (warm-started): ${((performance.now() - t0) / 1000).toFixed(1)} s wall, ${((c.user + c.system) / 1e6).toFixed(1)} s CPU; intervals with reduced chi2 < 1.2: ${good}; load average ${loadavg()[0].toFixed(1)}`,
   );
   console.log(`memory after the day: ${rssMb()}`);
+  await modeStarts();
   await closeInversionPool();
+}
+
+/** Mode-parameter inversion: every misfit evaluation fits each predicted spectrum with the pipeline's mode fit. */
+async function modeStarts(): Promise<void> {
+  const c = invertAnyCaseSchema.parse(JSON.parse(readFileSync(new URL('../../fixtures/cases/modes.json', import.meta.url), 'utf8')));
+  const input = modeInputFromCase(c);
+  await invertModes(input, { starts: 1, seed: 2, threads: 1 }); // kernel tables
+  const c0 = process.cpuUsage();
+  const t0 = performance.now();
+  const r = await invertModes(input, { starts: 4, seed: 1, threads: 1 });
+  const cpu = process.cpuUsage(c0);
+  const s = r.minima[0].sources[0];
+  console.log(
+    `modes: ${r.nData / 3} fitted modes, 4 starts in-process: ${((cpu.user + cpu.system) / 4e6).toFixed(2)} s CPU per start (${((performance.now() - t0) / 4000).toFixed(2)} s wall); best misfit ${r.minima[0].misfit.toFixed(1)} (N = ${r.nData}) at ${s.lat.toFixed(2)}, ${s.lon.toFixed(2)}; load average ${loadavg()[0].toFixed(1)}`,
+  );
 }
