@@ -65,7 +65,8 @@ describe('mode runs on the demo data', () => {
       expect(best.singular).toBe(false);
       for (const v of Object.values(best.stdErrors['Middle belt'])) expect(Number.isFinite(v as number)).toBe(true);
     }
-  });
+    // Each misfit evaluation fits every predicted spectrum with the pipeline's mode fit (predicted-modes.ts): minutes, not seconds, on a busy 2-core machine.
+  }, 300_000);
 
   it('fails the run, saying why, when the best minimum of an interval has no finite misfit', async () => {
     const { run } = await modeRun('Modes, nothing finite', '2026-03-14T15:00:00.000Z', '2026-03-14T15:10:00.000Z');
