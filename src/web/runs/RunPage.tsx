@@ -8,6 +8,7 @@
  */
 import { useMemo, useState, type ReactNode } from 'react';
 import { useRouter } from 'next/navigation';
+import dynamic from 'next/dynamic';
 // Straight from each module, not the ui index: the index also brings the table and tab code.
 import { Button, buttonClass } from '@/src/web/ui/Button';
 import { Panel } from '@/src/web/ui/Card';
@@ -22,6 +23,11 @@ import { SurfacePanel } from './SurfacePanel';
 import { StartsPicture } from './StartsPicture';
 import { SeriesCurves } from './SeriesCurves';
 import { runApi, type RunJson } from './types';
+
+/** Fits of a mode-parameter run: its own chunk, fetched only on a mode run's page. */
+const ModeFitsPanel = dynamic(() => import('./ModeFitsPanel').then((m) => m.ModeFitsPanel), {
+  ssr: false, loading: () => <p className="text-sm text-muted">Loading mode fits…</p>,
+});
 
 const LIVE = new Set(['queued', 'running']);
 const STATE_WORDS: Record<string, string> = {
@@ -124,8 +130,12 @@ export function RunPage({ networkId, initial, map, canCancel, canLaunch, canDele
             <MinimaTable result={result} selected={minimum} onSelect={setMinimum} />
             <Caution topic="research" className="mt-4" />
           </Panel>
-          <Panel heading="How good it is" description="Observed and predicted spectra at each station and component, with weighted residuals.">
-            <FitsPanel fits={fits.data} error={fits.error} />
+          <Panel heading="How good it is" description={view.config.observables.kind === 'modes'
+            ? 'Observed and predicted mode frequencies, peak intensities and half-widths at each station and component, with weighted residuals.'
+            : 'Observed and predicted spectra at each station and component, with weighted residuals.'}>
+            {view.config.observables.kind === 'modes'
+              ? <ModeFitsPanel fits={fits.data} error={fits.error} />
+              : <FitsPanel fits={fits.data} error={fits.error} />}
           </Panel>
           <Panel heading="How sure we are" description="Trade-offs between parameters, the misfit around the minimum, and where the starts ended.">
             <div className="grid gap-6 lg:grid-cols-2">

@@ -1,31 +1,112 @@
 'use client';
 /**
- * The multi-start picture: one dot per start, placed at the misfit of the
- * minimum it ended in, grouped by minimum (x) — how often each minimum was found.
+ * The multi-start picture: one mark per start at its own final misfit,
+ * grouped by the minimum it is counted in (x, best first; spread sideways
+ * within a group). Starts that reached a minimum are teal circles, starts
+ * that stopped without converging are vermillion triangles (shape and colour
+ * both differ, so the two read apart without colour vision). Hover a mark for
+ * its start number, misfit, iterations and why it stopped. Results stored
+ * before each start's own end was kept draw every start at its minimum's
+ * misfit and say so.
  */
 import { useMemo } from 'react';
 import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import type { PlotModule } from '@/src/web/charts/plot-module';
+import { CONVERGED_REASONS, type StopReason } from '@/src/engine/optim/types';
 import type { InversionResult } from './types';
 
+/** Our words for why a start stopped. */
+export const STOP_WORDS: Record<StopReason, string> = {
+  'misfit-change': 'misfit stopped falling',
+  'step-size': 'steps became negligible',
+  gradient: 'gradient vanished',
+  'max-iterations': 'ran out of iterations',
+  'max-evaluations': 'ran out of misfit evaluations',
+  'non-finite': 'misfit not finite',
+  cancelled: 'cancelled',
+};
+
+const REACHED = 'var(--c-accent)';
+const STOPPED_SHORT = '#D55E00'; // Okabe & Ito (2008) vermillion, apart from teal for every colour vision
+
+interface Dot { x: number; misfit: number; start: number; minimum: number; text: string; reached: boolean | null }
+
+/** x of the k-th of `count` starts in a minimum's column: centred, at most 9 side by side. */
+function spread(rank: number, k: number, count: number): number {
+  const across = Math.min(count, 9);
+  return rank + 1 + ((k % 9) - (across - 1) / 2) * 0.07;
+}
+
+function dotsOf(result: InversionResult): { dots: Dot[]; notDrawn: number } {
+  const ends = result.startEnds;
+  const dots: Dot[] = [];
+  let notDrawn = 0;
+  result.minima.forEach((m, rank) => {
+    m.startIndexes.forEach((s, k) => {
+      const at = ends ? ends.index.indexOf(s) : -1;
+      if (!ends || at < 0) {
+        dots.push({ x: spread(rank, k, m.startIndexes.length), misfit: m.misfit, start: s, minimum: rank, reached: null,
+          text: `Start ${s + 1} of ${result.starts}\nminimum #${rank + 1}, misfit ${m.misfit.toPrecision(6)}\n(own misfit not stored)` });
+        return;
+      }
+      const misfit = ends.misfit[at];
+      const reason = ends.stopReason[at];
+      if (misfit === null || !Number.isFinite(misfit)) {
+        notDrawn++;
+        return;
+      }
+      const reached = CONVERGED_REASONS.includes(reason);
+      dots.push({
+        x: spread(rank, k, m.startIndexes.length), misfit, start: s, minimum: rank, reached,
+        text: `Start ${s + 1} of ${result.starts}\nmisfit χ² ${misfit.toPrecision(6)}\n${ends.iterations[at]} iterations\nstopped: ${STOP_WORDS[reason] ?? reason}${reached ? '' : ' (not converged)'}\ncounted in minimum #${rank + 1}`,
+      });
+    });
+  });
+  return { dots, notDrawn };
+}
+
 export function StartsPicture({ result, selected }: { result: InversionResult; selected: number }) {
+  const own = result.startEnds !== undefined;
+  const { dots, notDrawn } = useMemo(() => dotsOf(result), [result]);
   const options = useMemo(() => {
-    const dots = result.minima.flatMap((m, i) => m.startIndexes.map((s, k) => ({
-      x: i + 1 + (((k % 9) - 4) * 0.07), misfit: m.misfit, start: s, chosen: i === selected,
-    })));
-    return (Plot: PlotModule) => ({
-      x: { domain: [0.4, result.minima.length + 0.6], ticks: result.minima.map((_, i) => i + 1), tickFormat: (d: number) => `#${d}` },
-      y: { type: 'log' },
+    const n = result.minima.length;
+    const logScale = dots.length > 0 && dots.every((d) => d.misfit > 0);
+    return (P: PlotModule) => ({
+      x: { domain: [0.4, n + 0.6], ticks: result.minima.map((_, i) => i + 1), tickFormat: (d: number) => `#${d}` },
+      y: logScale ? { type: 'log', insetTop: 10 } : { nice: true, insetTop: 10 },
+      symbol: { domain: ['reached', 'short', 'unknown'], range: ['circle', 'triangle', 'circle'] },
       marks: [
-        Plot.dot(dots, {
-          x: 'x', y: 'misfit', r: 3,
-          fill: (d: { chosen: boolean }) => (d.chosen ? '#E69F00' : '#0072B2'),
-          title: (d: { start: number; misfit: number }) => `start ${d.start}: misfit ${d.misfit.toPrecision(5)}`,
+        // the selected minimum's column
+        P.rectX([selected], { x1: (i: number) => i + 0.55, x2: (i: number) => i + 1.45, fill: 'var(--c-accent-soft)' }),
+        P.dot(dots, {
+          x: 'x', y: 'misfit', r: 3.5, strokeWidth: 1.2,
+          symbol: (d: Dot) => (d.reached === null ? 'unknown' : d.reached ? 'reached' : 'short'),
+          fill: (d: Dot) => (d.reached === false ? STOPPED_SHORT : d.reached === null ? 'var(--c-muted)' : REACHED),
+          stroke: 'var(--c-surface)',
+          title: 'text', tip: true,
         }),
       ],
     }) as unknown as Plot.PlotOptions;
-  }, [result, selected]);
-  return <PlotFigure title={`Where the ${result.starts} starts ended`} xLabel="Minimum (rank)" yLabel="Final misfit χ² (dimensionless)"
-    caption={`${result.unconverged} starts did not converge and are counted with the nearest minimum.`} options={options} height={240} />;
+  }, [result, dots, selected]);
+  const short = own ? result.startEnds!.stopReason.filter((r) => !CONVERGED_REASONS.includes(r)).length : result.unconverged;
+  const caption = own
+    ? `Each mark is one start at its own final misfit, in the column of the minimum it is counted in (the selected one shaded). ${short ? `${short} of ${result.starts} starts stopped without converging and are counted with the nearest minimum.` : `All ${result.starts} starts converged.`}${notDrawn ? ` ${notDrawn} ${notDrawn === 1 ? 'start ended without a finite misfit and is' : 'starts ended without a finite misfit and are'} not drawn.` : ''}`
+    : `This result was stored before each start's own misfit was kept: every start is drawn at its minimum's misfit, and which starts converged is not known (${result.unconverged} of ${result.starts} did not).`;
+  return (
+    <div data-testid="starts-picture" data-own-misfits={own ? 'yes' : 'no'}>
+      <PlotFigure title={`Where the ${result.starts} starts ended`} xLabel="Minimum (rank, best first)" yLabel="Final misfit χ² (dimensionless)"
+        caption={caption} options={options} height={240} />
+      {own ? (
+        <ul className="mt-1 flex flex-wrap gap-4 text-xs text-muted" aria-label="Marks">
+          <li className="flex items-center gap-1.5">
+            <svg width="10" height="10" aria-hidden="true"><circle cx="5" cy="5" r="4" fill={REACHED} /></svg> converged
+          </li>
+          <li className="flex items-center gap-1.5">
+            <svg width="10" height="10" aria-hidden="true"><path d="M5 0.5 L9.5 9 L0.5 9 Z" fill={STOPPED_SHORT} /></svg> stopped without converging
+          </li>
+        </ul>
+      ) : null}
+    </div>
+  );
 }
