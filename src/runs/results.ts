@@ -18,7 +18,10 @@ export interface IntervalView {
   /** Null when the interval had no data (then `skipped` says why). */
   result: InversionResult | null;
   skipped?: string;
-  /** Set by `firstView`: `result` holds only the best minimum's sources and standard errors. */
+  /**
+   * Set by `firstView`: `result` holds only the best minimum's source names and intensities (to
+   * `BRIEF_DIGITS` significant digits) and their intensity standard errors — what the daily curves draw.
+   */
   brief?: true;
 }
 
@@ -58,11 +61,16 @@ export async function getRunView(networkId: string, runId: string): Promise<RunV
   };
 }
 
+/** Significant digits of the intensities in a brief interval: far below the curves' pixel and error scale. */
+export const BRIEF_DIGITS = 5;
+
+const rounded = (x: number) => Number(x.toPrecision(BRIEF_DIGITS));
+
 /**
  * What the run page shows first: the full result of the last solved interval
  * (the one it opens on) and, for every other interval, only the best minimum's
- * sources and intensity errors (the daily curves). The page fetches the full
- * view when another interval is chosen.
+ * source intensities and their errors (the daily curves). The page fetches the
+ * full view when another interval is chosen.
  */
 export function firstView(view: RunView): RunView {
   const solved = view.intervals.filter((i) => i.result && i.result.minima.length);
@@ -73,7 +81,10 @@ export function firstView(view: RunView): RunView {
       if (!iv.result || iv.startsAt === open) return iv;
       const best = iv.result.minima[0];
       const brief = best
-        ? [{ sources: best.sources, stdErrors: Object.fromEntries(Object.entries(best.stdErrors).map(([k, e]) => [k, { intensity: e.intensity }])) } as unknown as Minimum]
+        ? [{
+          sources: best.sources.map((x) => ({ name: x.name, intensity: rounded(x.intensity) })),
+          stdErrors: Object.fromEntries(Object.entries(best.stdErrors).map(([k, e]) => [k, { intensity: e.intensity === undefined ? undefined : rounded(e.intensity) }])),
+        } as unknown as Minimum]
         : [];
       return { ...iv, result: { minima: brief } as unknown as InversionResult, brief: true as const };
     }),
