@@ -8,6 +8,8 @@
  * common practice), so sigmaLog = 1/sqrt(K).
  */
 import { getIntervalSpectra, listIntervals, type IntervalSpectrum } from '@/db/repo/intervals';
+import { listStations } from '@/db/repo/stations';
+import { listedLines, mainsLines } from '@/src/engine/signal/line-suppression';
 import type { RunConfig } from './config';
 import type { ObservedModes } from '@/src/engine/inverse/types';
 import { SPECTRUM_BAND_MAX_HZ, SPECTRUM_BAND_MIN_HZ } from '@/src/engine/tolerances';
@@ -63,6 +65,8 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
     networkId, stationIds: config.data.stationIds, components: config.data.components,
     from: startsAt, to: new Date(startsAt.getTime() + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
   });
+  // The bins the pipeline's fit left out: the mains line, its harmonics and the station's interference lines.
+  const lines = new Map((await listStations(networkId)).map((s) => [s.code, [...mainsLines(s.mainsHz, SPECTRUM_BAND_MAX_HZ), ...listedLines(s.interferenceLines)]]));
   const out: ObservedModes[] = [];
   for (const r of rows) {
     if (!r.fit) continue;
@@ -78,8 +82,8 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
         sigmaFrequency: e.frequency, sigmaLogIntensity: e.amplitude / peak, sigmaHalfWidth: e.halfWidth,
       }];
     });
-    // The predicted modes go through the same fit: as many modes, over the pipeline's default band.
-    if (modes.length) out.push({ station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length } });
+    // The predicted modes go through the same fit: as many modes, over the pipeline's default band, less the same lines.
+    if (modes.length) out.push({ station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length, excludeLines: lines.get(r.stationCode) ?? [] } });
   }
   return out;
 }

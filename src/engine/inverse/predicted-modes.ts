@@ -5,9 +5,10 @@
  * same usual-frequency windows and bounds, same starting values from
  * initialGuess, same two weighted passes and optimiser settings:
  * two-stage-fit.ts), run on the predicted power of the grid bins in that
- * band, each pass then taken to full precision by a few Newton steps. Each observed mode is
- * matched to the fitted mode of its window (the usual frequency it lies
- * nearest to; the windows do not overlap).
+ * band less those of interference lines the observed fit left out, each
+ * pass then taken to full precision by a few Newton steps. Each observed
+ * mode is matched to the fitted mode of its window (the usual frequency it
+ * lies nearest to; the windows do not overlap).
  *
  * Not warm-started from the observed modes: the fit of a forward-model
  * spectrum has several local minima (a narrow spike on a bound, one broad
@@ -96,8 +97,11 @@ export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: str
   if (o.minHz < grid[0] - 1e-9 || o.maxHz > top + 1e-9) {
     throw new InversionInputError(`${where}.fit: the fitted band ${o.minHz}–${o.maxHz} Hz reaches outside the model grid ${grid[0]}–${top} Hz`);
   }
+  // Bins the observed fit left out (bridged interference lines), by line suppression's own rule.
+  const lines = m.fit?.excludeLines ?? [];
+  const left = (f: number) => lines.some((l) => Math.abs(f - l.frequencyHz) <= l.halfWidthHz);
   const idx: number[] = [];
-  for (let i = 0; i < grid.length; i++) if (grid[i] >= o.minHz && grid[i] <= o.maxHz) idx.push(i);
+  for (let i = 0; i < grid.length; i++) if (grid[i] >= o.minHz && grid[i] <= o.maxHz && !left(grid[i])) idx.push(i);
   const np = paramCount(modes);
   if (idx.length < 2 * np) throw new InversionInputError(`${where}: only ${idx.length} grid bins between ${o.minHz} and ${o.maxHz} Hz for a fit of ${modes} modes`);
   const freqs = Float64Array.from(idx, (i) => grid[i]);

@@ -64,8 +64,12 @@ export interface ObservedModes {
   station: string;
   component: Component;
   modes: ObservedMode[];
-  /** The mode fit these came from (modes fitted, band in Hz, default band when absent); the predicted modes go through the same fit. Absent: the default fit of as many modes as the observed ones reach. */
-  fit?: { modes: number; minHz?: number; maxHz?: number };
+  /**
+   * The mode fit these came from (modes fitted, band in Hz, default band when absent; lines whose bins it left out,
+   * |f - frequencyHz| <= halfWidthHz, as line suppression marks them); the predicted modes go through the same fit.
+   * Absent: the default fit of as many modes as the observed ones reach.
+   */
+  fit?: { modes: number; minHz?: number; maxHz?: number; excludeLines?: { frequencyHz: number; halfWidthHz: number }[] };
 }
 
 export interface SourceEstimate {
