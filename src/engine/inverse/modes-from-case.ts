@@ -4,8 +4,8 @@
  * with its fitted modes (frequency Hz, peak intensity in the component's SI
  * power-density unit, half-width Hz, and the standard deviations of
  * frequency, ln intensity and half-width) and, optionally, the fit they came
- * from (`fit: { modes, minHz?, maxHz? }`; the predicted modes go through the
- * same fit). The case's `band` is the grid of the predicted spectra; it must
+ * from (`fit: { modes, minHz?, maxHz?, excludeLines?: [{ frequencyHz,
+ * halfWidthHz }] }`; the predicted modes go through the same fit). The case's `band` is the grid of the predicted spectra; it must
  * cover the fitted band in the bins the observed spectrum had.
  */
 import { z } from 'zod';
@@ -31,7 +31,12 @@ export const observedModesSchema = z.looseObject({
   station: z.string().min(1),
   component: z.enum(['Ez', 'Bns', 'Bew']),
   modes: z.array(observedModeSchema).min(1),
-  fit: z.looseObject({ modes: z.number().int().min(MIN_MODES).max(MAX_MODES), minHz: positive.optional(), maxHz: positive.optional() }).optional(),
+  fit: z.looseObject({
+    modes: z.number().int().min(MIN_MODES).max(MAX_MODES),
+    minHz: positive.optional(),
+    maxHz: positive.optional(),
+    excludeLines: z.array(z.looseObject({ frequencyHz: positive, halfWidthHz: positive })).optional(),
+  }).optional(),
 });
 
 export type CaseModes = z.infer<typeof observedModesSchema>;
@@ -73,7 +78,7 @@ export function modeInputFromCase(c: CaseFile): ModeInversionInput {
       station: o.station,
       component: o.component as Component,
       modes: o.modes.map((m) => ({ frequency: m.frequency, intensity: m.intensity, halfWidth: m.halfWidth, sigmaFrequency: m.sigmaFrequency, sigmaLogIntensity: m.sigmaLogIntensity, sigmaHalfWidth: m.sigmaHalfWidth })),
-      ...(o.fit ? { fit: { modes: o.fit.modes, minHz: o.fit.minHz, maxHz: o.fit.maxHz } } : {}),
+      ...(o.fit ? { fit: { modes: o.fit.modes, minHz: o.fit.minHz, maxHz: o.fit.maxHz, excludeLines: o.fit.excludeLines?.map((l) => ({ frequencyHz: l.frequencyHz, halfWidthHz: l.halfWidthHz })) } } : {}),
     })),
     unknowns: unknownsFromCase(c),
   };
