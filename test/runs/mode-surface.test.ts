@@ -6,11 +6,11 @@
  * The stored result also carries each start's own end, and the minimum's
  * misfit is the smallest of them.
  *
- * Measured, not asserted: on this interval the mode misfit is smooth within
- * about 0.25 deg of the minimum but jumps by about -20 (chi-square 463 to
- * 440) a little further out in latitude, where the Lorentzian fit of the
- * predicted spectrum changes solution, so grid points 0.5 sigma away can lie
- * below the minimum the starts converged to. The engine's mode surface test
+ * Measured, not asserted (2026-12-02): on this interval the mode misfit is
+ * smooth within about 0.15 deg of the minimum (chi-square 465.6) but jumps
+ * by about -22 (to 444) 0.2 deg out in latitude or longitude, about 0.6
+ * standard errors, where the Lorentzian fit of the predicted spectrum changes
+ * solution; grid points there lie below the minimum the starts converged to. The engine's mode surface test
  * (test/engine/inverse/surface.test.ts) checks the lowest-point property on
  * synthetic data where the misfit is smooth.
  */
