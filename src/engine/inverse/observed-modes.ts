@@ -25,6 +25,38 @@ export interface ObservedModeOptions {
 
 const EDGE_HZ = 1e-6;
 
+export interface PropagatedErrors {
+  /** Per observed mode: sigma of frequency, ln peak and half-width (0 where the fit holds the quantity on a bound). */
+  sigmas: [number, number, number][];
+  /** Per observed mode: the fit holds its frequency or half-width on a bound, or found no amplitude. */
+  onEdge: boolean[];
+}
+
+/**
+ * Errors of the observed modes of `power` (on `grid`, the spectrum's own bins) propagated from an independent
+ * scatter of sigmaLog in ln power per bin through the fit described by `modes.fit` (the pipeline's estimator).
+ */
+export function propagatedModeErrors(modes: ObservedModes, grid: Float64Array, power: ArrayLike<number>, sigmaLog: number): PropagatedErrors {
+  const setup = modeSeriesSetup(modes, grid, `${modes.station} ${modes.component}`);
+  const y = Float64Array.from(setup.bins, (b) => power[b]);
+  const est = predictedSeriesModes(setup, y);
+  const nb = y.length;
+  const d = new Float64Array(nb * nb);
+  for (let k = 0; k < nb; k++) d[k * nb + k] = sigmaLog * y[k];
+  const rows = new Float64Array(3 * modes.modes.length * nb);
+  predictedModeDerivatives(setup, est, d, nb, rows);
+  const sd = (row: number) => Math.sqrt(rows.subarray(row * nb, (row + 1) * nb).reduce((a, v) => a + v * v, 0));
+  const q = est.fit.final.params;
+  return {
+    sigmas: modes.modes.map((_, k) => [sd(3 * k), sd(3 * k + 1), sd(3 * k + 2)]),
+    onEdge: setup.slots.map((s) => {
+      const f = q[3 * s], g = q[3 * s + 2];
+      return !(q[3 * s + 1] > 0) || Math.abs(f - est.lower[3 * s]) < EDGE_HZ || Math.abs(f - est.upper[3 * s]) < EDGE_HZ
+        || Math.abs(g - MODE_HALF_WIDTH_MIN_HZ) < EDGE_HZ || Math.abs(g - MODE_HALF_WIDTH_MAX_HZ) < EDGE_HZ;
+    }),
+  };
+}
+
 export function observedModesOf(series: ObservedSeries, options: ObservedModeOptions): ObservedModes {
   const grid = Float64Array.from(series.frequencies);
   const fit = fitModes(grid, series.power, { modes: options.modes, minHz: options.minHz, maxHz: options.maxHz, averages: 1 / series.sigmaLog ** 2 });
@@ -34,22 +66,11 @@ export function observedModesOf(series: ObservedSeries, options: ObservedModeOpt
     modes: fit.modes.map((m) => ({ frequency: m.frequency, intensity: m.amplitude + fit.background.b0 + fit.background.b1 * m.frequency, halfWidth: m.halfWidth, sigmaFrequency: 1, sigmaLogIntensity: 1, sigmaHalfWidth: 1 })),
     fit: { modes: options.modes, ...fit.band },
   };
-  const setup = modeSeriesSetup(all, grid, `${series.station} ${series.component}`);
-  const power = Float64Array.from(setup.bins, (b) => series.power[b]);
-  const est = predictedSeriesModes(setup, power);
-  const nb = power.length;
-  const d = new Float64Array(nb * nb);
-  for (let k = 0; k < nb; k++) d[k * nb + k] = series.sigmaLog * power[k];
-  const rows = new Float64Array(3 * all.modes.length * nb);
-  predictedModeDerivatives(setup, est, d, nb, rows);
-  const sd = (row: number) => Math.sqrt(rows.subarray(row * nb, (row + 1) * nb).reduce((a, v) => a + v * v, 0));
+  const { sigmas, onEdge } = propagatedModeErrors(all, grid, series.power, series.sigmaLog);
   const keep: ObservedMode[] = [];
   all.modes.forEach((m, k) => {
-    const s = 3 * setup.slots[k];
-    const onEdge = Math.abs(m.frequency - est.lower[s]) < EDGE_HZ || Math.abs(m.frequency - est.upper[s]) < EDGE_HZ
-      || Math.abs(m.halfWidth - MODE_HALF_WIDTH_MIN_HZ) < EDGE_HZ || Math.abs(m.halfWidth - MODE_HALF_WIDTH_MAX_HZ) < EDGE_HZ;
-    const sigma = [sd(3 * k), sd(3 * k + 1), sd(3 * k + 2)];
-    if (onEdge || !(fit.modes[k].amplitude > 0) || !(m.intensity > 0) || !sigma.every((v) => v > 0 && Number.isFinite(v))) return;
+    const sigma = sigmas[k];
+    if (onEdge[k] || !(m.intensity > 0) || !sigma.every((v) => v > 0 && Number.isFinite(v))) return;
     keep.push({ ...m, sigmaFrequency: sigma[0], sigmaLogIntensity: sigma[1], sigmaHalfWidth: sigma[2] });
   });
   return { ...all, modes: keep };
