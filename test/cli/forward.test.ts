@@ -29,6 +29,25 @@ describe('cli forward', () => {
       });
     });
 
+  it('a source given by grid cells is one point per cell centre sharing the intensity by area (the polar row: 36 equal shares at 85 N)', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'cavitas-fwd-'));
+    const base = {
+      cavity: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 },
+      band: { minHz: 6, maxHz: 30, stepHz: 2 },
+      stations: [{ code: 'QQA', lat: 12, lon: 40, components: ['Ez', 'Bns', 'Bew'] }],
+    };
+    const cells = join(dir, 'cells.json');
+    const points = join(dir, 'points.json');
+    writeFileSync(cells, JSON.stringify({ ...base, sources: [{ cells: { cellSizeDeg: 10, ids: Array.from({ length: 36 }, (_, i) => 612 + i) }, intensity: 3.6e4 }] }));
+    writeFileSync(points, JSON.stringify({ ...base, sources: Array.from({ length: 36 }, (_, i) => ({ lat: 85, lon: -175 + 10 * i, intensity: 1e3 })) }));
+    const a = run(cells);
+    const b = run(points);
+    expect(a.status, a.stderr).toBe(0);
+    const pa = (JSON.parse(a.stdout) as { spectra: Spectrum[] }).spectra;
+    const pb = (JSON.parse(b.stdout) as { spectra: Spectrum[] }).spectra;
+    pa.forEach((s, i) => s.power.forEach((p, j) => expect(Math.abs(p - pb[i].power[j])).toBeLessThanOrEqual(1e-12 * pb[i].power[j])));
+  });
+
   it('a malformed case exits non-zero with a message naming the field, and no stack trace', () => {
     const dir = mkdtempSync(join(tmpdir(), 'cavitas-fwd-'));
     const file = join(dir, 'bad.json');

@@ -1,7 +1,7 @@
 /** Cell geometry of source grids and the centroid of cell regions. */
 import { describe, expect, it } from 'vitest';
 import { cellAt, cellBox, cellsInBox, gridShape, gridProblems, CELL_SIZES } from '@/src/runs/grid-spec';
-import { cellCentroid } from '@/src/runs/unknowns';
+import { cellRegion } from '@/src/engine/sources/cell-region';
 
 const D = Math.PI / 180;
 
@@ -33,11 +33,12 @@ describe('global grid cells', () => {
     expect(cells.map((c) => cellBox(10, c).lon).sort((a, b) => a - b)).toEqual([-175, -175, 175, 175]);
   });
 
-  it('centroid of cells symmetric about the equator and a meridian lies on both', () => {
+  it('numbers cells as the engine does, so a region\'s footprint is the cells the editor shows', () => {
     const cells = [cellAt(10, 5, 15), cellAt(10, -5, 15), cellAt(10, 5, 25), cellAt(10, -5, 25)];
-    const c = cellCentroid(10, cells);
+    const c = cellRegion(10, cells);
     expect(c.lat).toBeCloseTo(0, 12);
     expect(c.lon).toBeCloseTo(20, 12);
+    expect(c.nodes.map((q) => [q.lat, q.lon])).toEqual(cells.map((id) => [cellBox(10, id).lat, cellBox(10, id).lon]));
   });
 
   it('report duplicate names and a centre outside its bounds', () => {

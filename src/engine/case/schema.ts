@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { bandProblem, bandSize } from '../band';
 import { cavityConfigSchema } from '../cavity/schema';
+import { cellRegion } from '../sources/cell-region';
 
 const latitude = z.number().min(-90).max(90);
 const longitude = z.number().min(-360).max(360);
@@ -29,15 +30,46 @@ export const stationSchema = z.looseObject({
     .refine((c) => new Set(c).size === c.length, 'components must not repeat'),
 });
 
-export const sourceSchema = z.looseObject({
-  name: z.string().min(1).max(80).optional(),
-  lat: latitude,
-  lon: longitude,
-  /** C^2 km^2 / s */
-  intensity: z.number().min(0).max(1e15),
-  /** Optional angular spread (degrees) of a spot region around lat/lon; 0 or absent = point source. */
-  spreadDeg: z.number().min(0).max(30).optional(),
-});
+/**
+ * A region of cells of the global grid (cell ids row by row from the south-west
+ * corner, as makeGlobalGrid numbers them), standing in for lat/lon: one point
+ * node per cell centre, weighted by area (cellRegion).
+ */
+export const cellsSchema = z
+  .looseObject({ cellSizeDeg: z.number().positive().max(90), ids: z.array(z.number().int().min(0)).min(1) })
+  .superRefine((c, ctx) => {
+    try {
+      cellRegion(c.cellSizeDeg, c.ids);
+    } catch (e) {
+      ctx.addIssue({ code: 'custom', path: (e as Error).message.startsWith('grid cell size') ? ['cellSizeDeg'] : ['ids'], message: (e as Error).message });
+    }
+  });
+
+type Placed = { lat?: number; lon?: number; cells?: z.infer<typeof cellsSchema> };
+/** Either cells, or both lat and lon. */
+function placement(what: string) {
+  return (s: Placed, ctx: z.RefinementCtx) => {
+    if (s.cells) {
+      if (s.lat !== undefined || s.lon !== undefined) ctx.addIssue({ code: 'custom', path: ['cells'], message: `a ${what} is placed by cells or by lat/lon, not both` });
+      return;
+    }
+    if (s.lat === undefined) ctx.addIssue({ code: 'custom', path: ['lat'], message: `lat is required (or give cells)` });
+    if (s.lon === undefined) ctx.addIssue({ code: 'custom', path: ['lon'], message: `lon is required (or give cells)` });
+  };
+}
+
+export const sourceSchema = z
+  .looseObject({
+    name: z.string().min(1).max(80).optional(),
+    lat: latitude.optional(),
+    lon: longitude.optional(),
+    cells: cellsSchema.optional(),
+    /** C^2 km^2 / s */
+    intensity: z.number().min(0).max(1e15),
+    /** Optional angular spread (degrees) of a spot region around lat/lon; 0 or absent = point source. */
+    spreadDeg: z.number().min(0).max(30).optional(),
+  })
+  .superRefine(placement('source'));
 
 export const observedSchema = z
   .looseObject({
@@ -55,13 +87,24 @@ export const observedSchema = z
 const range = (lo: number, hi: number) =>
   z.looseObject({ min: z.number().min(lo).max(hi), max: z.number().min(lo).max(hi) }).refine((r) => r.min <= r.max, { message: 'min must not exceed max', path: ['max'] });
 
-export const unknownSchema = z.looseObject({
-  name: z.string().min(1),
-  intensity: range(0, 1e15),
-  /** A range to search, or a single number: fixed in place. */
-  lat: z.union([latitude, range(-90, 90)]),
-  lon: z.union([longitude, range(-360, 360)]),
-});
+export const unknownSchema = z
+  .looseObject({
+    name: z.string().min(1),
+    intensity: range(0, 1e15),
+    /** A range to search, or a single number: fixed in place. */
+    lat: z.union([latitude, range(-90, 90)]).optional(),
+    lon: z.union([longitude, range(-360, 360)]).optional(),
+    /** A fixed region of grid cells instead of lat/lon: only its intensity is searched. */
+    cells: cellsSchema.optional(),
+  })
+  .superRefine((u, ctx) => placement('region')({ lat: u.lat as number | undefined, lon: u.lon as number | undefined, cells: u.cells }, ctx))
+  .transform(({ cells, ...u }) => {
+    type Coordinate = number | { min: number; max: number };
+    type Footprint = { lat: number; lon: number; weight: number }[];
+    if (!cells) return u as typeof u & { lat: Coordinate; lon: Coordinate; footprint?: Footprint };
+    const region = cellRegion(cells.cellSizeDeg, cells.ids);
+    return { ...u, lat: region.lat as Coordinate, lon: region.lon as Coordinate, footprint: region.nodes as Footprint | undefined };
+  });
 
 export const caseSchema = z
   .looseObject({

@@ -43,6 +43,7 @@ export function unknownsFromCase(c: CaseFile): RegionUnknown[] {
       lat: u.lat,
       lon: u.lon,
       ...(spread !== undefined ? { spread } : {}),
+      ...(u.footprint ? { footprint: u.footprint } : {}), // a region given by grid cells
     };
   });
 }

@@ -8,6 +8,7 @@
  * min < max internally; outputs are wrapped to (-180, 180].
  */
 import { wrapLon } from '@/src/engine/geometry/great-circle';
+import { SPOT_STRIDE } from '@/src/engine/sources/spot';
 import { InversionInputError } from './errors';
 import type { ParamKind, Range, RegionUnknown } from './types';
 
@@ -27,6 +28,8 @@ export interface RegionLayout {
   /** Internal value used when fixed (log intensity for 'intensity'). */
   fixed: Record<ParamKind, number>;
   hasSpread: boolean;
+  /** A fixed footprint as spot-style nodes (SPOT_STRIDE doubles each, centre derivatives of a rigid point), or null. */
+  footprint: Float64Array | null;
 }
 
 export interface Parameterisation {
@@ -48,6 +51,23 @@ function range(v: Range | number | undefined, where: string): { min: number; max
   return v;
 }
 
+/** Checks a footprint (fixed place, no spread, positive weights adding up to 1) and packs its nodes. */
+function footprintNodes(u: RegionUnknown, where: string): Float64Array {
+  const f = u.footprint!;
+  if (f.length === 0) throw new InversionInputError(`${where}.footprint has no nodes`);
+  if (typeof u.lat !== 'number' || typeof u.lon !== 'number') throw new InversionInputError(`${where}: a region with a fixed footprint cannot move (lat and lon must be numbers)`);
+  if (u.spread !== undefined) throw new InversionInputError(`${where}: a region with a fixed footprint has no spread`);
+  let total = 0;
+  const out = new Float64Array(f.length * SPOT_STRIDE);
+  f.forEach((q, k) => {
+    if (!(q.weight > 0) || !(Math.abs(q.lat) <= 90) || !Number.isFinite(q.lon)) throw new InversionInputError(`${where}.footprint[${k}] needs lat within -90..90, a finite lon and a weight above 0`);
+    total += q.weight;
+    out.set([q.lat, q.lon, q.weight, 1, 0, 0, 1], k * SPOT_STRIDE);
+  });
+  if (Math.abs(total - 1) > 1e-9) throw new InversionInputError(`${where}.footprint weights add up to ${total}, not 1`);
+  return out;
+}
+
 export function buildParameterisation(unknowns: RegionUnknown[]): Parameterisation {
   if (unknowns.length === 0) throw new InversionInputError('unknowns: at least one region is needed');
   const seen = new Set<string>();
@@ -62,6 +82,7 @@ export function buildParameterisation(unknowns: RegionUnknown[]): Parameterisati
       index: { intensity: -1, lat: -1, lon: -1, spread: -1 },
       fixed: { intensity: 0, lat: 0, lon: 0, spread: 0 },
       hasSpread: u.spread !== undefined,
+      footprint: u.footprint ? footprintNodes(u, where) : null,
     };
     for (const kind of KINDS) {
       const v = range(u[kind], `${where}.${kind}`);

@@ -7,7 +7,9 @@
  * P_pred = sum_r I_r E_c,r with the effective kernel of region r
  * E_c,r = sum_q w_q K_c(theta_q) proj_c(bearing_q) over its nodes q (one node
  * for a point region; the engine's 7-node spot quadrature, moving rigidly with
- * the centre, for a region with a spread). K_Ez = ez, K_Bns = bh sin^2(bearing),
+ * the centre, for a region with a spread; the given nodes of a fixed footprint,
+ * e.g. one per grid cell). Regions that cannot move or change shape are sampled
+ * once, as their kernels never change. K_Ez = ez, K_Bns = bh sin^2(bearing),
  * K_Bew = bh cos^2(bearing). Analytic Jacobian by the chain rule:
  * d/d(ln I) = I E; d/d(centre lat) = I sum_q w_q (dK/dtheta dtheta/dlat proj
  * + K dproj/dbearing dbearing/dlat), with the node's own dependence on the
@@ -51,7 +53,10 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
   if (n > m) throw new InversionInputError(`more free parameters (${n}) than data (${m})`);
   const used = new Uint8Array(nS);
   for (const s of layout.series) used[s.station] = 1;
-  const maxNodes = par.regions.map((r) => (r.hasSpread ? SPOT_MAX_NODES : 1));
+  const maxNodes = par.regions.map((r) => (r.footprint ? r.footprint.length / SPOT_STRIDE : r.hasSpread ? SPOT_MAX_NODES : 1));
+  // A region whose place and shape are fixed has the same effective kernels at every point: sampled once.
+  const still = par.regions.map((r) => r.index.lat < 0 && r.index.lon < 0 && r.index.spread < 0);
+  let sampledOnce = false;
   // Per station x region x node: kernel samples and geometry; per station x region: effective kernels.
   const buf: KernelBuffers[][] = [];
   const gc: GreatCircle[][] = [];
@@ -67,7 +72,7 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
       effMinus.push(par.regions[r].index.spread >= 0 ? [0, 1, 2].map(() => new Float64Array(nb)) : []);
     }
   }
-  const nodes = Array.from({ length: nR }, () => new Float64Array(SPOT_MAX_NODES * SPOT_STRIDE));
+  const nodes = par.regions.map((r) => r.footprint ?? new Float64Array(SPOT_MAX_NODES * SPOT_STRIDE));
   const nodeCount = new Int32Array(nR);
   const inten = new Float64Array(nR);
   const spread = new Float64Array(nR);
@@ -83,14 +88,16 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
     for (let r = 0; r < nR; r++) {
       const reg = par.regions[r];
       inten[r] = Math.exp(regionValue(reg, 'intensity', p));
+      if (still[r] && sampledOnce) continue;
       spread[r] = reg.hasSpread ? regionValue(reg, 'spread', p) : 0;
-      nodeCount[r] = spotNodesInto(regionValue(reg, 'lat', p), regionValue(reg, 'lon', p), spread[r], nodes[r]);
+      nodeCount[r] = reg.footprint ? maxNodes[r] : spotNodesInto(regionValue(reg, 'lat', p), regionValue(reg, 'lon', p), spread[r], nodes[r]);
       for (let s = 0; s < nS; s++) {
         if (!used[s]) continue;
         const i = s * nR + r;
         effectiveKernels(kernel, layout.stations[s], nodes[r], nodeCount[r], buf[i], gc[i], eff[i]);
       }
     }
+    sampledOnce = true;
     last.set(p);
   }
 

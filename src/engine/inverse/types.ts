@@ -18,6 +18,11 @@ export interface RegionUnknown {
   lon: number | Range;
   /** Angular spread in degrees (moving spot region); absent = point source. */
   spread?: number | Range;
+  /**
+   * A fixed footprint (e.g. grid cells): point nodes whose weights add up to 1, used
+   * instead of the point or spot; lat and lon must then be fixed (they name its place).
+   */
+  footprint?: { lat: number; lon: number; weight: number }[];
 }
 
 export interface StationSite {

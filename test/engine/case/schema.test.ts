@@ -26,6 +26,29 @@ describe('case file schema', () => {
     expect(invertCaseSchema.safeParse(good).success).toBe(true);
   });
 
+  it('places a source or an unknown by grid cells instead of lat/lon, the unknown as a fixed footprint', () => {
+    const polarRow = Array.from({ length: 36 }, (_, i) => 17 * 36 + i); // 10-degree cells north of 80 N
+    const r = caseSchema.parse({
+      ...good,
+      sources: [{ name: 'Cap', cells: { cellSizeDeg: 10, ids: polarRow }, intensity: 5e4 }],
+      unknowns: [{ name: 'Cap', cells: { cellSizeDeg: 10, ids: polarRow }, intensity: { min: 100, max: 1e6 } }],
+    });
+    expect(r.sources![0].cells!.ids).toEqual(polarRow);
+    expect(r.unknowns![0]).toMatchObject({ name: 'Cap', intensity: { min: 100, max: 1e6 } });
+    expect(r.unknowns![0].lat as number).toBeCloseTo(90, 9);
+    expect(r.unknowns![0].footprint).toHaveLength(36);
+    expect(r.unknowns![0].footprint![0]).toEqual({ lat: 85, lon: -175, weight: expect.closeTo(1 / 36, 14) });
+  });
+
+  it('names the field at fault when a region is placed wrongly', () => {
+    const cells = { cellSizeDeg: 10, ids: [1, 2] };
+    expect(firstIssue({ ...good, unknowns: [{ name: 'R1', intensity: { min: 1, max: 2 }, lat: 3 }] })).toEqual({ path: 'unknowns.0.lon', message: 'lon is required (or give cells)' });
+    expect(firstIssue({ ...good, unknowns: [{ ...good.unknowns[0], cells }] }).path).toBe('unknowns.0.cells');
+    expect(firstIssue({ ...good, sources: [{ intensity: 1, cells: { cellSizeDeg: 10, ids: [700] } }] }))
+      .toEqual({ path: 'sources.0.cells.ids', message: 'cell 700 is not in a 10-degree grid (ids 0 to 647)' });
+    expect(firstIssue({ ...good, sources: [{ intensity: 1, cells: { cellSizeDeg: 7, ids: [1] } }] }).path).toBe('sources.0.cells.cellSizeDeg');
+  });
+
   it('names the field at fault', () => {
     expect(firstIssue({ ...good, stations: [{ ...good.stations[0], lat: 95 }] }).path).toBe('stations.0.lat');
     expect(firstIssue({ ...good, cavity: { ...good.cavity, model: 'flat' } }).path).toBe('cavity.model');
