@@ -38,6 +38,8 @@ export interface ExecuteOptions {
   leaseSeconds?: number;
   /** After this many milliseconds the driver hands the run back after the current interval ('yielded'). */
   budgetMs?: number;
+  /** Asked after each interval: true hands the run back at once ('yielded'), e.g. when the worker is shutting down. */
+  yieldNow?: () => boolean;
 }
 
 /** 'yielded': the time slice ended with intervals left; queue a continuation job. */
@@ -152,7 +154,8 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     });
     writing.catch(() => {}); // awaited above or below; the error surfaces there
     if (opts.afterInterval) await writing; // a hook runs before the next interval begins
-    if (opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs && k < todo.length - 1) {
+    const sliceOver = opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs;
+    if ((sliceOver || opts.yieldNow?.()) && k < todo.length - 1) {
       await writing;
       await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
       return 'yielded';

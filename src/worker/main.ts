@@ -1,11 +1,13 @@
 /**
  * The worker process (`npm run worker`, also started by `npm start`): serves every job kind in
- * the registry until SIGINT/SIGTERM, then lets running jobs finish (up to 60 s) and exits.
+ * the registry until SIGINT/SIGTERM, then lets running jobs finish (up to 60 s; inversion runs
+ * are handed back to the queue after their current interval) and exits.
  * Start as many as you like, on as many machines, against the same DATABASE_URL.
  */
 import { jobs } from './registry';
 import { serveJobs } from './run';
 import { startRunSweep } from './sweep';
+import { handOverRuns } from './jobs/run-inversion';
 import { closeDatabase } from '@/db/lifecycle';
 
 async function main(): Promise<void> {
@@ -14,13 +16,13 @@ async function main(): Promise<void> {
     process.exit(2);
   }
   const handle = await serveJobs(jobs);
-  console.log(`[worker] ready (pid ${process.pid}); queues: ${handle.queues.join(', ') || 'none registered'}`);
   const sweep = startRunSweep();
   let stopping = false;
   const shutdown = (signal: string) => {
     if (stopping) return;
     stopping = true;
     console.log(`[worker] ${signal}: finishing running jobs…`);
+    handOverRuns(); // runs go back to the queue after their current interval
     sweep
       .stop()
       .then(() => handle.stop(60_000))
@@ -34,8 +36,10 @@ async function main(): Promise<void> {
         process.exit(1);
       });
   };
+  // Handlers first, then the word that the worker is ready: whoever waits for it may stop it at once.
   process.on('SIGINT', () => shutdown('SIGINT'));
   process.on('SIGTERM', () => shutdown('SIGTERM'));
+  console.log(`[worker] ready (pid ${process.pid}); queues: ${handle.queues.join(', ') || 'none registered'}`);
 }
 
 main().catch((err) => {

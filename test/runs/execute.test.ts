@@ -127,6 +127,19 @@ describe('run driver', () => {
     expect(await listRunIntervals(run.id)).toHaveLength(3);
   });
 
+  it('hands the run back after the interval in hand when asked to (a worker shutting down)', async () => {
+    const w = await makeRunWorld(3);
+    const run = await newRun(w);
+    let stopping = false;
+    expect(await executeRun(run.id, {
+      solve: (ctx, c, h) => { stopping = true; return engineSolver(ctx, c, h); }, workerId: 'leaving', yieldNow: () => stopping,
+    })).toBe('yielded');
+    expect((await getRunById(run.id))!.state).toBe('queued');
+    expect(await listRunIntervals(run.id)).toHaveLength(1);
+    expect(await executeRun(run.id, { solve: engineSolver, workerId: 'next' })).toBe('finished');
+    expect(await listRunIntervals(run.id)).toHaveLength(3);
+  });
+
   it('marks a run failed with the reason and keeps what it finished', async () => {
     const w = await makeRunWorld(3);
     const run = await newRun(w);

@@ -66,6 +66,10 @@ describe('worker', () => {
   });
 
   it('the worker process starts, reports ready, and exits 0 on SIGTERM', async () => {
+    // Earlier test files may leave jobs queued in the shared test database; a worker busy with
+    // one would (rightly) finish it before exiting. Start from empty queues.
+    const boss = await getBoss();
+    for (const j of registry) if (await boss.getQueue(j.queue)) await boss.purgeQueue(j.queue);
     const child = spawn(process.execPath, ['--import', 'tsx', 'src/worker/main.ts'], {
       cwd: root,
       env: { ...process.env },

@@ -16,6 +16,15 @@ import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
 import { RUN_JOB_OPTIONS, RUN_QUEUE, runLeaseSeconds } from '@/src/runs/queues';
 
+let handingOver = false;
+/**
+ * The worker is shutting down: every run in hand is handed back after the interval it is
+ * solving (and a continuation queued), instead of working to the end of its time slice.
+ */
+export function handOverRuns(): void {
+  handingOver = true;
+}
+
 function sliceMs(): number {
   const s = Number(process.env.CAVITAS_RUN_SLICE_S);
   return (Number.isFinite(s) && s > 0 ? s : 300) * 1000;
@@ -28,6 +37,7 @@ export const job: JobDefinition<{ runId: string }> = {
     for (const j of jobs) {
       const outcome = await executeRun(j.data.runId, {
         solve: engineSolver, workerId: `${hostname()}:${process.pid}:${j.id}`, budgetMs: sliceMs(), leaseSeconds: runLeaseSeconds(),
+        yieldNow: () => handingOver,
       });
       if (outcome === 'yielded') await enqueue(RUN_QUEUE, { runId: j.data.runId }, RUN_JOB_OPTIONS);
       if (outcome === 'not-runnable' && (await getRunById(j.data.runId))?.state === 'running') {
