@@ -12,7 +12,9 @@ import { listStations } from '@/db/repo/stations';
 import { listedLines, mainsLines } from '@/src/engine/signal/line-suppression';
 import type { RunConfig } from './config';
 import type { ObservedModes } from '@/src/engine/inverse/types';
-import { SPECTRUM_BAND_MAX_HZ, SPECTRUM_BAND_MIN_HZ } from '@/src/engine/tolerances';
+import { HANN_BIN_CORRELATION_INFLATION, HANN_HALF_OVERLAP_CORRELATION, SPECTRUM_BAND_MAX_HZ, SPECTRUM_BAND_MIN_HZ } from '@/src/engine/tolerances';
+import { InversionInputError } from '@/src/engine/inverse/errors';
+import { propagatedModeErrors } from '@/src/engine/inverse/observed-modes';
 import type { ObservedSeries } from './types';
 
 const TEN_MINUTES_MS = 600_000;
@@ -55,16 +57,19 @@ export async function loadSpectrumObservations(networkId: string, config: RunCon
 /**
  * Observations from stored mode fits: frequency, peak power (amplitude plus
  * background at the mode frequency) and half-width of the first `modes`
- * modes, with the fit's own standard errors (sigma of ln peak = error of the
- * amplitude / peak, by the delta method).
+ * modes, with errors propagated from the stored spectrum through the same fit
+ * (or, without a spectrum, the fit's own standard errors: sigma of ln peak =
+ * error of the amplitude / peak, by the delta method).
  */
 export async function loadModeObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedModes[]> {
   const o = config.observables;
   if (o.kind !== 'modes') throw new Error('loadModeObservations needs mode observables');
-  const rows = await listIntervals({
+  const filter = {
     networkId, stationIds: config.data.stationIds, components: config.data.components,
     from: startsAt, to: new Date(startsAt.getTime() + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
-  });
+  };
+  const rows = await listIntervals(filter);
+  const spectra = new Map((await getIntervalSpectra(filter)).map((sp) => [sp.intervalId, sp]));
   // The bins the pipeline's fit left out: the mains line, its harmonics and the station's interference lines.
   const lines = new Map((await listStations(networkId)).map((s) => [s.code, [...mainsLines(s.mainsHz, SPECTRUM_BAND_MAX_HZ), ...listedLines(s.interferenceLines)]]));
   const out: ObservedModes[] = [];
@@ -83,9 +88,37 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
       }];
     });
     // The predicted modes go through the same fit: as many modes, over the pipeline's default band, less the same lines.
-    if (modes.length) out.push({ station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length, excludeLines: lines.get(r.stationCode) ?? [] } });
+    if (!modes.length) continue;
+    const om: ObservedModes = { station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length, excludeLines: lines.get(r.stationCode) ?? [] } };
+    const sp = spectra.get(r.id);
+    out.push(sp ? withPropagatedErrors(om, sp) : om);
   }
   return out;
+}
+
+/**
+ * The stored fit's errors come from its covariance (J^T W J)^-1, which understates the scatter of fitted modes
+ * when the spectrum is not exactly Lorentzian; where the interval's spectrum is stored, its bin scatter (the
+ * pipeline's own: 1/sqrt(K_eff) with K_eff = K / (1 + 2 rho^2), times the Hann bin-correlation inflation) is
+ * propagated through the same fit instead (observed-modes.ts). Modes the fit holds on a bound keep the stored errors.
+ */
+function withPropagatedErrors(om: ObservedModes, sp: IntervalSpectrum): ObservedModes {
+  const kEff = Math.max(1, sp.segments) / (1 + 2 * HANN_HALF_OVERLAP_CORRELATION ** 2);
+  let prop;
+  try {
+    prop = propagatedModeErrors(om, Float64Array.from(sp.frequencies), sp.power, HANN_BIN_CORRELATION_INFLATION / Math.sqrt(kEff));
+  } catch (e) {
+    if (e instanceof InversionInputError) return om;
+    throw e;
+  }
+  return {
+    ...om,
+    modes: om.modes.map((m, k) => {
+      const [sf, sA, sg] = prop.sigmas[k];
+      if (prop.onEdge[k] || ![sf, sA, sg].every((v) => v > 0 && Number.isFinite(v))) return m;
+      return { ...m, sigmaFrequency: sf, sigmaLogIntensity: sA, sigmaHalfWidth: sg };
+    }),
+  };
 }
 
 export interface IntervalObservations { observed: ObservedSeries[]; modes?: ObservedModes[] }
