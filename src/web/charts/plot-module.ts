@@ -1,15 +1,15 @@
 /**
- * The one way figures reach Observable Plot: a dynamic import shared by every
- * `PlotFigure`, so the chart code (Plot and the d3 modules it pulls in) is a
- * separate chunk fetched after the page has hydrated, and only once however
- * many figures a page draws.
+ * The one way figures reach Observable Plot: a dynamic import (of `plot-kit`, the
+ * marks we use) shared by every `PlotFigure`, so the chart code (Plot and the d3
+ * modules it pulls in) is a separate chunk, fetched while the page hydrates and
+ * only once however many figures a page draws.
  */
-export type PlotModule = typeof import('@observablehq/plot');
+export type PlotModule = typeof import('./plot-kit');
 
 let loading: Promise<PlotModule> | null = null;
 
 export function loadPlot(): Promise<PlotModule> {
-  loading ??= import('@observablehq/plot').then((mod) => {
+  loading ??= import('./plot-kit').then((mod) => {
     performance.mark('chart code ready'); // read by the page benchmark
     return mod;
   }, (e: unknown) => {
