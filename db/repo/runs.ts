@@ -249,12 +249,13 @@ export async function resetSurface(surfaceId: string): Promise<void> {
  * Measured seconds per (datum x parameter x start) over this network's recent
  * finished intervals, or null when there are none (for the launch preview).
  */
-export async function measuredCostPerUnit(networkId: string): Promise<number | null> {
+export async function measuredCostPerUnit(networkId: string, observables: 'spectrum' | 'modes'): Promise<number | null> {
   const [row] = await getDb().select({
     cost: sql<number | null>`percentile_cont(0.5) within group (order by ${runIntervals.seconds} /
       nullif(${runIntervals.nData} * ((${runIntervals.result}->>'nParams')::float8) * ((${runIntervals.result}->>'starts')::float8), 0))`,
   }).from(runIntervals).innerJoin(runs, eq(runs.id, runIntervals.runId))
     .where(and(eq(runs.networkId, networkId), sql`${runIntervals.nData} > 0 and ${runIntervals.seconds} > 0`,
+      sql`coalesce(${runs.config}->'observables'->>'kind', 'spectrum') = ${observables}`,
       sql`${runIntervals.createdAt} > now() - interval '30 days'`));
   const v = row?.cost === null || row?.cost === undefined ? null : Number(row.cost);
   return v !== null && Number.isFinite(v) && v > 0 ? v : null;

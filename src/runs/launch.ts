@@ -35,6 +35,13 @@ export const MAX_INTERVALS = 7 * 144;
  */
 const SECONDS_PER_DATUM_PARAM_EVAL = 4e-7;
 const EVALS_PER_START = 40;
+/**
+ * Mode-parameter runs fit every predicted spectrum at each misfit evaluation, so a
+ * start costs far more: 0.74-1.17 s CPU per start for 81 data (27 modes) and 3
+ * parameters (`npm run bench -- inverse`, fixtures/cases/modes.json, 2 cores),
+ * about 4e-3 s per datum and parameter per start. Also an order of magnitude.
+ */
+const MODE_SECONDS_PER_DATUM_PARAM_START = 4e-3;
 
 export async function checkLaunch(networkId: string, config: RunConfig): Promise<{ problems: LaunchProblem[]; preview: LaunchPreview | null }> {
   const problems: LaunchProblem[] = [];
@@ -96,8 +103,10 @@ export async function checkLaunch(networkId: string, config: RunConfig): Promise
   if (nData === 0) problems.push({ field: 'observables', message: 'the chosen band or modes hold no data in the first interval' });
   else if (nParams > nData) problems.push({ field: 'regions', message: `too many free parameters (${nParams}) for the data (${nData} values per interval)` });
   // Prefer this network's own measured cost (median over recent intervals) to the built-in figure.
-  const measured = await measuredCostPerUnit(networkId);
-  const perUnit = measured ?? EVALS_PER_START * SECONDS_PER_DATUM_PARAM_EVAL;
+  // Spectrum and mode runs cost very differently per datum: each is measured on its own kind.
+  const kind = config.observables.kind;
+  const measured = await measuredCostPerUnit(networkId, kind);
+  const perUnit = measured ?? (kind === 'modes' ? MODE_SECONDS_PER_DATUM_PARAM_START : EVALS_PER_START * SECONDS_PER_DATUM_PARAM_EVAL);
   const estimateSeconds = starts.length * config.starts * nData * Math.max(1, nParams) * perUnit;
   return {
     problems,

@@ -6,7 +6,7 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { stopBoss } from '@/db/jobs';
-import { createRun, getRunById, saveRunInterval } from '@/db/repo/runs';
+import { createRun, getRunById, measuredCostPerUnit, saveRunInterval } from '@/db/repo/runs';
 import { listModelVersions } from '@/db/repo/models';
 import { checkLaunch, launchRun } from '@/src/runs/launch';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
@@ -45,6 +45,9 @@ describe('launch checks', () => {
     await saveRunInterval(run.id, { startsAt: new Date(preview!.intervalStarts[0]), nData: 100, seconds: 10, result: { nParams: 2, starts: 5, minima: [] } }, run.progress);
     const again = await checkLaunch(w.networkId, w.config);
     expect(again.preview!.estimateSeconds).toBeCloseTo(1 * 4 * (3 * 3 * 49) * 3 * 0.01, 6);
+    // A spectrum run's cost says nothing about a mode run's (each predicted spectrum is fitted).
+    expect(await measuredCostPerUnit(w.networkId, 'spectrum')).toBeCloseTo(0.01, 12);
+    expect(await measuredCostPerUnit(w.networkId, 'modes')).toBeNull();
   });
 
   it('refuses a centre range outside the region bounds of the grid', async () => {
