@@ -102,18 +102,24 @@ export async function reportProgress(runId: string, progress: RunProgress): Prom
   return { cancelRequested: row ? row.cancelRequested : true };
 }
 
+export interface RunIntervalEntry { startsAt: Date; nData: number; result: Record<string, unknown>; seconds: number }
+
 /**
- * Stores one finished interval (once) and the run's progress and heartbeat in a
- * single statement (one round trip: the insert runs as a data-modifying CTE),
- * and brings back whether someone asked to cancel.
+ * Stores finished intervals (each once: insert-or-ignore on (run, start)) and the
+ * run's progress and heartbeat in a single statement (one round trip: the insert
+ * runs as a data-modifying CTE), and brings back how many rows were new and
+ * whether someone asked to cancel.
  */
-export async function saveRunInterval(
-  runId: string, entry: { startsAt: Date; nData: number; result: Record<string, unknown>; seconds: number }, progress: RunProgress,
-): Promise<{ inserted: boolean; cancelRequested: boolean }> {
+export async function saveRunIntervals(runId: string, entries: RunIntervalEntry[], progress: RunProgress): Promise<{ inserted: number; cancelRequested: boolean }> {
+  if (entries.length === 0) {
+    const r = await reportProgress(runId, progress);
+    return { inserted: 0, cancelRequested: r.cancelRequested };
+  }
+  const values = sql.join(entries.map((e) => sql`(${runId}, ${e.startsAt.toISOString()}, ${e.nData}, ${JSON.stringify(e.result)}::jsonb, ${e.seconds})`), sql`, `);
   const rows = await getDb().execute<{ inserted: number; cancel_requested: boolean }>(sql`
     with ins as (
       insert into ${runIntervals} (run_id, starts_at, n_data, result, seconds)
-      values (${runId}, ${entry.startsAt.toISOString()}, ${entry.nData}, ${JSON.stringify(entry.result)}::jsonb, ${entry.seconds})
+      values ${values}
       on conflict (run_id, starts_at) do nothing
       returning 1
     )
@@ -121,7 +127,13 @@ export async function saveRunInterval(
     where id = ${runId}
     returning (select count(*)::int from ins) as inserted, cancel_requested`);
   const row = rows[0];
-  return { inserted: (row?.inserted ?? 0) > 0, cancelRequested: row ? row.cancel_requested : true };
+  return { inserted: row?.inserted ?? 0, cancelRequested: row ? row.cancel_requested : true };
+}
+
+/** One finished interval: saveRunIntervals with a single entry. */
+export async function saveRunInterval(runId: string, entry: RunIntervalEntry, progress: RunProgress): Promise<{ inserted: boolean; cancelRequested: boolean }> {
+  const r = await saveRunIntervals(runId, [entry], progress);
+  return { inserted: r.inserted > 0, cancelRequested: r.cancelRequested };
 }
 
 export async function listRunIntervals(runId: string): Promise<RunIntervalRow[]> {

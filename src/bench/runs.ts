@@ -7,9 +7,10 @@
  *      series curves, the correlation matrix and a fitted spectrum are drawn;
  *  (c) storing results — the run driver (`executeRun`, as the worker calls it) over the 144
  *      intervals against the engine alone on the same intervals (data in memory, nothing stored),
- *      alternated over three rounds (the median of the three is noisy on a loaded machine); the driver's time between solves (waiting for data, writes,
- *      progress) as a share of the solve time; and the median time of one result write. The spectra carry the scatter of a 100-segment Welch estimate (power x
- *      Gamma(K, 1/K), K = 100 — common practice), so the solves take as long as on real data.
+ *      alternated over three rounds (the median of the three is noisy on a loaded machine); the
+ *      driver's time outside the solver calls as a share of the solve time; and the median time of
+ *      one result write on its own. The spectra carry the scatter of a 100-segment Welch estimate
+ *      (power x Gamma(K, 1/K), K = 100 — common practice), so the solves take as long as on real data.
  * Every server, browser and database it starts is stopped at the end, also on error.
  * Run with `npm run bench -- runs`. BENCH_RUN_INTERVALS (default 144) and BENCH_RUN_STARTS
  * (default 16, as the launch form) scale it down or up; BENCH_RUN_PAGE=0 leaves out the browser.
@@ -161,15 +162,9 @@ async function solveAndStore(networkId: string, userId: string, config: RunConfi
     + `(rounds: ${extra.map((x) => x.toFixed(1)).join(', ')} %; target <= 10 %)`);
   const rows = await listRunIntervals(run.id);
   const solveMs = 1000 * rows.reduce((a, r) => a + r.seconds, 0);
-  // Steady state, from the database's own write times: between the first and the last stored
-  // interval the driver solved intervals 2..n and did everything else (loading, storing, progress).
-  const spanMs = rows.at(-1)!.createdAt.getTime() - rows[0].createdAt.getTime();
-  const laterSolveMs = 1000 * rows.slice(1).reduce((a, r) => a + r.seconds, 0);
-  const steadyMs = spanMs - laterSolveMs;
-  const setupMs = wallMs - solveMs - steadyMs;
-  console.log(`(c) last round, ${rows.length} intervals (${config.starts} starts each): ${(solveMs / 1000).toFixed(1)} s in the solver calls, `
-    + `${ms(setupMs)} once for claiming the run and building its model; between solves (waiting for data, writes, progress) `
-    + `${ms(steadyMs / (rows.length - 1))} per interval = ${((100 * steadyMs) / laterSolveMs).toFixed(2)} % of solving`);
+  console.log(`(c) last round, ${rows.length} intervals (${config.starts} starts each): ${(solveMs / 1000).toFixed(2)} s in the solver calls, `
+    + `${ms(wallMs - solveMs)} for everything else (claiming the run, its model and grid, loading data, writing results, progress) `
+    + `= ${((100 * (wallMs - solveMs)) / solveMs).toFixed(2)} % of solving`);
   // One result write on its own: the same rows written again under new interval times (a throwaway run).
   const copy = await newRun('Bench copy');
   const writes: number[] = [];
@@ -225,6 +220,7 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
   const url = `${base}/n/${networkId}/runs/${runId}`;
   const times: number[] = [];
   const firstFigures: number[] = [];
+  const server: { first: number; last: number; dcl: number }[] = [];
   const html: number[] = [];
   let sizes = { html: 0, js: 0, chunks: 0 };
   for (let i = 0; i < 6; i++) {
@@ -241,6 +237,11 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
     firstFigures.push(performance.now() - t0);
     await page.locator('svg[aria-label^="Power at "]').waitFor({ state: 'attached', timeout: 60_000 });
     times.push(performance.now() - t0);
+    const nav = await page.evaluate(() => {
+      const n = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming;
+      return { first: n.responseStart - n.requestStart, last: n.responseEnd - n.requestStart, dcl: n.domContentLoadedEventEnd - n.requestStart };
+    });
+    server.push(nav);
     if (i === 5) {
       sizes = await page.evaluate(() => {
         const nav = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming;
@@ -251,8 +252,11 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
     await page.close();
   }
   times.shift(); // the first load warms the server
+  server.shift();
   firstFigures.shift();
   html.shift();
+  console.log(`(b) run page, from the request: first byte of HTML (server rendering) median ${ms(median(server.map((x) => x.first)))}, `
+    + `last byte ${ms(median(server.map((x) => x.last)))}, DOMContentLoaded ${ms(median(server.map((x) => x.dcl)))}`);
   console.log(`(b) run page: server-rendered HTML received and parsed after a median ${ms(median(html))} of ${html.length}`
     + ` (${(sizes.html / 1024).toFixed(0)} KiB of HTML; ${(sizes.js / 1024).toFixed(0)} KiB of JavaScript in ${sizes.chunks} chunks by the last figure)`);
   const note = stale.stale ? ' — note: the build in .next is older than the sources' : '';

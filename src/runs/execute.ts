@@ -1,15 +1,16 @@
 /**
  * The run driver: solves a run's intervals in order, stores each finished
- * interval at once (exactly once: unique (run, start), insert-or-ignore), and
+ * interval (exactly once: unique (run, start), insert-or-ignore), and
  * writes progress as it goes. It resumes where a crashed attempt stopped —
  * intervals already stored are skipped — honours cancellation between and
  * within starts, and on a failure keeps what it finished and says why.
  *
- * The database work overlaps the solving: the next interval's data are loaded
- * while this one is solved, and an interval's result is written while the next
- * one is solved (at most one write in flight; it is awaited before the next
- * write, before the run ends or is handed back, and a failed write stops the
- * run like a crash). Each write brings back whether someone asked to cancel,
+ * The database work overlaps the solving and is batched: the data of the next
+ * intervals are loaded (several per query) while this one is solved, and
+ * finished intervals are written together at most every WRITE_EVERY_MS while
+ * the next ones are solved (at most one write in flight; it is awaited before
+ * the next write, before the run ends or is handed back, and a failed write
+ * stops the run like a crash, which then redoes only what was not written). Each write brings back whether someone asked to cancel,
  * as does the progress timer within a solve. Once it hears of one it stops:
  * the solve in hand ends at its next start, and nothing solved after the
  * request is stored.
@@ -18,17 +19,18 @@
  * inverter), so the driver knows no physics.
  */
 import {
-  claimRun, endRun, finishedIntervalStarts, releaseRun, reportProgress, saveRunInterval,
+  claimRun, endRun, finishedIntervalStarts, releaseRun, reportProgress, saveRunIntervals,
   type RunProgress,
 } from '@/db/repo/runs';
 import { loadRunContext } from './context';
-import { countIntervalData, loadIntervalObservations, type IntervalObservations } from './observations';
+import { countIntervalData, intervalLoader, type IntervalObservations } from './observations';
 import type { IntervalCase, IntervalSolver, RunContext } from './types';
+import type { RunIntervalEntry } from '@/db/repo/runs';
 
 export interface ExecuteOptions {
   solve: IntervalSolver;
   workerId: string;
-  /** Loads one interval's observations (default: from stored spectra/fits). */
+  /** Loads one interval's observations (default: from stored spectra, several intervals per query, or fits). */
   observe?: (ctx: RunContext, startsAt: Date) => Promise<IntervalObservations>;
   /** Minimum milliseconds between progress writes within an interval. Default 1000. */
   progressEveryMs?: number;
@@ -40,9 +42,22 @@ export interface ExecuteOptions {
   budgetMs?: number;
   /** Asked after each interval: true hands the run back at once ('yielded'), e.g. when the worker is shutting down. */
   yieldNow?: () => boolean;
+  /**
+   * Finished intervals are written together once this many milliseconds have passed since
+   * the last write began (default WRITE_EVERY_MS; 0 writes each at once). With a hook
+   * (afterInterval) each interval is written at once.
+   */
+  writeEveryMs?: number;
 }
 
 /** 'yielded': the time slice ended with intervals left; queue a continuation job. */
+/**
+ * Quick intervals are written in batches, at most this often: one statement per batch costs
+ * the database far less than one per interval, and a crash loses at most this much solving.
+ */
+export const WRITE_EVERY_MS = 500;
+const MAX_BATCH = 64;
+
 export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'yielded' | 'not-runnable';
 
 function eta(startedMs: number, done: number, total: number, doneThisAttempt: number): number | null {
@@ -69,7 +84,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   const run = await claimRun(runId, opts.workerId, opts.leaseSeconds ?? 30);
   if (!run) return 'not-runnable';
   const every = opts.progressEveryMs ?? 1000;
-  const observe = opts.observe ?? ((ctx: RunContext, t: Date) => loadIntervalObservations(ctx.networkId, ctx.config, t));
+
   const total = run.intervalStarts.length;
   const startsTotal = (run.config as { starts?: number }).starts ?? 1;
   const progress: RunProgress = { ...run.progress, phase: 'loading the model, grid and stations', intervalsTotal: total, startsTotal, startsDone: 0 };
@@ -83,13 +98,42 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   const finished = await finishedIntervalStarts(runId);
   const todo = run.intervalStarts.map((t, i) => ({ t, i })).filter(({ t }) => !finished.has(new Date(t).toISOString()));
   progress.intervalsDone = finished.size;
+  const loader = intervalLoader(ctx.networkId, ctx.config, todo.map(({ t }) => new Date(t)));
+  const observe = opts.observe ?? ((_: RunContext, t: Date) => loader(t));
   const t0 = Date.now();
   let doneThisAttempt = 0;
   let cancelRequested = false; // heard from a write: stop before the next interval
   let cancelled = false;
   let writing: Promise<unknown> = Promise.resolve();
+  const writeEvery = opts.afterInterval ? 0 : opts.writeEveryMs ?? WRITE_EVERY_MS;
+  let pending: { entry: RunIntervalEntry; index: number }[] = [];
+  let lastWrite = Date.now();
+  /**
+   * Writes the finished intervals not yet written, after the write in flight. Returns false
+   * (and writes nothing) once a cancel request has been heard: what was solved since is dropped.
+   */
+  const flush = async (): Promise<boolean> => {
+    await writing; // one write in flight at a time; a failed write (or hook) ends the attempt here
+    if (cancelRequested) {
+      progress.intervalsDone -= pending.length;
+      pending = [];
+      return false;
+    }
+    if (pending.length === 0) return true;
+    const batch = pending;
+    pending = [];
+    lastWrite = Date.now();
+    writing = saveRunIntervals(runId, batch.map((b) => b.entry), { ...progress }).then(async (r) => {
+      if (r.cancelRequested) cancelRequested = true;
+      for (const b of batch) await opts.afterInterval?.(b.index);
+    });
+    writing.catch(() => {}); // awaited at the next flush or at the end; the error surfaces there
+    if (opts.afterInterval) await writing; // a hook runs before the next interval begins
+    return true;
+  };
   const failWith = async (msg: string) => {
-    await writing; // what finished before stays stored
+    await flush(); // what finished before stays stored
+    await writing;
     await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg);
     return 'failed' as const;
   };
@@ -140,27 +184,25 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     if (outcome === 'cancelled') { cancelled = true; break; }
     const notFinite = nonFiniteBest(outcome.result);
     if (notFinite) return failWith(`Interval ${label} UT failed: ${notFinite}`);
-    await writing; // one write in flight at a time; a failed write (or hook) ends the attempt here
     if (cancelRequested) { cancelled = true; break; } // asked to stop before this interval was done: not kept
     progress.intervalsDone++;
     doneThisAttempt++;
     progress.etaSeconds = eta(t0, progress.intervalsDone, total, doneThisAttempt);
     progress.phase = `interval ${label} UT finished`;
     const seconds = (outcome as { seconds?: number }).seconds ?? 0;
-    const entry = { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds };
-    writing = saveRunInterval(runId, entry, { ...progress }).then(async (r) => {
-      if (r.cancelRequested) cancelRequested = true;
-      await opts.afterInterval?.(i);
-    });
-    writing.catch(() => {}); // awaited above or below; the error surfaces there
-    if (opts.afterInterval) await writing; // a hook runs before the next interval begins
+    pending.push({ entry: { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds }, index: i });
+    if (Date.now() - lastWrite >= writeEvery || pending.length >= MAX_BATCH) {
+      if (!(await flush())) { cancelled = true; break; }
+    }
     const sliceOver = opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs;
     if ((sliceOver || opts.yieldNow?.()) && k < todo.length - 1) {
+      if (!(await flush())) { cancelled = true; break; }
       await writing;
       await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
       return 'yielded';
     }
   }
+  if (!cancelled && !(await flush())) cancelled = true;
   await writing;
   if (cancelled) {
     await endRun(runId, 'cancelled', { ...progress, phase: `cancelled after ${progress.intervalsDone} of ${total} intervals`, etaSeconds: null });

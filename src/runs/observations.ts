@@ -55,6 +55,33 @@ export async function loadSpectrumObservations(networkId: string, config: RunCon
 }
 
 /**
+ * Spectrum observations of several intervals in one query: every stored spectrum
+ * from the first start to ten minutes after the last, each given to the run
+ * interval it starts in ([t, t + 10 min)). Same result per interval as
+ * loadSpectrumObservations, with one round trip for the lot.
+ */
+export async function loadSpectrumObservationsOf(networkId: string, config: RunConfig, starts: readonly Date[]): Promise<Map<number, ObservedSeries[]>> {
+  const o = config.observables;
+  if (o.kind !== 'spectrum') throw new Error('loadSpectrumObservationsOf needs spectrum observables');
+  const times = [...new Set(starts.map((t) => t.getTime()))].sort((a, b) => a - b);
+  const out = new Map<number, ObservedSeries[]>(times.map((t) => [t, []]));
+  if (times.length === 0) return out;
+  const spectra = await getIntervalSpectra({
+    networkId, stationIds: config.data.stationIds, components: config.data.components,
+    from: new Date(times[0]), to: new Date(times[times.length - 1] + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
+  });
+  for (const sp of spectra) {
+    const at = sp.startsAt.getTime();
+    let lo = 0, hi = times.length - 1; // the last run start at or before this spectrum's start
+    while (lo < hi) { const mid = (lo + hi + 1) >> 1; if (times[mid] <= at) lo = mid; else hi = mid - 1; }
+    if (times[lo] > at || at >= times[lo] + TEN_MINUTES_MS) continue;
+    const series = bandSeries(sp, o.minHz, o.maxHz, o.every);
+    if (series) out.get(times[lo])!.push(series);
+  }
+  return out;
+}
+
+/**
  * Observations from stored mode fits: frequency, peak power (amplitude plus
  * background at the mode frequency) and half-width of the first `modes`
  * modes, with errors propagated from the stored spectrum through the same fit
@@ -127,6 +154,34 @@ export interface IntervalObservations { observed: ObservedSeries[]; modes?: Obse
 export async function loadIntervalObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<IntervalObservations> {
   if (config.observables.kind === 'spectrum') return { observed: await loadSpectrumObservations(networkId, config, startsAt) };
   return { observed: [], modes: await loadModeObservations(networkId, config, startsAt) };
+}
+
+/**
+ * A loader for a run's intervals taken in order: spectrum observations are read
+ * `batch` intervals at a time (one query each), mode observations one interval at a
+ * time. Each interval is handed out once and then forgotten.
+ */
+export function intervalLoader(networkId: string, config: RunConfig, starts: readonly Date[], batch = 16): (startsAt: Date) => Promise<IntervalObservations> {
+  if (config.observables.kind !== 'spectrum') return (t) => loadIntervalObservations(networkId, config, t);
+  const index = new Map(starts.map((t, i) => [t.getTime(), i]));
+  const loaded = new Map<number, Promise<ObservedSeries[]>>();
+  return async (startsAt) => {
+    const t = startsAt.getTime();
+    const i = index.get(t);
+    if (i === undefined) return loadIntervalObservations(networkId, config, startsAt);
+    if (!loaded.has(t)) {
+      const window = starts.slice(i, i + batch);
+      const all = loadSpectrumObservationsOf(networkId, config, window);
+      for (const w of window) {
+        const one = all.then((m) => m.get(w.getTime()) ?? []);
+        one.catch(() => {}); // reported by whoever awaits it; the rest may never be asked for
+        loaded.set(w.getTime(), one);
+      }
+    }
+    const observed = await loaded.get(t)!;
+    loaded.delete(t);
+    return { observed };
+  };
 }
 
 /** Number of data: one per bin, or three per observed mode (frequency, peak, half-width). */

@@ -140,6 +140,18 @@ describe('run driver', () => {
     expect(await listRunIntervals(run.id)).toHaveLength(3);
   });
 
+  it('writes quick intervals in batches and keeps every one of them, once', async () => {
+    const w = await makeRunWorld(6);
+    const run = await newRun(w);
+    expect(await executeRun(run.id, { solve: engineSolver, workerId: 'w1', writeEveryMs: 60_000 })).toBe('finished');
+    const rows = await listRunIntervals(run.id);
+    expect(rows.map((r) => r.startsAt.toISOString())).toEqual(run.intervalStarts.map((t) => new Date(t).toISOString()));
+    // With a minute between writes, all six go in the final batch: one row each, all in one statement
+    // (created_at is the statement's now()).
+    expect(new Set(rows.map((r) => r.createdAt.getTime())).size).toBe(1);
+    expect((await getRunById(run.id))!.progress.intervalsDone).toBe(6);
+  });
+
   it('marks a run failed with the reason and keeps what it finished', async () => {
     const w = await makeRunWorld(3);
     const run = await newRun(w);
@@ -177,7 +189,7 @@ describe('run driver', () => {
     const run = await newRun(w);
     const solved: string[] = [];
     expect(await executeRun(run.id, {
-      workerId: 'w1',
+      workerId: 'w1', writeEveryMs: 0, // each interval written at once, so each write can bring the request back
       solve: async (ctx, c, h) => {
         solved.push(c.startsAt);
         if (solved.length === 2) await requestCancel(w.networkId, run.id); // from "another process", mid-solve
