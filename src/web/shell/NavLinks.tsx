@@ -21,9 +21,6 @@ export function NavLinks({ items, label }: { items: NavItem[]; label: string }) 
           <Link
             key={item.href}
             href={item.href}
-            // Sections are rendered on demand; prefetching all of them on every page load
-            // competed with the page's own figures for the CPU (measured on the run page).
-            prefetch={false}
             aria-current={active ? 'page' : undefined}
             className={cx(
               'border-b-2 px-3 py-2.5 text-sm font-medium whitespace-nowrap no-underline transition-colors',
