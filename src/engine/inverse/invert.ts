@@ -6,9 +6,8 @@
 import { buildMinima, startEnds } from './minima';
 import { multiStart, resolveMultiStartOptions, type MultiStartOptions } from './multistart';
 import { prepareRecipe, type ProblemRecipe } from './recipes';
-import { prepareSpectrum, type ModeInversionInput, type SpectrumInversionInput } from './spectrum-setup';
-import { misfitSurface, type SurfaceRequest } from './surface';
-import type { InversionCallbacks, InversionResult, MisfitSurface } from './types';
+import type { ModeInversionInput, SpectrumInversionInput } from './spectrum-setup';
+import type { InversionCallbacks, InversionResult } from './types';
 
 async function runInversion(
   recipe: Extract<ProblemRecipe, { kind: 'spectrum' | 'modes' }>,
@@ -40,10 +39,4 @@ export function invertSpectra(input: SpectrumInversionInput, options: Partial<Mu
 
 export function invertModes(input: ModeInversionInput, options: Partial<MultiStartOptions> = {}, callbacks: InversionCallbacks = {}): Promise<InversionResult> {
   return runInversion({ kind: 'modes', input }, options, callbacks);
-}
-
-/** chi-square surface over two free parameters of a spectrum inversion (see surface.ts). */
-export function spectrumSurface(input: SpectrumInversionInput, request: SurfaceRequest, shouldCancel?: () => boolean): MisfitSurface {
-  const { problem, par } = prepareSpectrum(input);
-  return misfitSurface(problem, par, request, shouldCancel);
 }
