@@ -24,3 +24,14 @@ export function runLeaseSeconds(env: NodeJS.ProcessEnv = process.env): number {
 export function runSweepSeconds(env: NodeJS.ProcessEnv = process.env): number {
   return positiveSeconds(env.CAVITAS_RUN_SWEEP_S, 30);
 }
+
+/**
+ * Milliseconds between the driver's batched result writes (CAVITAS_RUN_WRITE_MS, default the
+ * driver's own WRITE_EVERY_MS; 0 writes each interval at once): what a crash may cost in solving.
+ */
+export function runWriteMs(env: NodeJS.ProcessEnv = process.env): number | undefined {
+  const raw = env.CAVITAS_RUN_WRITE_MS;
+  if (raw === undefined || raw.trim() === '') return undefined;
+  const ms = Number(raw);
+  return Number.isFinite(ms) && ms >= 0 ? ms : undefined;
+}

@@ -29,6 +29,7 @@ function startWorker(): { child: ChildProcess; out: () => string } {
     env: {
       ...process.env,
       CAVITAS_RUN_LEASE_S: '3', CAVITAS_RUN_SWEEP_S: '1', CAVITAS_RUN_SLICE_S: '2', CAVITAS_RUN_THREADS: '1',
+      CAVITAS_RUN_WRITE_MS: '0', // each interval written at once, so that a kill can fall between two stored intervals
       WORKER_CONCURRENCY: '1',
     },
     stdio: ['ignore', 'pipe', 'pipe'],

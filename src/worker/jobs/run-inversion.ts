@@ -14,7 +14,7 @@ import { enqueue } from '@/db/jobs';
 import { getRunById } from '@/db/repo/runs';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
-import { RUN_JOB_OPTIONS, RUN_QUEUE, runLeaseSeconds } from '@/src/runs/queues';
+import { RUN_JOB_OPTIONS, RUN_QUEUE, runLeaseSeconds, runWriteMs } from '@/src/runs/queues';
 
 let handingOver = false;
 /**
@@ -37,7 +37,7 @@ export const job: JobDefinition<{ runId: string }> = {
     for (const j of jobs) {
       const outcome = await executeRun(j.data.runId, {
         solve: engineSolver, workerId: `${hostname()}:${process.pid}:${j.id}`, budgetMs: sliceMs(), leaseSeconds: runLeaseSeconds(),
-        yieldNow: () => handingOver,
+        yieldNow: () => handingOver, writeEveryMs: runWriteMs(),
       });
       if (outcome === 'yielded') await enqueue(RUN_QUEUE, { runId: j.data.runId }, RUN_JOB_OPTIONS);
       if (outcome === 'not-runnable' && (await getRunById(j.data.runId))?.state === 'running') {
