@@ -16,12 +16,12 @@ function positiveSeconds(raw: string | undefined, fallback: number): number {
 }
 
 /** Seconds without a heartbeat after which a run's worker counts as gone (CAVITAS_RUN_LEASE_S, default 30). */
-export function runLeaseSeconds(env: NodeJS.ProcessEnv = process.env): number {
+export function runLeaseSeconds(env: Record<string, string | undefined> = process.env): number {
   return positiveSeconds(env.CAVITAS_RUN_LEASE_S, 30);
 }
 
 /** Seconds between the worker's sweeps for runs whose worker is gone (CAVITAS_RUN_SWEEP_S, default 30). */
-export function runSweepSeconds(env: NodeJS.ProcessEnv = process.env): number {
+export function runSweepSeconds(env: Record<string, string | undefined> = process.env): number {
   return positiveSeconds(env.CAVITAS_RUN_SWEEP_S, 30);
 }
 
@@ -29,7 +29,7 @@ export function runSweepSeconds(env: NodeJS.ProcessEnv = process.env): number {
  * Milliseconds between the driver's batched result writes (CAVITAS_RUN_WRITE_MS, default the
  * driver's own WRITE_EVERY_MS; 0 writes each interval at once): what a crash may cost in solving.
  */
-export function runWriteMs(env: NodeJS.ProcessEnv = process.env): number | undefined {
+export function runWriteMs(env: Record<string, string | undefined> = process.env): number | undefined {
   const raw = env.CAVITAS_RUN_WRITE_MS;
   if (raw === undefined || raw.trim() === '') return undefined;
   const ms = Number(raw);

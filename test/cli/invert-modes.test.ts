@@ -6,15 +6,11 @@
  * mode input exits non-zero naming the field, with nothing on stdout.
  */
 import { describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { refusals, root, runVerb } from './helpers';
 
-const root = fileURLToPath(new URL('../../', import.meta.url));
-const run = (args: string[]) =>
-  spawnSync(join(root, 'node_modules/.bin/tsx'), ['src/cli/main.ts', 'invert', ...args], { cwd: root, encoding: 'utf8', timeout: 240_000 });
+const run = (args: string[]) => runVerb('invert', args, 240_000);
 
 type Out = {
   starts: number; nData: number; nParams: number;
@@ -49,18 +45,7 @@ describe('cli invert with observed modes', () => {
   }, 300_000);
 
   it('refuses bad mode input naming the field, with nothing on stdout', () => {
-    const dir = mkdtempSync(join(tmpdir(), 'cavitas-invm-'));
-    const c = JSON.parse(readFileSync(file, 'utf8'));
-    const bad = (mutate: (x: typeof c) => void, pattern: RegExp) => {
-      const copy = JSON.parse(JSON.stringify(c));
-      mutate(copy);
-      const f = join(dir, 'bad.json');
-      writeFileSync(f, JSON.stringify(copy));
-      const res = run([f, '--threads', '1', '--starts', '1']);
-      expect(res.status).not.toBe(0);
-      expect(res.stdout).toBe('');
-      expect(res.stderr).toMatch(pattern);
-    };
+    const bad = refusals('invert', file, ['--threads', '1', '--starts', '1']);
     bad((x) => (x.observedModes[0].modes[0].sigmaHalfWidth = 0), /observedModes\.0\.modes\.0\.sigmaHalfWidth/);
     bad((x) => (x.observedModes[1].station = 'NOPE'), /observedModes\.1\.station.*NOPE/);
     bad((x) => (x.observed = [{ station: 'HAR', component: 'Ez', frequencies: [5, 6], power: [1, 1], sigmaLog: 0.1 }]), /either observed spectra or observedModes/);

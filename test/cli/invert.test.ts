@@ -5,15 +5,10 @@
  * exit non-zero naming the problem, with nothing on stdout.
  */
 import { describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { refusals, root, runVerb } from './helpers';
 
-const root = fileURLToPath(new URL('../../', import.meta.url));
-const run = (args: string[]) =>
-  spawnSync(join(root, 'node_modules/.bin/tsx'), ['src/cli/main.ts', 'invert', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000 });
+const run = (args: string[]) => runVerb('invert', args, 120_000);
 
 type Out = {
   starts: number;
@@ -44,18 +39,7 @@ describe('cli invert', () => {
   });
 
   it('refuses a bad case with a message naming the problem and nothing on stdout', () => {
-    const dir = mkdtempSync(join(tmpdir(), 'cavitas-inv-'));
-    const c = JSON.parse(readFileSync(file, 'utf8'));
-    const bad = (mutate: (x: typeof c) => void, pattern: RegExp) => {
-      const copy = JSON.parse(JSON.stringify(c));
-      mutate(copy);
-      const f = join(dir, 'bad.json');
-      writeFileSync(f, JSON.stringify(copy));
-      const res = run([f, '--threads', '1', '--starts', '2']);
-      expect(res.status).not.toBe(0);
-      expect(res.stdout).toBe('');
-      expect(res.stderr).toMatch(pattern);
-    };
+    const bad = refusals('invert', file, ['--threads', '1', '--starts', '2']);
     bad((x) => (x.observed[0].power[3] = 0), /observed\.0\.power\.3/);
     bad((x) => (x.unknowns[0].lat = { min: 10, max: -10 }), /unknowns\.0\.lat/);
     bad((x) => (x.observed[1].station = 'NOPE'), /NOPE/);
