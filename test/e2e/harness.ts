@@ -6,7 +6,8 @@
  * catcher on free loopback ports. `launchBrowser()` starts Debian's chromium through
  * playwright-core, headless; every launch gets a fresh temporary profile.
  */
-import type { Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 import { freePort } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
 import { closeDatabase } from '@/db/lifecycle';
@@ -65,6 +66,7 @@ export async function startTestApp(): Promise<TestApp> {
 }
 
 export { CHROMIUM_FLAGS, launchBrowser } from '@/src/ops/browser';
+import { launchBrowser } from '@/src/ops/browser';
 
 /** Sign in through the sign-in form and wait until the app has left it. */
 export async function signInAs(page: Page, baseUrl: string, who: { email: string; password: string }): Promise<void> {
@@ -73,4 +75,22 @@ export async function signInAs(page: Page, baseUrl: string, who: { email: string
   await page.getByLabel(/password/i).fill(who.password);
   await page.getByRole('button', { name: /sign in/i }).click();
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+}
+
+/**
+ * The app and a browser for one test file: started before its tests, stopped after them (with
+ * this process's database pool). Read `env.app` and `env.browser` inside the tests.
+ */
+export function useBrowserApp(): { app: TestApp; browser: Browser } {
+  const env = {} as { app: TestApp; browser: Browser };
+  beforeAll(async () => {
+    env.app = await startTestApp();
+    env.browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await env.browser?.close();
+    await env.app?.stop();
+    await closeDatabase();
+  });
+  return env;
 }

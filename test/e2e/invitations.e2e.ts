@@ -7,9 +7,9 @@
  * Screenshots of the key pages go to test-results/e2e/.
  */
 import fs from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, startTestApp, type TestApp } from './harness';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { useBrowserApp } from './harness';
 
 const SHOTS = 'test-results/e2e';
 const stamp = Date.now().toString(36);
@@ -23,24 +23,14 @@ async function shot(page: Page, name: string) {
 }
 
 describe('invitations in the browser', () => {
-  let app: TestApp;
-  let browser: Browser;
+  const env = useBrowserApp();
   let networkUrl = '';
   let inviteLink = '';
 
-  beforeAll(async () => {
-    app = await startTestApp();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
-
   it('a new user signs up, creates a network and invites a colleague', async () => {
-    const ctx = await browser.newContext();
+    const ctx = await env.browser.newContext();
     const page = await ctx.newPage();
-    await page.goto(app.baseUrl + '/sign-up');
+    await page.goto(env.app.baseUrl + '/sign-up');
     await page.getByLabel('Your name').fill(founder.name);
     await page.getByLabel('E-mail address').fill(founder.email);
     await page.getByLabel('Password').fill(founder.password);
@@ -65,10 +55,10 @@ describe('invitations in the browser', () => {
   });
 
   it('the administrator finds the invitation in the mailbox page', async () => {
-    const admin = app.signIns.find((s) => s.role === 'administrator')!;
-    const ctx = await browser.newContext();
+    const admin = env.app.signIns.find((s) => s.role === 'administrator')!;
+    const ctx = await env.browser.newContext();
     const page = await ctx.newPage();
-    await page.goto(app.baseUrl + '/sign-in?next=/admin/mail');
+    await page.goto(env.app.baseUrl + '/sign-in?next=/admin/mail');
     await page.getByLabel('E-mail address').fill(admin.email);
     await page.getByLabel('Password').fill(admin.password);
     await page.getByRole('button', { name: 'Sign in' }).click();
@@ -91,9 +81,9 @@ describe('invitations in the browser', () => {
   });
 
   it('the colleague accepts in a second browser context by creating an account', async () => {
-    const ctx = await browser.newContext();
+    const ctx = await env.browser.newContext();
     const page = await ctx.newPage();
-    await page.goto(app.baseUrl + new URL(inviteLink).pathname);
+    await page.goto(env.app.baseUrl + new URL(inviteLink).pathname);
     await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(`Join ${networkName}`);
     await shot(page, 'invitation-accept');
     await page.getByLabel('Your name').fill(colleague.name);
@@ -125,9 +115,9 @@ describe('invitations in the browser', () => {
   });
 
   it('the invitation link cannot be used a second time', async () => {
-    const ctx = await browser.newContext();
+    const ctx = await env.browser.newContext();
     const page = await ctx.newPage();
-    await page.goto(app.baseUrl + new URL(inviteLink).pathname);
+    await page.goto(env.app.baseUrl + new URL(inviteLink).pathname);
     await expect(page.getByText('already been used').isVisible()).resolves.toBe(true);
     await ctx.close();
   });

@@ -6,38 +6,26 @@
  * at each start's own final misfit, with the unconverged marked apart. The
  * demo data are the invented synthetic day of the stations seeder.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, startTestApp, type TestApp, signInAs } from './harness';
+import { describe, expect, it } from 'vitest';
+import { signInAs, useBrowserApp } from './harness';
 import { demoNetworkId } from '@/src/ops/seed/accounts';
 import { DEMO_MODE_RUN } from '@/src/ops/seed/runs';
 import { listRuns } from '@/db/repo/runs';
-import { closeDatabase } from '@/db/lifecycle';
 
 describe('a mode-parameter run\'s page', () => {
-  let app: TestApp;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startTestApp();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-    await closeDatabase();
-  });
+  const env = useBrowserApp();
 
   it('shows the mode fits with their residual table and every start at its own misfit', async () => {
     const networkId = await demoNetworkId();
     const run = (await listRuns(networkId)).find((r) => r.name === DEMO_MODE_RUN)!;
     expect(run.state).toBe('finished');
-    const viewer = app.signIns.find((s) => s.role === 'viewer')!;
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const viewer = env.app.signIns.find((s) => s.role === 'viewer')!;
+    const context = await env.browser.newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
-    await signInAs(page, app.baseUrl, viewer);
-    await page.goto(`${app.baseUrl}/n/${networkId}/runs/${run.id}`);
+    await signInAs(page, env.app.baseUrl, viewer);
+    await page.goto(`${env.app.baseUrl}/n/${networkId}/runs/${run.id}`);
 
     // How good it is: three figures for the chosen station and component, and the residual table.
     const fits = page.getByTestId('mode-fits');

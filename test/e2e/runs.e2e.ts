@@ -4,37 +4,25 @@
  * end, and opens the map, minima, fits, correlation matrix and a misfit
  * surface. The demo data are the invented synthetic day of the stations seeder.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, startTestApp, type TestApp, signInAs } from './harness';
+import { describe, expect, it } from 'vitest';
+import { signInAs, useBrowserApp } from './harness';
 import { demoNetworkId } from '@/src/ops/seed/accounts';
-import { closeDatabase } from '@/db/lifecycle';
 
 describe('configure a model and a grid, run, and read the results', () => {
-  let app: TestApp;
-  let browser: Browser;
-  beforeAll(async () => {
-    app = await startTestApp();
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-    await closeDatabase();
-  });
+  const env = useBrowserApp();
 
   it('goes from a new model and grid to a finished run with its figures', async () => {
     const t0 = Date.now();
     const step = (s: string) => console.log(`[runs e2e] ${((Date.now() - t0) / 1000).toFixed(1)} s: ${s}`);
     const networkId = await demoNetworkId();
-    const analyst = app.signIns.find((s) => s.role === 'analyst')!;
-    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const analyst = env.app.signIns.find((s) => s.role === 'analyst')!;
+    const context = await env.browser.newContext({ viewport: { width: 1400, height: 1000 } });
     const page = await context.newPage();
-    await signInAs(page, app.baseUrl, analyst);
+    await signInAs(page, env.app.baseUrl, analyst);
 
     step('sign-in done');
     // A cavity model: the linear propagation parameter.
-    await page.goto(`${app.baseUrl}/n/${networkId}/models/new`);
+    await page.goto(`${env.app.baseUrl}/n/${networkId}/models/new`);
     await page.getByLabel('Name').fill('E2E linear');
     await page.getByLabel('Propagation parameter from').selectOption('linear');
     await page.getByText('Real part of ν').first().waitFor();
@@ -44,7 +32,7 @@ describe('configure a model and a grid, run, and read the results', () => {
 
     step('model saved');
     // A source grid: one moving region and one region of cells dragged as a box.
-    await page.goto(`${app.baseUrl}/n/${networkId}/grids/new`);
+    await page.goto(`${env.app.baseUrl}/n/${networkId}/grids/new`);
     await page.getByLabel('Name', { exact: true }).fill('E2E grid');
     await page.getByRole('button', { name: 'Add a moving region' }).click();
     await page.getByRole('button', { name: 'Add a region of cells' }).click();
@@ -61,7 +49,7 @@ describe('configure a model and a grid, run, and read the results', () => {
 
     step('grid saved');
     // Launch a run on one stored interval of the demo day.
-    await page.goto(`${app.baseUrl}/n/${networkId}/runs/new`);
+    await page.goto(`${env.app.baseUrl}/n/${networkId}/runs/new`);
     await page.getByLabel('Run name').fill('E2E run');
     await page.getByLabel('Cavity model').selectOption({ label: 'E2E linear v1' });
     await page.getByLabel('Source grid').selectOption({ label: 'E2E grid v1' });
@@ -90,7 +78,7 @@ describe('configure a model and a grid, run, and read the results', () => {
       }
     }
     if (text !== 'Finished') {
-      throw new Error(`the run did not finish (${text || 'timed out'}): ${await page.getByRole('alert').first().textContent().catch(() => '')}\n${app.logs.slice(-40).join('\n')}`);
+      throw new Error(`the run did not finish (${text || 'timed out'}): ${await page.getByRole('alert').first().textContent().catch(() => '')}\n${env.app.logs.slice(-40).join('\n')}`);
     }
     await page.getByText('100 %').first().waitFor();
 

@@ -9,26 +9,18 @@ import { mkdtempSync, writeFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, startTestApp, type TestApp, signInAs } from './harness';
+import { signInAs, useBrowserApp } from './harness';
 import { demoNetworkId } from '@/src/ops/seed/accounts';
 import { getStationByCode } from '@/db/repo/stations';
-import { closeDatabase } from '@/db/lifecycle';
 import { seriesCsv, TEST_MODES } from '@/test/data/series-maker';
 
 describe('upload a station file and see its modes', () => {
-  let app: TestApp;
-  let browser: Browser;
+  const env = useBrowserApp();
   let dir = '';
   beforeAll(async () => {
-    app = await startTestApp();
-    browser = await launchBrowser();
     dir = mkdtempSync(path.join(tmpdir(), 'cavitas-upload-'));
   });
   afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-    await closeDatabase();
     if (dir) rmSync(dir, { recursive: true, force: true });
   });
 
@@ -42,12 +34,12 @@ describe('upload a station file and see its modes', () => {
       components: { Ez: { kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'mV/m' } },
     }));
 
-    const analyst = app.signIns.find((s) => s.role === 'analyst')!;
-    const context = await browser.newContext();
+    const analyst = env.app.signIns.find((s) => s.role === 'analyst')!;
+    const context = await env.browser.newContext();
     const page = await context.newPage();
-    await signInAs(page, app.baseUrl, analyst);
+    await signInAs(page, env.app.baseUrl, analyst);
 
-    await page.goto(`${app.baseUrl}/n/${networkId}/stations/${station.id}`);
+    await page.goto(`${env.app.baseUrl}/n/${networkId}/stations/${station.id}`);
     await expect(page.getByText('Field safety').first().isVisible()).resolves.toBe(true);
     await page.getByRole('tab', { name: 'Files' }).click();
     await page.locator('#upload-files').setInputFiles(file);
