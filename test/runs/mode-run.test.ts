@@ -8,42 +8,22 @@
  * has no finite misfit, and fails the run saying why.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import * as accounts from '@/src/ops/seed/accounts';
-import * as stations from '@/src/ops/seed/stations';
-import * as runs from '@/src/ops/seed/runs';
-import { createRun, getRunById, listRunIntervals, listRuns } from '@/db/repo/runs';
-import { getRunView } from '@/src/runs/results';
-import { checkLaunch } from '@/src/runs/launch';
+import { closeDatabase } from '@/test/helpers/db';
+import { getRunById, listRunIntervals } from '@/db/repo/runs';
 import { executeRun } from '@/src/runs/execute';
 import { makeEngineSolver } from '@/src/runs/solver';
-import type { RunConfig } from '@/src/runs/config';
 import type { InversionResult } from '@/src/engine/inverse/types';
+import { demoModeRun, seedDemoDay } from './demo-mode-run';
 import type { IntervalSolver } from '@/src/runs/types';
 
 async function modeRun(name: string, from: string, to: string) {
-  const net = await accounts.demoNetworkId();
-  const [demo] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN);
-  const view = await getRunView(net, demo.id);
-  // The demo run's regions: the middle belt moves within its lat/lon ranges, the others hold their centres.
-  const config: RunConfig = { ...view.config, name, observables: { kind: 'modes', modes: 3 }, starts: 6, data: { ...view.config.data, from, to } };
-  expect(config.regions.some((r) => r.lat && r.lon)).toBe(true);
-  const { problems, preview } = await checkLaunch(net, config);
-  expect(problems).toEqual([]);
-  const run = await createRun({
-    networkId: net, name, config: config as never, modelId: view.model.id, gridId: view.grid.id,
-    engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: null,
-  });
-  return { run, config, preview: preview! };
+  const made = await demoModeRun(name, from, to, 6);
+  expect(made.config.regions.some((r) => r.lat && r.lon)).toBe(true);
+  return made;
 }
 
 describe('mode runs on the demo data', () => {
-  beforeAll(async () => {
-    await resetDatabase();
-    await accounts.seed();
-    await stations.seed();
-    await runs.seed();
-  });
+  beforeAll(seedDemoDay);
   afterAll(closeDatabase);
 
   it('ends every interval on finite misfits with the moving regions free', async () => {

@@ -15,43 +15,21 @@
  * synthetic data where the misfit is smooth.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import * as accounts from '@/src/ops/seed/accounts';
-import * as stations from '@/src/ops/seed/stations';
-import * as runs from '@/src/ops/seed/runs';
-import { createRun, getSurfaceById, listRunIntervals, listRuns } from '@/db/repo/runs';
-import { getRunView } from '@/src/runs/results';
-import { checkLaunch } from '@/src/runs/launch';
+import { closeDatabase } from '@/test/helpers/db';
+import { getSurfaceById, listRunIntervals } from '@/db/repo/runs';
 import { executeRun } from '@/src/runs/execute';
 import { makeEngineSolver } from '@/src/runs/solver';
 import { computeSurface } from '@/src/runs/surface-compute';
-import type { RunConfig } from '@/src/runs/config';
 import type { InversionResult, MisfitSurface } from '@/src/engine/inverse/types';
+import { demoModeRun, seedDemoDay } from './demo-mode-run';
 import { requestSurfaceRow } from './surface-helper';
 
 describe('misfit surfaces of a mode run', () => {
-  beforeAll(async () => {
-    await resetDatabase();
-    await accounts.seed();
-    await stations.seed();
-    await runs.seed();
-  });
+  beforeAll(seedDemoDay);
   afterAll(closeDatabase);
 
   it('pass through the stored minimum of the interval', async () => {
-    const net = await accounts.demoNetworkId();
-    const [demo] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN);
-    const view = await getRunView(net, demo.id);
-    const config: RunConfig = {
-      ...view.config, name: 'Modes for a surface', observables: { kind: 'modes', modes: 3 }, starts: 4,
-      data: { ...view.config.data, from: '2026-03-14T15:00:00.000Z', to: '2026-03-14T15:10:00.000Z' },
-    };
-    const { problems, preview } = await checkLaunch(net, config);
-    expect(problems).toEqual([]);
-    const run = await createRun({
-      networkId: net, name: config.name, config: config as never, modelId: view.model.id, gridId: view.grid.id,
-      engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: null,
-    });
+    const { run } = await demoModeRun('Modes for a surface', '2026-03-14T15:00:00.000Z', '2026-03-14T15:10:00.000Z', 4);
     expect(await executeRun(run.id, { solve: makeEngineSolver(1), workerId: 'mode-surface' })).toBe('finished');
     const [row] = await listRunIntervals(run.id);
     const res = row.result as unknown as InversionResult;

@@ -64,3 +64,18 @@ export const LINEAR_CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, he
 export function syntheticObserved(stations: StationSite[], sources: SyntheticSource[], freqs: Float64Array, sigma: number, seed: number): ObservedSeries[] {
   return observedFor(LINEAR_CAVITY, stations, sources, freqs, sigma, seed);
 }
+
+/**
+ * The invented four-station world of the mode-parameter tests: one source region R1 to find,
+ * its truth, and the 3-36 Hz model grid at 0.1 Hz. Station codes start with `prefix`.
+ */
+export function modeTestWorld(prefix: string) {
+  const band = { minHz: 3, maxHz: 36, stepHz: 0.1 };
+  return {
+    stations: [[40, -5], [-40, 95], [5, 75], [60, 40]].map(([lat, lon], i) => ({ code: `${prefix}${i + 1}`, lat, lon })),
+    band,
+    freqs: Float64Array.from({ length: 331 }, (_, i) => band.minHz + band.stepHz * i),
+    truth: { lat: 6, lon: 24, intensity: 3e4 },
+    unknowns: [{ name: 'R1', intensity: { min: 1e3, max: 1e6 }, lat: { min: -20, max: 25 }, lon: { min: 0, max: 50 } }],
+  };
+}

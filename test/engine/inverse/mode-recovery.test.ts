@@ -21,19 +21,10 @@ import { invertModes } from '@/src/engine/inverse/invert';
 import { observedModesOf } from '@/src/engine/inverse/observed-modes';
 import { prepareModes } from '@/src/engine/inverse/spectrum-setup';
 import type { ObservedModes } from '@/src/engine/inverse/types';
-import { LINEAR_CAVITY, syntheticObserved } from './helpers';
+import { LINEAR_CAVITY, syntheticObserved, modeTestWorld } from './helpers';
 
-const stations = [
-  { code: 'MR1', lat: 40, lon: -5 },
-  { code: 'MR2', lat: -40, lon: 95 },
-  { code: 'MR3', lat: 5, lon: 75 },
-  { code: 'MR4', lat: 60, lon: 40 },
-];
-const band = { minHz: 3, maxHz: 36, stepHz: 0.1 };
-const freqs = Float64Array.from({ length: 331 }, (_, i) => band.minHz + band.stepHz * i);
-const truth = { lat: 6, lon: 24, intensity: 3e4 };
+const { stations, band, freqs, truth, unknowns } = modeTestWorld('MR');
 const SIGMA = 1 / Math.sqrt(100);
-const unknowns = [{ name: 'R1', intensity: { min: 1e3, max: 1e6 }, lat: { min: -20, max: 25 }, lon: { min: 0, max: 50 } }];
 const input = (modes: ObservedModes[]) => ({ cavity: LINEAR_CAVITY, band, stations, modes, unknowns });
 
 function fittedModes(seed: number): ObservedModes[] {

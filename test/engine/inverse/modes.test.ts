@@ -17,18 +17,9 @@ import { buildParameterisation } from '@/src/engine/inverse/parameters';
 import { prepareModes } from '@/src/engine/inverse/spectrum-setup';
 import type { Component } from '@/src/engine/components';
 import type { ObservedModes } from '@/src/engine/inverse/types';
-import { analyticKernel, centralDifferenceJacobian, LINEAR_CAVITY, maxColumnRelativeError, syntheticObserved } from './helpers';
+import { analyticKernel, centralDifferenceJacobian, LINEAR_CAVITY, maxColumnRelativeError, syntheticObserved, modeTestWorld } from './helpers';
 
-const stations = [
-  { code: 'MA1', lat: 40, lon: -5 },
-  { code: 'MA2', lat: -40, lon: 95 },
-  { code: 'MA3', lat: 5, lon: 75 },
-  { code: 'MA4', lat: 60, lon: 40 },
-];
-const band = { minHz: 3, maxHz: 36, stepHz: 0.1 };
-const freqs = Float64Array.from({ length: 331 }, (_, i) => band.minHz + band.stepHz * i);
-const truth = { lat: 6, lon: 24, intensity: 3e4 };
-const unknowns = [{ name: 'R1', intensity: { min: 1e3, max: 1e6 }, lat: { min: -20, max: 25 }, lon: { min: 0, max: 50 } }];
+const { stations, band, freqs, truth, unknowns } = modeTestWorld('MA');
 
 describe('predicted modes go through the pipeline fit', () => {
   const clean = syntheticObserved(stations, [truth], freqs, 0, 1);
