@@ -3,9 +3,10 @@
  *
  * A run's intervals are written once each: (run, interval start) is unique and
  * the insert ignores a second copy, so a job that is retried after a crash can
- * redo an interval whose write it did not see without duplicating it.
+ * redo an interval whose write it did not see without duplicating it. Nothing is
+ * written to a run once it has ended (finished, failed or cancelled).
  */
-import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
 import { cavityModels, runIntervals, runs, runSurfaces, sourceGrids, type RunProgress } from '../schema/runs';
 
@@ -95,11 +96,31 @@ export async function releaseRun(runId: string, workerId: string, progress: RunP
     .where(and(eq(runs.id, runId), eq(runs.workerId, workerId), eq(runs.state, 'running')));
 }
 
-/** Writes progress and a heartbeat; returns whether someone asked to cancel. */
-export async function reportProgress(runId: string, progress: RunProgress): Promise<{ cancelRequested: boolean }> {
+/** States after which nothing more is written to a run (its intervals, progress or heartbeat). */
+const ENDED_STATES = ['finished', 'failed', 'cancelled'] as const;
+
+/**
+ * Which run rows a write may touch: never an ended run; with a worker id, only while that
+ * worker holds the run ('running' under its id), so a worker that lost its lease (the run was
+ * swept, ended, handed on or re-queued meanwhile) writes nothing.
+ */
+function writable(runId: string, workerId?: string): SQL {
+  return and(
+    eq(runs.id, runId),
+    sql`${runs.state} not in (${sql.join(ENDED_STATES.map((s) => sql`${s}`), sql`, `)})`,
+    ...(workerId === undefined ? [] : [eq(runs.state, 'running'), eq(runs.workerId, workerId)]),
+  )!;
+}
+
+/**
+ * Writes progress and a heartbeat; returns whether someone asked to cancel and whether the
+ * write was taken (`held`: the run has not ended and, with a worker id, that worker holds it).
+ * A refused write counts as a cancel request: the caller has nothing more to do on this run.
+ */
+export async function reportProgress(runId: string, progress: RunProgress, workerId?: string): Promise<{ cancelRequested: boolean; held: boolean }> {
   const [row] = await getDb().update(runs).set({ progress, heartbeatAt: new Date() })
-    .where(eq(runs.id, runId)).returning({ cancelRequested: runs.cancelRequested });
-  return { cancelRequested: row ? row.cancelRequested : true };
+    .where(writable(runId, workerId)).returning({ cancelRequested: runs.cancelRequested });
+  return row ? { cancelRequested: row.cancelRequested, held: true } : { cancelRequested: true, held: false };
 }
 
 export interface RunIntervalEntry { startsAt: Date; nData: number; result: Record<string, unknown>; seconds: number }
@@ -108,32 +129,44 @@ export interface RunIntervalEntry { startsAt: Date; nData: number; result: Recor
  * Stores finished intervals (each once: insert-or-ignore on (run, start)) and the
  * run's progress and heartbeat in a single statement (one round trip: the insert
  * runs as a data-modifying CTE), and brings back how many rows were new and
- * whether someone asked to cancel.
+ * whether someone asked to cancel. A cancel request does not refuse the write (the
+ * worker keeps what it finished before it stops), but an ended run (finished,
+ * failed, cancelled) takes nothing more, and with `workerId` only the worker that
+ * holds the run may write: the run row is locked first (FOR UPDATE, so a concurrent
+ * end or hand-over is seen after it commits) and a refused write stores nothing and
+ * answers `held: false`.
  */
-export async function saveRunIntervals(runId: string, entries: RunIntervalEntry[], progress: RunProgress): Promise<{ inserted: number; cancelRequested: boolean }> {
+export async function saveRunIntervals(
+  runId: string, entries: RunIntervalEntry[], progress: RunProgress, workerId?: string,
+): Promise<{ inserted: number; cancelRequested: boolean; held: boolean }> {
   if (entries.length === 0) {
-    const r = await reportProgress(runId, progress);
-    return { inserted: 0, cancelRequested: r.cancelRequested };
+    const r = await reportProgress(runId, progress, workerId);
+    return { inserted: 0, ...r };
   }
-  const values = sql.join(entries.map((e) => sql`(${runId}, ${e.startsAt.toISOString()}, ${e.nData}, ${JSON.stringify(e.result)}::jsonb, ${e.seconds})`), sql`, `);
+  const values = sql.join(entries.map((e) => sql`(${e.startsAt.toISOString()}::timestamptz, ${e.nData}::integer, ${JSON.stringify(e.result)}::jsonb, ${e.seconds}::float8)`), sql`, `);
   const rows = await getDb().execute<{ inserted: number; cancel_requested: boolean }>(sql`
-    with ins as (
+    with held as (
+      select ${runs.id} as id from ${runs} where ${writable(runId, workerId)} for update
+    ), ins as (
       insert into ${runIntervals} (run_id, starts_at, n_data, result, seconds)
-      values ${values}
+      select held.id, v.starts_at, v.n_data, v.result, v.seconds
+      from held cross join (values ${values}) as v (starts_at, n_data, result, seconds)
       on conflict (run_id, starts_at) do nothing
       returning 1
     )
     update ${runs} set progress = ${JSON.stringify(progress)}::jsonb, heartbeat_at = now()
-    where id = ${runId}
+    where id in (select id from held)
     returning (select count(*)::int from ins) as inserted, cancel_requested`);
   const row = rows[0];
-  return { inserted: row?.inserted ?? 0, cancelRequested: row ? row.cancel_requested : true };
+  return row ? { inserted: row.inserted, cancelRequested: row.cancel_requested, held: true } : { inserted: 0, cancelRequested: true, held: false };
 }
 
 /** One finished interval: saveRunIntervals with a single entry. */
-export async function saveRunInterval(runId: string, entry: RunIntervalEntry, progress: RunProgress): Promise<{ inserted: boolean; cancelRequested: boolean }> {
-  const r = await saveRunIntervals(runId, [entry], progress);
-  return { inserted: r.inserted > 0, cancelRequested: r.cancelRequested };
+export async function saveRunInterval(
+  runId: string, entry: RunIntervalEntry, progress: RunProgress, workerId?: string,
+): Promise<{ inserted: boolean; cancelRequested: boolean; held: boolean }> {
+  const r = await saveRunIntervals(runId, [entry], progress, workerId);
+  return { inserted: r.inserted > 0, cancelRequested: r.cancelRequested, held: r.held };
 }
 
 export async function listRunIntervals(runId: string): Promise<RunIntervalRow[]> {

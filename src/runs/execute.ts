@@ -10,10 +10,18 @@
  * finished intervals are written together at most every WRITE_EVERY_MS while
  * the next ones are solved (at most one write in flight; it is awaited before
  * the next write, before the run ends or is handed back, and a failed write
- * stops the run like a crash, which then redoes only what was not written). Each write brings back whether someone asked to cancel,
- * as does the progress timer within a solve. Once it hears of one it stops:
- * the solve in hand ends at its next start, and nothing solved after the
- * request is stored.
+ * stops the run like a crash, which then redoes only what was not written).
+ *
+ * Cancelling stops further work and keeps what is finished. Each write brings
+ * back whether someone asked to cancel, as does the progress timer within a
+ * solve. Once the driver hears of one, no further interval begins; the solve in
+ * hand is stopped at its next start, and is kept only if it completed anyway
+ * (the solver says 'cancelled' when the stop cut it short). Every interval
+ * finished before — also those solved but not yet written — is written, and
+ * then the run ends as cancelled with its progress counted from the stored
+ * rows. Writes go through only while this worker holds the run (not after it
+ * ended or passed to another worker); a refused write ends the attempt
+ * ('lost') without touching the run.
  *
  * The solver is passed in (src/runs/solver.ts binds the engine's multi-start
  * inverter), so the driver knows no physics.
@@ -50,7 +58,6 @@ export interface ExecuteOptions {
   writeEveryMs?: number;
 }
 
-/** 'yielded': the time slice ended with intervals left; queue a continuation job. */
 /**
  * Quick intervals are written in batches, at most this often: one statement per batch costs
  * the database far less than one per interval, and a crash loses at most this much solving.
@@ -58,7 +65,12 @@ export interface ExecuteOptions {
 export const WRITE_EVERY_MS = 500;
 const MAX_BATCH = 64;
 
-export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'yielded' | 'not-runnable';
+/**
+ * 'yielded': the time slice ended with intervals left; queue a continuation job.
+ * 'lost': a write was refused because the run is no longer held by this worker (it ended,
+ * was swept or was taken over); nothing more is written, the run is left as it is.
+ */
+export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'yielded' | 'not-runnable' | 'lost';
 
 function eta(startedMs: number, done: number, total: number, doneThisAttempt: number): number | null {
   if (doneThisAttempt <= 0) return null;
@@ -102,38 +114,38 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   const observe = opts.observe ?? ((_: RunContext, t: Date) => loader(t));
   const t0 = Date.now();
   let doneThisAttempt = 0;
-  let cancelRequested = false; // heard from a write: stop before the next interval
+  let cancelRequested = false; // heard from a write: no further interval begins
+  let lost = false; // a write was refused: the run is not ours any more
   let cancelled = false;
   let writing: Promise<unknown> = Promise.resolve();
   const writeEvery = opts.afterInterval ? 0 : opts.writeEveryMs ?? WRITE_EVERY_MS;
   let pending: { entry: RunIntervalEntry; index: number }[] = [];
   let lastWrite = Date.now();
+  const heard = (r: { cancelRequested: boolean; held: boolean }) => {
+    if (r.cancelRequested) cancelRequested = true;
+    if (!r.held) lost = true;
+  };
   /**
-   * Writes the finished intervals not yet written, after the write in flight. Returns false
-   * (and writes nothing) once a cancel request has been heard: what was solved since is dropped.
+   * Writes the finished intervals not yet written, after the write in flight — also once a
+   * cancel request has been heard (what is finished is kept). Nothing once the run is lost.
    */
-  const flush = async (): Promise<boolean> => {
+  const flush = async (): Promise<void> => {
     await writing; // one write in flight at a time; a failed write (or hook) ends the attempt here
-    if (cancelRequested) {
-      progress.intervalsDone -= pending.length;
-      pending = [];
-      return false;
-    }
-    if (pending.length === 0) return true;
+    if (pending.length === 0 || lost) return;
     const batch = pending;
     pending = [];
     lastWrite = Date.now();
-    writing = saveRunIntervals(runId, batch.map((b) => b.entry), { ...progress }).then(async (r) => {
-      if (r.cancelRequested) cancelRequested = true;
-      for (const b of batch) await opts.afterInterval?.(b.index);
+    writing = saveRunIntervals(runId, batch.map((b) => b.entry), { ...progress }, opts.workerId).then(async (r) => {
+      heard(r);
+      if (r.held) for (const b of batch) await opts.afterInterval?.(b.index);
     });
     writing.catch(() => {}); // awaited at the next flush or at the end; the error surfaces there
     if (opts.afterInterval) await writing; // a hook runs before the next interval begins
-    return true;
   };
   const failWith = async (msg: string) => {
     await flush(); // what finished before stays stored
     await writing;
+    if (lost) return 'lost' as const;
     await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg);
     return 'failed' as const;
   };
@@ -144,7 +156,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   };
   let next = load(0);
   for (let k = 0; k < todo.length; k++) {
-    if (cancelRequested) { cancelled = true; break; }
+    if (cancelRequested || lost) { cancelled = true; break; }
     const { t: startsAt, i } = todo[k];
     const label = new Date(startsAt).toISOString().slice(0, 16).replace('T', ' ');
     progress.phase = `interval ${label} UT: solving`;
@@ -162,7 +174,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
         // Progress and heartbeat on a timer (the solver may run on worker threads and
         // keep this event loop free); the same write brings back a cancel request.
         const timer = setInterval(() => {
-          reportProgress(runId, { ...progress }).then((r) => { if (r.cancelRequested) stop = cancelRequested = true; }, () => {});
+          reportProgress(runId, { ...progress }, opts.workerId).then((r) => { heard(r); if (r.cancelRequested) stop = true; }, () => {});
         }, every);
         try {
           outcome = await opts.solve(ctx, c, {
@@ -181,31 +193,37 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     } catch (e) {
       return failWith(`Interval ${label} UT failed: ${e instanceof Error ? e.message : String(e)}`);
     }
-    if (outcome === 'cancelled') { cancelled = true; break; }
+    if (outcome === 'cancelled') { cancelled = true; break; } // cut short by the stop: not kept
     const notFinite = nonFiniteBest(outcome.result);
     if (notFinite) return failWith(`Interval ${label} UT failed: ${notFinite}`);
-    if (cancelRequested) { cancelled = true; break; } // asked to stop before this interval was done: not kept
+    // Finished (also when a cancel request came in while it completed): kept.
     progress.intervalsDone++;
     doneThisAttempt++;
     progress.etaSeconds = eta(t0, progress.intervalsDone, total, doneThisAttempt);
     progress.phase = `interval ${label} UT finished`;
     const seconds = (outcome as { seconds?: number }).seconds ?? 0;
     pending.push({ entry: { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds }, index: i });
-    if (Date.now() - lastWrite >= writeEvery || pending.length >= MAX_BATCH) {
-      if (!(await flush())) { cancelled = true; break; }
-    }
+    if (cancelRequested) { cancelled = k < todo.length - 1; break; }
+    if (Date.now() - lastWrite >= writeEvery || pending.length >= MAX_BATCH) await flush();
     const sliceOver = opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs;
     if ((sliceOver || opts.yieldNow?.()) && k < todo.length - 1) {
-      if (!(await flush())) { cancelled = true; break; }
+      await flush();
       await writing;
+      if (lost) return 'lost';
+      if (cancelRequested) { cancelled = true; break; }
       await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
       return 'yielded';
     }
   }
-  if (!cancelled && !(await flush())) cancelled = true;
+  await flush(); // every finished interval, also after a cancel request
   await writing;
+  if (lost) return 'lost';
   if (cancelled) {
-    await endRun(runId, 'cancelled', { ...progress, phase: `cancelled after ${progress.intervalsDone} of ${total} intervals`, etaSeconds: null });
+    // The progress counts what is stored (a crashed attempt may have stored one more than it said).
+    const kept = (await finishedIntervalStarts(runId)).size;
+    await endRun(runId, 'cancelled', {
+      ...progress, intervalsDone: kept, startsDone: 0, phase: `cancelled after ${kept} of ${total} intervals`, etaSeconds: null,
+    });
     return 'cancelled';
   }
   const stored = await finishedIntervalStarts(runId);

@@ -4,6 +4,7 @@
  * come from CAVITAS_RUN_THREADS (default: the engine's own default, all cores).
  */
 import { invertModes, invertSpectra } from '@/src/engine/inverse/invert';
+import type { InversionResult } from '@/src/engine/inverse/types';
 import type { IntervalSolver } from './types';
 import { buildUnknowns } from './unknowns';
 import { MODE_BAND } from './observations';
@@ -36,6 +37,17 @@ const solve = async (...[ctx, c, hooks, threads]: [...Parameters<IntervalSolver>
   const result = c.modes
     ? await invertModes({ cavity: ctx.cavity, band: MODE_BAND, stations, modes: c.modes, unknowns }, options, callbacks)
     : await invertSpectra({ cavity: ctx.cavity, stations, observed: c.observed, unknowns }, options, callbacks);
-  if (hooks.shouldStop()) return 'cancelled' as const;
+  // A stop asked for while the last starts were finishing leaves a complete result: it is kept.
+  if (interrupted(result)) return 'cancelled' as const;
   return { nData: result.nData, result: result as unknown as Record<string, unknown> };
 };
+
+/**
+ * Whether a stop request cut the inversion short: a start is missing (never begun) or
+ * ended by the request (stop reason 'cancelled') instead of by its own criteria.
+ */
+export function interrupted(result: InversionResult): boolean {
+  const ends = result.startEnds;
+  if (!ends) return true;
+  return ends.index.length < result.starts || ends.stopReason.includes('cancelled');
+}

@@ -41,5 +41,8 @@ export interface SolveHooks {
 /** What one interval produced: the engine's result as JSON (minima best first) and the data count. */
 export interface IntervalOutcome { nData: number; result: Record<string, unknown> }
 
-/** Solves one interval; resolves to 'cancelled' when shouldStop() ended it. */
+/**
+ * Solves one interval; resolves to 'cancelled' when shouldStop() cut it short. A solve that
+ * completed although a stop was asked for meanwhile resolves to its (complete) result.
+ */
 export type IntervalSolver = (ctx: RunContext, c: IntervalCase, hooks: SolveHooks) => Promise<IntervalOutcome | 'cancelled'>;

@@ -2,11 +2,13 @@
  * The run driver against the throwaway PostgreSQL and the real engine:
  * a noise-free round trip, a crash after k intervals followed by a restart
  * (every interval present exactly once), cancellation that keeps finished
- * intervals, and a re-run that completes a cancelled run.
+ * intervals (also those waiting for their batched write) but not one the
+ * stop cut short, a re-run that completes a cancelled run, and writes refused
+ * once a run has ended or passed to another worker.
  */
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { createRun, getRunById, listRunIntervals, requestCancel, requeueRun } from '@/db/repo/runs';
+import { claimRun, createRun, getRunById, listRunIntervals, reportProgress, requestCancel, requeueRun, saveRunIntervals } from '@/db/repo/runs';
 import { checkLaunch } from '@/src/runs/launch';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
@@ -184,7 +186,7 @@ describe('run driver', () => {
     expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(run.intervalStarts.slice(0, 2).map((t) => new Date(t).toISOString()));
   });
 
-  it('hears a cancel request made by someone else through its own writes and stores nothing solved after it', async () => {
+  it('hears a cancel request made by someone else through its own writes and keeps what it finished', async () => {
     const w = await makeRunWorld(5);
     const run = await newRun(w);
     const solved: string[] = [];
@@ -196,12 +198,146 @@ describe('run driver', () => {
         return engineSolver(ctx, c, h);
       },
     })).toBe('cancelled');
-    // Interval 2's result write brings the request back (while interval 3 may already be in
-    // hand): interval 3 is stopped or dropped, nothing after it begins, intervals 1-2 stay.
+    // Interval 2 finished after the request was made and is kept; its result write brings the
+    // request back while interval 3 may already be in hand: interval 3 is kept if its solve
+    // completed, dropped if the stop cut it short; nothing after it begins.
     expect(solved.length).toBeLessThanOrEqual(3);
-    expect(await listRunIntervals(run.id)).toHaveLength(2);
+    const rows = await listRunIntervals(run.id);
+    expect(rows.length).toBeGreaterThanOrEqual(2);
+    expect(rows.map((r) => r.startsAt.toISOString())).toEqual(run.intervalStarts.slice(0, rows.length).map((t) => new Date(t).toISOString()));
+    const r = await getRunById(run.id);
+    expect(r!.state).toBe('cancelled');
+    expect(r!.progress.intervalsDone).toBe(rows.length);
+  });
+
+  // A cancel heard while finished intervals wait for their batched write (a minute between
+  // writes here, so none has been written yet); the progress timer brings the request back.
+  const iso = (ts: string[]) => ts.map((t) => new Date(t).toISOString());
+
+  it('keeps every interval finished before a cancel, also those not yet written, and the one that completed while the cancel was heard', async () => {
+    const w = await makeRunWorld(6);
+    const run = await newRun(w);
+    const solved: string[] = [];
+    expect(await executeRun(run.id, {
+      workerId: 'w1', writeEveryMs: 60_000, progressEveryMs: 5,
+      solve: async (ctx, c, h) => {
+        solved.push(c.startsAt);
+        const out = await engineSolver(ctx, c, h);
+        if (solved.length === 3) {
+          // The third solve has completed; the request comes in and is heard before it returns.
+          await requestCancel(w.networkId, run.id);
+          while (!h.shouldStop()) await new Promise((r) => setTimeout(r, 5));
+        }
+        return out;
+      },
+    })).toBe('cancelled');
+    expect(solved).toEqual(run.intervalStarts.slice(0, 3)); // nothing begins after the cancel is heard
+    const rows = await listRunIntervals(run.id);
+    expect(rows.map((r) => r.startsAt.toISOString())).toEqual(iso(run.intervalStarts.slice(0, 3)));
+    const r = await getRunById(run.id);
+    expect(r!.state).toBe('cancelled');
+    expect(r!.progress.intervalsDone).toBe(3);
+
+    // "Run the rest again": the re-run solves only the three left, and every interval is stored once.
+    expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
+    const again: string[] = [];
+    expect(await executeRun(run.id, {
+      workerId: 'w2', solve: (ctx, c, h) => { again.push(c.startsAt); return engineSolver(ctx, c, h); },
+    })).toBe('finished');
+    expect(again).toEqual(run.intervalStarts.slice(3));
+    const all = await listRunIntervals(run.id);
+    expect(all.map((x) => x.startsAt.toISOString())).toEqual(iso(run.intervalStarts));
+    const end = await getRunById(run.id);
+    expect(end!.state).toBe('finished');
+    expect(end!.progress.intervalsDone).toBe(6);
+  });
+
+  it('does not keep the interval a cancel cut short, but keeps the unwritten ones before it', async () => {
+    const w = await makeRunWorld(5);
+    const run = await newRun(w);
+    const solved: string[] = [];
+    let third: string | undefined;
+    expect(await executeRun(run.id, {
+      workerId: 'w1', writeEveryMs: 60_000, progressEveryMs: 5,
+      solve: async (ctx, c, h) => {
+        solved.push(c.startsAt);
+        if (solved.length === 3) {
+          // The request is heard before the third solve begins its starts: the engine stops each
+          // start at once (stop reason 'cancelled'), so the solve is cut short.
+          await requestCancel(w.networkId, run.id);
+          while (!h.shouldStop()) await new Promise((r) => setTimeout(r, 5));
+          const out = await engineSolver(ctx, c, h);
+          third = out === 'cancelled' ? out : 'complete';
+          return out;
+        }
+        return engineSolver(ctx, c, h);
+      },
+    })).toBe('cancelled');
+    expect(third).toBe('cancelled');
+    expect(solved).toHaveLength(3);
+    const rows = await listRunIntervals(run.id);
+    expect(rows.map((r) => r.startsAt.toISOString())).toEqual(iso(run.intervalStarts.slice(0, 2)));
     const r = await getRunById(run.id);
     expect(r!.state).toBe('cancelled');
     expect(r!.progress.intervalsDone).toBe(2);
+    expect(r!.progress.phase).toBe('cancelled after 2 of 5 intervals');
+
+    expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
+    const again: string[] = [];
+    expect(await executeRun(run.id, {
+      workerId: 'w2', solve: (ctx, c, h) => { again.push(c.startsAt); return engineSolver(ctx, c, h); },
+    })).toBe('finished');
+    expect(again).toEqual(run.intervalStarts.slice(2));
+    expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(iso(run.intervalStarts));
+  });
+
+  it('writes nothing to a run once it has ended, nor for a worker that no longer holds it', async () => {
+    const w = await makeRunWorld(3);
+    const run = await newRun(w);
+    expect(await executeRun(run.id, {
+      solve: engineSolver, workerId: 'w1', afterInterval: async (i) => { if (i === 0) await requestCancel(w.networkId, run.id); },
+    })).toBe('cancelled');
+    const rows = await listRunIntervals(run.id);
+    const ended = await getRunById(run.id);
+    const late = { startsAt: new Date(run.intervalStarts[2]), nData: 1, result: { minima: [] }, seconds: 1 };
+    // The ended run takes no interval and no progress, with or without a worker id.
+    for (const worker of ['w1', undefined]) {
+      expect(await saveRunIntervals(run.id, [late], { ...ended!.progress, phase: 'late' }, worker)).toEqual({ inserted: 0, cancelRequested: true, held: false });
+      expect(await reportProgress(run.id, { ...ended!.progress, phase: 'late' }, worker)).toEqual({ cancelRequested: true, held: false });
+    }
+    expect(await listRunIntervals(run.id)).toHaveLength(rows.length);
+    expect((await getRunById(run.id))!.progress).toEqual(ended!.progress);
+
+    // Re-queued and taken by another worker: the first worker's writes are refused, the holder's go through.
+    expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
+    expect(await saveRunIntervals(run.id, [late], ended!.progress, 'w1')).toMatchObject({ inserted: 0, held: false });
+    const solvedBy: string[] = [];
+    expect(await executeRun(run.id, { workerId: 'w2', solve: (ctx, c, h) => { solvedBy.push(c.startsAt); return engineSolver(ctx, c, h); } })).toBe('finished');
+    expect(solvedBy).toEqual(run.intervalStarts.slice(rows.length));
+    expect(await saveRunIntervals(run.id, [late], ended!.progress, 'w2')).toMatchObject({ inserted: 0, held: false });
+    expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(iso(run.intervalStarts));
+  });
+
+  it('ends the attempt without touching the run when its writes are refused (another worker took it)', async () => {
+    const w = await makeRunWorld(4);
+    const run = await newRun(w);
+    const solved: string[] = [];
+    expect(await executeRun(run.id, {
+      workerId: 'slow', writeEveryMs: 0,
+      solve: async (ctx, c, h) => {
+        solved.push(c.startsAt);
+        // Meanwhile the lease lapsed and another worker claimed the run (as after a stall).
+        if (solved.length === 2) {
+          while ((await listRunIntervals(run.id)).length < 1) await new Promise((r) => setTimeout(r, 5)); // interval 1's write landed
+          expect(await claimRun(run.id, 'taker', 0)).not.toBeNull();
+        }
+        return engineSolver(ctx, c, h);
+      },
+    })).toBe('lost');
+    const r = await getRunById(run.id);
+    expect(r!.state).toBe('running');
+    expect(r!.workerId).toBe('taker');
+    // Interval 1 was written while 'slow' held the run; interval 2's write was refused.
+    expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(iso(run.intervalStarts.slice(0, 1)));
   });
 });
