@@ -12,7 +12,8 @@ import { listStations } from '@/db/repo/stations';
 import { listedLines, mainsLines } from '@/src/engine/signal/line-suppression';
 import type { RunConfig } from './config';
 import type { ObservedModes } from '@/src/engine/inverse/types';
-import { HANN_BIN_CORRELATION_INFLATION, HANN_HALF_OVERLAP_CORRELATION, SPECTRUM_BAND_MAX_HZ, SPECTRUM_BAND_MIN_HZ } from '@/src/engine/tolerances';
+import { SPECTRUM_BAND_MAX_HZ, SPECTRUM_BAND_MIN_HZ } from '@/src/engine/tolerances';
+import { hannWelchScatter } from '@/src/engine/modes/bin-scatter';
 import { InversionInputError } from '@/src/engine/inverse/errors';
 import { propagatedModeErrors } from '@/src/engine/inverse/observed-modes';
 import type { ObservedSeries } from './types';
@@ -130,10 +131,9 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
  * propagated through the same fit instead (observed-modes.ts). Modes the fit holds on a bound keep the stored errors.
  */
 function withPropagatedErrors(om: ObservedModes, sp: IntervalSpectrum): ObservedModes {
-  const kEff = Math.max(1, sp.segments) / (1 + 2 * HANN_HALF_OVERLAP_CORRELATION ** 2);
   let prop;
   try {
-    prop = propagatedModeErrors(om, Float64Array.from(sp.frequencies), sp.power, HANN_BIN_CORRELATION_INFLATION / Math.sqrt(kEff));
+    prop = propagatedModeErrors(om, Float64Array.from(sp.frequencies), sp.power, hannWelchScatter(Math.max(1, sp.segments)));
   } catch (e) {
     if (e instanceof InversionInputError) return om;
     throw e;

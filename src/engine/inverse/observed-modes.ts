@@ -2,15 +2,15 @@
  * Observed modes of one spectrum for a mode-parameter inversion: the
  * pipeline's Lorentzian fit (fitModes), each usable mode with its peak
  * (amplitude plus background at the mode frequency) and with errors
- * propagated from the bin scatter through that same estimator (first-order
- * delta method, sigma_q^2 = sum_k (dq/dy_k)^2 var(y_k) with var(y_k) =
- * (sigmaLog y_k)^2 for independent bins; dq/dy from fit-sensitivity.ts).
- * Unlike the fit's covariance (J^T W J)^-1 these errors stay right when the
- * spectrum is not exactly Lorentzian and the weights depend on the data.
+ * propagated from the bin scatter through that same estimator: dq/dy from
+ * fit-sensitivity.ts, cov(q) = G V G^T by modes/bin-scatter.ts, the one
+ * propagation fitModes' own errors go through (modes/fit-errors.ts); here
+ * q holds the observables, ln peak among them.
  * Modes left out: a zero amplitude or a peak that is not positive, a frequency on the edge of
  * its window or a half-width on its bounds (the fit did not find a
  * resonance there).
  */
+import { propagateBinScatter, type BinScatter } from '@/src/engine/modes/bin-scatter';
 import { fitModes } from '@/src/engine/modes/fit-modes';
 import { MODE_HALF_WIDTH_MAX_HZ, MODE_HALF_WIDTH_MIN_HZ } from '@/src/engine/tolerances';
 import { modeSeriesSetup, predictedModeDerivatives, predictedSeriesModes } from './predicted-modes';
@@ -33,19 +33,20 @@ export interface PropagatedErrors {
 }
 
 /**
- * Errors of the observed modes of `power` (on `grid`, the spectrum's own bins) propagated from an independent
- * scatter of sigmaLog in ln power per bin through the fit described by `modes.fit` (the pipeline's estimator).
+ * Errors of the observed modes of `power` (on `grid`, the spectrum's own bins) propagated from the bins'
+ * scatter (e.g. hannWelchScatter(segments) for the pipeline's spectra) through the fit described by
+ * `modes.fit` (the pipeline's estimator).
  */
-export function propagatedModeErrors(modes: ObservedModes, grid: Float64Array, power: ArrayLike<number>, sigmaLog: number): PropagatedErrors {
+export function propagatedModeErrors(modes: ObservedModes, grid: Float64Array, power: ArrayLike<number>, scatter: BinScatter): PropagatedErrors {
   const setup = modeSeriesSetup(modes, grid, `${modes.station} ${modes.component}`);
   const y = Float64Array.from(setup.bins, (b) => power[b]);
   const est = predictedSeriesModes(setup, y);
   const nb = y.length;
-  const d = new Float64Array(nb * nb);
-  for (let k = 0; k < nb; k++) d[k * nb + k] = sigmaLog * y[k];
-  const rows = new Float64Array(3 * modes.modes.length * nb);
-  predictedModeDerivatives(setup, est, d, nb, rows);
-  const sd = (row: number) => Math.sqrt(rows.subarray(row * nb, (row + 1) * nb).reduce((a, v) => a + v * v, 0));
+  const nq = 3 * modes.modes.length;
+  const rows = new Float64Array(nq * nb);
+  predictedModeDerivatives(setup, est, null, nb, rows);
+  const cov = propagateBinScatter(rows, nq, y, scatter, setup.bins);
+  const sd = (row: number) => Math.sqrt(Math.max(0, cov[row * nq + row]));
   const q = est.fit.final.params;
   return {
     sigmas: modes.modes.map((_, k) => [sd(3 * k), sd(3 * k + 1), sd(3 * k + 2)]),
@@ -66,7 +67,7 @@ export function observedModesOf(series: ObservedSeries, options: ObservedModeOpt
     modes: fit.modes.map((m) => ({ frequency: m.frequency, intensity: m.amplitude + fit.background.b0 + fit.background.b1 * m.frequency, halfWidth: m.halfWidth, sigmaFrequency: 1, sigmaLogIntensity: 1, sigmaHalfWidth: 1 })),
     fit: { modes: options.modes, ...fit.band },
   };
-  const { sigmas, onEdge } = propagatedModeErrors(all, grid, series.power, series.sigmaLog);
+  const { sigmas, onEdge } = propagatedModeErrors(all, grid, series.power, { averages: 1 / series.sigmaLog ** 2 });
   const keep: ObservedMode[] = [];
   all.modes.forEach((m, k) => {
     const sigma = sigmas[k];

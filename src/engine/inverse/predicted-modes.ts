@@ -143,23 +143,30 @@ export function predictedSeriesModes(setup: ModeSeriesSetup, power: ArrayLike<nu
 
 /**
  * Derivatives of the values (3 per observed mode, row-major x n) with respect to the source
- * parameters, given d(power of the setup's bins)/dp (raw SI, nb x n row-major).
+ * parameters, given d(power of the setup's bins)/dp (raw SI, nb x n row-major); dPowerDp null gives
+ * the derivatives with respect to the bins' power itself (n = nb).
  */
-export function predictedModeDerivatives(setup: ModeSeriesSetup, est: PredictedSeriesModes, dPowerDp: ArrayLike<number>, n: number, out: Float64Array): void {
+export function predictedModeDerivatives(setup: ModeSeriesSetup, est: PredictedSeriesModes, dPowerDp: ArrayLike<number> | null, n: number, out: Float64Array): void {
   const nbins = setup.freqs.length;
-  const dy = new Float64Array(nbins * n);
-  for (let i = 0; i < nbins * n; i++) dy[i] = dPowerDp[i] / est.unit;
+  let dy: Float64Array | null = null;
+  if (dPowerDp) {
+    dy = new Float64Array(nbins * n);
+    for (let i = 0; i < nbins * n; i++) dy[i] = dPowerDp[i] / est.unit;
+  }
   const { fit } = est;
   const dq = fitSensitivity(
     { modes: setup.modes, freqs: setup.freqs, data: est.data, first: fit.first.params, final: fit.final.params, firstModel: fit.firstModel, lower: est.lower, upper: est.upper },
     dy,
     n,
   );
+  // dq/dy of the normalised data, y = power / unit: dq/dpower = dq/dy / unit.
+  if (!dy) for (let i = 0; i < dq.length; i++) dq[i] /= est.unit;
   const q = fit.final.params;
   const b0 = 3 * setup.modes;
   // The floor is a fixed fraction of the median power, so where it acts ln(peak) follows d ln(median)/dp too:
   // d ln(unit F(x)) = (1 - F'(x) x / F(x)) d ln(unit) + F'(x) dx / F(x), x the peak in units of the median.
-  const dLnUnit = dy.subarray(est.medianBin * n, (est.medianBin + 1) * n);
+  const dLnUnit = dy ? dy.subarray(est.medianBin * n, (est.medianBin + 1) * n) : new Float64Array(n);
+  if (!dy) dLnUnit[est.medianBin] = 1 / est.unit;
   setup.slots.forEach((s, k) => {
     const f = q[3 * s];
     const x = q[3 * s + 1] + q[b0] + q[b0 + 1] * f;

@@ -1,19 +1,25 @@
 /**
  * Lorentzian mode fit of a power spectrum (3–7 modes and a linear background).
  *
- * A Welch estimate averaged over K independent segments scatters by about
- * P / sqrt(K) per bin (common practice). Weighting by the observed power
- * biases fits low (Neyman's chi-square), so the fit runs twice: first with
- * sigma proportional to the data, then with sigma proportional to that first
- * model (Pearson's chi-square with fixed weights). When K is known the errors
- * are absolute; otherwise the covariance is scaled by the reduced chi-square
- * (as scipy.optimize.curve_fit does by default). Powers are normalised to
- * order one during the fit so that the optimiser sees well-scaled numbers.
+ * A Welch estimate of K_eff equivalent independent averages scatters by
+ * about P / sqrt(K_eff) per bin (bin-scatter.ts). Weighting by the observed
+ * power biases fits low (Neyman's chi-square), so the fit runs twice: first
+ * with sigma proportional to the data, then with sigma proportional to that
+ * first model (Pearson's chi-square with fixed weights). The errors are the
+ * bins' scatter propagated through both passes (fit-errors.ts), not the
+ * covariance (J^T W J)^-1, which understates them when the spectrum is not
+ * exactly Lorentzian. When K_eff is not given it is estimated from the
+ * misfit, dof / chi-square (as scipy.optimize.curve_fit scales by the reduced
+ * chi-square by default). A parameter held on a bound does not move with
+ * the data; it keeps the covariance's error. Powers are normalised to order
+ * one during the fit so that the optimiser sees well-scaled numbers.
  */
 import { covarianceFromJtJ } from '@/src/engine/optim/covariance';
 import { CONVERGED_REASONS } from '@/src/engine/optim/types';
 import { OptimInputError } from '@/src/engine/optim/errors';
 import { MODE_FREQUENCY_WINDOW_HZ } from '@/src/engine/tolerances';
+import { propagatedFitCovariance } from './fit-errors';
+import { heldSet } from './fit-hessian';
 import { initialGuess } from './initial-guess';
 import { resolveModeFitOptions, type ModeFitOptions } from './options';
 import { qualityOfFit } from './quality';
@@ -47,18 +53,23 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
     }
   });
   const guess = initialGuess(freqs, data, o.guessHz);
-  let final;
+  let two;
   try {
-    final = twoStageLorentzianFit({ modes: o.modes, freqs, data, rel, start: guess.start, lower: guess.lower, upper: guess.upper, lm: o.lm, shouldStop: o.shouldStop }).final;
+    two = twoStageLorentzianFit({ modes: o.modes, freqs, data, rel, start: guess.start, lower: guess.lower, upper: guess.upper, lm: o.lm, shouldStop: o.shouldStop });
   } catch (e) {
     if (e instanceof OptimInputError) throw new ModeFitError(`the fit could not start: ${e.message}`);
     throw e;
   }
 
+  const { final } = two;
   const dof = freqs.length - np;
   const reduced = dof > 0 ? final.chi2 / dof : Infinity;
-  const scale = (o.averages ? 1 : reduced) * o.errorInflation ** 2;
-  const cov = covarianceFromJtJ(final.jtj, np, { scale });
+  const formal = covarianceFromJtJ(final.jtj, np, { scale: o.averages ? 1 : reduced });
+  const scatter = { averages: o.averages ?? 1 / reduced, lagCorrelation: o.binCorrelation };
+  const sens = { modes: o.modes, freqs, data, first: two.first.params, final: final.params, firstModel: two.firstModel, lower: guess.lower, upper: guess.upper };
+  const prop = scatter.averages > 0 && Number.isFinite(scatter.averages) ? propagatedFitCovariance(sens, scatter, idx) : null;
+  const held = heldSet(final.params, o.modes, guess.lower, guess.upper);
+  const sigma = (j: number) => (prop && !held[j] ? Math.sqrt(Math.max(0, prop[j * np + j])) : formal.stdErrors[j]);
   const p = final.params;
   const modes: FittedMode[] = [];
   for (let n = 0; n < o.modes; n++) {
@@ -68,7 +79,7 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
       amplitude: a,
       halfWidth: g,
       q: f / (2 * g),
-      errors: { frequency: cov.stdErrors[3 * n], amplitude: cov.stdErrors[3 * n + 1] * unit, halfWidth: cov.stdErrors[3 * n + 2] },
+      errors: { frequency: sigma(3 * n), amplitude: sigma(3 * n + 1) * unit, halfWidth: sigma(3 * n + 2) },
     });
   }
   modes.sort((x, y) => x.frequency - y.frequency);
@@ -79,9 +90,10 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
     misfit: final.chi2,
     dof,
     band: { minHz: o.minHz, maxHz: o.maxHz },
+    ...(o.averages !== undefined ? { averages: o.averages } : {}),
     converged,
     flags: [],
   };
-  fit.flags = qualityOfFit(fit, { singular: cov.singular, lower: guess.lower, upper: guess.upper });
+  fit.flags = qualityOfFit(fit, { singular: formal.singular, lower: guess.lower, upper: guess.upper });
   return fit;
 }

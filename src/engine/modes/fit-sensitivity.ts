@@ -34,18 +34,22 @@ export interface FitSensitivityInput {
   upper: Float64Array;
 }
 
-/** dq/dp (np x n, row-major) of the final fit parameters, given dy/dp (nb x n, row-major). */
-export function fitSensitivity(input: FitSensitivityInput, dyDp: Float64Array, n: number): Float64Array {
+/**
+ * dq/dp (np x n, row-major) of the final fit parameters, given dy/dp (nb x n, row-major); dyDp null
+ * gives dq/dy itself (n = nb, dy/dp the identity, without storing it).
+ */
+export function fitSensitivity(input: FitSensitivityInput, dyDp: Float64Array | null, n: number): Float64Array {
   const { modes, freqs, data: y, lower, upper } = input;
   const np = paramCount(modes);
   const nb = freqs.length;
+  if (!dyDp && n !== nb) throw new RangeError(`dq/dy has ${nb} columns, not ${n}`);
   const ones = new Float64Array(nb).fill(1);
   const model = new Float64Array(nb);
   const j1 = new Float64Array(nb * np);
   const h = new Float64Array(np * np);
   const c = new Float64Array(nb);
 
-  // First pass: H1 dq1/dp = sum_k J1_k W1_k (1 + 2 r1_k / y_k) dy_k/dp.
+  // First pass: H1 dq1/dp = sum_k J1_k W1_k (1 + 2 r1_k / y_k) dy_k/dp (dy/dp = I: column k is J1_k s_k).
   lorentzianModel(input.first, modes, freqs, model);
   lorentzianJacobian(input.first, modes, freqs, ones, j1);
   const dq1 = new Float64Array(np * n);
@@ -57,7 +61,8 @@ export function fitSensitivity(input: FitSensitivityInput, dyDp: Float64Array, n
     for (let a = 0; a < np; a++) {
       const ja = j1[k * np + a];
       for (let b = 0; b < np; b++) h[a * np + b] += ja * w * j1[k * np + b];
-      for (let jj = 0; jj < n; jj++) dq1[a * n + jj] += ja * s * dyDp[k * n + jj];
+      if (!dyDp) dq1[a * n + k] = ja * s;
+      else for (let jj = 0; jj < n; jj++) dq1[a * n + jj] += ja * s * dyDp[k * n + jj];
     }
   }
   addCurvature(input.first, modes, freqs, c, h);
@@ -65,26 +70,43 @@ export function fitSensitivity(input: FitSensitivityInput, dyDp: Float64Array, n
   const m1 = input.firstModel;
   if (!m1) return dq1;
 
-  // Second pass: H2 dq/dp = sum_k J_k W2_k (dy_k/dp + (2 r_k / m1_k) J1_k dq1/dp).
+  // Second pass: H2 dq/dp = sum_k J_k W2_k (dy_k/dp + (2 r_k / m1_k) J1_k dq1/dp). For dq/dy (many
+  // columns) the second term is summed first as M dq1/dy, M = sum_k J_k W2_k (2 r_k / m1_k) J1_k^T.
   const jf = new Float64Array(nb * np);
   lorentzianModel(input.final, modes, freqs, model);
   lorentzianJacobian(input.final, modes, freqs, ones, jf);
   h.fill(0);
   const dq = new Float64Array(np * n);
   const v = new Float64Array(n);
+  const m = new Float64Array(dyDp ? 0 : np * np);
   for (let k = 0; k < nb; k++) {
     const w = 1 / (m1[k] * m1[k]);
     const r = model[k] - y[k];
     c[k] = w * r;
-    for (let jj = 0; jj < n; jj++) {
-      let s = 0;
-      for (let a = 0; a < np; a++) s += j1[k * np + a] * dq1[a * n + jj];
-      v[jj] = dyDp[k * n + jj] + ((2 * r) / m1[k]) * s;
+    const t = (2 * r) / m1[k];
+    if (dyDp) {
+      for (let jj = 0; jj < n; jj++) {
+        let s = 0;
+        for (let a = 0; a < np; a++) s += j1[k * np + a] * dq1[a * n + jj];
+        v[jj] = dyDp[k * n + jj] + t * s;
+      }
     }
     for (let a = 0; a < np; a++) {
       const ja = jf[k * np + a];
       for (let b = 0; b < np; b++) h[a * np + b] += ja * w * jf[k * np + b];
-      for (let jj = 0; jj < n; jj++) dq[a * n + jj] += ja * w * v[jj];
+      if (dyDp) for (let jj = 0; jj < n; jj++) dq[a * n + jj] += ja * w * v[jj];
+      else {
+        dq[a * n + k] += ja * w;
+        for (let b = 0; b < np; b++) m[a * np + b] += ja * w * t * j1[k * np + b];
+      }
+    }
+  }
+  if (!dyDp) {
+    for (let a = 0; a < np; a++) {
+      for (let b = 0; b < np; b++) {
+        const mab = m[a * np + b];
+        if (mab !== 0) for (let jj = 0; jj < n; jj++) dq[a * n + jj] += mab * dq1[b * n + jj];
+      }
     }
   }
   addCurvature(input.final, modes, freqs, c, h);

@@ -15,10 +15,10 @@ export interface ModeFitOptions {
   /** Fitted band; default from MODE_FIT_MIN_HZ to MODE_FIT_TOP_MARGIN_HZ past the highest mode's usual frequency. */
   minHz: number;
   maxHz: number;
-  /** Effective number of independent averages behind each bin; absolute errors when given. */
+  /** Equivalent number of independent averages behind each bin (bin-scatter.ts); absolute errors when given, else estimated from the misfit. */
   averages?: number;
-  /** Multiplies the errors (e.g. for correlated neighbouring bins); default 1. */
-  errorInflation: number;
+  /** Correlation of two bins' power at grid distance 1, 2, ... (HANN_BIN_POWER_CORRELATION for the pipeline's Welch); default none. */
+  binCorrelation?: readonly number[];
   /** Bins to leave out (1 = ignore), e.g. bins bridged by line suppression. */
   exclude?: Uint8Array;
   /** Starting frequencies, one per mode; default the usual mode frequencies. */
@@ -48,8 +48,10 @@ export function resolveModeFitOptions(options: Partial<ModeFitOptions>, frequenc
   if (!(maxHz > minHz)) throw new ModeFitOptionError(`fit band is empty (minHz ${minHz}, maxHz ${maxHz})`);
   const averages = options.averages;
   if (averages !== undefined && !(averages > 0)) throw new ModeFitOptionError(`averages must be positive, got ${averages}`);
-  const errorInflation = options.errorInflation ?? 1;
-  if (!(errorInflation > 0)) throw new ModeFitOptionError(`errorInflation must be positive, got ${errorInflation}`);
+  const binCorrelation = options.binCorrelation;
+  binCorrelation?.forEach((c, i) => {
+    if (!(Math.abs(c) < 1)) throw new ModeFitOptionError(`binCorrelation[${i}] must lie between -1 and 1, got ${c}`);
+  });
   const lm = { misfitTol: MODE_FIT_MISFIT_REL_TOL, stepTol: MODE_FIT_STEP_REL_TOL, maxIterations: MODE_FIT_MAX_ITERATIONS, ...options.lm };
-  return { ...options, modes, minHz, maxHz, averages, errorInflation, guessHz: [...guessHz], lm };
+  return { ...options, modes, minHz, maxHz, averages, binCorrelation, guessHz: [...guessHz], lm };
 }

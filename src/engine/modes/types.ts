@@ -10,7 +10,7 @@ export interface FittedMode {
   amplitude: number;
   halfWidth: number;
   q: number;
-  /** One-standard-deviation errors from the fit covariance. */
+  /** One-standard-deviation errors: the bins' scatter propagated through the fit (fit-errors.ts). */
   errors: { frequency: number; amplitude: number; halfWidth: number };
 }
 
@@ -24,7 +24,10 @@ export interface ModeFit {
   misfit: number;
   /** Bins used minus parameters. */
   dof: number;
+  /** The band the fit used (bins outside it are not fitted). */
   band: { minHz: number; maxHz: number };
+  /** Equivalent independent averages behind each bin that the errors assume, when given (absent: estimated from the misfit). */
+  averages?: number;
   converged: boolean;
   flags: FitFlag[];
 }

@@ -11,11 +11,8 @@ import { listedLines, mainsLines, suppressLines, type SpectralLine } from '@/src
 import { segmentLayout, segmentStats } from '@/src/engine/signal/segments';
 import { screenTransients } from '@/src/engine/signal/transients';
 import { welch } from '@/src/engine/signal/welch';
-import {
-  HANN_BIN_CORRELATION_INFLATION,
-  HANN_HALF_OVERLAP_CORRELATION,
-  REJECTED_SHARE_LIMIT,
-} from '@/src/engine/tolerances';
+import { hannWelchScatter } from '@/src/engine/modes/bin-scatter';
+import { REJECTED_SHARE_LIMIT } from '@/src/engine/tolerances';
 import { clippedShare, hasGaps } from './sample-checks';
 import { resolveProcessingConfig } from './config';
 import type { IntervalFlag, IntervalResult, ProcessingConfig } from './types';
@@ -53,11 +50,12 @@ export function processInterval(samples: Float64Array, config: ProcessingConfig)
   let fit = null;
   if (c.modes > 0) {
     try {
+      const scatter = hannWelchScatter(est.used);
       fit = fitModes(frequencies, power, {
         modes: c.modes,
         exclude: clean.suppressed.subarray(lo, hi + 1),
-        averages: est.used / (1 + 2 * HANN_HALF_OVERLAP_CORRELATION ** 2),
-        errorInflation: HANN_BIN_CORRELATION_INFLATION,
+        averages: scatter.averages,
+        binCorrelation: scatter.lagCorrelation,
       });
       for (const f of fit.flags) if (!flags.includes(f)) flags.push(f);
     } catch (e) {
