@@ -15,6 +15,22 @@ export interface IntervalFit {
   modes: StoredMode[];
   background: { b0: number; b1: number };
   misfit: number;
+  /** The band the fit used; absent in fits stored before it was recorded. */
+  band?: { minHz: number; maxHz: number };
+  /** Equivalent independent averages behind each bin that the errors assume (absent: estimated from the misfit, or not recorded). */
+  averages?: number;
+  /** Correlation of neighbouring bins' power at distance 1, 2, ... that the errors assume (absent: independent, or not recorded). */
+  binCorrelation?: number[];
+}
+
+/** The stored row's fit, leaving out what older rows do not have. */
+function fitOf(row: { modes: StoredMode[]; background: { b0: number; b1: number }; misfit: number; band: { minHz: number; maxHz: number } | null; averages: number | null; binCorrelation: number[] | null }): IntervalFit {
+  return {
+    modes: row.modes, background: row.background, misfit: row.misfit,
+    ...(row.band ? { band: row.band } : {}),
+    ...(row.averages !== null ? { averages: row.averages } : {}),
+    ...(row.binCorrelation ? { binCorrelation: row.binCorrelation } : {}),
+  };
 }
 
 export interface IntervalResultInput {
@@ -115,10 +131,19 @@ export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id:
       const withFit = batch.map((i, k) => ({ i, id: ids[k].id })).filter((x) => x.i.fit);
       const withoutFit = batch.map((i, k) => ({ i, id: ids[k].id })).filter((x) => !x.i.fit);
       if (withFit.length) {
-        await tx.insert(intervalFits).values(withFit.map(({ i, id }) => ({ intervalId: id, ...i.fit! })))
+        await tx.insert(intervalFits).values(withFit.map(({ i, id }) => {
+          const f = i.fit!;
+          return {
+            intervalId: id, modes: f.modes, background: f.background, misfit: f.misfit,
+            band: f.band ?? null, averages: f.averages ?? null, binCorrelation: f.binCorrelation ?? null,
+          };
+        }))
           .onConflictDoUpdate({
             target: intervalFits.intervalId,
-            set: { modes: sql`excluded.modes`, background: sql`excluded.background`, misfit: sql`excluded.misfit` },
+            set: {
+              modes: sql`excluded.modes`, background: sql`excluded.background`, misfit: sql`excluded.misfit`,
+              band: sql`excluded.band`, averages: sql`excluded.averages`, binCorrelation: sql`excluded.bin_correlation`,
+            },
           });
       }
       if (withoutFit.length) {
@@ -155,7 +180,7 @@ export async function listIntervals(f: IntervalFilter): Promise<IntervalSummary[
     id: i.id, stationId: i.stationId, stationCode: code, component: i.component, startsAt: i.startsAt,
     durationS: i.durationS, origin: i.origin, uploadId: i.uploadId, rejectedShare: i.rejectedShare,
     qualityFlags: i.qualityFlags, flagReason: i.flagReason, flaggedBy: i.flaggedBy, flaggedAt: i.flaggedAt,
-    fit: fit ? { modes: fit.modes, background: fit.background, misfit: fit.misfit } : null,
+    fit: fit ? fitOf(fit) : null,
   }));
 }
 

@@ -122,11 +122,19 @@ export type StoredMode = {
   errors: { frequency: number; amplitude: number; halfWidth: number };
 };
 
+/**
+ * An interval's mode fit. `band` (the fitted band), `averages` (equivalent independent averages behind each
+ * bin) and `binCorrelation` (correlation of neighbouring bins' power) say how the fit was made and what its
+ * errors assume; fits stored before they were recorded have them null.
+ */
 export const intervalFits = pgTable('interval_fits', {
   intervalId: uuid('interval_id').primaryKey().references(() => intervals.id, { onDelete: 'cascade' }),
   modes: jsonb('modes').$type<StoredMode[]>().notNull(),
   background: jsonb('background').$type<{ b0: number; b1: number }>().notNull(),
   misfit: doublePrecision('misfit').notNull(),
+  band: jsonb('band').$type<{ minHz: number; maxHz: number }>(),
+  averages: doublePrecision('averages'),
+  binCorrelation: doublePrecision('bin_correlation').array(),
 });
 
 export const pushTokens = pgTable('push_tokens', {

@@ -1,9 +1,12 @@
 /**
  * `cli fit <spectrum.json> [--modes N]`: Lorentzian mode fit
  * P(f) = sum A_n / (1 + ((f - f_n)/g_n)^2) + b0 + b1 f of a power spectrum,
- * modes sorted by frequency with errors from the fit covariance. Optional
- * input fields: `averages` (Welch segments behind each bin: absolute errors),
- * `minHz`, `maxHz` (fitted band).
+ * modes sorted by frequency, with errors propagated from the bins' scatter
+ * through the fit (modes/fit-errors.ts). Optional input fields: `averages`
+ * (equivalent independent averages behind each bin, for overlapping Welch
+ * segments fewer than the segments: absolute errors, bins taken as
+ * independent; without it the scatter is estimated from the misfit),
+ * `minHz`, `maxHz` (fitted band). The output names the band and the averages used.
  */
 import { parseSpectrumJson } from '@/src/engine/formats/pipeline-json';
 import { fitModes, ModeFitError } from '@/src/engine/modes/fit-modes';
@@ -25,7 +28,7 @@ const fit: Verb = async (args) => {
   const s = await readPipelineJson(positional[0], 'spectrum', parseSpectrumJson);
   try {
     const r = fitModes(s.frequencies, s.power, { modes, averages: s.averages, minHz: s.minHz, maxHz: s.maxHz });
-    return { modes: r.modes, background: r.background, misfit: r.misfit, dof: r.dof, band: r.band, converged: r.converged, flags: r.flags };
+    return { modes: r.modes, background: r.background, misfit: r.misfit, dof: r.dof, band: r.band, averages: r.averages ?? null, converged: r.converged, flags: r.flags };
   } catch (e) {
     if (e instanceof ModeFitError || e instanceof ModeFitOptionError) throw new CliError(`${positional[0]}: ${e.message}`);
     throw e;

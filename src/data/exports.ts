@@ -1,7 +1,9 @@
 /**
  * Interval and fit exports: CSV (one row per interval, mode columns side by
  * side) and JSON (the summaries as they are). Power units are SI:
- * (V/m)^2/Hz for Ez, T^2/Hz for Bns and Bew.
+ * (V/m)^2/Hz for Ez, T^2/Hz for Bns and Bew. Each fit comes with its band
+ * and the equivalent number of averages its errors assume (empty for fits
+ * stored before these were recorded).
  */
 import type { IntervalSummary } from '@/db/repo/intervals';
 
@@ -12,7 +14,7 @@ function cell(v: unknown): string {
 }
 
 const BASE = ['station', 'component', 'starts_at_utc', 'duration_s', 'origin', 'rejected_share',
-  'quality_flags', 'flag_reason', 'fit_misfit', 'background_b0', 'background_b1'];
+  'quality_flags', 'flag_reason', 'fit_misfit', 'background_b0', 'background_b1', 'fit_min_hz', 'fit_max_hz', 'fit_averages'];
 const MODE = ['frequency_hz', 'frequency_err_hz', 'half_width_hz', 'half_width_err_hz', 'q', 'amplitude', 'amplitude_err'];
 
 /** CSV text; the header names as many mode column groups as the most modes fitted. */
@@ -23,7 +25,8 @@ export function intervalsToCsv(rows: IntervalSummary[]): string {
   const lines = [header.join(',')];
   for (const r of rows) {
     const out: unknown[] = [r.stationCode, r.component, r.startsAt, r.durationS, r.origin, r.rejectedShare,
-      r.qualityFlags.join(' '), r.flagReason, r.fit?.misfit, r.fit?.background.b0, r.fit?.background.b1];
+      r.qualityFlags.join(' '), r.flagReason, r.fit?.misfit, r.fit?.background.b0, r.fit?.background.b1,
+      r.fit?.band?.minHz, r.fit?.band?.maxHz, r.fit?.averages];
     for (let n = 0; n < nModes; n++) {
       const m = r.fit?.modes[n];
       out.push(m?.frequency, m?.errors.frequency, m?.halfWidth, m?.errors.halfWidth, m?.q, m?.amplitude, m?.errors.amplitude);

@@ -9,10 +9,12 @@ import { processInterval } from '@/src/engine/pipeline/process-interval';
 import type { ProcessingConfig } from '@/src/engine/pipeline/types';
 import { calibrateSpectrum, type Calibration } from '@/src/engine/signal/calibration';
 import { fitModes, ModeFitError } from '@/src/engine/modes/fit-modes';
+import { hannWelchScatter } from '@/src/engine/modes/bin-scatter';
+import type { ModeFit } from '@/src/engine/modes/types';
 import { ModeFitOptionError } from '@/src/engine/modes/options';
 import { SIGNAL_INTERVAL_SECONDS, SIGNAL_SEGMENT_SECONDS, SPECTRUM_BAND_MAX_HZ, MODE_FREQUENCY_WINDOW_HZ } from '@/src/engine/tolerances';
 import { MIN_MODES, USUAL_MODE_FREQUENCIES_HZ } from '@/src/engine/modes/usual-modes';
-import type { IntervalResultInput } from '@/db/repo/intervals';
+import type { IntervalFit, IntervalResultInput } from '@/db/repo/intervals';
 import type { ComponentName, Station } from '@/db/repo/stations';
 
 export const INTERVAL_SECONDS = SIGNAL_INTERVAL_SECONDS;
@@ -67,6 +69,15 @@ export function processingConfigFor(station: Station, component: ComponentName, 
 
 export type ProcessedRow = Omit<IntervalResultInput, 'uploadId' | 'origin'>;
 
+/** What is stored of a mode fit: the modes, background and misfit, with the band and the scatter its errors assume. */
+export function storedFit(f: ModeFit): IntervalFit {
+  return {
+    modes: f.modes, background: f.background, misfit: f.misfit, band: { ...f.band },
+    ...(f.averages !== undefined ? { averages: f.averages } : {}),
+    ...(f.binCorrelation ? { binCorrelation: [...f.binCorrelation] } : {}),
+  };
+}
+
 export function processRawInterval(station: Station, raw: RawInterval): ProcessedRow {
   const base = {
     networkId: station.networkId, stationId: station.id, component: raw.component,
@@ -77,22 +88,24 @@ export function processRawInterval(station: Station, raw: RawInterval): Processe
     return {
       ...base, rejectedShare: r.rejectedShare, qualityFlags: r.flags,
       spectrum: r.spectrum ? { ...r.spectrum, segments: r.segments } : { frequencies: [], power: [], segments: 0 },
-      fit: r.fit ? { modes: r.fit.modes, background: r.fit.background, misfit: r.fit.misfit } : null,
+      fit: r.fit ? storedFit(r.fit) : null,
     };
   }
   const power = raw.siFactor !== undefined
     ? Array.from(raw.power, (p) => p * raw.siFactor!)
     : Array.from(calibrateSpectrum(raw.frequencies, raw.power, calibrationOf(station, raw.component)).power);
   const frequencies = Array.from(raw.frequencies);
-  // A file's spectrum carries no segment count: assume the usual 10-s Hann segments with 50 % overlap.
+  // A file's spectrum carries no segment count: assume the usual 10-s Hann segments with 50 % overlap
+  // (their equivalent averages and correlated neighbouring bins, as for the pipeline's own spectra).
   const segments = Math.max(1, Math.floor((2 * raw.durationS) / SIGNAL_SEGMENT_SECONDS) - 1);
+  const scatter = hannWelchScatter(segments);
   const flags: string[] = [];
   let fit = null;
   const modes = modeCountBelow(frequencies[frequencies.length - 1] ?? 0);
   if (modes === 0) flags.push('fit-failed');
   else try {
-    const f = fitModes(frequencies, power, { modes, averages: segments });
-    fit = { modes: f.modes, background: f.background, misfit: f.misfit };
+    const f = fitModes(frequencies, power, { modes, averages: scatter.averages, binCorrelation: scatter.lagCorrelation });
+    fit = storedFit(f);
     flags.push(...f.flags);
   } catch (e) {
     if (!(e instanceof ModeFitError) && !(e instanceof ModeFitOptionError)) throw e;

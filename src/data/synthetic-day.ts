@@ -13,6 +13,7 @@ import type { Band } from '@/src/engine/band';
 import { gaussian, mulberry32 } from '@/src/engine/random';
 import type { Component } from '@/src/engine/components';
 import type { IntervalFit } from '@/db/repo/intervals';
+import { storedFit } from './interval-processing';
 
 export interface SyntheticStation { id: string; code: string; lat: number; lon: number; components: Component[] }
 
@@ -70,7 +71,7 @@ export function syntheticDay(stations: SyntheticStation[], dayStartMs: number, s
         let flags: string[] = [];
         try {
           const f = fitModes(freqs, power, { modes: 3, minHz: 4, maxHz: 24, averages: DEMO_SEGMENTS });
-          fit = { modes: f.modes, background: f.background, misfit: f.misfit };
+          fit = storedFit(f);
           flags = [...f.flags];
         } catch {
           flags = ['fit-failed'];

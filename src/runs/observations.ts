@@ -7,7 +7,7 @@
  * relative per bin (Welch 1967, IEEE Trans. Audio Electroacoust. 15, 70;
  * common practice), so sigmaLog = 1/sqrt(K).
  */
-import { getIntervalSpectra, listIntervals, type IntervalSpectrum } from '@/db/repo/intervals';
+import { getIntervalSpectra, listIntervals, type IntervalFit, type IntervalSpectrum } from '@/db/repo/intervals';
 import { listStations } from '@/db/repo/stations';
 import { listedLines, mainsLines } from '@/src/engine/signal/line-suppression';
 import type { RunConfig } from './config';
@@ -86,8 +86,8 @@ export async function loadSpectrumObservationsOf(networkId: string, config: RunC
  * Observations from stored mode fits: frequency, peak power (amplitude plus
  * background at the mode frequency) and half-width of the first `modes`
  * modes, with errors propagated from the stored spectrum through the same fit
- * (or, without a spectrum, the fit's own standard errors: sigma of ln peak =
- * error of the amplitude / peak, by the delta method).
+ * over the stored fit's band (or, without a spectrum, the fit's own errors:
+ * sigma of ln peak = error of the amplitude / peak, by the delta method).
  */
 export async function loadModeObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedModes[]> {
   const o = config.observables;
@@ -115,25 +115,30 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
         sigmaFrequency: e.frequency, sigmaLogIntensity: e.amplitude / peak, sigmaHalfWidth: e.halfWidth,
       }];
     });
-    // The predicted modes go through the same fit: as many modes, over the pipeline's default band, less the same lines.
+    // The predicted modes go through the same fit: as many modes, over the stored fit's band (older fits:
+    // the pipeline's default band, which they used), less the same lines.
     if (!modes.length) continue;
-    const om: ObservedModes = { station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length, excludeLines: lines.get(r.stationCode) ?? [] } };
+    const band = r.fit.band ? { minHz: r.fit.band.minHz, maxHz: r.fit.band.maxHz } : {};
+    const om: ObservedModes = { station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length, ...band, excludeLines: lines.get(r.stationCode) ?? [] } };
     const sp = spectra.get(r.id);
-    out.push(sp ? withPropagatedErrors(om, sp) : om);
+    out.push(sp ? withPropagatedErrors(om, sp, r.fit) : om);
   }
   return out;
 }
 
 /**
- * The stored fit's errors come from its covariance (J^T W J)^-1, which understates the scatter of fitted modes
- * when the spectrum is not exactly Lorentzian; where the interval's spectrum is stored, its bin scatter (the
- * pipeline's own: 1/sqrt(K_eff) with K_eff = K / (1 + 2 rho^2), times the Hann bin-correlation inflation) is
- * propagated through the same fit instead (observed-modes.ts). Modes the fit holds on a bound keep the stored errors.
+ * Where the interval's spectrum is stored, its bins' scatter is propagated through the same fit to the
+ * observables, ln peak among them (observed-modes.ts; the stored errors cover frequency, amplitude and
+ * half-width but not the peak's correlation with the background, and fits stored before the errors were
+ * propagated came from the covariance (J^T W J)^-1, which understates them). The scatter is the one the
+ * stored fit assumed (its averages and bin correlation), else the pipeline's Welch of the stored segment
+ * count. Modes the fit holds on a bound keep the stored errors.
  */
-function withPropagatedErrors(om: ObservedModes, sp: IntervalSpectrum): ObservedModes {
+function withPropagatedErrors(om: ObservedModes, sp: IntervalSpectrum, fit: IntervalFit): ObservedModes {
+  const scatter = fit.averages !== undefined ? { averages: fit.averages, lagCorrelation: fit.binCorrelation } : hannWelchScatter(Math.max(1, sp.segments));
   let prop;
   try {
-    prop = propagatedModeErrors(om, Float64Array.from(sp.frequencies), sp.power, hannWelchScatter(Math.max(1, sp.segments)));
+    prop = propagatedModeErrors(om, Float64Array.from(sp.frequencies), sp.power, scatter);
   } catch (e) {
     if (e instanceof InversionInputError) return om;
     throw e;

@@ -57,6 +57,10 @@ describe('cli fit', () => {
     for (const m of out.modes) expect(m.q).toBeCloseTo(m.frequency / (2 * m.halfWidth), 12);
     expect(Object.keys(out.background)).toEqual(['b0', 'b1']);
     expect(out.misfit).toBeGreaterThan(0);
+    // the band it fitted and no averages (the file gives none: the scatter was estimated from the misfit)
+    expect(out.band.minHz).toBe(3);
+    expect(out.band.maxHz).toBeGreaterThan(fs[3]);
+    expect(out.averages).toBeNull();
   });
 
   it('names bad inputs', () => {

@@ -31,8 +31,9 @@ function parseCsv(text: string): string[][] {
 
 describe('interval exports', () => {
   it('writes one row per interval with a column group per mode', () => {
-    const rows = parseCsv(intervalsToCsv([row(), row({ id: 'i2', fit: null, qualityFlags: ['fit-failed'] })]));
-    expect(rows).toHaveLength(3);
+    const withBand = { ...row().fit!, band: { minHz: 3, maxHz: 36.3 }, averages: 112.7 };
+    const rows = parseCsv(intervalsToCsv([row(), row({ id: 'i2', fit: null, qualityFlags: ['fit-failed'] }), row({ id: 'i3', fit: withBand })]));
+    expect(rows).toHaveLength(4);
     const h = rows[0];
     expect(h.slice(0, 3)).toEqual(['station', 'component', 'starts_at_utc']);
     expect(h.filter((c) => c.endsWith('_frequency_hz'))).toEqual(['mode1_frequency_hz', 'mode2_frequency_hz']);
@@ -43,6 +44,10 @@ describe('interval exports', () => {
     const r2 = Object.fromEntries(h.map((k, i) => [k, rows[2][i]]));
     expect(r2.quality_flags).toBe('fit-failed');
     expect(r2.mode1_frequency_hz).toBe('');
+    // the fitted band and averages where the fit recorded them, empty for older fits
+    expect(r1.fit_min_hz).toBe('');
+    const r3 = Object.fromEntries(h.map((k, i) => [k, rows[3][i]]));
+    expect([r3.fit_min_hz, r3.fit_max_hz, r3.fit_averages]).toEqual(['3', '36.3', '112.7']);
   });
 
   it('quotes reasons with commas, quotes and line breaks so they read back unchanged', () => {

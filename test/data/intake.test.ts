@@ -75,8 +75,17 @@ describe('upload intake and processing', () => {
     expect(await processUpload(u.id)).toBe('done');
     const rows = await listIntervals({ networkId: w.networkId });
     expect(rows.map((r) => r.startsAt.toISOString())).toEqual(['2026-03-14T00:00:00.000Z', '2026-03-14T00:10:00.000Z']);
-    for (const r of rows) {
+    const spectra = await getIntervalSpectra({ networkId: w.networkId });
+    for (const [i, r] of rows.entries()) {
       expect(r.fit).not.toBeNull();
+      // stored with the band fitted and the scatter its errors assume: K_eff = K / (1 + 2 (1 - 1/K) rho^2),
+      // rho = 1/6 for Hann at 50 % overlap (Welch 1967; Harris 1978, Table 1), bins correlated by (2/3)^2 and (1/6)^2
+      const k = spectra[i].segments;
+      expect(r.fit!.band!.minHz).toBe(3);
+      expect(r.fit!.band!.maxHz).toBeGreaterThan(r.fit!.modes.at(-1)!.frequency);
+      expect(r.fit!.band!.maxHz).toBeLessThanOrEqual(spectra[i].frequencies.at(-1)!);
+      expect(r.fit!.averages).toBeCloseTo(k / (1 + (2 * (1 - 1 / k)) / 36), 9);
+      expect(r.fit!.binCorrelation).toEqual([4 / 9, 1 / 36]);
       // the generating Lorentzians are recovered within a few reported standard errors
       for (const [n, m] of TEST_MODES.slice(0, 2).entries()) {
         const got = r.fit!.modes[n];
@@ -118,6 +127,9 @@ describe('upload intake and processing', () => {
     expect(rows[0].power[0] / (lor(3) * 1e-24)).toBeCloseTo(1, 5); // pT^2/Hz to T^2/Hz (file holds 6 digits)
     const fit = (await listIntervals({ networkId: w.networkId, components: ['Bns'] }))[0].fit!;
     expect(Math.abs(fit.modes[0].frequency - 7.8)).toBeLessThan(0.05); // noise-free Lorentzians
+    // a file's spectrum is taken as 119 ten-second Hann segments at 50 % overlap (K_eff as in Welch 1967)
+    expect(fit.averages).toBeCloseTo(119 / (1 + (2 * (118 / 119)) / 36), 9);
+    expect(fit.band!.minHz).toBe(3);
 
     const samples = Array.from({ length: 600 * FS }, (_, i) => Math.sin(i * 0.7) + Math.cos(i * 1.3));
     const json = JSON.stringify({ station: 'TST1', component: 'Ez', startUtc: '2026-03-14T01:00:00Z', sampleRateHz: FS, samples });

@@ -143,6 +143,20 @@ describe('intervals', () => {
     expect(await intervals.listIntervals({ networkId })).toHaveLength(0); // flagged ones left out by default
   });
 
+  it('keeps a fit\'s band, averages and bin correlation, and loads fits stored without them', async () => {
+    const { networkId, station } = await makeWorld();
+    const older = base(networkId, station.id, 40);
+    const recorded = base(networkId, station.id, 50);
+    const settings = { band: { minHz: 3, maxHz: 36.3 }, averages: 112.7, binCorrelation: [4 / 9, 1 / 36] };
+    await intervals.saveIntervals([older, { ...recorded, fit: { ...recorded.fit, ...settings } }]);
+    const [a, b] = await intervals.listIntervals({ networkId });
+    expect(a.fit).toEqual(older.fit); // no band, averages or correlation keys at all
+    expect(b.fit).toEqual({ ...recorded.fit, ...settings });
+    // saving again without them (e.g. reprocessed by other code) leaves none behind
+    await intervals.saveIntervals([{ ...recorded }]);
+    expect((await intervals.listIntervals({ networkId }))[1].fit).toEqual(recorded.fit);
+  });
+
   it('filters by time, component and clean flags and returns spectra arrays', async () => {
     const { networkId, station } = await makeWorld();
     await intervals.saveIntervals([0, 10, 20].map((m) => base(networkId, station.id, m)));

@@ -91,6 +91,7 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
     dof,
     band: { minHz: o.minHz, maxHz: o.maxHz },
     ...(o.averages !== undefined ? { averages: o.averages } : {}),
+    ...(o.binCorrelation?.length ? { binCorrelation: [...o.binCorrelation] } : {}),
     converged,
     flags: [],
   };

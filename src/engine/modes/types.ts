@@ -28,6 +28,8 @@ export interface ModeFit {
   band: { minHz: number; maxHz: number };
   /** Equivalent independent averages behind each bin that the errors assume, when given (absent: estimated from the misfit). */
   averages?: number;
+  /** Correlation of neighbouring bins' power the errors assume, when given (absent: independent bins). */
+  binCorrelation?: number[];
   converged: boolean;
   flags: FitFlag[];
 }

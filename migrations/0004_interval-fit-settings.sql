@@ -1,0 +1,3 @@
+ALTER TABLE "interval_fits" ADD COLUMN "band" jsonb;--> statement-breakpoint
+ALTER TABLE "interval_fits" ADD COLUMN "averages" double precision;--> statement-breakpoint
+ALTER TABLE "interval_fits" ADD COLUMN "bin_correlation" double precision[];
