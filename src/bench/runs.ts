@@ -3,8 +3,10 @@
  *  (a) launching — median wall time of `launchRun` (the service the POST route calls) over a
  *      day of 144 intervals, three stations x three components;
  *  (b) the run page — median of `getRunView` (the page's server data), and, when a production
- *      build exists in .next, the full page load in headless chromium until the map, the
- *      series curves, the correlation matrix and a fitted spectrum are drawn;
+ *      build exists in .next, the full page load in headless chromium until every figure of the
+ *      first view is drawn (map, series curves, correlation matrix, starts, fitted spectrum and
+ *      residuals: all in the server's HTML), and until every figure is live (redrawn by the
+ *      browser at its own width, with hover tips);
  *  (c) storing results — the run driver (`executeRun`, as the worker calls it) over the 144
  *      intervals against the engine alone on the same intervals (data in memory, nothing stored),
  *      alternated over three rounds (the median of the three is noisy on a loaded machine); the
@@ -190,6 +192,41 @@ async function measureView(networkId: string, runId: string): Promise<void> {
   console.log(`(b) getRunView of a finished ${INTERVALS}-interval, three-region run: median ${ms(median(times))} of ${times.length} (${kb.toFixed(0)} KiB as JSON)`);
 }
 
+/** The first view's figures, each drawn (its svg in the document) — see measurePage. */
+const FIGURES = [
+  'svg[aria-label="Regional intensity through the day"]',
+  'svg[aria-label="Correlation matrix of the parameters"]',
+  'svg[aria-label^="Where the "]',
+  'svg[aria-label^="Power at "]',
+  'svg[aria-label="Weighted residuals"]',
+];
+const MAP_TITLE = 'Source regions of the selected minimum';
+
+/**
+ * Installed in the page before its HTML arrives: notes (in the page's own clock, from the start of
+ * navigation) when the first frame with every figure in the document has been painted — the map (its svg's
+ * title) and FIGURES — and when the frame with every Plot figure live has (`data-drawn="client"`, none left from the
+ * server). Timed inside the page, because a check from outside waits for the page's busy main thread.
+ * A string, not a function: the bench's own compiler would wrap inner functions in helpers the page lacks.
+ */
+const WATCH_FIGURES = `(() => {
+  const figures = ${JSON.stringify(FIGURES)};
+  const mapTitle = ${JSON.stringify(MAP_TITLE)};
+  const times = window.figureTimes = {};
+  // The frame after the next: that next frame, the first with the change, has been painted by then.
+  const painted = (done) => requestAnimationFrame(() => requestAnimationFrame(done));
+  const all = () => figures.every((f) => document.querySelector(f))
+    && [...document.querySelectorAll('svg > title')].some((t) => t.textContent === mapTitle);
+  const liveNow = () => document.querySelectorAll('[data-drawn="server"]').length === 0
+    && document.querySelectorAll('[data-drawn="client"]').length >= figures.length;
+  const observer = new MutationObserver(() => {
+    if (times.drawn === undefined && all()) { times.drawn = -1; painted((t) => { times.drawn = t; }); }
+    if (times.live === undefined && liveNow()) { times.live = -1; painted((t) => { times.live = t; }); }
+    if (times.drawn !== undefined && times.live !== undefined) observer.disconnect();
+  });
+  observer.observe(document, { childList: true, subtree: true, attributes: true, attributeFilter: ['data-drawn'] });
+})();`;
+
 async function measurePage(databaseUrl: string, networkId: string, userId: string, runId: string, stop: Array<() => Promise<void> | void>): Promise<void> {
   if (!existsSync(path.join(projectRoot, '.next', 'BUILD_ID'))) {
     console.log('(b) page load: skipped — no production build in .next (build with `npm run build` or `npm start`, then run again)');
@@ -218,28 +255,24 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
   const context = await browser.newContext();
   await context.addCookies([{ name: SESSION_COOKIE, value, url: base }]);
   const url = `${base}/n/${networkId}/runs/${runId}`;
-  const times: number[] = [];
-  const firstFigures: number[] = [];
-  const server: { first: number; last: number; dcl: number }[] = [];
-  const html: number[] = [];
+  const drawn: number[] = [];
+  const live: number[] = [];
+  const server: { first: number; last: number; dcl: number; fcp: number }[] = [];
   let sizes = { html: 0, js: 0, chunks: 0 };
+  await context.addInitScript(WATCH_FIGURES);
   for (let i = 0; i < 6; i++) {
     const page = await context.newPage();
-    const t0 = performance.now();
-    await page.goto(url, { waitUntil: 'domcontentloaded' });
-    html.push(performance.now() - t0);
-    // Each wait is for a drawn figure, not its heading: the map's outline and overlay come in the
-    // HTML; a Plot figure is drawn once its chart code has loaded (Plot's svg carries the title as
-    // aria-label); the fitted spectrum also needs the fits request.
-    await page.locator('svg title', { hasText: 'Source regions of the selected minimum' }).waitFor({ state: 'attached', timeout: 60_000 });
-    await page.locator('svg[aria-label="Regional intensity through the day"]').waitFor({ state: 'attached', timeout: 60_000 });
-    await page.locator('svg[aria-label="Correlation matrix of the parameters"]').waitFor({ state: 'attached', timeout: 60_000 });
-    firstFigures.push(performance.now() - t0);
-    await page.locator('svg[aria-label^="Power at "]').waitFor({ state: 'attached', timeout: 60_000 });
-    times.push(performance.now() - t0);
+    await page.goto(url, { waitUntil: 'commit' });
+    const t = await page.waitForFunction(() => {
+      const f = (window as unknown as { figureTimes?: { drawn?: number; live?: number } }).figureTimes;
+      return f && (f.drawn ?? -1) >= 0 && (f.live ?? -1) >= 0 ? f : null;
+    }, undefined, { timeout: 60_000, polling: 100 }).then((h) => h.jsonValue() as Promise<{ drawn: number; live: number }>);
+    drawn.push(t.drawn);
+    live.push(t.live);
     const nav = await page.evaluate(() => {
       const n = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming;
-      return { first: n.responseStart - n.requestStart, last: n.responseEnd - n.requestStart, dcl: n.domContentLoadedEventEnd - n.requestStart };
+      const fcp = performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? NaN;
+      return { first: n.responseStart - n.requestStart, last: n.responseEnd - n.requestStart, dcl: n.domContentLoadedEventEnd - n.requestStart, fcp: fcp - n.requestStart };
     });
     server.push(nav);
     if (i === 5) {
@@ -251,17 +284,16 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
     }
     await page.close();
   }
-  times.shift(); // the first load warms the server
-  server.shift();
-  firstFigures.shift();
-  html.shift();
-  console.log(`(b) run page, from the request: first byte of HTML (server rendering) median ${ms(median(server.map((x) => x.first)))}, `
-    + `last byte ${ms(median(server.map((x) => x.last)))}, DOMContentLoaded ${ms(median(server.map((x) => x.dcl)))}`);
-  console.log(`(b) run page: server-rendered HTML received and parsed after a median ${ms(median(html))} of ${html.length}`
-    + ` (${(sizes.html / 1024).toFixed(0)} KiB of HTML; ${(sizes.js / 1024).toFixed(0)} KiB of JavaScript in ${sizes.chunks} chunks by the last figure)`);
+  // the first load warms the server
+  for (const xs of [drawn, live, server]) xs.shift();
+  const at = (pick: (x: (typeof server)[number]) => number) => ms(median(server.map(pick)));
+  console.log(`(b) run page, from the request: first byte of HTML (server rendering) median ${at((x) => x.first)}, `
+    + `last byte ${at((x) => x.last)}, first contentful paint ${at((x) => x.fcp)}, DOMContentLoaded ${at((x) => x.dcl)} `
+    + `(${(sizes.html / 1024).toFixed(0)} KiB of HTML; ${(sizes.js / 1024).toFixed(0)} KiB of JavaScript in ${sizes.chunks} chunks)`);
   const note = stale.stale ? ' — note: the build in .next is older than the sources' : '';
-  console.log(`(b) run page in headless chromium until map, series and correlations are drawn: median ${ms(median(firstFigures))} of ${firstFigures.length}${note}`);
-  console.log(`(b) run page until the fitted spectra are drawn too (every figure): median ${ms(median(times))} of ${times.length} (target < 1 s)`);
+  console.log(`(b) run page in headless chromium until every figure is drawn (map, series, correlations, starts, fitted spectrum, residuals): `
+    + `median ${ms(median(drawn))} of ${drawn.length} (target < 1 s)${note}`);
+  console.log(`(b) run page until every figure is live (redrawn by the browser, hover tips): median ${ms(median(live))} of ${live.length}`);
 }
 
 export default async function main(): Promise<void> {

@@ -2,7 +2,8 @@
  * Browser: an analyst describes a cavity model and draws a source grid,
  * launches a run on the stored demo data, watches the progress bar reach the
  * end, and opens the map, minima, fits, correlation matrix and a misfit
- * surface. The demo data are the invented synthetic day of the stations seeder.
+ * surface; opened afresh, the run page's first view comes drawn in the HTML
+ * and every figure then goes live in the browser. The demo data are the invented synthetic day of the stations seeder.
  */
 import { describe, expect, it } from 'vitest';
 import { signInAs, useBrowserApp } from './harness';
@@ -91,6 +92,18 @@ describe('configure a model and a grid, run, and read the results', () => {
     await page.getByText('Research estimate, not a lightning warning').first().waitFor();
 
     step('figures shown');
+    // Opened afresh, the page brings its first view drawn in the HTML (before any script runs); the
+    // browser then redraws every figure live (its own width, hover texts), leaving none of the server's.
+    const html = await (await page.request.get(page.url())).text();
+    for (const name of ['Correlation matrix of the parameters', 'Weighted residuals']) expect(html).toContain(`aria-label="${name}"`);
+    expect(html).toMatch(/aria-label="Power at /);
+    expect(html).toMatch(/aria-label="Where the \d+ starts ended"/);
+    await page.reload();
+    await page.waitForFunction(() => document.querySelectorAll('[data-drawn="server"]').length === 0
+      && document.querySelectorAll('[data-drawn="client"]').length >= 4, undefined, { timeout: 60_000 });
+    expect(await page.locator('svg[aria-label^="Power at "] title').count()).toBeGreaterThan(0); // hover texts are back
+
+    step('first view drawn by the server, then live');
     // A misfit surface over the first two parameters, computed by the worker.
     await page.getByRole('button', { name: 'Map the misfit' }).click();
     await page.getByText(/^Misfit over /).waitFor({ timeout: 180_000 });

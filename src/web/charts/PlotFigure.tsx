@@ -13,10 +13,17 @@
  *     marks: [Plot.line(points, { x: 'f', y: 'p', stroke: 'var(--c-accent)' })], y: { type: 'log' },
  *   }), [points]);
  *   <PlotFigure title="Spectrum, 06:20 UTC" xLabel="Frequency (Hz)" yLabel="PSD (pT^2/Hz)" options={options} />
+ *
+ * A figure the server has already drawn (`renderFigureSvg` of the same
+ * `FigureSpec`) comes as `prerendered` markup: it shows from the first byte of
+ * HTML and is replaced by the browser's own drawing (real width, hover tips)
+ * once the chart code is here. A later change of options clears it at once,
+ * so a stale drawing never stands for a new selection.
  */
-import { useEffect, useRef } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type * as Plot from '@observablehq/plot';
 import { loadPlot, type PlotModule } from './plot-module';
+import { plotOptions } from './figure-spec';
 
 // A page with figures starts fetching the chart code while it hydrates, not after.
 if (typeof window !== 'undefined') loadPlot().catch(() => {});
@@ -36,15 +43,21 @@ export interface PlotFigureProps {
   /** Width in px; by default the figure fills its container. */
   width?: number;
   className?: string;
+  /** The server's drawing of these options (SVG markup), shown until the browser draws. */
+  prerendered?: string | null;
 }
 
-export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 280, width, className }: PlotFigureProps) {
+export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 280, width, className, prerendered }: PlotFigureProps) {
   const ref = useRef<HTMLDivElement>(null);
   const lastBoxWidth = useRef<number | null>(null);
+  // Markup fixed at mount: React never rewrites it; the effect below replaces it with the live drawing.
+  const [serverMarkup] = useState(() => (prerendered ? { __html: prerendered } : undefined));
+  const effects = useRef(0);
 
   useEffect(() => {
     const host = ref.current;
     if (!host) return;
+    if (effects.current++ > 0 && host.dataset.drawn !== 'client') host.replaceChildren(); // the server's drawing is of older options
     let drawnWidth = -1;
     let lib: PlotModule | null = null;
     let built: Plot.PlotOptions | null = null;
@@ -60,17 +73,9 @@ export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 2
       drawnWidth = w;
       const options = built;
       const t0 = performance.now();
-      const fig = lib.plot({
-        style: { background: 'transparent', color: 'currentColor', fontFamily: 'var(--font-sans)', fontSize: '11px', overflow: 'visible' },
-        marginLeft: 56,
-        height,
-        width: w,
-        ...options,
-        x: { ...(options.x ?? {}), label: xLabel },
-        y: { grid: true, ...(options.y ?? {}), label: yLabel },
-        ariaLabel: title,
-      });
+      const fig = lib.plot(plotOptions(options, { title, xLabel, yLabel, height, width: w }));
       host.replaceChildren(fig);
+      host.dataset.drawn = 'client'; // read by the page benchmark (figures live, tips on hover)
       performance.measure(`figure: ${title}`, { start: t0, end: performance.now() }); // read by the page benchmark
     };
     loadPlot().then((mod) => {
@@ -102,7 +107,8 @@ export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 2
   return (
     <figure className={className}>
       <figcaption className="mb-1 text-sm font-semibold">{title}</figcaption>
-      <div ref={ref} className="w-full text-fg" style={{ minHeight: height }} />
+      <div ref={ref} className="w-full text-fg" style={{ minHeight: height }} dangerouslySetInnerHTML={serverMarkup}
+        data-drawn={serverMarkup ? 'server' : undefined} />
       {caption ? <p className="mt-1 text-xs text-muted">{caption}</p> : null}
     </figure>
   );

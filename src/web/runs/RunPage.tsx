@@ -5,8 +5,14 @@
  * minimum — map, minima table, fits, correlation matrix, misfit surface,
  * multi-start picture — and for interval series the daily curves.
  * Selecting a minimum updates every view.
+ *
+ * The view it opens on (last solved interval, best minimum, first fitted
+ * series) comes drawn from the server (`first`: figures as SVG markup and the
+ * fits as SWR fallback), so it needs no fetch and no chart code to be seen;
+ * each figure is redrawn live in the browser once the chart code is here.
  */
 import { useMemo, useState, type ReactNode } from 'react';
+import { SWRConfig } from 'swr';
 import { useRouter } from 'next/navigation';
 import dynamic from 'next/dynamic';
 // Straight from each module, not the ui index: the index also brings the table and tab code.
@@ -23,6 +29,11 @@ import { SurfacePanel } from './SurfacePanel';
 import { StartsPicture } from './StartsPicture';
 import { SeriesCurves } from './SeriesCurves';
 import { runApi, type RunJson } from './types';
+import type { FirstFigures } from './figures/prerender';
+import type { RunFits } from '@/src/runs/fits';
+
+/** What the server drew and computed for the first view. */
+export interface FirstView { figures: FirstFigures; fits: { url: string; data: RunFits } | null }
 
 /** Fits of a mode-parameter run: its own chunk, fetched only on a mode run's page. */
 const ModeFitsPanel = dynamic(() => import('./ModeFitsPanel').then((m) => m.ModeFitsPanel), {
@@ -39,11 +50,18 @@ function Download({ href, children }: { href: string; children: ReactNode }) {
   return <a href={href} download className={buttonClass('secondary', 'md', 'no-underline')}>{children}</a>;
 }
 
-export function RunPage({ networkId, initial, map, canCancel, canLaunch, canDelete }: {
+export function RunPage({ first, ...props }: RunPageProps & { first?: FirstView | null }) {
+  const fallback = useMemo(() => (first?.fits ? { [first.fits.url]: first.fits.data } : {}), [first]);
+  return <SWRConfig value={{ fallback }}><RunPageBody {...props} first={first ?? null} /></SWRConfig>;
+}
+
+interface RunPageProps {
   networkId: string; initial: RunJson; canCancel: boolean; canLaunch: boolean; canDelete: boolean;
   /** The server-drawn map frame (`RunMapFrame`) the selected minimum is drawn into. */
   map: ReactNode;
-}) {
+}
+
+function RunPageBody({ networkId, initial, map, canCancel, canLaunch, canDelete, first }: RunPageProps & { first: FirstView | null }) {
   const router = useRouter();
   const base = runApi(networkId, initial.run.id);
   // Poll while the run is queued or running (a fixed interval switched by the last answer:
@@ -73,6 +91,9 @@ export function RunPage({ networkId, initial, map, canCancel, canLaunch, canDele
     if (view.intervals.find((i) => i.startsAt === startsAt)?.brief) void mutate();
   }
   const [actionError, setActionError] = useState<string | null>(null);
+  // The server's drawings stand only for the selection they were drawn for.
+  const opening = useMemo(() => initial.intervals.filter((i) => i.result && i.result.minima.length).at(-1)?.startsAt ?? null, [initial]);
+  const drawn = first && interval?.startsAt === opening && minimum === 0 ? first.figures : null;
   const colours = useMemo(() => Object.fromEntries(view.grid.regions.map((r) => [r.name, r.colour])), [view.grid.regions]);
 
   const p = run.progress;
@@ -135,19 +156,19 @@ export function RunPage({ networkId, initial, map, canCancel, canLaunch, canDele
             : 'Observed and predicted spectra at each station and component, with weighted residuals.'}>
             {view.config.observables.kind === 'modes'
               ? <ModeFitsPanel fits={fits.data} error={fits.error} />
-              : <FitsPanel fits={fits.data} error={fits.error} />}
+              : <FitsPanel fits={fits.data} error={fits.error} prerendered={drawn} />}
           </Panel>
           <Panel heading="How sure we are" description="Trade-offs between parameters, the misfit around the minimum, and where the starts ended.">
             <div className="grid gap-6 lg:grid-cols-2">
-              <CorrelationHeatmap minimum={m} />
-              <StartsPicture result={result} selected={minimum} />
+              <CorrelationHeatmap minimum={m} prerendered={drawn?.correlation} />
+              <StartsPicture result={result} selected={minimum} prerendered={drawn?.starts} />
             </div>
             <h3 className="mt-6 mb-2 text-sm font-semibold">Misfit surface</h3>
             <SurfacePanel base={base} interval={interval.startsAt} minimum={minimum} paramNames={result.paramNames} canRequest={canLaunch} />
           </Panel>
           {solved.length > 1 ? (
             <Panel heading="Through the day">
-              <SeriesCurves intervals={view.intervals} colours={colours} />
+              <SeriesCurves intervals={view.intervals} colours={colours} prerendered={view === initial ? first?.figures.series : null} />
             </Panel>
           ) : null}
         </>

@@ -1,33 +1,11 @@
 'use client';
-/** Daily curves: each region's intensity (best minimum per interval) with a ±1σ band, on a UT axis. */
+/** Daily curves of each region's intensity (`seriesFigure`). */
 import { useMemo } from 'react';
-import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
-import type { PlotModule } from '@/src/web/charts/plot-module';
 import type { IntervalView } from '@/src/runs/results';
+import { seriesFigure } from './figures/series';
 
-export function SeriesCurves({ intervals, colours }: { intervals: IntervalView[]; colours: Record<string, string> }) {
-  const options = useMemo(() => {
-    const pts = intervals.flatMap((iv) => {
-      const m = iv.result?.minima[0];
-      if (!m) return [];
-      return m.sources.map((s) => {
-        const e = m.stdErrors[s.name]?.intensity ?? 0;
-        return { t: new Date(iv.startsAt), region: s.name, I: s.intensity, lo: Math.max(1, s.intensity - e), hi: s.intensity + e };
-      });
-    });
-    const names = [...new Set(pts.map((p) => p.region))];
-    return (Plot: PlotModule) => ({
-      y: { type: 'log' },
-      x: { type: 'utc', tickFormat: '%H:%M' },
-      color: { legend: true, domain: names, range: names.map((n) => colours[n] ?? '#0072B2') },
-      marks: [
-        Plot.areaY(pts, { x: 't', y1: 'lo', y2: 'hi', fill: 'region', fillOpacity: 0.2 }),
-        Plot.line(pts, { x: 't', y: 'I', stroke: 'region', strokeWidth: 1.5 }),
-        Plot.dot(pts, { x: 't', y: 'I', fill: 'region', r: 2, title: (d: { region: string; I: number; t: Date }) => `${d.region} ${d.t.toISOString().slice(11, 16)} UT: ${d.I.toPrecision(3)} C² km²/s` }),
-      ],
-    }) as unknown as Plot.PlotOptions;
-  }, [intervals, colours]);
-  return <PlotFigure title="Regional intensity through the day" xLabel="Time (UT)" yLabel="Intensity (C² km²/s)"
-    caption="Best minimum of each interval; the band is ±1 standard error." options={options} height={280} />;
+export function SeriesCurves({ intervals, colours, prerendered }: { intervals: IntervalView[]; colours: Record<string, string>; prerendered?: string | null }) {
+  const spec = useMemo(() => seriesFigure(intervals, colours), [intervals, colours]);
+  return <PlotFigure {...spec} options={spec.build} prerendered={prerendered} />;
 }

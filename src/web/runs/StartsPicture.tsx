@@ -1,102 +1,16 @@
 'use client';
-/**
- * The multi-start picture: one mark per start at its own final misfit,
- * grouped by the minimum it is counted in (x, best first; spread sideways
- * within a group). Starts that reached a minimum are teal circles, starts
- * that stopped without converging are vermillion triangles (shape and colour
- * both differ, so the two read apart without colour vision). Hover a mark for
- * its start number, misfit, iterations and why it stopped. Results stored
- * before each start's own end was kept draw every start at its minimum's
- * misfit and say so.
- */
+/** The multi-start picture (`startsFigure`) with its key of marks. */
 import { useMemo } from 'react';
-import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
-import type { PlotModule } from '@/src/web/charts/plot-module';
-import { CONVERGED_REASONS, type StopReason } from '@/src/engine/optim/types';
+import { REACHED, STOPPED_SHORT, startsFigure } from './figures/starts';
 import type { InversionResult } from './types';
 
-/** Our words for why a start stopped. */
-export const STOP_WORDS: Record<StopReason, string> = {
-  'misfit-change': 'misfit stopped falling',
-  'step-size': 'steps became negligible',
-  gradient: 'gradient vanished',
-  'max-iterations': 'ran out of iterations',
-  'max-evaluations': 'ran out of misfit evaluations',
-  'non-finite': 'misfit not finite',
-  cancelled: 'cancelled',
-};
-
-const REACHED = 'var(--c-accent)';
-const STOPPED_SHORT = '#D55E00'; // Okabe & Ito (2008) vermillion, apart from teal for every colour vision
-
-interface Dot { x: number; misfit: number; start: number; minimum: number; text: string; reached: boolean | null }
-
-/** x of the k-th of `count` starts in a minimum's column: centred, at most 9 side by side. */
-function spread(rank: number, k: number, count: number): number {
-  const across = Math.min(count, 9);
-  return rank + 1 + ((k % 9) - (across - 1) / 2) * 0.07;
-}
-
-function dotsOf(result: InversionResult): { dots: Dot[]; notDrawn: number } {
-  const ends = result.startEnds;
-  const dots: Dot[] = [];
-  let notDrawn = 0;
-  result.minima.forEach((m, rank) => {
-    m.startIndexes.forEach((s, k) => {
-      const at = ends ? ends.index.indexOf(s) : -1;
-      if (!ends || at < 0) {
-        dots.push({ x: spread(rank, k, m.startIndexes.length), misfit: m.misfit, start: s, minimum: rank, reached: null,
-          text: `Start ${s + 1} of ${result.starts}\nminimum #${rank + 1}, misfit ${m.misfit.toPrecision(6)}\n(own misfit not stored)` });
-        return;
-      }
-      const misfit = ends.misfit[at];
-      const reason = ends.stopReason[at];
-      if (misfit === null || !Number.isFinite(misfit)) {
-        notDrawn++;
-        return;
-      }
-      const reached = CONVERGED_REASONS.includes(reason);
-      dots.push({
-        x: spread(rank, k, m.startIndexes.length), misfit, start: s, minimum: rank, reached,
-        text: `Start ${s + 1} of ${result.starts}\nmisfit χ² ${misfit.toPrecision(6)}\n${ends.iterations[at]} iterations\nstopped: ${STOP_WORDS[reason] ?? reason}${reached ? '' : ' (not converged)'}\ncounted in minimum #${rank + 1}`,
-      });
-    });
-  });
-  return { dots, notDrawn };
-}
-
-export function StartsPicture({ result, selected }: { result: InversionResult; selected: number }) {
+export function StartsPicture({ result, selected, prerendered }: { result: InversionResult; selected: number; prerendered?: string | null }) {
   const own = result.startEnds !== undefined;
-  const { dots, notDrawn } = useMemo(() => dotsOf(result), [result]);
-  const options = useMemo(() => {
-    const n = result.minima.length;
-    const logScale = dots.length > 0 && dots.every((d) => d.misfit > 0);
-    return (P: PlotModule) => ({
-      x: { domain: [0.4, n + 0.6], ticks: result.minima.map((_, i) => i + 1), tickFormat: (d: number) => `#${d}` },
-      y: logScale ? { type: 'log', insetTop: 10 } : { nice: true, insetTop: 10 },
-      symbol: { domain: ['reached', 'short', 'unknown'], range: ['circle', 'triangle', 'circle'] },
-      marks: [
-        // the selected minimum's column
-        P.rectX([selected], { x1: (i: number) => i + 0.55, x2: (i: number) => i + 1.45, fill: 'var(--c-accent-soft)' }),
-        P.dot(dots, {
-          x: 'x', y: 'misfit', r: 3.5, strokeWidth: 1.2,
-          symbol: (d: Dot) => (d.reached === null ? 'unknown' : d.reached ? 'reached' : 'short'),
-          fill: (d: Dot) => (d.reached === false ? STOPPED_SHORT : d.reached === null ? 'var(--c-muted)' : REACHED),
-          stroke: 'var(--c-surface)',
-          title: 'text', tip: true,
-        }),
-      ],
-    }) as unknown as Plot.PlotOptions;
-  }, [result, dots, selected]);
-  const short = own ? result.startEnds!.stopReason.filter((r) => !CONVERGED_REASONS.includes(r)).length : result.unconverged;
-  const caption = own
-    ? `Each mark is one start at its own final misfit, in the column of the minimum it is counted in (the selected one shaded). ${short ? `${short} of ${result.starts} starts stopped without converging and are counted with the nearest minimum.` : `All ${result.starts} starts converged.`}${notDrawn ? ` ${notDrawn} ${notDrawn === 1 ? 'start ended without a finite misfit and is' : 'starts ended without a finite misfit and are'} not drawn.` : ''}`
-    : `This result was stored before each start's own misfit was kept: every start is drawn at its minimum's misfit, and which starts converged is not known (${result.unconverged} of ${result.starts} did not).`;
+  const spec = useMemo(() => startsFigure(result, selected), [result, selected]);
   return (
     <div data-testid="starts-picture" data-own-misfits={own ? 'yes' : 'no'}>
-      <PlotFigure title={`Where the ${result.starts} starts ended`} xLabel="Minimum (rank, best first)" yLabel="Final misfit χ² (dimensionless)"
-        caption={caption} options={options} height={240} />
+      <PlotFigure {...spec} options={spec.build} prerendered={prerendered} />
       {own ? (
         <ul className="mt-1 flex flex-wrap gap-4 text-xs text-muted" aria-label="Marks">
           <li className="flex items-center gap-1.5">

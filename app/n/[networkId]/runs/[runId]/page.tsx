@@ -7,6 +7,8 @@ import { AppError } from '@/src/server/errors';
 import { Panel } from '@/src/web/ui/Card';
 import { RunPage } from '@/src/web/runs/RunPage';
 import { fitsUrl, runApi } from '@/src/web/runs/types';
+import { fitsAt } from '@/src/runs/fits';
+import { firstFigures, openingInterval } from '@/src/web/runs/figures/prerender';
 import { SettingsSummary } from '@/src/web/runs/SettingsSummary';
 import { RunMapFrame } from '@/src/web/runs/RunMapFrame';
 
@@ -19,18 +21,21 @@ export default async function RunDetailPage({ params }: { params: Promise<{ netw
     if (e instanceof AppError && e.status === 404) notFound();
     throw e;
   });
-  // The fitted spectra of the interval the page opens on are fetched while the page loads, not after hydration.
-  const open = view.intervals.filter((i) => i.result && i.result.minima.length).at(-1);
-  const early = open && view.config.observables.kind === 'spectrum' ? fitsUrl(runApi(networkId, view.run.id), open.startsAt, 0) : null;
-  const stations = await listStations(networkId);
+  // The view the page opens on comes computed and drawn: its fits and figures are in the HTML.
+  const open = openingInterval(view);
+  const [stations, fits] = await Promise.all([
+    listStations(networkId),
+    // As the fits API answers it (JSON); on failure the browser asks the API, which says why.
+    open ? fitsAt(networkId, view.run.id, open.startsAt, 0).then((f) => JSON.parse(JSON.stringify(f)) as typeof f, () => null) : null,
+  ]);
+  const first = { figures: firstFigures(view, fits), fits: open && fits ? { url: fitsUrl(runApi(networkId, view.run.id), open.startsAt, 0), data: fits } : null };
   const codes = view.config.data.stationIds.map((id) => stations.find((s) => s.id === id)?.code ?? 'removed station');
   return (
     <div className="space-y-6">
-      {early ? <link rel="preload" as="fetch" href={early} crossOrigin="anonymous" /> : null}
       <Panel heading={view.run.name} description="What was asked: the settings this run used, one click from the model and grid versions it pinned.">
         <SettingsSummary view={view} stationCodes={codes} networkId={networkId} />
       </Panel>
-      <RunPage networkId={networkId} initial={JSON.parse(JSON.stringify(firstView(view)))} map={<RunMapFrame />}
+      <RunPage networkId={networkId} first={first} initial={JSON.parse(JSON.stringify(firstView(view)))} map={<RunMapFrame />}
         canCancel={can(membership.role, 'runs.cancel')} canLaunch={can(membership.role, 'runs.launch')} canDelete={can(membership.role, 'runs.delete')} />
     </div>
   );

@@ -1,0 +1,98 @@
+/**
+ * The multi-start picture: one mark per start at its own final misfit,
+ * grouped by the minimum it is counted in (x, best first; spread sideways
+ * within a group). Starts that reached a minimum are teal circles, starts
+ * that stopped without converging are vermillion triangles (shape and colour
+ * both differ, so the two read apart without colour vision). Hover a mark for
+ * its start number, misfit, iterations and why it stopped. Results stored
+ * before each start's own end was kept draw every start at its minimum's
+ * misfit and say so.
+ */
+import type * as Plot from '@observablehq/plot';
+import type { FigureSpec } from '@/src/web/charts/figure-spec';
+import { CONVERGED_REASONS, type StopReason } from '@/src/engine/optim/types';
+import type { InversionResult } from '@/src/engine/inverse/types';
+
+/** Our words for why a start stopped. */
+export const STOP_WORDS: Record<StopReason, string> = {
+  'misfit-change': 'misfit stopped falling',
+  'step-size': 'steps became negligible',
+  gradient: 'gradient vanished',
+  'max-iterations': 'ran out of iterations',
+  'max-evaluations': 'ran out of misfit evaluations',
+  'non-finite': 'misfit not finite',
+  cancelled: 'cancelled',
+};
+
+export const REACHED = 'var(--c-accent)';
+export const STOPPED_SHORT = '#D55E00'; // Okabe & Ito (2008) vermillion, apart from teal for every colour vision
+
+interface Dot { x: number; misfit: number; start: number; minimum: number; text: string; reached: boolean | null }
+
+/** x of the k-th of `count` starts in a minimum's column: centred, at most 9 side by side. */
+function spread(rank: number, k: number, count: number): number {
+  const across = Math.min(count, 9);
+  return rank + 1 + ((k % 9) - (across - 1) / 2) * 0.07;
+}
+
+function dotsOf(result: InversionResult): { dots: Dot[]; notDrawn: number } {
+  const ends = result.startEnds;
+  const dots: Dot[] = [];
+  let notDrawn = 0;
+  result.minima.forEach((m, rank) => {
+    m.startIndexes.forEach((s, k) => {
+      const at = ends ? ends.index.indexOf(s) : -1;
+      if (!ends || at < 0) {
+        dots.push({ x: spread(rank, k, m.startIndexes.length), misfit: m.misfit, start: s, minimum: rank, reached: null,
+          text: `Start ${s + 1} of ${result.starts}\nminimum #${rank + 1}, misfit ${m.misfit.toPrecision(6)}\n(own misfit not stored)` });
+        return;
+      }
+      const misfit = ends.misfit[at];
+      const reason = ends.stopReason[at];
+      if (misfit === null || !Number.isFinite(misfit)) {
+        notDrawn++;
+        return;
+      }
+      const reached = CONVERGED_REASONS.includes(reason);
+      dots.push({
+        x: spread(rank, k, m.startIndexes.length), misfit, start: s, minimum: rank, reached,
+        text: `Start ${s + 1} of ${result.starts}\nmisfit χ² ${misfit.toPrecision(6)}\n${ends.iterations[at]} iterations\nstopped: ${STOP_WORDS[reason] ?? reason}${reached ? '' : ' (not converged)'}\ncounted in minimum #${rank + 1}`,
+      });
+    });
+  });
+  return { dots, notDrawn };
+}
+
+function captionOf(result: InversionResult, notDrawn: number): string {
+  if (!result.startEnds) {
+    return `This result was stored before each start's own misfit was kept: every start is drawn at its minimum's misfit, and which starts converged is not known (${result.unconverged} of ${result.starts} did not).`;
+  }
+  const short = result.startEnds.stopReason.filter((r) => !CONVERGED_REASONS.includes(r)).length;
+  return `Each mark is one start at its own final misfit, in the column of the minimum it is counted in (the selected one shaded). ${short ? `${short} of ${result.starts} starts stopped without converging and are counted with the nearest minimum.` : `All ${result.starts} starts converged.`}${notDrawn ? ` ${notDrawn} ${notDrawn === 1 ? 'start ended without a finite misfit and is' : 'starts ended without a finite misfit and are'} not drawn.` : ''}`;
+}
+
+export function startsFigure(result: InversionResult, selected: number): FigureSpec {
+  const { dots, notDrawn } = dotsOf(result);
+  const n = result.minima.length;
+  const logScale = dots.length > 0 && dots.every((d) => d.misfit > 0);
+  return {
+    title: `Where the ${result.starts} starts ended`, xLabel: 'Minimum (rank, best first)', yLabel: 'Final misfit χ² (dimensionless)',
+    caption: captionOf(result, notDrawn), height: 240,
+    build: (P) => ({
+      x: { domain: [0.4, n + 0.6], ticks: result.minima.map((_, i) => i + 1), tickFormat: (d: number) => `#${d}` },
+      y: logScale ? { type: 'log', insetTop: 10 } : { nice: true, insetTop: 10 },
+      symbol: { domain: ['reached', 'short', 'unknown'], range: ['circle', 'triangle', 'circle'] },
+      marks: [
+        // the selected minimum's column
+        P.rectX([selected], { x1: (i: number) => i + 0.55, x2: (i: number) => i + 1.45, fill: 'var(--c-accent-soft)' }),
+        P.dot(dots, {
+          x: 'x', y: 'misfit', r: 3.5, strokeWidth: 1.2,
+          symbol: (d: Dot) => (d.reached === null ? 'unknown' : d.reached ? 'reached' : 'short'),
+          fill: (d: Dot) => (d.reached === false ? STOPPED_SHORT : d.reached === null ? 'var(--c-muted)' : REACHED),
+          stroke: 'var(--c-surface)',
+          title: 'text', tip: true,
+        }),
+      ],
+    }) as unknown as Plot.PlotOptions,
+  };
+}
