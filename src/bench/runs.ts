@@ -10,16 +10,32 @@
  *  (c) storing results — the run driver (`executeRun`, as the worker calls it) over the 144
  *      intervals against the engine alone on the same intervals (data in memory, nothing stored),
  *      alternated over three rounds (the median of the three is noisy on a loaded machine); the
- *      driver's time outside the solver calls as a share of the solve time; and the median time of
- *      one result write on its own. The spectra carry the scatter of a 100-segment Welch estimate
- *      (power x Gamma(K, 1/K), K = 100 — common practice), so the solves take as long as on real data.
+ *      driver's time outside the solver calls per interval (ms) and as a share of the solve time;
+ *      and the median time of one result write on its own. The spectra carry the scatter of a
+ *      100-segment Welch estimate (power x Gamma(K, 1/K), K = 100 — common practice), so the solves
+ *      take as long as on real data. Its solves are quick (~5 ms), so it shows the driver's fixed
+ *      cost per interval;
+ *  (c2) storing results on the inverter's own day problem (as `npm run bench -- inverse`): 12
+ *      invented stations x 3 components x 141 bins (5–40 Hz at 0.25 Hz), three moving regions with
+ *      free intensity and centre (9 parameters), 144 intervals x 16 starts, Welch-scattered as in
+ *      (c), seeded in a second network of the same database; the driver against the engine alone
+ *      on the same intervals, alternating as (c) does: both walls, the median extra %, the time
+ *      outside the solver calls per interval, the solver calls' own total on each side with the
+ *      CPU seconds of this process and of the database server, and whether the day stays within
+ *      the inverter's 60 s plus 10 % for storing.
  * Every server, browser and database it starts is stopped at the end, also on error.
  * Run with `npm run bench -- runs`. BENCH_RUN_INTERVALS (default 144) and BENCH_RUN_STARTS
- * (default 16, as the launch form) scale it down or up; BENCH_RUN_PAGE=0 leaves out the browser.
+ * (default 16, as the launch form) scale (a)–(c) down or up; BENCH_RUN_PAGE=0 leaves out the browser.
+ * (c2): BENCH_RUN_DAY_INTERVALS (default 144), BENCH_RUN_DAY_STARTS (default 16) and
+ * BENCH_RUN_DAY_ROUNDS (default 3) scale it; BENCH_RUN_DAY=0 leaves it out. The 60 s check
+ * scales a shortened day to 144 intervals. BENCH_RUN_PROBE=1 adds to each round of (c) and (c2)
+ * the driver without database work during the day (data from memory, one write at the end), to
+ * tell the loads and writes apart from the rest of the driver.
  */
 import { randomUUID } from 'node:crypto';
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { loadavg } from 'node:os';
 import path from 'node:path';
 import { startThrowawayPostgres, freePort, type ThrowawayPg } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
@@ -31,6 +47,7 @@ import { createStation, type Station } from '@/db/repo/stations';
 import { saveIntervals } from '@/db/repo/intervals';
 import { createRun, getRunById, listRunIntervals, saveRunInterval } from '@/db/repo/runs';
 import { predictSpectra } from '@/src/engine/forward/predict';
+import { bandFrequencies } from '@/src/engine/band';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import type { RunConfig } from '@/src/runs/config';
 import { launchRun } from '@/src/runs/launch';
@@ -48,8 +65,16 @@ import { waitForHttp } from '@/src/ops/supervisor';
 import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { launchBrowser } from '@/src/ops/browser';
 
-const INTERVALS = Number(process.env.BENCH_RUN_INTERVALS) > 0 ? Number(process.env.BENCH_RUN_INTERVALS) : 144;
-const STARTS = Number(process.env.BENCH_RUN_STARTS) > 0 ? Number(process.env.BENCH_RUN_STARTS) : 16; // the launch form's default
+const envCount = (name: string, fallback: number) => (Number.isInteger(Number(process.env[name])) && Number(process.env[name]) > 0 ? Number(process.env[name]) : fallback);
+const INTERVALS = envCount('BENCH_RUN_INTERVALS', 144);
+const STARTS = envCount('BENCH_RUN_STARTS', 16); // the launch form's default
+const DAY_INTERVALS = envCount('BENCH_RUN_DAY_INTERVALS', 144);
+const DAY_STARTS = envCount('BENCH_RUN_DAY_STARTS', 16);
+const DAY_ROUNDS = envCount('BENCH_RUN_DAY_ROUNDS', 3);
+/** The inverter's target for a day of 144 intervals x 16 starts (src/bench/inverse.ts), and the share allowed for storing. */
+const DAY_TARGET_S = 60;
+const STORING_SHARE = 0.1;
+const PROBE = process.env.BENCH_RUN_PROBE === '1';
 const CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 const BAND = { minHz: 6, maxHz: 30, stepHz: 0.5 };
 // An invented scenario: three huts and three source regions, not real sites.
@@ -63,7 +88,7 @@ const SOURCES = [{ lat: -2, lon: 24, intensity: 3e4 }, { lat: -5, lon: -50, inte
 const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); const n = s.length; return n % 2 ? s[(n - 1) / 2] : (s[n / 2 - 1] + s[n / 2]) / 2; };
 const ms = (x: number) => `${x.toFixed(x < 10 ? 2 : 0)} ms`;
 
-async function seed() {
+export async function seed() {
   const userId = `bench-${randomUUID()}`;
   await insertUser({ id: userId, email: `${userId}@example.test`, name: 'Bench analyst', passwordHash: 'x' });
   const network = await createNetwork('Bench network', userId);
@@ -123,52 +148,132 @@ async function measureLaunch(networkId: string, userId: string, config: RunConfi
   console.log(`(a) launchRun, ${INTERVALS} intervals x 3 stations x 3 components: median ${ms(median(times))} of ${times.length} (target < 200 ms)`);
 }
 
+/** CPU seconds (user + system) of the database server: the postmaster, its reaped and its live backends. */
+function pgCpuSeconds(): number | null {
+  try {
+    const port = new URL(process.env.DATABASE_URL ?? '').port;
+    const tick = 100; // USER_HZ on Linux
+    const stat = (pid: string) => {
+      const line = readFileSync(`/proc/${pid}/stat`, 'utf8');
+      return line.slice(line.lastIndexOf(')') + 2).split(' ');
+    };
+    const pids = readdirSync('/proc').filter((d) => /^\d+$/.test(d));
+    const master = pids.find((pid) => {
+      try {
+        const argv = readFileSync(`/proc/${pid}/cmdline`, 'utf8').split('\0');
+        return /postgres$/.test(argv[0]) && argv.some((x, i) => x === '-p' && argv[i + 1] === port);
+      } catch { return false; }
+    });
+    if (!master) return null;
+    // fields after the command: state(0) ppid(1) … utime(11) stime(12) cutime(13) cstime(14)
+    const m = stat(master);
+    let ticks = Number(m[11]) + Number(m[12]) + Number(m[13]) + Number(m[14]);
+    for (const pid of pids) {
+      try {
+        const f = stat(pid);
+        if (f[1] === master) ticks += Number(f[11]) + Number(f[12]);
+      } catch { /* ended meanwhile */ }
+    }
+    return ticks / tick;
+  } catch {
+    return null;
+  }
+}
+
+interface Pass { wallMs: number; solveMs: number; cpuS: number; pgCpuS: number | null }
+const cpu = (p: Pass) => `${p.cpuS.toFixed(1)} s CPU here, ${p.pgCpuS === null ? '?' : p.pgCpuS.toFixed(1)} s in the database server`;
+
 /**
- * Runs the whole day through the worker's driver and splits its wall time into solving and the
- * rest; then, round by round, compares it with the engine alone on the same intervals (data in
- * memory, nothing stored), alternating the two so that the load of a shared machine falls on both.
+ * The day through the worker's driver against the engine alone on the same intervals (data in
+ * memory, nothing stored), round by round, alternating the two so that the load of a shared
+ * machine falls on both. Each pass records its wall time, the time inside the solver calls, and the
+ * CPU seconds of this process (all its threads) and of the database server.
  */
-async function solveAndStore(networkId: string, userId: string, config: RunConfig): Promise<string> {
+async function driverAgainstEngine(tag: string, networkId: string, userId: string, config: RunConfig, rounds: number) {
   const { checkLaunch } = await import('@/src/runs/launch');
   const { preview } = await checkLaunch(networkId, config);
   const newRun = (name: string) => createRun({
     networkId, name, config: config as unknown as Record<string, unknown>, modelId: config.modelId, gridId: config.gridId,
     engineVersion: engineVersion(), intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: userId,
   });
-  const probe = await newRun('Bench engine alone');
+  const probe = await newRun(`${config.name}, engine alone`);
   const ctx = await loadRunContext(probe);
   const cases = await Promise.all(probe.intervalStarts.map(async (startsAt) => ({ startsAt, ...(await loadIntervalObservations(networkId, config, new Date(startsAt))) })));
-  const engineAlone = async () => {
-    const tb = performance.now();
-    for (const c of cases) await engineSolver(ctx, c, { onStart: () => {}, shouldStop: () => false });
-    return performance.now() - tb;
+  const measure = async (body: () => Promise<number>): Promise<Pass> => {
+    const c0 = process.cpuUsage();
+    const p0 = pgCpuSeconds();
+    const t0 = performance.now();
+    const solveMs = await body();
+    const wallMs = performance.now() - t0;
+    const c = process.cpuUsage(c0);
+    const p1 = pgCpuSeconds();
+    return { wallMs, solveMs, cpuS: (c.user + c.system) / 1e6, pgCpuS: p0 === null || p1 === null ? null : p1 - p0 };
   };
+  const engineAlone = () => measure(async () => {
+    let inSolver = 0;
+    for (const c of cases) {
+      const t1 = Date.now(); // as the driver times its solver calls
+      await engineSolver(ctx, c, { onStart: () => {}, shouldStop: () => false });
+      inSolver += Date.now() - t1;
+    }
+    return inSolver;
+  });
   await engineAlone(); // warms the thread pool and the JIT, as a working worker is
-  const extra: number[] = [];
+  const passes: { driver: Pass; alone: Pass }[] = [];
   let run = probe;
-  let wallMs = 0;
-  for (let round = 1; round <= 3; round++) {
+  for (let round = 1; round <= rounds; round++) {
     // The order alternates from round to round, so that a change in load falls on both sides.
     const aloneFirst = round % 2 === 1;
-    let engineMs = aloneFirst ? await engineAlone() : 0;
-    run = await newRun(round === 3 ? config.name : `Bench day, round ${round}`);
-    const t0 = performance.now();
-    const outcome = await executeRun(run.id, { solve: engineSolver, workerId: 'bench' });
-    wallMs = performance.now() - t0;
-    if (!aloneFirst) engineMs = await engineAlone();
+    const first = aloneFirst ? await engineAlone() : null;
+    run = await newRun(round === rounds ? config.name : `${config.name}, round ${round}`);
+    const id = run.id;
+    let outcome = '';
+    const driver = await measure(async () => {
+      outcome = await executeRun(id, { solve: engineSolver, workerId: 'bench' });
+      return 0;
+    });
     if (outcome !== 'finished') throw new Error(`the bench run ended ${outcome}: ${(await getRunById(run.id))?.error ?? ''}`);
-    extra.push((100 * (wallMs - engineMs)) / engineMs);
-    console.log(`(c) round ${round}: the run through the driver ${(wallMs / 1000).toFixed(2)} s, the engine alone ${(engineMs / 1000).toFixed(2)} s`);
+    const rows = await listRunIntervals(run.id);
+    driver.solveMs = 1000 * rows.reduce((a, r) => a + r.seconds, 0);
+    const alone = first ?? await engineAlone();
+    passes.push({ driver, alone });
+    console.log(`${tag} round ${round}: the run through the driver ${(driver.wallMs / 1000).toFixed(2)} s, the engine alone ${(alone.wallMs / 1000).toFixed(2)} s`);
+    if (PROBE) {
+      // The driver with no database work during the day: data from memory, one write at the end.
+      const quiet = await newRun(`${config.name}, quiet ${round}`);
+      const byTime = new Map(cases.map((c) => [new Date(c.startsAt).getTime(), c]));
+      const q = await measure(async () => {
+        await executeRun(quiet.id, { solve: engineSolver, workerId: 'bench', writeEveryMs: 1e9, observe: async (_, t) => byTime.get(t.getTime())! });
+        return 0;
+      });
+      q.solveMs = 1000 * (await listRunIntervals(quiet.id)).reduce((a, r) => a + r.seconds, 0);
+      console.log(`${tag} round ${round} probe: the driver without database work during the day ${(q.wallMs / 1000).toFixed(2)} s, its solver calls ${(q.solveMs / 1000).toFixed(2)} s; `
+        + `solver calls: driver ${(driver.solveMs / 1000).toFixed(2)} s, alone ${(alone.solveMs / 1000).toFixed(2)} s; driver ${cpu(driver)}; alone ${cpu(alone)}; quiet ${cpu(q)}`);
+    }
   }
+  const extra = passes.map((p) => (100 * (p.driver.wallMs - p.alone.wallMs)) / p.alone.wallMs);
+  const rows = await listRunIntervals(run.id);
+  return { runId: run.id, passes, extra, rows, last: passes.at(-1)!.driver };
+}
+
+/** (c): the small problem; its solves are quick, so it shows the driver's fixed cost per interval. */
+async function solveAndStore(networkId: string, userId: string, config: RunConfig): Promise<string> {
+  const { runId, extra, rows, last, passes } = await driverAgainstEngine('(c)', networkId, userId, config, 3);
   console.log(`(c) the run through the driver takes a median ${median(extra).toFixed(2)} % longer than the engine alone `
     + `(rounds: ${extra.map((x) => x.toFixed(1)).join(', ')} %; target <= 10 %)`);
-  const rows = await listRunIntervals(run.id);
-  const solveMs = 1000 * rows.reduce((a, r) => a + r.seconds, 0);
+  const wallMs = last.wallMs;
+  const solveMs = last.solveMs;
   console.log(`(c) last round, ${rows.length} intervals (${config.starts} starts each): ${(solveMs / 1000).toFixed(2)} s in the solver calls, `
     + `${ms(wallMs - solveMs)} for everything else (claiming the run, its model and grid, loading data, writing results, progress) `
-    + `= ${((100 * (wallMs - solveMs)) / solveMs).toFixed(2)} % of solving`);
+    + `= ${((100 * (wallMs - solveMs)) / solveMs).toFixed(2)} % of solving = ${ms((wallMs - solveMs) / rows.length)} per interval (the driver's fixed cost)`);
+  console.log(`(c) the solver calls themselves, median of the rounds: ${(median(passes.map((p) => p.driver.solveMs)) / 1000).toFixed(2)} s in the driver, `
+    + `${(median(passes.map((p) => p.alone.solveMs)) / 1000).toFixed(2)} s alone; last round ${cpu(last)}, alone ${cpu(passes.at(-1)!.alone)}`);
   // One result write on its own: the same rows written again under new interval times (a throwaway run).
-  const copy = await newRun('Bench copy');
+  const { preview } = await (await import('@/src/runs/launch')).checkLaunch(networkId, config);
+  const copy = await createRun({
+    networkId, name: 'Bench copy', config: config as unknown as Record<string, unknown>, modelId: config.modelId, gridId: config.gridId,
+    engineVersion: engineVersion(), intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: userId,
+  });
   const writes: number[] = [];
   for (const r of rows) {
     const t1 = performance.now();
@@ -177,7 +282,91 @@ async function solveAndStore(networkId: string, userId: string, config: RunConfi
   }
   const kb = rows.reduce((a, r) => a + Buffer.byteLength(JSON.stringify(r.result)), 0) / rows.length / 1024;
   console.log(`(c) one interval's result write: median ${ms(median(writes))} (${kb.toFixed(1)} KiB of JSON each) vs median solve ${ms(1000 * median(rows.map((r) => r.seconds)))}`);
-  return run.id;
+  return runId;
+}
+
+const DAY_BAND = { minHz: 5, maxHz: 40, stepHz: 0.25 };
+// An invented layout (the inverter bench's): twelve sites over both hemispheres, not real ones.
+const DAY_SITES = Array.from({ length: 12 }, (_, i) => ({
+  code: `BD${String(i + 1).padStart(2, '0')}`, name: `Bench day site ${i + 1}`, latitude: -55 + ((i * 37) % 110), longitude: -170 + i * 29,
+}));
+const DAY_REGIONS = [
+  { key: 'day-west', name: 'Western cell', colour: '#E69F00', lat: { min: -25, max: 25 }, lon: { min: -90, max: -40 } },
+  { key: 'day-middle', name: 'Middle cell', colour: '#56B4E9', lat: { min: -25, max: 25 }, lon: { min: -10, max: 40 } },
+  { key: 'day-east', name: 'Eastern cell', colour: '#009E73', lat: { min: -25, max: 25 }, lon: { min: 90, max: 150 } },
+];
+/** Three regions drifting slowly over the day (t in [0, 1)), as in the inverter bench. */
+const dayTruth = (t: number) => [
+  { lat: -5 + 6 * t, lon: -62 + 10 * t, intensity: 3e4 * (1 + Math.sin(2 * Math.PI * t)) + 5e3 },
+  { lat: 4 - 5 * t, lon: 18 + 8 * t, intensity: 4e4 * (1 + Math.cos(2 * Math.PI * t)) + 5e3 },
+  { lat: 2 + 4 * t, lon: 118 - 12 * t, intensity: 2e4 * (1.2 + Math.sin(2 * Math.PI * (t + 0.3))) },
+];
+
+/** (c2)'s network: the inverter's day problem as stored spectra, in the same database as (a)–(c). */
+export async function seedDay(userId: string): Promise<{ networkId: string; config: RunConfig }> {
+  const network = await createNetwork('Bench day network', userId);
+  const stations: Station[] = [];
+  for (const s of DAY_SITES) {
+    stations.push(await createStation(network.id, {
+      ...s, elevationM: 200, mainsHz: 50, interferenceLines: [], sampleRateHz: 200, notes: '', status: 'operating',
+      components: (['Ez', 'Bns', 'Bew'] as const).map((component) => ({ component, calibration: { kind: 'gain' as const, gain: 1 } })),
+    }));
+  }
+  const model = await saveModel(network.id, userId, { name: 'Bench day linear', notes: '', config: CAVITY });
+  const grid = await saveGrid(network.id, userId, {
+    name: 'Bench day cells', notes: '', cellSizeDeg: 10,
+    regions: DAY_REGIONS.map((r) => ({
+      key: r.key, name: r.name, colour: r.colour, kind: 'moving' as const, spreadDeg: 0,
+      centre: { lat: (r.lat.min + r.lat.max) / 2, lon: (r.lon.min + r.lon.max) / 2 }, bounds: { lat: r.lat, lon: r.lon },
+    })),
+  });
+  const day = Date.UTC(2031, 6, 3, 0, 0, 0);
+  const starts = Array.from({ length: DAY_INTERVALS }, (_, i) => new Date(day + i * 600_000));
+  const SEGMENTS = 100;
+  const rand = mulberry32(20310703);
+  const sites = stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez', 'Bns', 'Bew'] as const }));
+  for (let i0 = 0; i0 < starts.length; i0 += 12) {
+    await saveIntervals(starts.slice(i0, i0 + 12).flatMap((t, j) => predictSpectra({
+      cavity: CAVITY, band: DAY_BAND, stations: sites, sources: dayTruth((i0 + j) / 144),
+    }).map((sp) => ({
+      networkId: network.id, stationId: stations.find((s) => s.code === sp.station)!.id, component: sp.component,
+      startsAt: t, durationS: 600, origin: 'synthetic' as const, uploadId: null, rejectedShare: 0, qualityFlags: [],
+      spectrum: { frequencies: sp.frequencies, power: sp.power.map((p) => p * gammaDeviate(rand, SEGMENTS) / SEGMENTS), segments: SEGMENTS }, fit: null,
+    }))));
+  }
+  const config: RunConfig = {
+    name: 'Bench inverter day', modelId: model.id, gridId: grid.id,
+    data: { stationIds: stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'], from: starts[0].toISOString(), to: starts.at(-1)!.toISOString(), includeFlagged: false },
+    observables: { kind: 'spectrum', minHz: DAY_BAND.minHz, maxHz: DAY_BAND.maxHz, every: 1 },
+    regions: DAY_REGIONS.map((r) => ({ region: r.key, intensity: { min: 1e3, max: 1e6 }, lat: r.lat, lon: r.lon })),
+    damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
+    starts: DAY_STARTS, seed: 11,
+  };
+  return { networkId: network.id, config };
+}
+
+/** (c2): the inverter's day problem through the driver against the engine alone. */
+async function solveDay(userId: string): Promise<void> {
+  const t0 = performance.now();
+  const { networkId, config } = await seedDay(userId);
+  const nData = 12 * 3 * bandFrequencies(DAY_BAND).length;
+  console.log(`(c2) seeded ${DAY_INTERVALS} intervals x 12 stations x 3 components x ${bandFrequencies(DAY_BAND).length} bins (${nData} data per interval), `
+    + `3 moving regions (9 parameters), ${DAY_STARTS} starts, in ${((performance.now() - t0) / 1000).toFixed(1)} s; load average ${loadavg().map((x) => x.toFixed(1)).join(' ')}`);
+  const { extra, rows, last, passes } = await driverAgainstEngine('(c2)', networkId, userId, config, DAY_ROUNDS);
+  const mid = (pick: (p: { driver: Pass; alone: Pass }) => number) => median(passes.map(pick));
+  console.log(`(c2) the run through the driver ${(mid((p) => p.driver.wallMs) / 1000).toFixed(2)} s, the engine alone ${(mid((p) => p.alone.wallMs) / 1000).toFixed(2)} s (medians of ${passes.length} rounds); `
+    + `the driver takes a median ${median(extra).toFixed(2)} % longer (rounds: ${extra.map((x) => x.toFixed(1)).join(', ')} %; target <= 10 %)`);
+  const outside = passes.map((p) => (p.driver.wallMs - p.driver.solveMs) / rows.length);
+  console.log(`(c2) outside the solver calls: median ${ms(median(outside))} per interval (rounds: ${outside.map((x) => x.toFixed(2)).join(', ')} ms) `
+    + `= ${((100 * median(passes.map((p) => p.driver.wallMs - p.driver.solveMs))) / mid((p) => p.driver.solveMs)).toFixed(2)} % of solving`);
+  console.log(`(c2) the solver calls themselves: ${(mid((p) => p.driver.solveMs) / 1000).toFixed(2)} s in the driver, ${(mid((p) => p.alone.solveMs) / 1000).toFixed(2)} s alone `
+    + `(median ${ms(1000 * median(rows.map((r) => r.seconds)))} per interval); CPU per round: ${passes.map((p) => `driver ${cpu(p.driver)} / alone ${cpu(p.alone)}`).join('; ')}`);
+  const perDay = (x: number) => (x / 1000) * (144 / rows.length);
+  const budget = DAY_TARGET_S * (1 + STORING_SHARE);
+  const dayS = perDay(mid((p) => p.driver.wallMs));
+  console.log(`(c2) the day through the driver${rows.length === 144 ? '' : ` (scaled to 144 intervals from ${rows.length})`}: ${dayS.toFixed(1)} s `
+    + `against ${DAY_TARGET_S} s + ${100 * STORING_SHARE} % = ${budget.toFixed(0)} s: ${dayS <= budget ? 'within' : 'OVER'}; `
+    + `engine alone ${perDay(mid((p) => p.alone.wallMs)).toFixed(1)} s; load average ${loadavg().map((x) => x.toFixed(1)).join(' ')}`);
 }
 
 async function measureView(networkId: string, runId: string): Promise<void> {
@@ -309,6 +498,8 @@ export default async function main(): Promise<void> {
     console.log(`seeded ${INTERVALS} intervals x 3 stations x 3 components of synthetic spectra in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
     await measureLaunch(networkId, userId, config);
     const runId = await solveAndStore(networkId, userId, config);
+    if (process.env.BENCH_RUN_DAY === '0') console.log('(c2) the inverter\'s day through the driver: skipped (BENCH_RUN_DAY=0)');
+    else await solveDay(userId);
     await measureView(networkId, runId);
     if (process.env.BENCH_RUN_PAGE === '0') console.log('(b) page load: skipped (BENCH_RUN_PAGE=0)');
     else await measurePage(pg.url, networkId, userId, runId, stop);
