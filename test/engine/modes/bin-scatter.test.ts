@@ -40,8 +40,10 @@ describe('Welch bin scatter', () => {
     const expected = 1 / hannWelchScatter(119).averages;
     // 18 000 correlated values: the variance estimate scatters by a few per cent.
     expect(Math.abs(variance / expected - 1)).toBeLessThan(0.06);
-    expect(lags[1] / lags[0]).toBeCloseTo(HANN_BIN_POWER_CORRELATION[0], 1);
-    expect(lags[2] / lags[0]).toBeCloseTo(HANN_BIN_POWER_CORRELATION[1], 1);
+    // Hann: |W2(1)/W2(0)|^2 = (2/3)^2, |W2(2)/W2(0)|^2 = (1/6)^2 for w^2 = 3/8 - cos/2 + cos2/8 (our derivation)
+    expect(lags[1] / lags[0]).toBeCloseTo(4 / 9, 1);
+    expect(lags[2] / lags[0]).toBeCloseTo(1 / 36, 1);
+    expect(HANN_BIN_POWER_CORRELATION).toEqual([4 / 9, 1 / 36]);
   });
 
   it('propagates through G as the dense G V G^T does, bins left out of the grid included', () => {
