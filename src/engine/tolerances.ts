@@ -84,6 +84,8 @@ export const TRANSIENT_MIN_RATIO = 2.5;
 export const MAINS_LINE_HALF_WIDTH_HZ = 0.5;
 /** Default half-width (Hz) of the notch around a listed interference line. */
 export const INTERFERENCE_LINE_HALF_WIDTH_HZ = 0.3;
+/** Slack (Hz) at the ends of a stored excluded range when another fit on the same grid leaves out its bins (grids agree far closer; bins are 0.1 Hz apart). */
+export const EXCLUDED_RANGE_SLACK_HZ = 1e-6;
 /** Bins on each side of a notch averaged to anchor the interpolation across it. */
 export const LINE_ANCHOR_BINS = 3;
 /** Flag 'too-much-rejected' when more than this share of an interval's segments was rejected or missing. */

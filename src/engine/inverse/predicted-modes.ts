@@ -5,7 +5,8 @@
  * same usual-frequency windows and bounds, same starting values from
  * initialGuess, same two weighted passes and optimiser settings:
  * two-stage-fit.ts), run on the predicted power of the grid bins in that
- * band less those of interference lines the observed fit left out, each
+ * band less those the observed fit left out (interference lines, or the
+ * ranges stored with the fit), each
  * pass then taken to full precision by a few Newton steps. Each observed
  * mode is matched to the fitted mode of its window (the usual frequency it
  * lies nearest to; the windows do not overlap).
@@ -25,6 +26,7 @@
  * is bounded, so every output is finite for any positive spectrum.
  */
 import { fitSensitivity } from '@/src/engine/modes/fit-sensitivity';
+import { inExcludedRange } from '@/src/engine/modes/excluded-ranges';
 import { initialGuess } from '@/src/engine/modes/initial-guess';
 import { ModeFitOptionError, resolveModeFitOptions } from '@/src/engine/modes/options';
 import { twoStageLorentzianFit, type TwoStageResult } from '@/src/engine/modes/two-stage-fit';
@@ -97,9 +99,11 @@ export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: str
   if (o.minHz < grid[0] - 1e-9 || o.maxHz > top + 1e-9) {
     throw new InversionInputError(`${where}.fit: the fitted band ${o.minHz}–${o.maxHz} Hz reaches outside the model grid ${grid[0]}–${top} Hz`);
   }
-  // Bins the observed fit left out (bridged interference lines), by line suppression's own rule.
+  // Bins the observed fit left out (bridged interference lines): by line suppression's own rule for lines,
+  // the stored runs of left-out bins for ranges.
   const lines = m.fit?.excludeLines ?? [];
-  const left = (f: number) => lines.some((l) => Math.abs(f - l.frequencyHz) <= l.halfWidthHz);
+  const ranges = m.fit?.excludeRanges ?? [];
+  const left = (f: number) => lines.some((l) => Math.abs(f - l.frequencyHz) <= l.halfWidthHz) || inExcludedRange(f, ranges);
   const idx: number[] = [];
   for (let i = 0; i < grid.length; i++) if (grid[i] >= o.minHz && grid[i] <= o.maxHz && !left(grid[i])) idx.push(i);
   const np = paramCount(modes);

@@ -72,9 +72,17 @@ export interface ObservedModes {
   /**
    * The mode fit these came from (modes fitted, band in Hz, default band when absent; lines whose bins it left out,
    * |f - frequencyHz| <= halfWidthHz, as line suppression marks them); the predicted modes go through the same fit.
-   * Absent: the default fit of as many modes as the observed ones reach.
+   * Absent: the default fit of as many modes as the observed ones reach. `excludeRanges`: frequency ranges whose
+   * bins it left out, as stored with the fit (modes/excluded-ranges.ts); bins in either are left out.
+   * `exclusionsAssumed`: the observed fit did not record what it left out, and the lines are an assumption
+   * (the station's mains and listed lines, which the pipeline leaves out of fits of time series).
    */
-  fit?: { modes: number; minHz?: number; maxHz?: number; excludeLines?: { frequencyHz: number; halfWidthHz: number }[] };
+  fit?: {
+    modes: number; minHz?: number; maxHz?: number;
+    excludeLines?: { frequencyHz: number; halfWidthHz: number }[];
+    excludeRanges?: { minHz: number; maxHz: number }[];
+    exclusionsAssumed?: boolean;
+  };
 }
 
 export interface SourceEstimate {

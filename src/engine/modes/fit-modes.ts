@@ -19,6 +19,7 @@ import { CONVERGED_REASONS } from '@/src/engine/optim/types';
 import { OptimInputError } from '@/src/engine/optim/errors';
 import { MODE_FREQUENCY_WINDOW_HZ } from '@/src/engine/tolerances';
 import { propagatedFitCovariance } from './fit-errors';
+import { excludedRanges } from './excluded-ranges';
 import { heldSet } from './fit-hessian';
 import { initialGuess } from './initial-guess';
 import { resolveModeFitOptions, type ModeFitOptions } from './options';
@@ -92,6 +93,7 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
     band: { minHz: o.minHz, maxHz: o.maxHz },
     ...(o.averages !== undefined ? { averages: o.averages } : {}),
     ...(o.binCorrelation?.length ? { binCorrelation: [...o.binCorrelation] } : {}),
+    excluded: excludedRanges(frequencies, o.exclude, o.minHz, o.maxHz),
     converged,
     flags: [],
   };

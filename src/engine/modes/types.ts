@@ -17,6 +17,12 @@ export interface FittedMode {
 /** Quality flags a fit can raise (names shared with the interval flags). */
 export type FitFlag = 'fit-failed' | 'implausible-modes';
 
+/** A frequency range whose bins a fit left out: from the first to the last left-out bin of a run of them, in Hz. */
+export interface ExcludedRange {
+  minHz: number;
+  maxHz: number;
+}
+
 export interface ModeFit {
   modes: FittedMode[];
   background: { b0: number; b1: number };
@@ -30,6 +36,8 @@ export interface ModeFit {
   averages?: number;
   /** Correlation of neighbouring bins' power the errors assume, when given (absent: independent bins). */
   binCorrelation?: number[];
+  /** Runs of bins inside the band that the fit left out (bridged interference lines), in increasing order; empty when none. */
+  excluded: ExcludedRange[];
   converged: boolean;
   flags: FitFlag[];
 }
