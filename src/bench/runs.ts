@@ -21,8 +21,9 @@
  *      (c), seeded in a second network of the same database; the driver against the engine alone
  *      on the same intervals, alternating as (c) does: both walls, the median extra %, the time
  *      outside the solver calls per interval, the solver calls' own total on each side with the
- *      CPU seconds of this process and of the database server, and whether the day stays within
- *      the inverter's 60 s plus 10 % for storing.
+ *      CPU seconds of this process and of the database server (and the driver's extra CPU in %,
+ *      less disturbed than wall time by other work on a shared machine, though not immune), and
+ *      whether the day stays within the inverter's 60 s plus 10 % for storing.
  * Every server, browser and database it starts is stopped at the end, also on error.
  * Run with `npm run bench -- runs`. BENCH_RUN_INTERVALS (default 144) and BENCH_RUN_STARTS
  * (default 16, as the launch form) scale (a)–(c) down or up; BENCH_RUN_PAGE=0 leaves out the browser.
@@ -181,6 +182,15 @@ function pgCpuSeconds(): number | null {
 }
 
 interface Pass { wallMs: number; solveMs: number; cpuS: number; pgCpuS: number | null }
+/**
+ * The driver's extra CPU (this process and the database server) over the engine alone, in % per
+ * round: less disturbed than wall time by other work on a shared machine (not immune: CPU time
+ * grows too when the cores are shared).
+ */
+const cpuExtra = (passes: { driver: Pass; alone: Pass }[]) => passes.map(({ driver: d, alone: a }) => {
+  const total = (p: Pass) => p.cpuS + (p.pgCpuS ?? 0);
+  return (100 * (total(d) - total(a))) / total(a);
+});
 const cpu = (p: Pass) => `${p.cpuS.toFixed(1)} s CPU here, ${p.pgCpuS === null ? '?' : p.pgCpuS.toFixed(1)} s in the database server`;
 
 /**
@@ -266,6 +276,8 @@ async function solveAndStore(networkId: string, userId: string, config: RunConfi
   console.log(`(c) last round, ${rows.length} intervals (${config.starts} starts each): ${(solveMs / 1000).toFixed(2)} s in the solver calls, `
     + `${ms(wallMs - solveMs)} for everything else (claiming the run, its model and grid, loading data, writing results, progress) `
     + `= ${((100 * (wallMs - solveMs)) / solveMs).toFixed(2)} % of solving = ${ms((wallMs - solveMs) / rows.length)} per interval (the driver's fixed cost)`);
+  const cx = cpuExtra(passes);
+  console.log(`(c) CPU (this process and the database server): the driver a median ${median(cx).toFixed(2)} % more than the engine alone (rounds: ${cx.map((x) => x.toFixed(1)).join(', ')} %)`);
   console.log(`(c) the solver calls themselves, median of the rounds: ${(median(passes.map((p) => p.driver.solveMs)) / 1000).toFixed(2)} s in the driver, `
     + `${(median(passes.map((p) => p.alone.solveMs)) / 1000).toFixed(2)} s alone; last round ${cpu(last)}, alone ${cpu(passes.at(-1)!.alone)}`);
   // One result write on its own: the same rows written again under new interval times (a throwaway run).
@@ -356,6 +368,8 @@ async function solveDay(userId: string): Promise<void> {
   const mid = (pick: (p: { driver: Pass; alone: Pass }) => number) => median(passes.map(pick));
   console.log(`(c2) the run through the driver ${(mid((p) => p.driver.wallMs) / 1000).toFixed(2)} s, the engine alone ${(mid((p) => p.alone.wallMs) / 1000).toFixed(2)} s (medians of ${passes.length} rounds); `
     + `the driver takes a median ${median(extra).toFixed(2)} % longer (rounds: ${extra.map((x) => x.toFixed(1)).join(', ')} %; target <= 10 %)`);
+  const cx = cpuExtra(passes);
+  console.log(`(c2) CPU (this process and the database server): the driver a median ${median(cx).toFixed(2)} % more than the engine alone (rounds: ${cx.map((x) => x.toFixed(1)).join(', ')} %)`);
   const outside = passes.map((p) => (p.driver.wallMs - p.driver.solveMs) / rows.length);
   console.log(`(c2) outside the solver calls: median ${ms(median(outside))} per interval (rounds: ${outside.map((x) => x.toFixed(2)).join(', ')} ms) `
     + `= ${((100 * median(passes.map((p) => p.driver.wallMs - p.driver.solveMs))) / mid((p) => p.driver.solveMs)).toFixed(2)} % of solving`);
