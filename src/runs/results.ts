@@ -10,6 +10,7 @@ import { notFound } from '@/src/server/errors';
 import type { InversionResult, Minimum } from '@/src/engine/inverse/types';
 import { runConfigSchema, type RunConfig } from './config';
 import { regionSchema, type Region } from './grid-spec';
+import { openingInterval } from './view-select';
 
 export interface IntervalView {
   startsAt: string;
@@ -73,8 +74,7 @@ const rounded = (x: number) => Number(x.toPrecision(BRIEF_DIGITS));
  * full view when another interval is chosen.
  */
 export function firstView(view: RunView): RunView {
-  const solved = view.intervals.filter((i) => i.result && i.result.minima.length);
-  const open = solved.at(-1)?.startsAt;
+  const open = openingInterval(view.intervals)?.startsAt;
   return {
     ...view,
     intervals: view.intervals.map((iv) => {

@@ -30,6 +30,7 @@ import { StartsPicture } from './StartsPicture';
 import { SeriesCurves } from './SeriesCurves';
 import { runApi, type RunJson } from './types';
 import type { FirstFigures } from './figures/prerender';
+import { openingInterval, regionColours, solvedIntervals } from '@/src/runs/view-select';
 import type { RunFits } from '@/src/runs/fits';
 
 /** What the server drew and computed for the first view. */
@@ -77,7 +78,7 @@ function RunPageBody({ networkId, initial, map, canCancel, canLaunch, canDelete,
   });
   const view = data ?? initial;
   const { run } = view;
-  const solved = view.intervals.filter((i) => i.result && i.result.minima.length);
+  const solved = solvedIntervals(view.intervals);
   const [intervalPick, setIntervalPick] = useState<string | null>(null);
   const interval = solved.find((i) => i.startsAt === intervalPick) ?? solved.at(-1) ?? null;
   const [minimum, setMinimum] = useState(0);
@@ -92,9 +93,9 @@ function RunPageBody({ networkId, initial, map, canCancel, canLaunch, canDelete,
   }
   const [actionError, setActionError] = useState<string | null>(null);
   // The server's drawings stand only for the selection they were drawn for.
-  const opening = useMemo(() => initial.intervals.filter((i) => i.result && i.result.minima.length).at(-1)?.startsAt ?? null, [initial]);
+  const opening = useMemo(() => openingInterval(initial.intervals)?.startsAt ?? null, [initial]);
   const drawn = first && interval?.startsAt === opening && minimum === 0 ? first.figures : null;
-  const colours = useMemo(() => Object.fromEntries(view.grid.regions.map((r) => [r.name, r.colour])), [view.grid.regions]);
+  const colours = useMemo(() => regionColours(view.grid.regions), [view.grid.regions]);
 
   const p = run.progress;
   const fraction = p.intervalsTotal ? (p.intervalsDone + (run.state === 'running' && p.startsTotal ? p.startsDone / p.startsTotal : 0)) / p.intervalsTotal : null;

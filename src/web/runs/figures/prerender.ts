@@ -12,6 +12,7 @@ import { seriesFigure } from './series';
 import { correlationFigure } from './correlation';
 import { startsFigure } from './starts';
 import { fitFigures } from './fits';
+import { regionColours, solvedIntervals } from '@/src/runs/view-select';
 
 /** Markup per figure of the first view; null where the figure is not on it (or the browser must draw it). */
 export interface FirstFigures {
@@ -22,23 +23,14 @@ export interface FirstFigures {
   residual: string | null;
 }
 
-/** The interval the run page opens on: the last one with a solved minimum. */
-export function openingInterval(view: RunView) {
-  return view.intervals.filter((i) => i.result && i.result.minima.length).at(-1) ?? null;
-}
-
-export function regionColours(view: RunView): Record<string, string> {
-  return Object.fromEntries(view.grid.regions.map((r) => [r.name, r.colour]));
-}
-
 export function firstFigures(view: RunView, fits: RunFits | null): FirstFigures {
-  const solved = view.intervals.filter((i) => i.result && i.result.minima.length);
+  const solved = solvedIntervals(view.intervals);
   const open = solved.at(-1);
   const best = open?.result?.minima[0];
   const first = fits?.series[0];
   const fit = first ? fitFigures(first) : null;
   return {
-    series: solved.length > 1 ? renderFigureSvg(seriesFigure(view.intervals, regionColours(view)), SERVER_WIDTH.full) : null,
+    series: solved.length > 1 ? renderFigureSvg(seriesFigure(view.intervals, regionColours(view.grid.regions)), SERVER_WIDTH.full) : null,
     correlation: best ? renderFigureSvg(correlationFigure(best), SERVER_WIDTH.half) : null,
     starts: open?.result && best ? renderFigureSvg(startsFigure(open.result, 0), SERVER_WIDTH.half) : null,
     power: fit ? renderFigureSvg(fit.power, SERVER_WIDTH.full) : null,

@@ -8,7 +8,8 @@ import { Panel } from '@/src/web/ui/Card';
 import { RunPage } from '@/src/web/runs/RunPage';
 import { fitsUrl, runApi } from '@/src/web/runs/types';
 import { fitsAt } from '@/src/runs/fits';
-import { firstFigures, openingInterval } from '@/src/web/runs/figures/prerender';
+import { firstFigures } from '@/src/web/runs/figures/prerender';
+import { openingInterval } from '@/src/runs/view-select';
 import { SettingsSummary } from '@/src/web/runs/SettingsSummary';
 import { RunMapFrame } from '@/src/web/runs/RunMapFrame';
 
@@ -22,7 +23,7 @@ export default async function RunDetailPage({ params }: { params: Promise<{ netw
     throw e;
   });
   // The view the page opens on comes computed and drawn: its fits and figures are in the HTML.
-  const open = openingInterval(view);
+  const open = openingInterval(view.intervals);
   const [stations, fits] = await Promise.all([
     listStations(networkId),
     // As the fits API answers it (JSON); on failure the browser asks the API, which says why.
