@@ -21,15 +21,18 @@ export interface IntervalFit {
   averages?: number;
   /** Correlation of neighbouring bins' power at distance 1, 2, ... that the errors assume (absent: independent, or not recorded). */
   binCorrelation?: number[];
+  /** Frequency ranges whose bins the fit left out, from the first to the last bin of each run ([] when none); absent: not recorded. */
+  excluded?: { minHz: number; maxHz: number }[];
 }
 
 /** The stored row's fit, leaving out what older rows do not have. */
-function fitOf(row: { modes: StoredMode[]; background: { b0: number; b1: number }; misfit: number; band: { minHz: number; maxHz: number } | null; averages: number | null; binCorrelation: number[] | null }): IntervalFit {
+function fitOf(row: { modes: StoredMode[]; background: { b0: number; b1: number }; misfit: number; band: { minHz: number; maxHz: number } | null; averages: number | null; binCorrelation: number[] | null; excluded: { minHz: number; maxHz: number }[] | null }): IntervalFit {
   return {
     modes: row.modes, background: row.background, misfit: row.misfit,
     ...(row.band ? { band: row.band } : {}),
     ...(row.averages !== null ? { averages: row.averages } : {}),
     ...(row.binCorrelation ? { binCorrelation: row.binCorrelation } : {}),
+    ...(row.excluded ? { excluded: row.excluded } : {}),
   };
 }
 
@@ -136,6 +139,7 @@ export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id:
           return {
             intervalId: id, modes: f.modes, background: f.background, misfit: f.misfit,
             band: f.band ?? null, averages: f.averages ?? null, binCorrelation: f.binCorrelation ?? null,
+            excluded: f.excluded ?? null,
           };
         }))
           .onConflictDoUpdate({
@@ -143,6 +147,7 @@ export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id:
             set: {
               modes: sql`excluded.modes`, background: sql`excluded.background`, misfit: sql`excluded.misfit`,
               band: sql`excluded.band`, averages: sql`excluded.averages`, binCorrelation: sql`excluded.bin_correlation`,
+              excluded: sql`excluded.excluded_ranges`,
             },
           });
       }

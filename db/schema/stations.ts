@@ -125,7 +125,8 @@ export type StoredMode = {
 /**
  * An interval's mode fit. `band` (the fitted band), `averages` (equivalent independent averages behind each
  * bin) and `binCorrelation` (correlation of neighbouring bins' power) say how the fit was made and what its
- * errors assume; fits stored before they were recorded have them null.
+ * errors assume; `excluded` the frequency ranges it left out (interference lines). Fits stored before they
+ * were recorded have them null.
  */
 export const intervalFits = pgTable('interval_fits', {
   intervalId: uuid('interval_id').primaryKey().references(() => intervals.id, { onDelete: 'cascade' }),
@@ -135,6 +136,8 @@ export const intervalFits = pgTable('interval_fits', {
   band: jsonb('band').$type<{ minHz: number; maxHz: number }>(),
   averages: doublePrecision('averages'),
   binCorrelation: doublePrecision('bin_correlation').array(),
+  /** Frequency ranges whose bins the fit left out (first to last left-out bin of each run; [] when none); null: not recorded. */
+  excluded: jsonb('excluded_ranges').$type<{ minHz: number; maxHz: number }[]>(),
 });
 
 export const pushTokens = pgTable('push_tokens', {

@@ -69,10 +69,14 @@ export function processingConfigFor(station: Station, component: ComponentName, 
 
 export type ProcessedRow = Omit<IntervalResultInput, 'uploadId' | 'origin'>;
 
-/** What is stored of a mode fit: the modes, background and misfit, with the band and the scatter its errors assume. */
+/**
+ * What is stored of a mode fit: the modes, background and misfit, with the band, the scatter its errors
+ * assume and the frequency ranges it left out (the pipeline's bridged lines; none for spectra files).
+ */
 export function storedFit(f: ModeFit): IntervalFit {
   return {
     modes: f.modes, background: f.background, misfit: f.misfit, band: { ...f.band },
+    excluded: f.excluded.map((r) => ({ minHz: r.minHz, maxHz: r.maxHz })),
     ...(f.averages !== undefined ? { averages: f.averages } : {}),
     ...(f.binCorrelation ? { binCorrelation: [...f.binCorrelation] } : {}),
   };

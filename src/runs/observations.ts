@@ -9,7 +9,7 @@
  */
 import { getIntervalSpectra, listIntervals, type IntervalFit, type IntervalSpectrum } from '@/db/repo/intervals';
 import { listStations } from '@/db/repo/stations';
-import { listedLines, mainsLines } from '@/src/engine/signal/line-suppression';
+import { listedLines, mainsLines, type SpectralLine } from '@/src/engine/signal/line-suppression';
 import type { RunConfig } from './config';
 import type { ObservedModes } from '@/src/engine/inverse/types';
 import { SPECTRUM_BAND_MAX_HZ, SPECTRUM_BAND_MIN_HZ } from '@/src/engine/tolerances';
@@ -98,7 +98,8 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
   };
   const rows = await listIntervals(filter);
   const spectra = new Map((await getIntervalSpectra(filter)).map((sp) => [sp.intervalId, sp]));
-  // The bins the pipeline's fit left out: the mains line, its harmonics and the station's interference lines.
+  // For fits that did not record what they left out: the bins the pipeline's fit of time series leaves out,
+  // the mains line, its harmonics and the station's interference lines (as the station is set up now).
   const lines = new Map((await listStations(networkId)).map((s) => [s.code, [...mainsLines(s.mainsHz, SPECTRUM_BAND_MAX_HZ), ...listedLines(s.interferenceLines)]]));
   const out: ObservedModes[] = [];
   for (const r of rows) {
@@ -116,14 +117,29 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
       }];
     });
     // The predicted modes go through the same fit: as many modes, over the stored fit's band (older fits:
-    // the pipeline's default band, which they used), less the same lines.
+    // the pipeline's default band, which they used), less the bins it left out (older fits: assumed).
     if (!modes.length) continue;
     const band = r.fit.band ? { minHz: r.fit.band.minHz, maxHz: r.fit.band.maxHz } : {};
-    const om: ObservedModes = { station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length, ...band, excludeLines: lines.get(r.stationCode) ?? [] } };
+    const om: ObservedModes = { station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length, ...band, ...fitExclusions(r.fit, lines.get(r.stationCode) ?? []) } };
     const sp = spectra.get(r.id);
     out.push(sp ? withPropagatedErrors(om, sp, r.fit) : om);
   }
   return out;
+}
+
+/**
+ * What the predicted fit leaves out: exactly the ranges the stored fit recorded (none for fits of spectra
+ * files); for fits stored before exclusions were recorded, the station's mains and listed lines, marked
+ * as assumed.
+ */
+export function fitExclusions(fit: IntervalFit, stationLines: SpectralLine[]): Pick<NonNullable<ObservedModes['fit']>, 'excludeLines' | 'excludeRanges' | 'exclusionsAssumed'> {
+  if (fit.excluded) return { excludeRanges: fit.excluded.map((x) => ({ minHz: x.minHz, maxHz: x.maxHz })) };
+  return { excludeLines: stationLines, exclusionsAssumed: true };
+}
+
+/** How many of these observed fits had their exclusions assumed rather than recorded (for a run's log). */
+export function assumedExclusionCount(modes: readonly ObservedModes[]): number {
+  return modes.filter((m) => m.fit?.exclusionsAssumed).length;
 }
 
 /**

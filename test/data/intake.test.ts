@@ -12,6 +12,7 @@ import { getIntervalSpectra, listIntervals } from '@/db/repo/intervals';
 import { updateStation } from '@/db/repo/stations';
 import { receiveUpload, retryUpload } from '@/src/data/intake';
 import { processUpload } from '@/src/data/process-upload';
+import { inExcludedRange } from '@/src/engine/modes/excluded-ranges';
 import { makeWorld, stationInput } from './world';
 import { bodyOf, seriesCsv, TEST_MODES, type SeriesSpec } from './series-maker';
 
@@ -93,6 +94,33 @@ describe('upload intake and processing', () => {
         expect(Math.abs(got.halfWidth - m.halfWidth)).toBeLessThan(4 * got.errors.halfWidth + 0.05);
       }
     }
+  });
+
+  it('stores what each fit left out: the station\'s lines for time series, nothing for a spectra file', async () => {
+    // A listed line at 16.65 Hz with the default notch half-width of 0.3 Hz (src/engine/tolerances.ts) covers
+    // the 0.1 Hz bins 16.4–16.9 Hz (|f - 16.65| <= 0.3, worked by hand; no bin on a notch edge). Mains at 50 Hz
+    // lies above the fitted band of a 100 Hz recording (3 Hz to 3.5 Hz past the highest usual mode fitted).
+    const w = await makeWorld({ ...station100, interferenceLines: [{ frequencyHz: 16.65, label: 'railway supply' }] });
+    const series = await upload(w, seriesCsv(spec({ seconds: 600, seed: 21, components: { Ez: { kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'mV/m' } } })));
+    expect(await processUpload(series.upload.id)).toBe('done');
+    const freqs = Array.from({ length: 331 }, (_, i) => 3 + i * 0.1);
+    const lor = (f: number) => 1 + TEST_MODES.reduce((a, m) => a + (10 * m.gain) / (1 + ((f - m.f) / m.halfWidth) ** 2), 0);
+    const file = ['# cavitas-spectra 1', '# station: TST1', '# component: Ez', '# units: (mV/m)^2/Hz', '# interval-seconds: 600',
+      'frequency-hz,2026-03-14T02:00:00Z', ...freqs.map((f) => `${f.toFixed(1)},${lor(f).toPrecision(6)}`)].join('\n') + '\n';
+    const spectra = await upload(w, file, 'spectra.csv');
+    expect(await processUpload(spectra.upload.id)).toBe('done');
+
+    const rows = await listIntervals({ networkId: w.networkId, components: ['Ez'] });
+    const fromSeries = rows.find((r) => r.origin === 'upload' && r.uploadId === series.upload.id)!;
+    const fromFile = rows.find((r) => r.uploadId === spectra.upload.id)!;
+    expect(fromSeries.fit!.excluded).toHaveLength(1);
+    expect(fromSeries.fit!.excluded![0].minHz).toBeCloseTo(16.4, 9);
+    expect(fromSeries.fit!.excluded![0].maxHz).toBeCloseTo(16.9, 9);
+    expect(fromFile.fit!.excluded).toEqual([]);
+    // on the stored spectrum's own bins the range holds exactly those six
+    const sp = (await getIntervalSpectra({ networkId: w.networkId, intervalIds: [fromSeries.id] }))[0];
+    const left = sp.frequencies.filter((f) => inExcludedRange(f, fromSeries.fit!.excluded!));
+    expect(left.map((f) => Math.round(f * 10) / 10)).toEqual([16.4, 16.5, 16.6, 16.7, 16.8, 16.9]);
   });
 
   it('marks processing failed with the reason and processes again after the station is fixed', async () => {

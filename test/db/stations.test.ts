@@ -143,11 +143,11 @@ describe('intervals', () => {
     expect(await intervals.listIntervals({ networkId })).toHaveLength(0); // flagged ones left out by default
   });
 
-  it('keeps a fit\'s band, averages and bin correlation, and loads fits stored without them', async () => {
+  it('keeps a fit\'s band, averages, bin correlation and excluded ranges, and loads fits stored without them', async () => {
     const { networkId, station } = await makeWorld();
     const older = base(networkId, station.id, 40);
     const recorded = base(networkId, station.id, 50);
-    const settings = { band: { minHz: 3, maxHz: 36.3 }, averages: 112.7, binCorrelation: [4 / 9, 1 / 36] };
+    const settings = { band: { minHz: 3, maxHz: 36.3 }, averages: 112.7, binCorrelation: [4 / 9, 1 / 36], excluded: [{ minHz: 16.4, maxHz: 16.9 }] };
     await intervals.saveIntervals([older, { ...recorded, fit: { ...recorded.fit, ...settings } }]);
     const [a, b] = await intervals.listIntervals({ networkId });
     expect(a.fit).toEqual(older.fit); // no band, averages or correlation keys at all
@@ -155,6 +155,9 @@ describe('intervals', () => {
     // saving again without them (e.g. reprocessed by other code) leaves none behind
     await intervals.saveIntervals([{ ...recorded }]);
     expect((await intervals.listIntervals({ networkId }))[1].fit).toEqual(recorded.fit);
+    // "nothing left out" ([]) is kept apart from "not recorded" (absent)
+    await intervals.saveIntervals([{ ...recorded, fit: { ...recorded.fit, excluded: [] } }]);
+    expect((await intervals.listIntervals({ networkId }))[1].fit!.excluded).toEqual([]);
   });
 
   it('filters by time, component and clean flags and returns spectra arrays', async () => {

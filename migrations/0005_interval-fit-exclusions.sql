@@ -1,0 +1,1 @@
+ALTER TABLE "interval_fits" ADD COLUMN "excluded_ranges" jsonb;
