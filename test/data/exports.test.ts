@@ -31,9 +31,9 @@ function parseCsv(text: string): string[][] {
 
 describe('interval exports', () => {
   it('writes one row per interval with a column group per mode', () => {
-    const withBand = { ...row().fit!, band: { minHz: 3, maxHz: 36.3 }, averages: 112.7 };
-    const rows = parseCsv(intervalsToCsv([row(), row({ id: 'i2', fit: null, qualityFlags: ['fit-failed'] }), row({ id: 'i3', fit: withBand })]));
-    expect(rows).toHaveLength(4);
+    const withBand = { ...row().fit!, band: { minHz: 3, maxHz: 36.3 }, averages: 112.7, excluded: [{ minHz: 16.4, maxHz: 16.9 }, { minHz: 49.5, maxHz: 50.5 }] };
+    const rows = parseCsv(intervalsToCsv([row(), row({ id: 'i2', fit: null, qualityFlags: ['fit-failed'] }), row({ id: 'i3', fit: withBand }), row({ id: 'i4', fit: { ...withBand, excluded: [] } })]));
+    expect(rows).toHaveLength(5);
     const h = rows[0];
     expect(h.slice(0, 3)).toEqual(['station', 'component', 'starts_at_utc']);
     expect(h.filter((c) => c.endsWith('_frequency_hz'))).toEqual(['mode1_frequency_hz', 'mode2_frequency_hz']);
@@ -48,6 +48,11 @@ describe('interval exports', () => {
     expect(r1.fit_min_hz).toBe('');
     const r3 = Object.fromEntries(h.map((k, i) => [k, rows[3][i]]));
     expect([r3.fit_min_hz, r3.fit_max_hz, r3.fit_averages]).toEqual(['3', '36.3', '112.7']);
+    // excluded ranges as min-max pairs joined by ';' (reads back to the ranges), empty when not recorded
+    expect(r1.fit_excluded_hz).toBe('');
+    expect(r3.fit_excluded_hz.split(';').map((p) => p.split('-').map(Number))).toEqual([[16.4, 16.9], [49.5, 50.5]]);
+    const r4 = Object.fromEntries(h.map((k, i) => [k, rows[4][i]]));
+    expect(r4.fit_excluded_hz).toBe('none');
   });
 
   it('quotes reasons with commas, quotes and line breaks so they read back unchanged', () => {

@@ -10,9 +10,13 @@ import * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import { Badge, Button, DataTable, EmptyState, FormField, Notice, inputClass } from '@/src/web/ui';
 import { api, ApiFailure, displayUnit, fetcher, toDisplayPower } from './api';
+import { FitSettings } from './FitSettings';
 
 interface Mode { frequency: number; amplitude: number; halfWidth: number; q: number; errors: { frequency: number; amplitude: number; halfWidth: number } }
-interface Fit { modes: Mode[]; background: { b0: number; b1: number }; misfit: number }
+interface Fit {
+  modes: Mode[]; background: { b0: number; b1: number }; misfit: number;
+  band?: { minHz: number; maxHz: number }; averages?: number; excluded?: { minHz: number; maxHz: number }[];
+}
 interface Interval {
   id: string; component: string; startsAt: string; rejectedShare: number; qualityFlags: string[];
   flagReason: string | null; fit: Fit | null;
@@ -192,17 +196,24 @@ export function DayView({ networkId, stationId, components, days, canFlag }: {
 function SpectrumWithFit({ interval, spectrum, component, unit }: { interval: Interval; spectrum: Spectrum; component: string; unit: string }) {
   const pts = spectrum.frequencies.map((f, i) => ({ f, p: toDisplayPower(component, spectrum.power[i]) })).filter((d) => d.p > 0);
   const fit = interval.fit;
+  const halfBin = spectrum.frequencies.length > 1 ? (spectrum.frequencies[1] - spectrum.frequencies[0]) / 2 : 0.05;
   const model = fit ? spectrum.frequencies.map((f) => ({ f, p: toDisplayPower(component, fitModel(fit, f)) })).filter((d) => d.p > 0) : [];
   return (
     <div className="space-y-2">
       <PlotFigure title={`Spectrum and fit, ${component}, interval from ${interval.startsAt.slice(11, 16)} UTC`}
         xLabel="Frequency (Hz)" yLabel={`PSD (${unit})`} height={300}
-        caption={`Measured spectrum (grey), Lorentzian fit (teal), fitted mode frequencies (dashed). ${spectrum.segments} Welch segments.`}
+        caption={`Measured spectrum (grey), Lorentzian fit (teal), fitted mode frequencies (dashed)${fit?.excluded?.length ? ', bins left out of the fit (shaded)' : ''}. ${spectrum.segments} Welch segments.`}
         options={{ y: { type: 'log' }, marks: [
           Plot.line(pts, { x: 'f', y: 'p', stroke: 'var(--c-muted, grey)' }),
           Plot.line(model, { x: 'f', y: 'p', stroke: 'var(--c-accent, teal)', strokeWidth: 2 }),
           ...(fit ? [Plot.ruleX(fit.modes.map((m) => m.frequency), { strokeDasharray: '3,3', strokeOpacity: 0.6 })] : []),
+          // each left-out run of bins shaded out to half a bin on either side
+          ...(fit?.excluded?.length ? [Plot.rectX(fit.excluded, {
+            x1: (r: { minHz: number }) => r.minHz - halfBin, x2: (r: { maxHz: number }) => r.maxHz + halfBin,
+            fill: 'var(--c-storm, orange)', fillOpacity: 0.15,
+          })] : []),
         ] }} />
+      {fit ? <FitSettings fit={fit} /> : null}
       {fit ? (
         <DataTable caption="Fitted modes" rows={fit.modes.map((m, i) => ({ id: i + 1, n: i + 1, f: m.frequency, df: m.errors.frequency,
           g: m.halfWidth, dg: m.errors.halfWidth, q: m.q, a: toDisplayPower(component, m.amplitude), da: toDisplayPower(component, m.errors.amplitude) }))}
