@@ -50,6 +50,7 @@ describe('cli invert with observed modes', () => {
     bad((x) => (x.observedModes[1].station = 'NOPE'), /observedModes\.1\.station.*NOPE/);
     bad((x) => (x.observed = [{ station: 'HAR', component: 'Ez', frequencies: [5, 6], power: [1, 1], sigmaLog: 0.1 }]), /either observed spectra or observedModes/);
     bad((x) => (x.observedModes[0].modes[0].frequency = 11), /modes\[0\] \(HAR Ez\)\.modes\[0\]: 11 Hz lies in no mode window/);
+    bad((x) => (x.observedModes[0].fit = { modes: 3, excludeRanges: [{ minHz: 16.9, maxHz: 16.4 }] }), /observedModes\.0\.fit\.excludeRanges\.0\.maxHz.*end below its start/);
     bad((x) => (x.band = { minHz: 10, maxHz: 36, stepHz: 0.1 }), /\.fit: the fitted band 3–23\.8 Hz reaches outside the model grid 10–3[56]/);
   }, 120_000);
 });

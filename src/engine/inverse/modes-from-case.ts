@@ -5,7 +5,8 @@
  * power-density unit, half-width Hz, and the standard deviations of
  * frequency, ln intensity and half-width) and, optionally, the fit they came
  * from (`fit: { modes, minHz?, maxHz?, excludeLines?: [{ frequencyHz,
- * halfWidthHz }] }`; the predicted modes go through the same fit). The case's `band` is the grid of the predicted spectra; it must
+ * halfWidthHz }], excludeRanges?: [{ minHz, maxHz }] }`, the ranges as a stored
+ * fit records them; the predicted modes go through the same fit). The case's `band` is the grid of the predicted spectra; it must
  * cover the fitted band in the bins the observed spectrum had.
  */
 import { z } from 'zod';
@@ -36,6 +37,8 @@ export const observedModesSchema = z.looseObject({
     minHz: positive.optional(),
     maxHz: positive.optional(),
     excludeLines: z.array(z.looseObject({ frequencyHz: positive, halfWidthHz: positive })).optional(),
+    excludeRanges: z.array(z.looseObject({ minHz: positive, maxHz: positive })
+      .refine((r) => r.minHz <= r.maxHz, { message: 'the range must not end below its start', path: ['maxHz'] })).optional(),
   }).optional(),
 });
 
@@ -78,7 +81,8 @@ export function modeInputFromCase(c: CaseFile): ModeInversionInput {
       station: o.station,
       component: o.component as Component,
       modes: o.modes.map((m) => ({ frequency: m.frequency, intensity: m.intensity, halfWidth: m.halfWidth, sigmaFrequency: m.sigmaFrequency, sigmaLogIntensity: m.sigmaLogIntensity, sigmaHalfWidth: m.sigmaHalfWidth })),
-      ...(o.fit ? { fit: { modes: o.fit.modes, minHz: o.fit.minHz, maxHz: o.fit.maxHz, excludeLines: o.fit.excludeLines?.map((l) => ({ frequencyHz: l.frequencyHz, halfWidthHz: l.halfWidthHz })) } } : {}),
+      ...(o.fit ? { fit: { modes: o.fit.modes, minHz: o.fit.minHz, maxHz: o.fit.maxHz, excludeLines: o.fit.excludeLines?.map((l) => ({ frequencyHz: l.frequencyHz, halfWidthHz: l.halfWidthHz })),
+        excludeRanges: o.fit.excludeRanges?.map((r) => ({ minHz: r.minHz, maxHz: r.maxHz })) } } : {}),
     })),
     unknowns: unknownsFromCase(c),
   };
