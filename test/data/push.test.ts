@@ -8,7 +8,7 @@ import { listIntervals, getIntervalSpectra } from '@/db/repo/intervals';
 import { issuePushToken, revokePushToken } from '@/src/data/push-tokens';
 import { POST } from '@/app/api/v1/push/intervals/route';
 import { makeWorld } from './world';
-import { synthesize } from './series-maker';
+import { synthesize, TEST_MODES } from './series-maker';
 
 beforeAll(resetDatabase);
 afterAll(closeDatabase);
@@ -48,6 +48,18 @@ describe('push', () => {
     const level = ez.power.reduce((s, v) => s + v, 0) / ez.power.length;
     expect(level / ((2 * 16) / FS / 4)).toBeGreaterThan(0.96);
     expect(level / ((2 * 16) / FS / 4)).toBeLessThan(1.04);
+  });
+
+  it('stores with each fit the bins it left out: the station\'s listed line', async () => {
+    // The test station lists 16.65 Hz here; with the default 0.3 Hz notch half-width that is the 0.1 Hz bins
+    // 16.4–16.9 Hz (|f - 16.65| <= 0.3, worked by hand).
+    const w = await makeWorld({ sampleRateHz: FS, interferenceLines: [{ frequencyHz: 16.65, label: 'railway supply' }] });
+    const { secret } = await issuePushToken(w.networkId, w.station.id, w.userId, { label: 'hut pc', expiresInDays: 30 });
+    const ez = Array.from(synthesize({ kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'raw' }, 600 * FS, FS, 5));
+    expect((await push(secret, { startsAt: '2026-03-14T07:00:00Z', sampleRateHz: FS, components: { Ez: ez } })).status).toBe(201);
+    const [row] = await listIntervals({ networkId: w.networkId });
+    expect(row.fit).not.toBeNull();
+    expect(row.fit!.excluded!.map((r) => [r.minHz, r.maxHz].map((v) => Math.round(v * 10) / 10))).toEqual([[16.4, 16.9]]);
   });
 
   it('answers bad bodies with the error shape naming the field', async () => {
