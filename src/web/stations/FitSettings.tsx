@@ -23,7 +23,7 @@ function hz(v: number): string {
 export function fitSettingsText(fit: FitSettingsInput): { band: string; averages: string; excluded: string } {
   return {
     band: fit.band ? `${hz(fit.band.minHz)}–${hz(fit.band.maxHz)} Hz` : NOT_RECORDED,
-    averages: fit.averages !== undefined ? formatNumber(fit.averages, 1) : `${NOT_RECORDED} (errors scaled by the misfit)`,
+    averages: fit.averages !== undefined ? formatNumber(fit.averages, 1) : NOT_RECORDED,
     excluded: !fit.excluded ? NOT_RECORDED
       : fit.excluded.length === 0 ? 'nothing left out'
         : fit.excluded.map((r) => (r.minHz === r.maxHz ? `${hz(r.minHz)} Hz` : `${hz(r.minHz)}–${hz(r.maxHz)} Hz`)).join(', '),
@@ -42,7 +42,7 @@ export function FitSettings({ fit }: { fit: FitSettingsInput }) {
       {rows.map(([label, value, hint]) => (
         <div key={label} className="contents">
           <dt className="text-muted" title={hint}>{label}</dt>
-          <dd className={value.startsWith(NOT_RECORDED) ? 'italic text-muted' : ''}>{value}</dd>
+          <dd className={value === NOT_RECORDED ? 'italic text-muted' : ''}>{value}</dd>
         </div>
       ))}
     </dl>
