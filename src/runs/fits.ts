@@ -13,7 +13,7 @@ import { badRequest } from '@/src/server/errors';
 import { getRun, getRunInterval } from '@/db/repo/runs';
 import { notFound } from '@/src/server/errors';
 import { loadRunContext } from './context';
-import { loadModeObservations, loadObservations } from './observations';
+import { assumedExclusionSeries, loadModeObservations, loadObservations } from './observations';
 import { intervalRecipe } from './surface-compute';
 import { buildUnknowns } from './unknowns';
 
@@ -40,7 +40,13 @@ export interface ModeFit {
   residual: { frequency: number; logIntensity: number; halfWidth: number }; // weighted, as in the misfit
 }
 
-export interface RunFits { series: SeriesFit[]; stations: StationFit[]; modes?: ModeFit[] }
+export interface RunFits {
+  series: SeriesFit[];
+  stations: StationFit[];
+  modes?: ModeFit[];
+  /** Mode runs: series whose stored fit did not record the ranges it left out (the station's lines were assumed). */
+  assumedExclusions?: string[];
+}
 
 export async function fitsAt(networkId: string, runId: string, intervalIso: string, minimumIndex: number): Promise<RunFits> {
   const run = await getRun(networkId, runId);
@@ -53,7 +59,8 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
   if (!minimum) throw badRequest('this interval has no such minimum', 'minimum');
   const ctx = await loadRunContext(run);
   if (ctx.config.observables.kind === 'modes') {
-    const recipe = intervalRecipe(ctx, { observed: [], modes: await loadModeObservations(networkId, ctx.config, when) });
+    const observedModes = await loadModeObservations(networkId, ctx.config, when);
+    const recipe = intervalRecipe(ctx, { observed: [], modes: observedModes });
     if (recipe.kind !== 'modes') throw new Error('a mode run builds a mode recipe');
     const modes: ModeFit[] = prepareModes(recipe.input).problem.compare(Float64Array.from(minimum.internal));
     const stations: StationFit[] = ctx.stations.map((st) => {
@@ -62,7 +69,7 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
       const bins = 3 * mine.length;
       return { station: st.code, lat: st.lat, lon: st.lon, bins, chi2PerBin: bins ? chi2 / bins : NaN };
     });
-    return { series: [], stations, modes };
+    return { series: [], stations, modes, assumedExclusions: assumedExclusionSeries(observedModes) };
   }
   const observed = await loadObservations(networkId, ctx.config, when);
   const { problem, layout } = prepareSpectrum({

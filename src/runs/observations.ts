@@ -137,9 +137,9 @@ export function fitExclusions(fit: IntervalFit, stationLines: SpectralLine[]): P
   return { excludeLines: stationLines, exclusionsAssumed: true };
 }
 
-/** How many of these observed fits had their exclusions assumed rather than recorded (for a run's log). */
-export function assumedExclusionCount(modes: readonly ObservedModes[]): number {
-  return modes.filter((m) => m.fit?.exclusionsAssumed).length;
+/** The series ("station component") whose observed fits did not record what they left out, so the predicted fit assumed it. */
+export function assumedExclusionSeries(modes: readonly ObservedModes[]): string[] {
+  return modes.filter((m) => m.fit?.exclusionsAssumed).map((m) => `${m.station} ${m.component}`);
 }
 
 /**

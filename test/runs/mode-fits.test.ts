@@ -62,6 +62,8 @@ describe('fits of a mode-parameter run', () => {
     const fits = await fitsAt(w.networkId, run.id, t.toISOString(), 0);
     expect(fits.series).toEqual([]);
     const modes = fits.modes!;
+    // These stored fits do not record the ranges they left out: every series says its exclusions were assumed.
+    expect(new Set(fits.assumedExclusions)).toEqual(new Set(modes.map((m) => `${m.station} ${m.component}`)));
     // Three usable modes per station and component at most; the data count matches the stored run.
     expect(modes.length).toBeGreaterThanOrEqual(15);
     expect(modes.length).toBeLessThanOrEqual(27);

@@ -109,7 +109,7 @@ function ResidualTable({ modes }: { modes: ModeFit[] }) {
   );
 }
 
-export function ModeFitsPanel({ fits, error }: { fits: { series: unknown[]; modes?: ModeFit[] } | undefined; error?: Error }) {
+export function ModeFitsPanel({ fits, error }: { fits: { series: unknown[]; modes?: ModeFit[]; assumedExclusions?: string[] } | undefined; error?: Error }) {
   const pairs = useMemo(() => {
     const seen = new Map<string, { station: string; component: ModeFit['component'] }>();
     for (const m of fits?.modes ?? []) seen.set(`${m.station} ${m.component}`, { station: m.station, component: m.component });
@@ -148,6 +148,13 @@ export function ModeFitsPanel({ fits, error }: { fits: { series: unknown[]; mode
         <PlotFigure title={`Peak intensity, ${station} ${component}`} xLabel="Mode number" yLabel={`Peak power density (${figs.unit})`} options={figs.intensity} height={220} />
         <PlotFigure title={`Half-width, ${station} ${component}`} xLabel="Mode number" yLabel="Half-width at half maximum (Hz)" options={figs.halfWidth} height={220} />
       </div>
+      {fits.assumedExclusions?.length ? (
+        <Notice tone="storm" title="Left-out lines assumed">
+          The stored mode fits of {fits.assumedExclusions.join(', ')} were made before fits recorded the frequency ranges they left out.
+          Their predicted modes were fitted without the station&apos;s mains and listed interference lines as the station is set up now;
+          if the observed fit kept those bins, the comparison is off. Fit the interval&apos;s spectra again to record them.
+        </Notice>
+      ) : null}
       <ResidualTable modes={fits.modes} />
     </div>
   );
