@@ -184,11 +184,18 @@ export async function finishedIntervalStarts(runId: string): Promise<Set<string>
   return new Set(rows.map((r) => r.t.toISOString()));
 }
 
-/** Ends a run (finished, failed or cancelled) with its last progress and, for a failure, why. */
-export async function endRun(runId: string, state: 'finished' | 'failed' | 'cancelled', progress: RunProgress | null, error: string | null = null): Promise<void> {
-  await getDb().update(runs).set({
+/**
+ * Ends a run (finished, failed or cancelled) with its last progress and, for a failure, why.
+ * Like every write of a run's progress: never a run that has already ended, and with `workerId`
+ * only while that worker holds it. Returns whether the run was ended here.
+ */
+export async function endRun(
+  runId: string, state: 'finished' | 'failed' | 'cancelled', progress: RunProgress | null, error: string | null = null, workerId?: string,
+): Promise<boolean> {
+  const rows = await getDb().update(runs).set({
     state, error, finishedAt: new Date(), heartbeatAt: new Date(), ...(progress ? { progress } : {}),
-  }).where(eq(runs.id, runId));
+  }).where(writable(runId, workerId)).returning({ id: runs.id });
+  return rows.length > 0;
 }
 
 /**

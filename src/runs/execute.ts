@@ -67,8 +67,9 @@ const MAX_BATCH = 64;
 
 /**
  * 'yielded': the time slice ended with intervals left; queue a continuation job.
- * 'lost': a write was refused because the run is no longer held by this worker (it ended,
- * was swept or was taken over); nothing more is written, the run is left as it is.
+ * 'lost': a write (also the one that would end the run) was refused because the run is no longer
+ * held by this worker (it ended, was swept or was taken over); nothing more is written, the run
+ * is left as it is.
  */
 export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'yielded' | 'not-runnable' | 'lost';
 
@@ -104,8 +105,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   try {
     ctx = await loadRunContext(run);
   } catch (e) {
-    await endRun(runId, 'failed', { ...progress, phase: 'failed' }, `Could not prepare the run: ${(e as Error).message}`);
-    return 'failed';
+    return (await endRun(runId, 'failed', { ...progress, phase: 'failed' }, `Could not prepare the run: ${(e as Error).message}`, opts.workerId)) ? 'failed' : 'lost';
   }
   const finished = await finishedIntervalStarts(runId);
   const todo = run.intervalStarts.map((t, i) => ({ t, i })).filter(({ t }) => !finished.has(new Date(t).toISOString()));
@@ -146,8 +146,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     await flush(); // what finished before stays stored
     await writing;
     if (lost) return 'lost' as const;
-    await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg);
-    return 'failed' as const;
+    return (await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg, opts.workerId)) ? 'failed' as const : 'lost' as const;
   };
   const load = (k: number) => {
     const p = k < todo.length ? observe(ctx, new Date(todo[k].t)) : null;
@@ -221,12 +220,12 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   if (cancelled) {
     // The progress counts what is stored (a crashed attempt may have stored one more than it said).
     const kept = (await finishedIntervalStarts(runId)).size;
-    await endRun(runId, 'cancelled', {
+    const ended = await endRun(runId, 'cancelled', {
       ...progress, intervalsDone: kept, startsDone: 0, phase: `cancelled after ${kept} of ${total} intervals`, etaSeconds: null,
-    });
-    return 'cancelled';
+    }, null, opts.workerId);
+    return ended ? 'cancelled' : 'lost';
   }
   const stored = await finishedIntervalStarts(runId);
-  await endRun(runId, 'finished', { ...progress, intervalsDone: stored.size, phase: 'finished', etaSeconds: 0 });
-  return 'finished';
+  const ended = await endRun(runId, 'finished', { ...progress, intervalsDone: stored.size, phase: 'finished', etaSeconds: 0 }, null, opts.workerId);
+  return ended ? 'finished' : 'lost'; // taken over between the last write and here: the holder ends it
 }

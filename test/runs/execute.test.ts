@@ -340,4 +340,23 @@ describe('run driver', () => {
     // Interval 1 was written while 'slow' held the run; interval 2's write was refused.
     expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(iso(run.intervalStarts.slice(0, 1)));
   });
+
+  it('does not end a run another worker took after its last write: the holder ends it', async () => {
+    const w = await makeRunWorld(2);
+    const run = await newRun(w);
+    expect(await executeRun(run.id, {
+      workerId: 'slow', solve: engineSolver,
+      // After the last interval's write, before the end: the lease lapsed and another worker claimed the run.
+      afterInterval: async (i) => { if (i === run.intervalStarts.length - 1) expect(await claimRun(run.id, 'taker', 0)).not.toBeNull(); },
+    })).toBe('lost');
+    const r = await getRunById(run.id);
+    expect(r!.state).toBe('running');
+    expect(r!.workerId).toBe('taker');
+    expect(r!.finishedAt).toBeNull();
+    // The holder (here claiming it again, its own lease lapsed too) finds every interval stored and ends the run itself.
+    const solvedByTaker: string[] = [];
+    expect(await executeRun(run.id, { workerId: 'taker', leaseSeconds: 0, solve: (ctx, c, h) => { solvedByTaker.push(c.startsAt); return engineSolver(ctx, c, h); } })).toBe('finished');
+    expect(solvedByTaker).toEqual([]);
+    expect((await getRunById(run.id))!.state).toBe('finished');
+  });
 });
