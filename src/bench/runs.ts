@@ -89,17 +89,23 @@ const SOURCES = [{ lat: -2, lon: 24, intensity: 3e4 }, { lat: -5, lon: -50, inte
 const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); const n = s.length; return n % 2 ? s[(n - 1) / 2] : (s[n / 2 - 1] + s[n / 2]) / 2; };
 const ms = (x: number) => `${x.toFixed(x < 10 ? 2 : 0)} ms`;
 
-export async function seed() {
-  const userId = `bench-${randomUUID()}`;
-  await insertUser({ id: userId, email: `${userId}@example.test`, name: 'Bench analyst', passwordHash: 'x' });
-  const network = await createNetwork('Bench network', userId);
+/** Invented bench huts with three components each, unit gain. */
+async function benchStations(networkId: string, sites: { code: string; name: string; latitude: number; longitude: number }[]): Promise<Station[]> {
   const stations: Station[] = [];
-  for (const s of SITES) {
-    stations.push(await createStation(network.id, {
+  for (const s of sites) {
+    stations.push(await createStation(networkId, {
       ...s, elevationM: 200, mainsHz: 50, interferenceLines: [], sampleRateHz: 200, notes: '', status: 'operating',
       components: (['Ez', 'Bns', 'Bew'] as const).map((component) => ({ component, calibration: { kind: 'gain' as const, gain: 1 } })),
     }));
   }
+  return stations;
+}
+
+export async function seed() {
+  const userId = `bench-${randomUUID()}`;
+  await insertUser({ id: userId, email: `${userId}@example.test`, name: 'Bench analyst', passwordHash: 'x' });
+  const network = await createNetwork('Bench network', userId);
+  const stations = await benchStations(network.id, SITES);
   const model = await saveModel(network.id, userId, { name: 'Bench linear', notes: '', config: CAVITY });
   const grid = await saveGrid(network.id, userId, {
     name: 'Bench belts', notes: '', cellSizeDeg: 10,
@@ -317,13 +323,7 @@ const dayTruth = (t: number) => [
 /** (c2)'s network: the inverter's day problem as stored spectra, in the same database as (a)–(c). */
 export async function seedDay(userId: string): Promise<{ networkId: string; config: RunConfig }> {
   const network = await createNetwork('Bench day network', userId);
-  const stations: Station[] = [];
-  for (const s of DAY_SITES) {
-    stations.push(await createStation(network.id, {
-      ...s, elevationM: 200, mainsHz: 50, interferenceLines: [], sampleRateHz: 200, notes: '', status: 'operating',
-      components: (['Ez', 'Bns', 'Bew'] as const).map((component) => ({ component, calibration: { kind: 'gain' as const, gain: 1 } })),
-    }));
-  }
+  const stations = await benchStations(network.id, DAY_SITES);
   const model = await saveModel(network.id, userId, { name: 'Bench day linear', notes: '', config: CAVITY });
   const grid = await saveGrid(network.id, userId, {
     name: 'Bench day cells', notes: '', cellSizeDeg: 10,
