@@ -230,7 +230,10 @@ export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpe
   const rows = await getDb().select({
     id: intervals.id, stationId: intervals.stationId, code: stations.code, component: intervals.component,
     startsAt: intervals.startsAt, rejectedShare: intervals.rejectedShare, segments: intervalSpectra.segments,
-    frequencies: sql<Buffer>`array_send(${intervalSpectra.frequencies})`,
+    // A series' frequencies seldom change from one interval to the next: sent only when they differ
+    // from the previous row's (the rows come in series order), reused here otherwise. The comparison is
+    // of the binary forms, so the reused array is the row's own bit for bit.
+    frequencies: sql<Buffer | null>`case when array_send(${intervalSpectra.frequencies}) = lag(array_send(${intervalSpectra.frequencies})) over (order by ${stations.code}, ${intervals.component}, ${intervals.startsAt}) then null else array_send(${intervalSpectra.frequencies}) end`,
     power: sql<Buffer>`array_send(${intervalSpectra.power})`,
   })
     .from(intervals)
@@ -239,11 +242,15 @@ export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpe
     .where(where(f))
     .orderBy(asc(stations.code), asc(intervals.component), asc(intervals.startsAt))
     .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
-  return rows.map((r) => ({
-    intervalId: r.id, stationId: r.stationId, stationCode: r.code, component: r.component,
-    startsAt: r.startsAt, frequencies: decodeFloat8Array(r.frequencies, 'frequencies'), power: decodeFloat8Array(r.power, 'power'),
-    segments: r.segments, rejectedShare: r.rejectedShare,
-  }));
+  let previous: number[] = [];
+  return rows.map((r) => {
+    if (r.frequencies) previous = decodeFloat8Array(r.frequencies, 'frequencies');
+    return {
+      intervalId: r.id, stationId: r.stationId, stationCode: r.code, component: r.component,
+      startsAt: r.startsAt, frequencies: r.frequencies ? previous : previous.slice(), power: decodeFloat8Array(r.power, 'power'),
+      segments: r.segments, rejectedShare: r.rejectedShare,
+    };
+  });
 }
 
 /** The same spectra through the plain query (the arrays as PostgreSQL's text form), to check getIntervalSpectra against. */

@@ -46,7 +46,8 @@ describe('stored spectra read in binary form', () => {
       networkId: w.networkId, stationId: w.stations.find((s) => s.code === sp.station)!.id, component: sp.component,
       startsAt: t, durationS: 600, origin: 'synthetic' as const, uploadId: null, rejectedShare: 0, qualityFlags: [],
       spectrum: {
-        frequencies: sp.frequencies,
+        // One interval of one series on another grid, so the frequencies change within the series and back.
+        frequencies: i === 50 && j === 4 ? sp.frequencies.map((f) => f + 0.25) : sp.frequencies,
         power: sp.power.map((p, k) => (i === 0 && j === 0 && k < edges.length ? edges[k] : (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS)),
         segments: SEGMENTS,
       },
