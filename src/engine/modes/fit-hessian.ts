@@ -38,6 +38,14 @@ export function addCurvature(q: Float64Array, modes: number, freqs: Float64Array
   }
 }
 
+/**
+ * Copy the lower triangle of h (np x np) into the upper one: the J^T W J sums are accumulated over the
+ * lower triangle only (the one the Cholesky factor reads), halving their cost with the same factor.
+ */
+export function mirrorLower(h: Float64Array, np: number): void {
+  for (let a = 0; a < np; a++) for (let b = a + 1; b < np; b++) h[a * np + b] = h[b * np + a];
+}
+
 /** Parameters on a bound, and the frequency and half-width of a mode whose amplitude is held at zero. */
 export function heldSet(q: Float64Array, modes: number, lower: Float64Array, upper: Float64Array): Uint8Array {
   const held = new Uint8Array(q.length);

@@ -18,7 +18,7 @@
  * are then undetermined, and callers must not read them as a mode).
  */
 import { lorentzianJacobian, lorentzianModel } from './lorentzian';
-import { addCurvature, heldSet, solveFree } from './fit-hessian';
+import { addCurvature, heldSet, mirrorLower, solveFree } from './fit-hessian';
 import { paramCount } from './types';
 
 export interface FitSensitivityInput {
@@ -60,11 +60,14 @@ export function fitSensitivity(input: FitSensitivityInput, dyDp: Float64Array | 
     const s = w * (1 + (2 * r) / y[k]);
     for (let a = 0; a < np; a++) {
       const ja = j1[k * np + a];
-      for (let b = 0; b < np; b++) h[a * np + b] += ja * w * j1[k * np + b];
-      if (!dyDp) dq1[a * n + k] = ja * s;
-      else for (let jj = 0; jj < n; jj++) dq1[a * n + jj] += ja * s * dyDp[k * n + jj];
+      const jaw = ja * w;
+      for (let b = 0; b <= a; b++) h[a * np + b] += jaw * j1[k * np + b];
+      const jas = ja * s;
+      if (!dyDp) dq1[a * n + k] = jas;
+      else for (let jj = 0; jj < n; jj++) dq1[a * n + jj] += jas * dyDp[k * n + jj];
     }
   }
+  mirrorLower(h, np);
   addCurvature(input.first, modes, freqs, c, h);
   solveFree(h, dq1, np, n, heldSet(input.first, modes, lower, upper));
   const m1 = input.firstModel;
@@ -92,12 +95,13 @@ export function fitSensitivity(input: FitSensitivityInput, dyDp: Float64Array | 
       }
     }
     for (let a = 0; a < np; a++) {
-      const ja = jf[k * np + a];
-      for (let b = 0; b < np; b++) h[a * np + b] += ja * w * jf[k * np + b];
-      if (dyDp) for (let jj = 0; jj < n; jj++) dq[a * n + jj] += ja * w * v[jj];
+      const jaw = jf[k * np + a] * w;
+      for (let b = 0; b <= a; b++) h[a * np + b] += jaw * jf[k * np + b];
+      if (dyDp) for (let jj = 0; jj < n; jj++) dq[a * n + jj] += jaw * v[jj];
       else {
-        dq[a * n + k] += ja * w;
-        for (let b = 0; b < np; b++) m[a * np + b] += ja * w * t * j1[k * np + b];
+        dq[a * n + k] += jaw;
+        const jawt = jaw * t;
+        for (let b = 0; b < np; b++) m[a * np + b] += jawt * j1[k * np + b];
       }
     }
   }
@@ -109,6 +113,7 @@ export function fitSensitivity(input: FitSensitivityInput, dyDp: Float64Array | 
       }
     }
   }
+  mirrorLower(h, np);
   addCurvature(input.final, modes, freqs, c, h);
   solveFree(h, dq, np, n, heldSet(input.final, modes, lower, upper));
   return dq;

@@ -33,9 +33,10 @@ export function lorentzianJacobian(p: ArrayLike<number>, modes: number, freqs: A
       const u = (f - fn) / gn;
       const l = 1 / (1 + u * u);
       const l2 = l * l;
-      out[row + 3 * n] = ((2 * an * u * l2) / gn) * s;
+      const a2u = 2 * an * u; // shared by both derivatives, in the same order of operations as written out
+      out[row + 3 * n] = ((a2u * l2) / gn) * s;
       out[row + 3 * n + 1] = l * s;
-      out[row + 3 * n + 2] = ((2 * an * u * u * l2) / gn) * s;
+      out[row + 3 * n + 2] = ((a2u * u * l2) / gn) * s;
     }
     out[row + 3 * modes] = s;
     out[row + 3 * modes + 1] = f * s;

@@ -8,7 +8,7 @@
  * until it lowers chi-square (and polishing ends when no halving does);
  * parameters held on a bound stay there.
  */
-import { addCurvature, heldSet, solveFree } from './fit-hessian';
+import { addCurvature, heldSet, mirrorLower, solveFree } from './fit-hessian';
 import { lorentzianJacobian, lorentzianModel } from './lorentzian';
 import { paramCount } from './types';
 
@@ -39,37 +39,41 @@ export function newtonPolish(x: PolishInput, start: Float64Array, steps: number)
   const model = new Float64Array(nb);
   const jac = new Float64Array(nb * np);
   const c = new Float64Array(nb);
+  const h = new Float64Array(np * np);
+  const step = new Float64Array(np);
   let q = Float64Array.from(start);
+  let trial = new Float64Array(np);
+  // model holds the model of q throughout (the accepted trial's model is the last one evaluated).
   let chi2 = chi2At(q, x, model);
   for (let it = 0; it < steps; it++) {
     lorentzianJacobian(q, modes, freqs, ones, jac);
-    const h = new Float64Array(np * np);
-    const step = new Float64Array(np);
+    h.fill(0);
+    step.fill(0);
     for (let k = 0; k < nb; k++) {
       const w = 1 / (sigma[k] * sigma[k]);
       const r = model[k] - data[k];
       c[k] = w * r;
       for (let a = 0; a < np; a++) {
-        const ja = jac[k * np + a];
-        step[a] -= ja * w * r;
-        for (let b = 0; b < np; b++) h[a * np + b] += ja * w * jac[k * np + b];
+        const jaw = jac[k * np + a] * w;
+        step[a] -= jaw * r;
+        for (let b = 0; b <= a; b++) h[a * np + b] += jaw * jac[k * np + b];
       }
     }
+    mirrorLower(h, np);
     addCurvature(q, modes, freqs, c, h);
     solveFree(h, step, np, 1, heldSet(q, modes, x.lower, x.upper));
     // Backtracking: halve the step until chi-square drops (Nocedal & Wright §3.1).
     let accepted = false;
     for (let half = 0; half < POLISH_HALVINGS && !accepted; half++) {
       const f = 0.5 ** half;
-      const trial = q.map((v, j) => Math.min(x.upper[j], Math.max(x.lower[j], v + f * step[j])));
+      for (let j = 0; j < np; j++) trial[j] = Math.min(x.upper[j], Math.max(x.lower[j], q[j] + f * step[j]));
       const chi2T = chi2At(trial, x, model);
       if (chi2T < chi2) {
-        q = trial;
+        [q, trial] = [trial, q];
         chi2 = chi2T;
         accepted = true;
       }
     }
-    lorentzianModel(q, modes, freqs, model);
     if (!accepted) break;
   }
   return { params: q, chi2 };
