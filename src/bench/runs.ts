@@ -55,7 +55,7 @@ import { launchRun } from '@/src/runs/launch';
 import { getRunView } from '@/src/runs/results';
 import { executeRun } from '@/src/runs/execute';
 import { loadRunContext } from '@/src/runs/context';
-import { loadIntervalObservations } from '@/src/runs/observations';
+import { intervalLoader, loadIntervalObservations } from '@/src/runs/observations';
 import { engineSolver } from '@/src/runs/solver';
 import { gammaDeviate, mulberry32 } from '@/src/engine/random';
 import { engineVersion } from '@/src/runs/engine-version';
@@ -272,6 +272,29 @@ async function driverAgainstEngine(tag: string, networkId: string, userId: strin
   return { runId: run.id, passes, extra, rows, last: passes.at(-1)!.driver };
 }
 
+/**
+ * (c)'s data loading on its own: the day's observations through the run's loader (16 intervals per
+ * query, as the driver reads them), five times; per day the wall time, the CPU of this process and of
+ * the database server, each as the median of the five.
+ */
+async function measureLoading(networkId: string, config: RunConfig): Promise<void> {
+  const starts = Array.from({ length: INTERVALS }, (_, i) => new Date(new Date(config.data.from).getTime() + i * 600_000));
+  const walls: number[] = [], cpus: number[] = [], pgs: number[] = [];
+  let series = 0;
+  for (let rep = 0; rep < 5; rep++) {
+    const c0 = process.cpuUsage(), p0 = pgCpuSeconds(), t0 = performance.now();
+    const load = intervalLoader(networkId, config, starts);
+    series = 0;
+    for (const t of starts) series += (await load(t)).observed.length;
+    walls.push(performance.now() - t0);
+    const c = process.cpuUsage(c0), p1 = pgCpuSeconds();
+    cpus.push((c.user + c.system) / 1000);
+    if (p0 !== null && p1 !== null) pgs.push(1000 * (p1 - p0));
+  }
+  console.log(`(c) loading the day's observations alone (${series} series, 16 intervals per query): median of 5 ${ms(median(walls))} wall, `
+    + `${ms(median(cpus))} CPU here (${ms(median(cpus) / INTERVALS)} per interval), ${pgs.length ? ms(median(pgs)) : '?'} in the database server (10 ms ticks)`);
+}
+
 /** (c): the small problem; its solves are quick, so it shows the driver's fixed cost per interval. */
 async function solveAndStore(networkId: string, userId: string, config: RunConfig): Promise<string> {
   const { runId, extra, rows, last, passes } = await driverAgainstEngine('(c)', networkId, userId, config, 3);
@@ -286,6 +309,7 @@ async function solveAndStore(networkId: string, userId: string, config: RunConfi
   console.log(`(c) CPU (this process and the database server): the driver a median ${median(cx).toFixed(2)} % more than the engine alone (rounds: ${cx.map((x) => x.toFixed(1)).join(', ')} %)`);
   console.log(`(c) the solver calls themselves, median of the rounds: ${(median(passes.map((p) => p.driver.solveMs)) / 1000).toFixed(2)} s in the driver, `
     + `${(median(passes.map((p) => p.alone.solveMs)) / 1000).toFixed(2)} s alone; last round ${cpu(last)}, alone ${cpu(passes.at(-1)!.alone)}`);
+  await measureLoading(networkId, config);
   // One result write on its own: the same rows written again under new interval times (a throwaway run).
   const { preview } = await (await import('@/src/runs/launch')).checkLaunch(networkId, config);
   const copy = await createRun({
