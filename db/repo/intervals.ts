@@ -172,6 +172,9 @@ function where(f: IntervalFilter): SQL {
   return and(...parts)!;
 }
 
+/** Series order (station code, component, start): summaries and spectra come back in the same order. */
+const SERIES_ORDER = [asc(stations.code), asc(intervals.component), asc(intervals.startsAt)] as const;
+
 /** Interval summaries with their fits (no spectra), ordered by station code, component, start. */
 export async function listIntervals(f: IntervalFilter): Promise<IntervalSummary[]> {
   const rows = await getDb().select({ i: intervals, code: stations.code, fit: intervalFits })
@@ -179,7 +182,7 @@ export async function listIntervals(f: IntervalFilter): Promise<IntervalSummary[
     .innerJoin(stations, eq(stations.id, intervals.stationId))
     .leftJoin(intervalFits, eq(intervalFits.intervalId, intervals.id))
     .where(where(f))
-    .orderBy(asc(stations.code), asc(intervals.component), asc(intervals.startsAt))
+    .orderBy(...SERIES_ORDER)
     .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
   return rows.map(({ i, code, fit }) => ({
     id: i.id, stationId: i.stationId, stationCode: code, component: i.component, startsAt: i.startsAt,
@@ -240,7 +243,7 @@ export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpe
     .innerJoin(stations, eq(stations.id, intervals.stationId))
     .innerJoin(intervalSpectra, eq(intervalSpectra.intervalId, intervals.id))
     .where(where(f))
-    .orderBy(asc(stations.code), asc(intervals.component), asc(intervals.startsAt))
+    .orderBy(...SERIES_ORDER)
     .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
   let previous: number[] = [];
   return rows.map((r) => {
@@ -260,7 +263,7 @@ export async function getIntervalSpectraPlain(f: IntervalFilter): Promise<Interv
     .innerJoin(stations, eq(stations.id, intervals.stationId))
     .innerJoin(intervalSpectra, eq(intervalSpectra.intervalId, intervals.id))
     .where(where(f))
-    .orderBy(asc(stations.code), asc(intervals.component), asc(intervals.startsAt))
+    .orderBy(...SERIES_ORDER)
     .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
   return rows.map(({ i, code, s }) => ({
     intervalId: i.id, stationId: i.stationId, stationCode: code, component: i.component,
