@@ -14,7 +14,8 @@ let db: Db | null = null;
 /** The connection string: DATABASE_URL, set by `npm start`, `npm test` or the operator. */
 export function databaseUrl(): string {
   const url = process.env.DATABASE_URL;
-  if (!url) throw new Error('DATABASE_URL is not set: start Cavitas with `npm start`, or point DATABASE_URL at a PostgreSQL server');
+  if (!url)
+    throw new Error('DATABASE_URL is not set: start Cavitas with `npm start`, or point DATABASE_URL at a PostgreSQL server');
   return url;
 }
 

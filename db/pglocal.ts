@@ -154,7 +154,29 @@ function quoteLiteral(s: string): string {
 /** Creates (once) the application role with the given password and its database. */
 function ensureRoleAndDb(bin: string, socketDir: string, port: number, user: string, db: string, password: string): void {
   const psql = (sql: string, database = 'postgres') =>
-    pgRunOrThrow(bin, 'psql', ['-X', '-q', '-t', '-A', '-v', 'ON_ERROR_STOP=1', '-h', socketDir, '-p', String(port), '-U', 'postgres', '-d', database, '-c', sql], 'psql');
+    pgRunOrThrow(
+      bin,
+      'psql',
+      [
+        '-X',
+        '-q',
+        '-t',
+        '-A',
+        '-v',
+        'ON_ERROR_STOP=1',
+        '-h',
+        socketDir,
+        '-p',
+        String(port),
+        '-U',
+        'postgres',
+        '-d',
+        database,
+        '-c',
+        sql,
+      ],
+      'psql',
+    );
   const ident = `"${user.replace(/"/g, '""')}"`;
   if (psql(`SELECT 1 FROM pg_roles WHERE rolname = ${quoteLiteral(user)}`) !== '1') {
     psql(`CREATE ROLE ${ident} LOGIN PASSWORD ${quoteLiteral(password)}`);
@@ -194,7 +216,12 @@ export async function startLocalPostgres(opts: LocalPgOptions): Promise<LocalPg>
   if (!fs.existsSync(path.join(dataDir, 'PG_VERSION'))) {
     log(`Creating a PostgreSQL cluster in ${dataDir}`);
     ensureDir(dataDir, 0o700);
-    pgRunOrThrow(bin, 'initdb', ['-D', dataDir, '-U', 'postgres', '-E', 'UTF8', '--locale=C', '--auth-local=trust', '--auth-host=scram-sha-256'], 'initdb');
+    pgRunOrThrow(
+      bin,
+      'initdb',
+      ['-D', dataDir, '-U', 'postgres', '-E', 'UTF8', '--locale=C', '--auth-local=trust', '--auth-host=scram-sha-256'],
+      'initdb',
+    );
     const extra = [
       '',
       '# Cavitas: loopback only, socket in a private folder',
@@ -215,7 +242,12 @@ export async function startLocalPostgres(opts: LocalPgOptions): Promise<LocalPg>
     }
     ensureDir(socketDir, 0o700);
     log(`Starting PostgreSQL on 127.0.0.1:${opts.port}`);
-    pgRunOrThrow(bin, 'pg_ctl', ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-w', '-t', '60', '-o', `-p ${opts.port}`, 'start'], 'start (see server.log in the data folder)');
+    pgRunOrThrow(
+      bin,
+      'pg_ctl',
+      ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-w', '-t', '60', '-o', `-p ${opts.port}`, 'start'],
+      'start (see server.log in the data folder)',
+    );
     running = runningServer(bin, dataDir);
     if (!running) throw new Error(`PostgreSQL did not come up; see ${path.join(dataDir, 'server.log')}`);
     startedHere = true;

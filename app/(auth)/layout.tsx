@@ -9,7 +9,9 @@ export default function AuthLayout({ children }: { children: ReactNode }) {
       <header className="relative hidden overflow-hidden bg-chrome p-10 text-chrome-fg lg:flex lg:flex-col lg:justify-between">
         <Brand />
         <div className="relative z-10 max-w-md space-y-3">
-          <p className="text-2xl leading-snug font-semibold">Listen to the whole planet’s thunderstorms from a handful of quiet valleys.</p>
+          <p className="text-2xl leading-snug font-semibold">
+            Listen to the whole planet’s thunderstorms from a handful of quiet valleys.
+          </p>
           <p className="text-sm text-chrome-muted">
             Cavitas turns ELF station records into spectra and mode fits, and inverts many stations together for regional
             thunderstorm intensity in the Earth–ionosphere cavity.

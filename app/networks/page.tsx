@@ -15,8 +15,15 @@ export default async function NetworksPage({ searchParams }: { searchParams: Pro
   const rows = networks.map((n) => ({ ...n, url: `/n/${n.id}`, createdAt: n.createdAt.toISOString() }));
   return (
     <AppShell user={user} networks={networks}>
-      <PageHeader title="My networks" subtitle="A network is a shared space for a team’s stations, models and runs. Your role decides what you can change." />
-      {denied ? <Notice tone="error" className="mb-4">Your role does not allow that page.</Notice> : null}
+      <PageHeader
+        title="My networks"
+        subtitle="A network is a shared space for a team’s stations, models and runs. Your role decides what you can change."
+      />
+      {denied ? (
+        <Notice tone="error" className="mb-4">
+          Your role does not allow that page.
+        </Notice>
+      ) : null}
       <div className="space-y-6">
         <DataTable
           caption="Networks you belong to"

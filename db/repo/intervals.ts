@@ -26,9 +26,19 @@ export interface IntervalFit {
 }
 
 /** The stored row's fit, leaving out what older rows do not have. */
-function fitOf(row: { modes: StoredMode[]; background: { b0: number; b1: number }; misfit: number; band: { minHz: number; maxHz: number } | null; averages: number | null; binCorrelation: number[] | null; excluded: { minHz: number; maxHz: number }[] | null }): IntervalFit {
+function fitOf(row: {
+  modes: StoredMode[];
+  background: { b0: number; b1: number };
+  misfit: number;
+  band: { minHz: number; maxHz: number } | null;
+  averages: number | null;
+  binCorrelation: number[] | null;
+  excluded: { minHz: number; maxHz: number }[] | null;
+}): IntervalFit {
   return {
-    modes: row.modes, background: row.background, misfit: row.misfit,
+    modes: row.modes,
+    background: row.background,
+    misfit: row.misfit,
     ...(row.band ? { band: row.band } : {}),
     ...(row.averages !== null ? { averages: row.averages } : {}),
     ...(row.binCorrelation ? { binCorrelation: row.binCorrelation } : {}),
@@ -105,54 +115,99 @@ export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id:
   await getDb().transaction(async (tx) => {
     for (let b = 0; b < items.length; b += BATCH) {
       const batch = items.slice(b, b + BATCH);
-      const rows = await tx.insert(intervals).values(batch.map((i) => ({
-        networkId: i.networkId, stationId: i.stationId, component: i.component, startsAt: i.startsAt,
-        durationS: i.durationS, origin: i.origin, uploadId: i.uploadId,
-        rejectedShare: i.rejectedShare, qualityFlags: i.qualityFlags,
-      }))).onConflictDoUpdate({
-        target: [intervals.stationId, intervals.component, intervals.startsAt],
-        set: {
-          durationS: sql`excluded.duration_s`, origin: sql`excluded.origin`, uploadId: sql`excluded.upload_id`,
-          rejectedShare: sql`excluded.rejected_share`, qualityFlags: sql`excluded.quality_flags`,
-        },
-      }).returning({
-        id: intervals.id, stationId: intervals.stationId, component: intervals.component,
-        startsAt: intervals.startsAt, created: sql<boolean>`(xmax = 0)`,
-      });
+      const rows = await tx
+        .insert(intervals)
+        .values(
+          batch.map((i) => ({
+            networkId: i.networkId,
+            stationId: i.stationId,
+            component: i.component,
+            startsAt: i.startsAt,
+            durationS: i.durationS,
+            origin: i.origin,
+            uploadId: i.uploadId,
+            rejectedShare: i.rejectedShare,
+            qualityFlags: i.qualityFlags,
+          })),
+        )
+        .onConflictDoUpdate({
+          target: [intervals.stationId, intervals.component, intervals.startsAt],
+          set: {
+            durationS: sql`excluded.duration_s`,
+            origin: sql`excluded.origin`,
+            uploadId: sql`excluded.upload_id`,
+            rejectedShare: sql`excluded.rejected_share`,
+            qualityFlags: sql`excluded.quality_flags`,
+          },
+        })
+        .returning({
+          id: intervals.id,
+          stationId: intervals.stationId,
+          component: intervals.component,
+          startsAt: intervals.startsAt,
+          created: sql<boolean>`(xmax = 0)`,
+        });
       const key = (s: string, c: string, t: Date) => `${s}|${c}|${t.getTime()}`;
       const byKey = new Map(rows.map((r) => [key(r.stationId, r.component, new Date(r.startsAt)), r]));
       const ids = batch.map((i) => byKey.get(key(i.stationId, i.component, i.startsAt))!);
-      await tx.insert(intervalSpectra).values(batch.map((i, k) => ({
-        intervalId: ids[k].id, frequencies: i.spectrum.frequencies, power: i.spectrum.power,
-        segments: i.spectrum.segments,
-      }))).onConflictDoUpdate({
-        target: intervalSpectra.intervalId,
-        set: {
-          frequencies: sql`excluded.frequencies`, power: sql`excluded.power`, segments: sql`excluded.segments`,
-        },
-      });
+      await tx
+        .insert(intervalSpectra)
+        .values(
+          batch.map((i, k) => ({
+            intervalId: ids[k].id,
+            frequencies: i.spectrum.frequencies,
+            power: i.spectrum.power,
+            segments: i.spectrum.segments,
+          })),
+        )
+        .onConflictDoUpdate({
+          target: intervalSpectra.intervalId,
+          set: {
+            frequencies: sql`excluded.frequencies`,
+            power: sql`excluded.power`,
+            segments: sql`excluded.segments`,
+          },
+        });
       const withFit = batch.map((i, k) => ({ i, id: ids[k].id })).filter((x) => x.i.fit);
       const withoutFit = batch.map((i, k) => ({ i, id: ids[k].id })).filter((x) => !x.i.fit);
       if (withFit.length) {
-        await tx.insert(intervalFits).values(withFit.map(({ i, id }) => {
-          const f = i.fit!;
-          return {
-            intervalId: id, modes: f.modes, background: f.background, misfit: f.misfit,
-            band: f.band ?? null, averages: f.averages ?? null, binCorrelation: f.binCorrelation ?? null,
-            excluded: f.excluded ?? null,
-          };
-        }))
+        await tx
+          .insert(intervalFits)
+          .values(
+            withFit.map(({ i, id }) => {
+              const f = i.fit!;
+              return {
+                intervalId: id,
+                modes: f.modes,
+                background: f.background,
+                misfit: f.misfit,
+                band: f.band ?? null,
+                averages: f.averages ?? null,
+                binCorrelation: f.binCorrelation ?? null,
+                excluded: f.excluded ?? null,
+              };
+            }),
+          )
           .onConflictDoUpdate({
             target: intervalFits.intervalId,
             set: {
-              modes: sql`excluded.modes`, background: sql`excluded.background`, misfit: sql`excluded.misfit`,
-              band: sql`excluded.band`, averages: sql`excluded.averages`, binCorrelation: sql`excluded.bin_correlation`,
+              modes: sql`excluded.modes`,
+              background: sql`excluded.background`,
+              misfit: sql`excluded.misfit`,
+              band: sql`excluded.band`,
+              averages: sql`excluded.averages`,
+              binCorrelation: sql`excluded.bin_correlation`,
               excluded: sql`excluded.excluded_ranges`,
             },
           });
       }
       if (withoutFit.length) {
-        await tx.delete(intervalFits).where(inArray(intervalFits.intervalId, withoutFit.map((x) => x.id)));
+        await tx.delete(intervalFits).where(
+          inArray(
+            intervalFits.intervalId,
+            withoutFit.map((x) => x.id),
+          ),
+        );
       }
       for (const r of ids) out.push({ id: r.id, created: Boolean(r.created) });
     }
@@ -177,7 +232,8 @@ const SERIES_ORDER = [asc(stations.code), asc(intervals.component), asc(interval
 
 /** Interval summaries with their fits (no spectra), ordered by station code, component, start. */
 export async function listIntervals(f: IntervalFilter): Promise<IntervalSummary[]> {
-  const rows = await getDb().select({ i: intervals, code: stations.code, fit: intervalFits })
+  const rows = await getDb()
+    .select({ i: intervals, code: stations.code, fit: intervalFits })
     .from(intervals)
     .innerJoin(stations, eq(stations.id, intervals.stationId))
     .leftJoin(intervalFits, eq(intervalFits.intervalId, intervals.id))
@@ -185,9 +241,19 @@ export async function listIntervals(f: IntervalFilter): Promise<IntervalSummary[
     .orderBy(...SERIES_ORDER)
     .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
   return rows.map(({ i, code, fit }) => ({
-    id: i.id, stationId: i.stationId, stationCode: code, component: i.component, startsAt: i.startsAt,
-    durationS: i.durationS, origin: i.origin, uploadId: i.uploadId, rejectedShare: i.rejectedShare,
-    qualityFlags: i.qualityFlags, flagReason: i.flagReason, flaggedBy: i.flaggedBy, flaggedAt: i.flaggedAt,
+    id: i.id,
+    stationId: i.stationId,
+    stationCode: code,
+    component: i.component,
+    startsAt: i.startsAt,
+    durationS: i.durationS,
+    origin: i.origin,
+    uploadId: i.uploadId,
+    rejectedShare: i.rejectedShare,
+    qualityFlags: i.qualityFlags,
+    flagReason: i.flagReason,
+    flaggedBy: i.flaggedBy,
+    flaggedAt: i.flaggedAt,
     fit: fit ? fitOf(fit) : null,
   }));
 }
@@ -205,7 +271,8 @@ export function decodeFloat8Array(buf: Uint8Array, column: string): number[] {
   const ndim = view.getInt32(0);
   if (ndim === 0) return [];
   if (ndim !== 1) throw bad(`expected a one-dimensional array, found ${ndim} dimensions`);
-  if (view.getUint32(8) !== FLOAT8_OID) throw bad(`expected float8 elements (type ${FLOAT8_OID}), found type ${view.getUint32(8)}`);
+  if (view.getUint32(8) !== FLOAT8_OID)
+    throw bad(`expected float8 elements (type ${FLOAT8_OID}), found type ${view.getUint32(8)}`);
   const n = view.getInt32(12);
   const out: number[] = new Array(n);
   let at = 20;
@@ -213,7 +280,10 @@ export function decodeFloat8Array(buf: Uint8Array, column: string): number[] {
     if (at + 4 > buf.byteLength) throw bad(`binary array ends after ${k} of ${n} elements`);
     const len = view.getInt32(at);
     at += 4;
-    if (len === -1) { out[k] = null as unknown as number; continue; } // as the text form reads a NULL element
+    if (len === -1) {
+      out[k] = null as unknown as number;
+      continue;
+    } // as the text form reads a NULL element
     if (len !== 8 || at + 8 > buf.byteLength) throw bad(`element ${k} has ${len} bytes, expected 8`);
     out[k] = view.getFloat64(at);
     at += 8;
@@ -230,15 +300,21 @@ const FLOAT8_OID = 701;
  * than the hex encoding and `decodeFloat8Array`, and gives the same numbers.
  */
 export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpectrum[]> {
-  const rows = await getDb().select({
-    id: intervals.id, stationId: intervals.stationId, code: stations.code, component: intervals.component,
-    startsAt: intervals.startsAt, rejectedShare: intervals.rejectedShare, segments: intervalSpectra.segments,
-    // A series' frequencies seldom change from one interval to the next: sent only when they differ
-    // from the previous row's (the rows come in series order), reused here otherwise. The comparison is
-    // of the binary forms, so the reused array is the row's own bit for bit.
-    frequencies: sql<Buffer | null>`case when array_send(${intervalSpectra.frequencies}) = lag(array_send(${intervalSpectra.frequencies})) over (order by ${stations.code}, ${intervals.component}, ${intervals.startsAt}) then null else array_send(${intervalSpectra.frequencies}) end`,
-    power: sql<Buffer>`array_send(${intervalSpectra.power})`,
-  })
+  const rows = await getDb()
+    .select({
+      id: intervals.id,
+      stationId: intervals.stationId,
+      code: stations.code,
+      component: intervals.component,
+      startsAt: intervals.startsAt,
+      rejectedShare: intervals.rejectedShare,
+      segments: intervalSpectra.segments,
+      // A series' frequencies seldom change from one interval to the next: sent only when they differ
+      // from the previous row's (the rows come in series order), reused here otherwise. The comparison is
+      // of the binary forms, so the reused array is the row's own bit for bit.
+      frequencies: sql<Buffer | null>`case when array_send(${intervalSpectra.frequencies}) = lag(array_send(${intervalSpectra.frequencies})) over (order by ${stations.code}, ${intervals.component}, ${intervals.startsAt}) then null else array_send(${intervalSpectra.frequencies}) end`,
+      power: sql<Buffer>`array_send(${intervalSpectra.power})`,
+    })
     .from(intervals)
     .innerJoin(stations, eq(stations.id, intervals.stationId))
     .innerJoin(intervalSpectra, eq(intervalSpectra.intervalId, intervals.id))
@@ -249,16 +325,23 @@ export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpe
   return rows.map((r) => {
     if (r.frequencies) previous = decodeFloat8Array(r.frequencies, 'frequencies');
     return {
-      intervalId: r.id, stationId: r.stationId, stationCode: r.code, component: r.component,
-      startsAt: r.startsAt, frequencies: r.frequencies ? previous : previous.slice(), power: decodeFloat8Array(r.power, 'power'),
-      segments: r.segments, rejectedShare: r.rejectedShare,
+      intervalId: r.id,
+      stationId: r.stationId,
+      stationCode: r.code,
+      component: r.component,
+      startsAt: r.startsAt,
+      frequencies: r.frequencies ? previous : previous.slice(),
+      power: decodeFloat8Array(r.power, 'power'),
+      segments: r.segments,
+      rejectedShare: r.rejectedShare,
     };
   });
 }
 
 /** The same spectra through the plain query (the arrays as PostgreSQL's text form), to check getIntervalSpectra against. */
 export async function getIntervalSpectraPlain(f: IntervalFilter): Promise<IntervalSpectrum[]> {
-  const rows = await getDb().select({ i: intervals, code: stations.code, s: intervalSpectra })
+  const rows = await getDb()
+    .select({ i: intervals, code: stations.code, s: intervalSpectra })
     .from(intervals)
     .innerJoin(stations, eq(stations.id, intervals.stationId))
     .innerJoin(intervalSpectra, eq(intervalSpectra.intervalId, intervals.id))
@@ -266,20 +349,33 @@ export async function getIntervalSpectraPlain(f: IntervalFilter): Promise<Interv
     .orderBy(...SERIES_ORDER)
     .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
   return rows.map(({ i, code, s }) => ({
-    intervalId: i.id, stationId: i.stationId, stationCode: code, component: i.component,
-    startsAt: i.startsAt, frequencies: s.frequencies, power: s.power, segments: s.segments,
+    intervalId: i.id,
+    stationId: i.stationId,
+    stationCode: code,
+    component: i.component,
+    startsAt: i.startsAt,
+    frequencies: s.frequencies,
+    power: s.power,
+    segments: s.segments,
     rejectedShare: i.rejectedShare,
   }));
 }
 
 /** Sets (reason + who) or clears (null) a person's flag; null when the interval is not in this network. */
 export async function setIntervalFlag(
-  networkId: string, intervalId: string, flag: { reason: string; userId: string } | null,
+  networkId: string,
+  intervalId: string,
+  flag: { reason: string; userId: string } | null,
 ): Promise<IntervalSummary | null> {
-  const rows = await getDb().update(intervals).set(flag
-    ? { flagReason: flag.reason, flaggedBy: flag.userId, flaggedAt: new Date() }
-    : { flagReason: null, flaggedBy: null, flaggedAt: null })
-    .where(and(eq(intervals.id, intervalId), eq(intervals.networkId, networkId))).returning({ id: intervals.id });
+  const rows = await getDb()
+    .update(intervals)
+    .set(
+      flag
+        ? { flagReason: flag.reason, flaggedBy: flag.userId, flaggedAt: new Date() }
+        : { flagReason: null, flaggedBy: null, flaggedAt: null },
+    )
+    .where(and(eq(intervals.id, intervalId), eq(intervals.networkId, networkId)))
+    .returning({ id: intervals.id });
   if (!rows.length) return null;
   const [one] = await listIntervals({ networkId, intervalIds: [intervalId], includeFlagged: true });
   return one ?? null;
@@ -287,20 +383,31 @@ export async function setIntervalFlag(
 
 /** Deletes the intervals of one station that start in [from, to); returns how many. */
 export async function deleteIntervals(networkId: string, stationId: string, from: Date, to: Date): Promise<number> {
-  const rows = await getDb().delete(intervals).where(and(
-    eq(intervals.networkId, networkId), eq(intervals.stationId, stationId),
-    gte(intervals.startsAt, from), lt(intervals.startsAt, to),
-  )).returning({ id: intervals.id });
+  const rows = await getDb()
+    .delete(intervals)
+    .where(
+      and(
+        eq(intervals.networkId, networkId),
+        eq(intervals.stationId, stationId),
+        gte(intervals.startsAt, from),
+        lt(intervals.startsAt, to),
+      ),
+    )
+    .returning({ id: intervals.id });
   return rows.length;
 }
 
 /** UTC days (YYYY-MM-DD) on which a station has intervals, newest first. */
 export async function listStationDays(networkId: string, stationId: string): Promise<string[]> {
-  const rows = await getDb().select({
-    day: sql<string>`to_char(${intervals.startsAt} at time zone 'UTC', 'YYYY-MM-DD')`,
-  }).from(intervals)
+  const rows = await getDb()
+    .select({
+      day: sql<string>`to_char(${intervals.startsAt} at time zone 'UTC', 'YYYY-MM-DD')`,
+    })
+    .from(intervals)
     .where(and(eq(intervals.networkId, networkId), eq(intervals.stationId, stationId)))
-    .groupBy(sql`1`).orderBy(sql`1 desc`).limit(400);
+    .groupBy(sql`1`)
+    .orderBy(sql`1 desc`)
+    .limit(400);
   return rows.map((r) => r.day);
 }
 

@@ -41,6 +41,8 @@ export async function getMail(id: string): Promise<MailMessage | null> {
 }
 
 export async function countMail(): Promise<number> {
-  const [row] = await getDb().select({ n: sql<number>`count(*)::int` }).from(mailMessages);
+  const [row] = await getDb()
+    .select({ n: sql<number>`count(*)::int` })
+    .from(mailMessages);
   return row.n;
 }

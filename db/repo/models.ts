@@ -11,38 +11,65 @@ export type ModelFields = { name: string; notes: string; config: Record<string, 
 
 /** First version of a new model. */
 export async function createModel(networkId: string, userId: string | null, input: ModelFields): Promise<ModelRow> {
-  const [row] = await getDb().insert(cavityModels).values({
-    networkId, lineageId: crypto.randomUUID(), version: 1, createdBy: userId, ...input,
-  }).returning();
+  const [row] = await getDb()
+    .insert(cavityModels)
+    .values({
+      networkId,
+      lineageId: crypto.randomUUID(),
+      version: 1,
+      createdBy: userId,
+      ...input,
+    })
+    .returning();
   return row;
 }
 
 /** Adds the next version of the lineage of `modelId`; null when it is not in this network. */
-export async function addModelVersion(networkId: string, modelId: string, userId: string | null, input: ModelFields): Promise<ModelRow | null> {
+export async function addModelVersion(
+  networkId: string,
+  modelId: string,
+  userId: string | null,
+  input: ModelFields,
+): Promise<ModelRow | null> {
   return getDb().transaction(async (tx) => {
-    const [base] = await tx.select().from(cavityModels)
+    const [base] = await tx
+      .select()
+      .from(cavityModels)
       .where(and(eq(cavityModels.id, modelId), eq(cavityModels.networkId, networkId)));
     if (!base) return null;
     // Lock the lineage so two editors cannot both take the same next number.
     await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${base.lineageId}))`);
-    const [{ max }] = await tx.select({ max: sql<number>`max(${cavityModels.version})` }).from(cavityModels)
+    const [{ max }] = await tx
+      .select({ max: sql<number>`max(${cavityModels.version})` })
+      .from(cavityModels)
       .where(eq(cavityModels.lineageId, base.lineageId));
-    const [row] = await tx.insert(cavityModels).values({
-      networkId, lineageId: base.lineageId, version: Number(max) + 1, createdBy: userId, ...input,
-    }).returning();
+    const [row] = await tx
+      .insert(cavityModels)
+      .values({
+        networkId,
+        lineageId: base.lineageId,
+        version: Number(max) + 1,
+        createdBy: userId,
+        ...input,
+      })
+      .returning();
     return row;
   });
 }
 
 export async function getModel(networkId: string, modelId: string): Promise<ModelRow | null> {
-  const [row] = await getDb().select().from(cavityModels)
+  const [row] = await getDb()
+    .select()
+    .from(cavityModels)
     .where(and(eq(cavityModels.id, modelId), eq(cavityModels.networkId, networkId)));
   return row ?? null;
 }
 
 /** The latest version of every model of a network, by name. */
 export async function listModels(networkId: string): Promise<(ModelRow & { versions: number })[]> {
-  const rows = await getDb().select().from(cavityModels)
+  const rows = await getDb()
+    .select()
+    .from(cavityModels)
     .where(eq(cavityModels.networkId, networkId))
     .orderBy(asc(cavityModels.lineageId), desc(cavityModels.version));
   const latest = new Map<string, ModelRow & { versions: number }>();
@@ -58,15 +85,20 @@ export async function listModels(networkId: string): Promise<(ModelRow & { versi
 export async function listModelVersions(networkId: string, modelId: string): Promise<ModelRow[]> {
   const base = await getModel(networkId, modelId);
   if (!base) return [];
-  return getDb().select().from(cavityModels)
+  return getDb()
+    .select()
+    .from(cavityModels)
     .where(and(eq(cavityModels.lineageId, base.lineageId), eq(cavityModels.networkId, networkId)))
     .orderBy(desc(cavityModels.version));
 }
 
 /** Finds a model by name (latest version), for idempotent seeding. */
 export async function findModelByName(networkId: string, name: string): Promise<ModelRow | null> {
-  const [row] = await getDb().select().from(cavityModels)
+  const [row] = await getDb()
+    .select()
+    .from(cavityModels)
     .where(and(eq(cavityModels.networkId, networkId), eq(cavityModels.name, name)))
-    .orderBy(desc(cavityModels.version)).limit(1);
+    .orderBy(desc(cavityModels.version))
+    .limit(1);
   return row ?? null;
 }

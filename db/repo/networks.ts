@@ -105,7 +105,10 @@ export async function changeMemberRole(networkId: string, userId: string, role: 
   await getDb().transaction(async (tx) => {
     const { owners, target } = await lockMembers(tx, networkId, userId);
     if (target.role === 'owner' && role !== 'owner' && owners <= 1) throw conflict(LAST_OWNER, 'role');
-    await tx.update(memberships).set({ role }).where(and(eq(memberships.networkId, networkId), eq(memberships.userId, userId)));
+    await tx
+      .update(memberships)
+      .set({ role })
+      .where(and(eq(memberships.networkId, networkId), eq(memberships.userId, userId)));
   });
 }
 
@@ -131,8 +134,11 @@ export interface NewInvitation {
 
 /** When a member sent invitations (in any network) since `since`, oldest first. */
 export async function invitationTimesSince(invitedBy: string, since: Date): Promise<Date[]> {
-  const rows = await getDb().select({ t: invitations.createdAt }).from(invitations)
-    .where(and(eq(invitations.invitedBy, invitedBy), gte(invitations.createdAt, since))).orderBy(asc(invitations.createdAt));
+  const rows = await getDb()
+    .select({ t: invitations.createdAt })
+    .from(invitations)
+    .where(and(eq(invitations.invitedBy, invitedBy), gte(invitations.createdAt, since)))
+    .orderBy(asc(invitations.createdAt));
   return rows.map((r) => r.t);
 }
 
@@ -149,17 +155,40 @@ export async function createInvitation(inv: NewInvitation): Promise<InvitationRo
     await tx
       .update(invitations)
       .set({ revokedAt: new Date() })
-      .where(and(eq(invitations.networkId, inv.networkId), eq(invitations.email, email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
-    const [row] = await tx.insert(invitations).values({ ...inv, email }).returning();
+      .where(
+        and(
+          eq(invitations.networkId, inv.networkId),
+          eq(invitations.email, email),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+        ),
+      );
+    const [row] = await tx
+      .insert(invitations)
+      .values({ ...inv, email })
+      .returning();
     return row;
   });
 }
 
 export async function listOpenInvitations(networkId: string, now: Date) {
   return getDb()
-    .select({ id: invitations.id, email: invitations.email, role: invitations.role, expiresAt: invitations.expiresAt, createdAt: invitations.createdAt })
+    .select({
+      id: invitations.id,
+      email: invitations.email,
+      role: invitations.role,
+      expiresAt: invitations.expiresAt,
+      createdAt: invitations.createdAt,
+    })
     .from(invitations)
-    .where(and(eq(invitations.networkId, networkId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, now)))
+    .where(
+      and(
+        eq(invitations.networkId, networkId),
+        isNull(invitations.acceptedAt),
+        isNull(invitations.revokedAt),
+        gt(invitations.expiresAt, now),
+      ),
+    )
     .orderBy(asc(invitations.createdAt));
 }
 
@@ -168,7 +197,14 @@ export async function revokeInvitation(networkId: string, invitationId: string):
   const rows = await getDb()
     .update(invitations)
     .set({ revokedAt: new Date() })
-    .where(and(eq(invitations.id, invitationId), eq(invitations.networkId, networkId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
+    .where(
+      and(
+        eq(invitations.id, invitationId),
+        eq(invitations.networkId, networkId),
+        isNull(invitations.acceptedAt),
+        isNull(invitations.revokedAt),
+      ),
+    )
     .returning({ id: invitations.id });
   if (rows.length === 0) throw notFound('This invitation does not exist or was already used or withdrawn.');
 }
@@ -186,7 +222,8 @@ export interface InvitationView {
 function checkOpen(row: InvitationRow | undefined, now: Date): InvitationRow {
   if (!row || row.revokedAt) throw notFound('This invitation is unknown or was withdrawn. Ask the network owner for a new one.');
   if (row.acceptedAt) throw gone('This invitation has already been used.');
-  if (row.expiresAt.getTime() <= now.getTime()) throw gone('This invitation has expired. Ask the network owner to send a new one.');
+  if (row.expiresAt.getTime() <= now.getTime())
+    throw gone('This invitation has expired. Ask the network owner to send a new one.');
   return row;
 }
 
@@ -198,7 +235,15 @@ export async function findOpenInvitation(tokenHash: string, now: Date): Promise<
     .where(eq(invitations.tokenHash, tokenHash));
   const inv = checkOpen(found?.inv, now);
   const [acct] = await getDb().select({ id: users.id }).from(users).where(eq(users.email, inv.email));
-  return { id: inv.id, networkId: inv.networkId, networkName: found.networkName, email: inv.email, role: inv.role, expiresAt: inv.expiresAt, hasAccount: !!acct };
+  return {
+    id: inv.id,
+    networkId: inv.networkId,
+    networkName: found.networkName,
+    email: inv.email,
+    role: inv.role,
+    expiresAt: inv.expiresAt,
+    hasAccount: !!acct,
+  };
 }
 
 /**
@@ -220,7 +265,9 @@ export async function acceptInvitation(
       userId = u.id;
     } else {
       if (normalizeEmail(who.email) !== inv.email)
-        throw forbidden(`This invitation was sent to ${inv.email}, but you are signed in as ${who.email}. Sign out and accept it with the invited address.`);
+        throw forbidden(
+          `This invitation was sent to ${inv.email}, but you are signed in as ${who.email}. Sign out and accept it with the invited address.`,
+        );
       userId = who.userId;
     }
     const [existing] = await tx

@@ -29,19 +29,35 @@ export interface NewRun {
 }
 
 export async function createRun(r: NewRun): Promise<RunRow> {
-  const [row] = await getDb().insert(runs).values({
-    networkId: r.networkId, name: r.name, config: r.config, modelId: r.modelId, gridId: r.gridId,
-    engineVersion: r.engineVersion, intervalStarts: r.intervalStarts, createdBy: r.createdBy,
-    progress: {
-      phase: 'waiting for a worker', intervalsDone: 0, intervalsTotal: r.intervalStarts.length,
-      startsDone: 0, startsTotal: r.startsPerInterval, etaSeconds: null,
-    },
-  }).returning();
+  const [row] = await getDb()
+    .insert(runs)
+    .values({
+      networkId: r.networkId,
+      name: r.name,
+      config: r.config,
+      modelId: r.modelId,
+      gridId: r.gridId,
+      engineVersion: r.engineVersion,
+      intervalStarts: r.intervalStarts,
+      createdBy: r.createdBy,
+      progress: {
+        phase: 'waiting for a worker',
+        intervalsDone: 0,
+        intervalsTotal: r.intervalStarts.length,
+        startsDone: 0,
+        startsTotal: r.startsPerInterval,
+        etaSeconds: null,
+      },
+    })
+    .returning();
   return row;
 }
 
 export async function getRun(networkId: string, runId: string): Promise<RunRow | null> {
-  const [row] = await getDb().select().from(runs).where(and(eq(runs.id, runId), eq(runs.networkId, networkId)));
+  const [row] = await getDb()
+    .select()
+    .from(runs)
+    .where(and(eq(runs.id, runId), eq(runs.networkId, networkId)));
   return row ?? null;
 }
 
@@ -52,22 +68,45 @@ export async function getRunById(runId: string): Promise<RunRow | null> {
 }
 
 export interface RunListEntry {
-  id: string; name: string; state: RunState; progress: RunProgress; createdAt: Date; finishedAt: Date | null;
-  modelName: string; modelVersion: number; gridName: string; gridVersion: number; intervals: number; error: string | null;
+  id: string;
+  name: string;
+  state: RunState;
+  progress: RunProgress;
+  createdAt: Date;
+  finishedAt: Date | null;
+  modelName: string;
+  modelVersion: number;
+  gridName: string;
+  gridVersion: number;
+  intervals: number;
+  error: string | null;
 }
 
 export async function listRuns(networkId: string): Promise<RunListEntry[]> {
-  const rows = await getDb().select({
-    r: runs, modelName: cavityModels.name, modelVersion: cavityModels.version,
-    gridName: sourceGrids.name, gridVersion: sourceGrids.version,
-  }).from(runs)
+  const rows = await getDb()
+    .select({
+      r: runs,
+      modelName: cavityModels.name,
+      modelVersion: cavityModels.version,
+      gridName: sourceGrids.name,
+      gridVersion: sourceGrids.version,
+    })
+    .from(runs)
     .innerJoin(cavityModels, eq(cavityModels.id, runs.modelId))
     .innerJoin(sourceGrids, eq(sourceGrids.id, runs.gridId))
     .where(eq(runs.networkId, networkId))
-    .orderBy(desc(runs.createdAt)).limit(500);
+    .orderBy(desc(runs.createdAt))
+    .limit(500);
   return rows.map(({ r, ...m }) => ({
-    id: r.id, name: r.name, state: r.state, progress: r.progress, createdAt: r.createdAt, finishedAt: r.finishedAt,
-    intervals: r.intervalStarts.length, error: r.error, ...m,
+    id: r.id,
+    name: r.name,
+    state: r.state,
+    progress: r.progress,
+    createdAt: r.createdAt,
+    finishedAt: r.finishedAt,
+    intervals: r.intervalStarts.length,
+    error: r.error,
+    ...m,
   }));
 }
 
@@ -77,14 +116,25 @@ export async function listRuns(networkId: string): Promise<RunListEntry[]> {
  * Returns null when the run is gone, ended, cancelled, or alive elsewhere.
  */
 export async function claimRun(runId: string, workerId: string, leaseSeconds = 30): Promise<RunRow | null> {
-  const [row] = await getDb().update(runs).set({
-    state: 'running', workerId, heartbeatAt: new Date(), attempts: sql`${runs.attempts} + 1`,
-    startedAt: sql`coalesce(${runs.startedAt}, now())`, error: null,
-  }).where(and(
-    eq(runs.id, runId), eq(runs.cancelRequested, false),
-    sql`(${runs.state} = 'queued' or (${runs.state} = 'running' and (${runs.heartbeatAt} is null
+  const [row] = await getDb()
+    .update(runs)
+    .set({
+      state: 'running',
+      workerId,
+      heartbeatAt: new Date(),
+      attempts: sql`${runs.attempts} + 1`,
+      startedAt: sql`coalesce(${runs.startedAt}, now())`,
+      error: null,
+    })
+    .where(
+      and(
+        eq(runs.id, runId),
+        eq(runs.cancelRequested, false),
+        sql`(${runs.state} = 'queued' or (${runs.state} = 'running' and (${runs.heartbeatAt} is null
       or ${runs.heartbeatAt} < now() - make_interval(secs => ${leaseSeconds}))))`,
-  )).returning();
+      ),
+    )
+    .returning();
   return row ?? null;
 }
 
@@ -92,7 +142,9 @@ export async function claimRun(runId: string, workerId: string, leaseSeconds = 3
 export async function releaseRun(runId: string, workerId: string, progress: RunProgress): Promise<void> {
   // The heartbeat stays set (to the hand-back time): the sweep counts a queued run as lost only
   // once it has waited a whole lease without a pending job.
-  await getDb().update(runs).set({ state: 'queued', workerId: null, heartbeatAt: new Date(), progress })
+  await getDb()
+    .update(runs)
+    .set({ state: 'queued', workerId: null, heartbeatAt: new Date(), progress })
     .where(and(eq(runs.id, runId), eq(runs.workerId, workerId), eq(runs.state, 'running')));
 }
 
@@ -107,7 +159,10 @@ const ENDED_STATES = ['finished', 'failed', 'cancelled'] as const;
 function writable(runId: string, workerId?: string): SQL {
   return and(
     eq(runs.id, runId),
-    sql`${runs.state} not in (${sql.join(ENDED_STATES.map((s) => sql`${s}`), sql`, `)})`,
+    sql`${runs.state} not in (${sql.join(
+      ENDED_STATES.map((s) => sql`${s}`),
+      sql`, `,
+    )})`,
     ...(workerId === undefined ? [] : [eq(runs.state, 'running'), eq(runs.workerId, workerId)]),
   )!;
 }
@@ -117,13 +172,25 @@ function writable(runId: string, workerId?: string): SQL {
  * write was taken (`held`: the run has not ended and, with a worker id, that worker holds it).
  * A refused write counts as a cancel request: the caller has nothing more to do on this run.
  */
-export async function reportProgress(runId: string, progress: RunProgress, workerId?: string): Promise<{ cancelRequested: boolean; held: boolean }> {
-  const [row] = await getDb().update(runs).set({ progress, heartbeatAt: new Date() })
-    .where(writable(runId, workerId)).returning({ cancelRequested: runs.cancelRequested });
+export async function reportProgress(
+  runId: string,
+  progress: RunProgress,
+  workerId?: string,
+): Promise<{ cancelRequested: boolean; held: boolean }> {
+  const [row] = await getDb()
+    .update(runs)
+    .set({ progress, heartbeatAt: new Date() })
+    .where(writable(runId, workerId))
+    .returning({ cancelRequested: runs.cancelRequested });
   return row ? { cancelRequested: row.cancelRequested, held: true } : { cancelRequested: true, held: false };
 }
 
-export interface RunIntervalEntry { startsAt: Date; nData: number; result: Record<string, unknown>; seconds: number }
+export interface RunIntervalEntry {
+  startsAt: Date;
+  nData: number;
+  result: Record<string, unknown>;
+  seconds: number;
+}
 
 /**
  * Stores finished intervals (each once: insert-or-ignore on (run, start)) and the
@@ -137,13 +204,22 @@ export interface RunIntervalEntry { startsAt: Date; nData: number; result: Recor
  * answers `held: false`.
  */
 export async function saveRunIntervals(
-  runId: string, entries: RunIntervalEntry[], progress: RunProgress, workerId?: string,
+  runId: string,
+  entries: RunIntervalEntry[],
+  progress: RunProgress,
+  workerId?: string,
 ): Promise<{ inserted: number; cancelRequested: boolean; held: boolean }> {
   if (entries.length === 0) {
     const r = await reportProgress(runId, progress, workerId);
     return { inserted: 0, ...r };
   }
-  const values = sql.join(entries.map((e) => sql`(${e.startsAt.toISOString()}::timestamptz, ${e.nData}::integer, ${JSON.stringify(e.result)}::jsonb, ${e.seconds}::float8)`), sql`, `);
+  const values = sql.join(
+    entries.map(
+      (e) =>
+        sql`(${e.startsAt.toISOString()}::timestamptz, ${e.nData}::integer, ${JSON.stringify(e.result)}::jsonb, ${e.seconds}::float8)`,
+    ),
+    sql`, `,
+  );
   const rows = await getDb().execute<{ inserted: number; cancel_requested: boolean }>(sql`
     with held as (
       select ${runs.id} as id from ${runs} where ${writable(runId, workerId)} for update
@@ -158,12 +234,17 @@ export async function saveRunIntervals(
     where id in (select id from held)
     returning (select count(*)::int from ins) as inserted, cancel_requested`);
   const row = rows[0];
-  return row ? { inserted: row.inserted, cancelRequested: row.cancel_requested, held: true } : { inserted: 0, cancelRequested: true, held: false };
+  return row
+    ? { inserted: row.inserted, cancelRequested: row.cancel_requested, held: true }
+    : { inserted: 0, cancelRequested: true, held: false };
 }
 
 /** One finished interval: saveRunIntervals with a single entry. */
 export async function saveRunInterval(
-  runId: string, entry: RunIntervalEntry, progress: RunProgress, workerId?: string,
+  runId: string,
+  entry: RunIntervalEntry,
+  progress: RunProgress,
+  workerId?: string,
 ): Promise<{ inserted: boolean; cancelRequested: boolean; held: boolean }> {
   const r = await saveRunIntervals(runId, [entry], progress, workerId);
   return { inserted: r.inserted > 0, cancelRequested: r.cancelRequested, held: r.held };
@@ -175,7 +256,11 @@ export async function listRunIntervals(runId: string): Promise<RunIntervalRow[]>
 
 /** One stored interval of a run, or null. */
 export async function getRunInterval(runId: string, startsAt: Date): Promise<RunIntervalRow | null> {
-  const rows = await getDb().select().from(runIntervals).where(and(eq(runIntervals.runId, runId), eq(runIntervals.startsAt, startsAt))).limit(1);
+  const rows = await getDb()
+    .select()
+    .from(runIntervals)
+    .where(and(eq(runIntervals.runId, runId), eq(runIntervals.startsAt, startsAt)))
+    .limit(1);
   return rows[0] ?? null;
 }
 
@@ -190,11 +275,23 @@ export async function finishedIntervalStarts(runId: string): Promise<Set<string>
  * only while that worker holds it. Returns whether the run was ended here.
  */
 export async function endRun(
-  runId: string, state: 'finished' | 'failed' | 'cancelled', progress: RunProgress | null, error: string | null = null, workerId?: string,
+  runId: string,
+  state: 'finished' | 'failed' | 'cancelled',
+  progress: RunProgress | null,
+  error: string | null = null,
+  workerId?: string,
 ): Promise<boolean> {
-  const rows = await getDb().update(runs).set({
-    state, error, finishedAt: new Date(), heartbeatAt: new Date(), ...(progress ? { progress } : {}),
-  }).where(writable(runId, workerId)).returning({ id: runs.id });
+  const rows = await getDb()
+    .update(runs)
+    .set({
+      state,
+      error,
+      finishedAt: new Date(),
+      heartbeatAt: new Date(),
+      ...(progress ? { progress } : {}),
+    })
+    .where(writable(runId, workerId))
+    .returning({ id: runs.id });
   return rows.length > 0;
 }
 
@@ -204,12 +301,18 @@ export async function endRun(
  */
 export async function requestCancel(networkId: string, runId: string): Promise<RunRow | null> {
   return getDb().transaction(async (tx) => {
-    const [row] = await tx.update(runs).set({ cancelRequested: true })
-      .where(and(eq(runs.id, runId), eq(runs.networkId, networkId))).returning();
+    const [row] = await tx
+      .update(runs)
+      .set({ cancelRequested: true })
+      .where(and(eq(runs.id, runId), eq(runs.networkId, networkId)))
+      .returning();
     if (!row) return null;
     if (row.state === 'queued') {
-      const [ended] = await tx.update(runs).set({ state: 'cancelled', finishedAt: new Date(), progress: { ...row.progress, phase: 'cancelled before it started' } })
-        .where(eq(runs.id, runId)).returning();
+      const [ended] = await tx
+        .update(runs)
+        .set({ state: 'cancelled', finishedAt: new Date(), progress: { ...row.progress, phase: 'cancelled before it started' } })
+        .where(eq(runs.id, runId))
+        .returning();
       return ended;
     }
     return row;
@@ -218,23 +321,34 @@ export async function requestCancel(networkId: string, runId: string): Promise<R
 
 /** Puts a failed or cancelled run back in the queue; its finished intervals are kept and skipped. */
 export async function requeueRun(networkId: string, runId: string): Promise<RunRow | null> {
-  const [row] = await getDb().update(runs).set({
-    state: 'queued', cancelRequested: false, error: null, finishedAt: null,
-    progress: sql`jsonb_set(${runs.progress}, '{phase}', '"waiting for a worker"')`,
-  }).where(and(eq(runs.id, runId), eq(runs.networkId, networkId), inArray(runs.state, ['failed', 'cancelled']))).returning();
+  const [row] = await getDb()
+    .update(runs)
+    .set({
+      state: 'queued',
+      cancelRequested: false,
+      error: null,
+      finishedAt: null,
+      progress: sql`jsonb_set(${runs.progress}, '{phase}', '"waiting for a worker"')`,
+    })
+    .where(and(eq(runs.id, runId), eq(runs.networkId, networkId), inArray(runs.state, ['failed', 'cancelled'])))
+    .returning();
   return row ?? null;
 }
 
 export async function deleteRun(networkId: string, runId: string): Promise<boolean> {
-  const rows = await getDb().delete(runs).where(and(eq(runs.id, runId), eq(runs.networkId, networkId))).returning({ id: runs.id });
+  const rows = await getDb()
+    .delete(runs)
+    .where(and(eq(runs.id, runId), eq(runs.networkId, networkId)))
+    .returning({ id: runs.id });
   return rows.length > 0;
 }
 
 /** Runs stuck in 'running' whose worker stopped reporting (for the sweeper to requeue). */
 export async function staleRunningRuns(olderThanS: number): Promise<RunRow[]> {
-  return getDb().select().from(runs).where(and(
-    eq(runs.state, 'running'), sql`${runs.heartbeatAt} < now() - make_interval(secs => ${olderThanS})`,
-  ));
+  return getDb()
+    .select()
+    .from(runs)
+    .where(and(eq(runs.state, 'running'), sql`${runs.heartbeatAt} < now() - make_interval(secs => ${olderThanS})`));
 }
 
 /**
@@ -246,20 +360,38 @@ export async function staleRunningRuns(olderThanS: number): Promise<RunRow[]> {
  * asked for is ended as cancelled instead (no worker will come back to stop it).
  */
 export async function sweepLapsedRuns(
-  leaseSeconds: number, queue: string, send: (runId: string) => Promise<void>, bossSchema = 'pgboss',
+  leaseSeconds: number,
+  queue: string,
+  send: (runId: string) => Promise<void>,
+  bossSchema = 'pgboss',
 ): Promise<{ continued: string[]; cancelled: string[] }> {
   return getDb().transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(hashtext('cavitas-run-sweep'))`);
     const lapsed = sql`(
       (${runs.state} = 'running' and (${runs.heartbeatAt} is null or ${runs.heartbeatAt} < now() - make_interval(secs => ${leaseSeconds})))
       or (${runs.state} = 'queued' and coalesce(${runs.heartbeatAt}, ${runs.createdAt}) < now() - make_interval(secs => ${leaseSeconds})))`;
-    const ended = await tx.update(runs).set({
-      state: 'cancelled', finishedAt: new Date(), heartbeatAt: new Date(),
-      progress: sql`jsonb_set(${runs.progress}, '{phase}', '"cancelled (its worker had stopped)"')`,
-    }).where(and(eq(runs.cancelRequested, true), lapsed)).returning({ id: runs.id });
+    const ended = await tx
+      .update(runs)
+      .set({
+        state: 'cancelled',
+        finishedAt: new Date(),
+        heartbeatAt: new Date(),
+        progress: sql`jsonb_set(${runs.progress}, '{phase}', '"cancelled (its worker had stopped)"')`,
+      })
+      .where(and(eq(runs.cancelRequested, true), lapsed))
+      .returning({ id: runs.id });
     const pending = sql.raw(`${bossSchema}.job`);
-    const rows = await tx.select({ id: runs.id }).from(runs).where(and(eq(runs.cancelRequested, false), lapsed, sql`not exists (
-      select 1 from ${pending} j where j.name = ${queue} and j.state in ('created', 'retry') and j.data->>'runId' = ${runs.id}::text)`));
+    const rows = await tx
+      .select({ id: runs.id })
+      .from(runs)
+      .where(
+        and(
+          eq(runs.cancelRequested, false),
+          lapsed,
+          sql`not exists (
+      select 1 from ${pending} j where j.name = ${queue} and j.state in ('created', 'retry') and j.data->>'runId' = ${runs.id}::text)`,
+        ),
+      );
     for (const r of rows) await send(r.id);
     return { continued: rows.map((r) => r.id), cancelled: ended.map((r) => r.id) };
   });
@@ -268,16 +400,29 @@ export async function sweepLapsedRuns(
 // ── misfit surfaces ────────────────────────────────────────────────────────
 
 /** Returns the cached surface for this spec, creating a queued one if none exists. */
-export async function getOrCreateSurface(runId: string, specKey: string, spec: Record<string, unknown>): Promise<{ row: SurfaceRow; created: boolean }> {
-  const ins = await getDb().insert(runSurfaces).values({ runId, specKey, spec })
-    .onConflictDoNothing({ target: [runSurfaces.runId, runSurfaces.specKey] }).returning();
+export async function getOrCreateSurface(
+  runId: string,
+  specKey: string,
+  spec: Record<string, unknown>,
+): Promise<{ row: SurfaceRow; created: boolean }> {
+  const ins = await getDb()
+    .insert(runSurfaces)
+    .values({ runId, specKey, spec })
+    .onConflictDoNothing({ target: [runSurfaces.runId, runSurfaces.specKey] })
+    .returning();
   if (ins.length) return { row: ins[0], created: true };
-  const [row] = await getDb().select().from(runSurfaces).where(and(eq(runSurfaces.runId, runId), eq(runSurfaces.specKey, specKey)));
+  const [row] = await getDb()
+    .select()
+    .from(runSurfaces)
+    .where(and(eq(runSurfaces.runId, runId), eq(runSurfaces.specKey, specKey)));
   return { row, created: false };
 }
 
 export async function getSurface(runId: string, surfaceId: string): Promise<SurfaceRow | null> {
-  const [row] = await getDb().select().from(runSurfaces).where(and(eq(runSurfaces.id, surfaceId), eq(runSurfaces.runId, runId)));
+  const [row] = await getDb()
+    .select()
+    .from(runSurfaces)
+    .where(and(eq(runSurfaces.id, surfaceId), eq(runSurfaces.runId, runId)));
   return row ?? null;
 }
 
@@ -286,10 +431,21 @@ export async function getSurfaceById(surfaceId: string): Promise<SurfaceRow | nu
   return row ?? null;
 }
 
-export async function setSurface(surfaceId: string, state: SurfaceRow['state'], result: Record<string, unknown> | null = null, error: string | null = null): Promise<void> {
-  await getDb().update(runSurfaces).set({
-    state, result, error, finishedAt: state === 'ready' || state === 'failed' ? new Date() : null,
-  }).where(eq(runSurfaces.id, surfaceId));
+export async function setSurface(
+  surfaceId: string,
+  state: SurfaceRow['state'],
+  result: Record<string, unknown> | null = null,
+  error: string | null = null,
+): Promise<void> {
+  await getDb()
+    .update(runSurfaces)
+    .set({
+      state,
+      result,
+      error,
+      finishedAt: state === 'ready' || state === 'failed' ? new Date() : null,
+    })
+    .where(eq(runSurfaces.id, surfaceId));
 }
 
 /** Lets a failed surface be asked for again. */
@@ -302,13 +458,21 @@ export async function resetSurface(surfaceId: string): Promise<void> {
  * finished intervals, or null when there are none (for the launch preview).
  */
 export async function measuredCostPerUnit(networkId: string, observables: 'spectrum' | 'modes'): Promise<number | null> {
-  const [row] = await getDb().select({
-    cost: sql<number | null>`percentile_cont(0.5) within group (order by ${runIntervals.seconds} /
+  const [row] = await getDb()
+    .select({
+      cost: sql<number | null>`percentile_cont(0.5) within group (order by ${runIntervals.seconds} /
       nullif(${runIntervals.nData} * ((${runIntervals.result}->>'nParams')::float8) * ((${runIntervals.result}->>'starts')::float8), 0))`,
-  }).from(runIntervals).innerJoin(runs, eq(runs.id, runIntervals.runId))
-    .where(and(eq(runs.networkId, networkId), sql`${runIntervals.nData} > 0 and ${runIntervals.seconds} > 0`,
-      sql`coalesce(${runs.config}->'observables'->>'kind', 'spectrum') = ${observables}`,
-      sql`${runIntervals.createdAt} > now() - interval '30 days'`));
+    })
+    .from(runIntervals)
+    .innerJoin(runs, eq(runs.id, runIntervals.runId))
+    .where(
+      and(
+        eq(runs.networkId, networkId),
+        sql`${runIntervals.nData} > 0 and ${runIntervals.seconds} > 0`,
+        sql`coalesce(${runs.config}->'observables'->>'kind', 'spectrum') = ${observables}`,
+        sql`${runIntervals.createdAt} > now() - interval '30 days'`,
+      ),
+    );
   const v = row?.cost === null || row?.cost === undefined ? null : Number(row.cost);
   return v !== null && Number.isFinite(v) && v > 0 ? v : null;
 }

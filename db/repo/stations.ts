@@ -4,10 +4,7 @@
  */
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { getDb } from '../client';
-import {
-  stations, stationComponents, intervals,
-  type Calibration, type InterferenceLine,
-} from '../schema/stations';
+import { stations, stationComponents, intervals, type Calibration, type InterferenceLine } from '../schema/stations';
 
 export type ComponentName = 'Ez' | 'Bns' | 'Bew';
 export type StationStatus = 'operating' | 'paused' | 'retired';
@@ -62,10 +59,15 @@ function columns(input: StationInput) {
 /** Creates a station and its components in one transaction. Throws on a duplicate code (unique violation). */
 export async function createStation(networkId: string, input: StationInput): Promise<Station> {
   return getDb().transaction(async (tx) => {
-    const [row] = await tx.insert(stations).values({ ...columns(input), networkId }).returning();
+    const [row] = await tx
+      .insert(stations)
+      .values({ ...columns(input), networkId })
+      .returning();
     const comps = input.components.length
-      ? await tx.insert(stationComponents)
-        .values(input.components.map((c) => ({ stationId: row.id, ...c }))).returning()
+      ? await tx
+          .insert(stationComponents)
+          .values(input.components.map((c) => ({ stationId: row.id, ...c })))
+          .returning()
       : [];
     return toStation(row, comps);
   });
@@ -74,14 +76,18 @@ export async function createStation(networkId: string, input: StationInput): Pro
 /** Replaces a station's fields and its component list; null when not in this network. */
 export async function updateStation(networkId: string, stationId: string, input: StationInput): Promise<Station | null> {
   return getDb().transaction(async (tx) => {
-    const [row] = await tx.update(stations)
+    const [row] = await tx
+      .update(stations)
       .set({ ...columns(input), updatedAt: new Date() })
-      .where(and(eq(stations.id, stationId), eq(stations.networkId, networkId))).returning();
+      .where(and(eq(stations.id, stationId), eq(stations.networkId, networkId)))
+      .returning();
     if (!row) return null;
     await tx.delete(stationComponents).where(eq(stationComponents.stationId, stationId));
     const comps = input.components.length
-      ? await tx.insert(stationComponents)
-        .values(input.components.map((c) => ({ stationId, ...c }))).returning()
+      ? await tx
+          .insert(stationComponents)
+          .values(input.components.map((c) => ({ stationId, ...c })))
+          .returning()
       : [];
     return toStation(row, comps);
   });
@@ -89,7 +95,9 @@ export async function updateStation(networkId: string, stationId: string, input:
 
 export async function getStation(networkId: string, stationId: string): Promise<Station | null> {
   const db = getDb();
-  const [row] = await db.select().from(stations)
+  const [row] = await db
+    .select()
+    .from(stations)
     .where(and(eq(stations.id, stationId), eq(stations.networkId, networkId)));
   if (!row) return null;
   const comps = await db.select().from(stationComponents).where(eq(stationComponents.stationId, row.id));
@@ -98,7 +106,9 @@ export async function getStation(networkId: string, stationId: string): Promise<
 
 export async function getStationByCode(networkId: string, code: string): Promise<Station | null> {
   const db = getDb();
-  const [row] = await db.select().from(stations)
+  const [row] = await db
+    .select()
+    .from(stations)
     .where(and(eq(stations.code, code), eq(stations.networkId, networkId)));
   if (!row) return null;
   const comps = await db.select().from(stationComponents).where(eq(stationComponents.stationId, row.id));
@@ -108,17 +118,22 @@ export async function getStationByCode(networkId: string, code: string): Promise
 /** All stations of a network by code, with how many intervals each holds and the newest one. */
 export async function listStations(networkId: string): Promise<StationSummary[]> {
   const db = getDb();
-  const rows = await db.select().from(stations)
-    .where(eq(stations.networkId, networkId)).orderBy(asc(stations.code));
+  const rows = await db.select().from(stations).where(eq(stations.networkId, networkId)).orderBy(asc(stations.code));
   if (rows.length === 0) return [];
-  const comps = await db.select({ c: stationComponents }).from(stationComponents)
+  const comps = await db
+    .select({ c: stationComponents })
+    .from(stationComponents)
     .innerJoin(stations, eq(stations.id, stationComponents.stationId))
     .where(eq(stations.networkId, networkId));
-  const counts = await db.select({
-    stationId: intervals.stationId,
-    n: sql<number>`count(*)::int`,
-    last: sql<Date | null>`max(${intervals.startsAt})`,
-  }).from(intervals).where(eq(intervals.networkId, networkId)).groupBy(intervals.stationId);
+  const counts = await db
+    .select({
+      stationId: intervals.stationId,
+      n: sql<number>`count(*)::int`,
+      last: sql<Date | null>`max(${intervals.startsAt})`,
+    })
+    .from(intervals)
+    .where(eq(intervals.networkId, networkId))
+    .groupBy(intervals.stationId);
   const byId = new Map(counts.map((c) => [c.stationId, c]));
   const allComps = comps.map((r) => r.c);
   return rows.map((r) => {
@@ -133,7 +148,9 @@ export async function listStations(networkId: string): Promise<StationSummary[]>
 
 /** Deletes a station with its uploads, intervals and tokens; false when not in this network. */
 export async function deleteStation(networkId: string, stationId: string): Promise<boolean> {
-  const rows = await getDb().delete(stations)
-    .where(and(eq(stations.id, stationId), eq(stations.networkId, networkId))).returning({ id: stations.id });
+  const rows = await getDb()
+    .delete(stations)
+    .where(and(eq(stations.id, stationId), eq(stations.networkId, networkId)))
+    .returning({ id: stations.id });
   return rows.length > 0;
 }

@@ -27,7 +27,9 @@ export interface UploadWriter {
 export const UPLOAD_CHUNK_BYTES = 1 << 20;
 
 class Duplicate extends Error {
-  constructor(readonly existing: UploadRow) { super('duplicate upload'); }
+  constructor(readonly existing: UploadRow) {
+    super('duplicate upload');
+  }
 }
 
 /**
@@ -43,8 +45,10 @@ export async function storeUpload(
   let checksum: string | null = null;
   try {
     const upload = await getDb().transaction(async (tx) => {
-      const [row] = await tx.insert(uploads)
-        .values({ ...meta, sha256: `pending:${crypto.randomUUID()}`, sizeBytes: 0 }).returning();
+      const [row] = await tx
+        .insert(uploads)
+        .values({ ...meta, sha256: `pending:${crypto.randomUUID()}`, sizeBytes: 0 })
+        .returning();
       let seq = 0;
       let pending: Buffer[] = [];
       let pendingBytes = 0;
@@ -63,11 +67,12 @@ export async function storeUpload(
       });
       await flush();
       checksum = sha256;
-      const [existing] = await tx.select().from(uploads)
+      const [existing] = await tx
+        .select()
+        .from(uploads)
         .where(and(eq(uploads.networkId, meta.networkId), eq(uploads.sha256, sha256)));
       if (existing) throw new Duplicate(existing);
-      const [done] = await tx.update(uploads).set({ sha256, sizeBytes })
-        .where(eq(uploads.id, row.id)).returning();
+      const [done] = await tx.update(uploads).set({ sha256, sizeBytes }).where(eq(uploads.id, row.id)).returning();
       return done;
     });
     return { upload, duplicate: false };
@@ -76,7 +81,9 @@ export async function storeUpload(
     // The same file committed by a parallel request between our check and our commit (23505 unique_violation).
     const code = (e as { code?: string; cause?: { code?: string } }).code ?? (e as { cause?: { code?: string } }).cause?.code;
     if (code === '23505' && checksum) {
-      const [existing] = await getDb().select().from(uploads)
+      const [existing] = await getDb()
+        .select()
+        .from(uploads)
         .where(and(eq(uploads.networkId, meta.networkId), eq(uploads.sha256, checksum)));
       if (existing) return { upload: existing, duplicate: true };
     }
@@ -87,17 +94,24 @@ export async function storeUpload(
 /** The stored bytes of an upload, one chunk at a time (memory stays at one chunk). */
 export async function* readUploadBytes(uploadId: string): AsyncGenerator<Buffer> {
   const db = getDb();
-  const seqs = await db.select({ seq: uploadChunks.seq }).from(uploadChunks)
-    .where(eq(uploadChunks.uploadId, uploadId)).orderBy(asc(uploadChunks.seq));
+  const seqs = await db
+    .select({ seq: uploadChunks.seq })
+    .from(uploadChunks)
+    .where(eq(uploadChunks.uploadId, uploadId))
+    .orderBy(asc(uploadChunks.seq));
   for (const { seq } of seqs) {
-    const [c] = await db.select({ data: uploadChunks.data }).from(uploadChunks)
+    const [c] = await db
+      .select({ data: uploadChunks.data })
+      .from(uploadChunks)
       .where(and(eq(uploadChunks.uploadId, uploadId), eq(uploadChunks.seq, seq)));
     yield c.data;
   }
 }
 
 export async function getUpload(networkId: string, uploadId: string): Promise<UploadRow | null> {
-  const [row] = await getDb().select().from(uploads)
+  const [row] = await getDb()
+    .select()
+    .from(uploads)
     .where(and(eq(uploads.id, uploadId), eq(uploads.networkId, networkId)));
   return row ?? null;
 }
@@ -114,18 +128,31 @@ export async function listUploads(networkId: string, stationId?: string): Promis
   const where = stationId
     ? and(eq(uploads.networkId, networkId), eq(uploads.stationId, stationId))
     : eq(uploads.networkId, networkId);
-  const rows = await getDb().select({ u: uploads, stationCode: stations.code }).from(uploads)
+  const rows = await getDb()
+    .select({ u: uploads, stationCode: stations.code })
+    .from(uploads)
     .innerJoin(stations, eq(stations.id, uploads.stationId))
-    .where(where).orderBy(desc(uploads.createdAt)).limit(500);
+    .where(where)
+    .orderBy(desc(uploads.createdAt))
+    .limit(500);
   return rows.map((r) => ({ ...r.u, stationCode: r.stationCode }));
 }
 
 /** Claims an upload for processing; null if it is not queued (already taken or finished). */
 export async function beginProcessing(uploadId: string): Promise<UploadRow | null> {
-  const [row] = await getDb().update(uploads).set({
-    state: 'processing', startedAt: new Date(), finishedAt: null, error: null,
-    progress: 0, progressNote: 'starting', attempts: sql`${uploads.attempts} + 1`,
-  }).where(and(eq(uploads.id, uploadId), eq(uploads.state, 'queued'))).returning();
+  const [row] = await getDb()
+    .update(uploads)
+    .set({
+      state: 'processing',
+      startedAt: new Date(),
+      finishedAt: null,
+      error: null,
+      progress: 0,
+      progressNote: 'starting',
+      attempts: sql`${uploads.attempts} + 1`,
+    })
+    .where(and(eq(uploads.id, uploadId), eq(uploads.state, 'queued')))
+    .returning();
   return row ?? null;
 }
 
@@ -134,15 +161,28 @@ export async function setProgress(uploadId: string, progress: number, note: stri
 }
 
 export async function finishUpload(uploadId: string, intervalCount: number): Promise<void> {
-  await getDb().update(uploads).set({
-    state: 'done', progress: 1, progressNote: 'done', intervalCount, finishedAt: new Date(),
-  }).where(eq(uploads.id, uploadId));
+  await getDb()
+    .update(uploads)
+    .set({
+      state: 'done',
+      progress: 1,
+      progressNote: 'done',
+      intervalCount,
+      finishedAt: new Date(),
+    })
+    .where(eq(uploads.id, uploadId));
 }
 
 export async function failUpload(uploadId: string, reason: string): Promise<void> {
-  await getDb().update(uploads).set({
-    state: 'failed', error: reason, progressNote: 'failed', finishedAt: new Date(),
-  }).where(eq(uploads.id, uploadId));
+  await getDb()
+    .update(uploads)
+    .set({
+      state: 'failed',
+      error: reason,
+      progressNote: 'failed',
+      finishedAt: new Date(),
+    })
+    .where(eq(uploads.id, uploadId));
 }
 
 /** Seconds after which an upload still "processing" counts as abandoned (its worker stopped). */
@@ -150,18 +190,37 @@ export const ABANDONED_AFTER_S = 3600;
 
 /** Puts a failed (or abandoned) upload back in the queue; null when it is neither. */
 export async function requeueFailed(networkId: string, uploadId: string): Promise<UploadRow | null> {
-  const [row] = await getDb().update(uploads).set({
-    state: 'queued', error: null, progress: 0, progressNote: 'queued again', finishedAt: null,
-  }).where(and(eq(uploads.id, uploadId), eq(uploads.networkId, networkId), or(
-    eq(uploads.state, 'failed'),
-    and(eq(uploads.state, 'processing'), sql`${uploads.startedAt} < now() - make_interval(secs => ${ABANDONED_AFTER_S}::float8)`),
-  ))).returning();
+  const [row] = await getDb()
+    .update(uploads)
+    .set({
+      state: 'queued',
+      error: null,
+      progress: 0,
+      progressNote: 'queued again',
+      finishedAt: null,
+    })
+    .where(
+      and(
+        eq(uploads.id, uploadId),
+        eq(uploads.networkId, networkId),
+        or(
+          eq(uploads.state, 'failed'),
+          and(
+            eq(uploads.state, 'processing'),
+            sql`${uploads.startedAt} < now() - make_interval(secs => ${ABANDONED_AFTER_S}::float8)`,
+          ),
+        ),
+      ),
+    )
+    .returning();
   return row ?? null;
 }
 
 /** Deletes an upload and its bytes (intervals made from it stay, losing the link). */
 export async function deleteUpload(networkId: string, uploadId: string): Promise<boolean> {
-  const rows = await getDb().delete(uploads)
-    .where(and(eq(uploads.id, uploadId), eq(uploads.networkId, networkId))).returning({ id: uploads.id });
+  const rows = await getDb()
+    .delete(uploads)
+    .where(and(eq(uploads.id, uploadId), eq(uploads.networkId, networkId)))
+    .returning({ id: uploads.id });
   return rows.length > 0;
 }

@@ -51,7 +51,10 @@ export async function insertUser(u: NewUser, db: Executor = getDb()): Promise<Us
 }
 
 export async function findUserByEmail(email: string): Promise<UserRow | null> {
-  const [row] = await getDb().select().from(users).where(eq(users.email, normalizeEmail(email)));
+  const [row] = await getDb()
+    .select()
+    .from(users)
+    .where(eq(users.email, normalizeEmail(email)));
   return row ?? null;
 }
 
@@ -74,14 +77,22 @@ export async function deleteUserSessions(userId: string): Promise<void> {
 
 // ── Password reset ───────────────────────────────────────────────────────────
 
-export async function insertPasswordReset(userId: string, tokenHash: string, expiresAt: Date, createdAt = new Date()): Promise<void> {
+export async function insertPasswordReset(
+  userId: string,
+  tokenHash: string,
+  expiresAt: Date,
+  createdAt = new Date(),
+): Promise<void> {
   await getDb().insert(passwordResets).values({ userId, tokenHash, expiresAt, createdAt });
 }
 
 /** When reset links were issued for an account since `since`, oldest first. */
 export async function resetTimesSince(userId: string, since: Date): Promise<Date[]> {
-  const rows = await getDb().select({ t: passwordResets.createdAt }).from(passwordResets)
-    .where(and(eq(passwordResets.userId, userId), gte(passwordResets.createdAt, since))).orderBy(asc(passwordResets.createdAt));
+  const rows = await getDb()
+    .select({ t: passwordResets.createdAt })
+    .from(passwordResets)
+    .where(and(eq(passwordResets.userId, userId), gte(passwordResets.createdAt, since)))
+    .orderBy(asc(passwordResets.createdAt));
   return rows.map((r) => r.t);
 }
 
@@ -151,6 +162,8 @@ export async function writeSettings(values: Record<string, unknown>): Promise<vo
 }
 
 export async function countUsers(): Promise<number> {
-  const [row] = await getDb().select({ n: sql<number>`count(*)::int` }).from(users);
+  const [row] = await getDb()
+    .select({ n: sql<number>`count(*)::int` })
+    .from(users);
   return row.n;
 }

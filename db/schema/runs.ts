@@ -5,8 +5,18 @@
  */
 import { sql } from 'drizzle-orm';
 import {
-  pgTable, pgEnum, uuid, text, integer, doublePrecision, timestamp, jsonb, boolean,
-  uniqueIndex, index, check,
+  pgTable,
+  pgEnum,
+  uuid,
+  text,
+  integer,
+  doublePrecision,
+  timestamp,
+  jsonb,
+  boolean,
+  uniqueIndex,
+  index,
+  check,
 } from 'drizzle-orm/pg-core';
 import { networks } from './networks';
 import { users } from './auth';
@@ -18,42 +28,54 @@ export const surfaceState = pgEnum('surface_state', ['queued', 'running', 'ready
  * A cavity model version. `lineageId` groups the versions of one model; the row
  * id is what a run pins. `config` is the engine's CavityConfig (plain JSON).
  */
-export const cavityModels = pgTable('cavity_models', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  networkId: uuid('network_id').notNull().references(() => networks.id, { onDelete: 'cascade' }),
-  lineageId: uuid('lineage_id').notNull(),
-  version: integer('version').notNull(),
-  name: text('name').notNull(),
-  notes: text('notes').notNull().default(''),
-  config: jsonb('config').$type<Record<string, unknown>>().notNull(),
-  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [
-  uniqueIndex('cavity_models_lineage_version_uq').on(t.lineageId, t.version),
-  index('cavity_models_network_idx').on(t.networkId),
-  check('cavity_models_version_ck', sql`${t.version} >= 1`),
-]);
+export const cavityModels = pgTable(
+  'cavity_models',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    networkId: uuid('network_id')
+      .notNull()
+      .references(() => networks.id, { onDelete: 'cascade' }),
+    lineageId: uuid('lineage_id').notNull(),
+    version: integer('version').notNull(),
+    name: text('name').notNull(),
+    notes: text('notes').notNull().default(''),
+    config: jsonb('config').$type<Record<string, unknown>>().notNull(),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('cavity_models_lineage_version_uq').on(t.lineageId, t.version),
+    index('cavity_models_network_idx').on(t.networkId),
+    check('cavity_models_version_ck', sql`${t.version} >= 1`),
+  ],
+);
 
 /**
  * A source grid version: the global cell size and the named regions drawn on it
  * (`regions` holds the validated list, see src/runs/grid-spec.ts).
  */
-export const sourceGrids = pgTable('source_grids', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  networkId: uuid('network_id').notNull().references(() => networks.id, { onDelete: 'cascade' }),
-  lineageId: uuid('lineage_id').notNull(),
-  version: integer('version').notNull(),
-  name: text('name').notNull(),
-  notes: text('notes').notNull().default(''),
-  cellSizeDeg: doublePrecision('cell_size_deg').notNull(),
-  regions: jsonb('regions').$type<unknown[]>().notNull(),
-  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [
-  uniqueIndex('source_grids_lineage_version_uq').on(t.lineageId, t.version),
-  index('source_grids_network_idx').on(t.networkId),
-  check('source_grids_cell_ck', sql`${t.cellSizeDeg} > 0 and ${t.cellSizeDeg} <= 30`),
-]);
+export const sourceGrids = pgTable(
+  'source_grids',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    networkId: uuid('network_id')
+      .notNull()
+      .references(() => networks.id, { onDelete: 'cascade' }),
+    lineageId: uuid('lineage_id').notNull(),
+    version: integer('version').notNull(),
+    name: text('name').notNull(),
+    notes: text('notes').notNull().default(''),
+    cellSizeDeg: doublePrecision('cell_size_deg').notNull(),
+    regions: jsonb('regions').$type<unknown[]>().notNull(),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('source_grids_lineage_version_uq').on(t.lineageId, t.version),
+    index('source_grids_network_idx').on(t.networkId),
+    check('source_grids_cell_ck', sql`${t.cellSizeDeg} > 0 and ${t.cellSizeDeg} <= 30`),
+  ],
+);
 
 /** What a run is doing right now, written by the worker as it goes. */
 export type RunProgress = {
@@ -65,50 +87,72 @@ export type RunProgress = {
   etaSeconds: number | null;
 };
 
-export const runs = pgTable('runs', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  networkId: uuid('network_id').notNull().references(() => networks.id, { onDelete: 'cascade' }),
-  name: text('name').notNull(),
-  state: runState('state').notNull().default('queued'),
-  /** The full launch configuration (src/runs/config.ts RunConfig). */
-  config: jsonb('config').$type<Record<string, unknown>>().notNull(),
-  modelId: uuid('model_id').notNull().references(() => cavityModels.id, { onDelete: 'restrict' }),
-  gridId: uuid('grid_id').notNull().references(() => sourceGrids.id, { onDelete: 'restrict' }),
-  engineVersion: text('engine_version').notNull(),
-  /** The interval start times (ISO) the run covers, fixed at launch. */
-  intervalStarts: jsonb('interval_starts').$type<string[]>().notNull(),
-  progress: jsonb('progress').$type<RunProgress>().notNull(),
-  cancelRequested: boolean('cancel_requested').notNull().default(false),
-  error: text('error'),
-  attempts: integer('attempts').notNull().default(0),
-  workerId: text('worker_id'),
-  heartbeatAt: timestamp('heartbeat_at', { withTimezone: true }),
-  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  startedAt: timestamp('started_at', { withTimezone: true }),
-  finishedAt: timestamp('finished_at', { withTimezone: true }),
-}, (t) => [index('runs_network_created_idx').on(t.networkId, t.createdAt)]);
+export const runs = pgTable(
+  'runs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    networkId: uuid('network_id')
+      .notNull()
+      .references(() => networks.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    state: runState('state').notNull().default('queued'),
+    /** The full launch configuration (src/runs/config.ts RunConfig). */
+    config: jsonb('config').$type<Record<string, unknown>>().notNull(),
+    modelId: uuid('model_id')
+      .notNull()
+      .references(() => cavityModels.id, { onDelete: 'restrict' }),
+    gridId: uuid('grid_id')
+      .notNull()
+      .references(() => sourceGrids.id, { onDelete: 'restrict' }),
+    engineVersion: text('engine_version').notNull(),
+    /** The interval start times (ISO) the run covers, fixed at launch. */
+    intervalStarts: jsonb('interval_starts').$type<string[]>().notNull(),
+    progress: jsonb('progress').$type<RunProgress>().notNull(),
+    cancelRequested: boolean('cancel_requested').notNull().default(false),
+    error: text('error'),
+    attempts: integer('attempts').notNull().default(0),
+    workerId: text('worker_id'),
+    heartbeatAt: timestamp('heartbeat_at', { withTimezone: true }),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [index('runs_network_created_idx').on(t.networkId, t.createdAt)],
+);
 
 /** One finished interval of a run: its minima (engine result, plain JSON). */
-export const runIntervals = pgTable('run_intervals', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  runId: uuid('run_id').notNull().references(() => runs.id, { onDelete: 'cascade' }),
-  startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
-  nData: integer('n_data').notNull(),
-  result: jsonb('result').$type<Record<string, unknown>>().notNull(),
-  seconds: doublePrecision('seconds').notNull(),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [uniqueIndex('run_intervals_run_start_uq').on(t.runId, t.startsAt)]);
+export const runIntervals = pgTable(
+  'run_intervals',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    runId: uuid('run_id')
+      .notNull()
+      .references(() => runs.id, { onDelete: 'cascade' }),
+    startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
+    nData: integer('n_data').notNull(),
+    result: jsonb('result').$type<Record<string, unknown>>().notNull(),
+    seconds: doublePrecision('seconds').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('run_intervals_run_start_uq').on(t.runId, t.startsAt)],
+);
 
 /** A misfit surface over two parameters around one minimum, computed on request and cached by `specKey`. */
-export const runSurfaces = pgTable('run_surfaces', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  runId: uuid('run_id').notNull().references(() => runs.id, { onDelete: 'cascade' }),
-  specKey: text('spec_key').notNull(),
-  spec: jsonb('spec').$type<Record<string, unknown>>().notNull(),
-  state: surfaceState('state').notNull().default('queued'),
-  result: jsonb('result').$type<Record<string, unknown>>(),
-  error: text('error'),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  finishedAt: timestamp('finished_at', { withTimezone: true }),
-}, (t) => [uniqueIndex('run_surfaces_run_spec_uq').on(t.runId, t.specKey)]);
+export const runSurfaces = pgTable(
+  'run_surfaces',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    runId: uuid('run_id')
+      .notNull()
+      .references(() => runs.id, { onDelete: 'cascade' }),
+    specKey: text('spec_key').notNull(),
+    spec: jsonb('spec').$type<Record<string, unknown>>().notNull(),
+    state: surfaceState('state').notNull().default('queued'),
+    result: jsonb('result').$type<Record<string, unknown>>(),
+    error: text('error'),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [uniqueIndex('run_surfaces_run_spec_uq').on(t.runId, t.specKey)],
+);

@@ -5,8 +5,21 @@
  */
 import { sql } from 'drizzle-orm';
 import {
-  pgTable, pgEnum, uuid, text, doublePrecision, integer, bigint, timestamp, jsonb, real,
-  customType, uniqueIndex, index, primaryKey, check,
+  pgTable,
+  pgEnum,
+  uuid,
+  text,
+  doublePrecision,
+  integer,
+  bigint,
+  timestamp,
+  jsonb,
+  real,
+  customType,
+  uniqueIndex,
+  index,
+  primaryKey,
+  check,
 } from 'drizzle-orm/pg-core';
 import { networks } from './networks';
 import { users } from './auth';
@@ -27,98 +40,139 @@ export type InterferenceLine = { frequencyHz: number; label: string };
 
 /** How raw readings become physical units (V/m for Ez, T for Bns/Bew). */
 export type Calibration =
-  | { kind: 'gain'; gain: number }
-  | { kind: 'response'; points: { frequencyHz: number; amplitude: number; phaseDeg: number }[] };
+  { kind: 'gain'; gain: number } | { kind: 'response'; points: { frequencyHz: number; amplitude: number; phaseDeg: number }[] };
 
-export const stations = pgTable('stations', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  networkId: uuid('network_id').notNull().references(() => networks.id, { onDelete: 'cascade' }),
-  code: text('code').notNull(),
-  name: text('name').notNull(),
-  latitude: doublePrecision('latitude').notNull(),
-  longitude: doublePrecision('longitude').notNull(),
-  elevationM: doublePrecision('elevation_m'),
-  mainsHz: integer('mains_hz').notNull().default(50),
-  interferenceLines: jsonb('interference_lines').$type<InterferenceLine[]>().notNull().default([]),
-  sampleRateHz: doublePrecision('sample_rate_hz').notNull(),
-  notes: text('notes').notNull().default(''),
-  status: stationStatus('status').notNull().default('operating'),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [
-  uniqueIndex('stations_network_code_uq').on(t.networkId, t.code),
-  check('stations_lat_ck', sql`${t.latitude} between -90 and 90`),
-  check('stations_lon_ck', sql`${t.longitude} between -180 and 180`),
-  check('stations_mains_ck', sql`${t.mainsHz} in (50, 60)`),
-  check('stations_rate_ck', sql`${t.sampleRateHz} > 0`),
-]);
+export const stations = pgTable(
+  'stations',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    networkId: uuid('network_id')
+      .notNull()
+      .references(() => networks.id, { onDelete: 'cascade' }),
+    code: text('code').notNull(),
+    name: text('name').notNull(),
+    latitude: doublePrecision('latitude').notNull(),
+    longitude: doublePrecision('longitude').notNull(),
+    elevationM: doublePrecision('elevation_m'),
+    mainsHz: integer('mains_hz').notNull().default(50),
+    interferenceLines: jsonb('interference_lines').$type<InterferenceLine[]>().notNull().default([]),
+    sampleRateHz: doublePrecision('sample_rate_hz').notNull(),
+    notes: text('notes').notNull().default(''),
+    status: stationStatus('status').notNull().default('operating'),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('stations_network_code_uq').on(t.networkId, t.code),
+    check('stations_lat_ck', sql`${t.latitude} between -90 and 90`),
+    check('stations_lon_ck', sql`${t.longitude} between -180 and 180`),
+    check('stations_mains_ck', sql`${t.mainsHz} in (50, 60)`),
+    check('stations_rate_ck', sql`${t.sampleRateHz} > 0`),
+  ],
+);
 
-export const stationComponents = pgTable('station_components', {
-  stationId: uuid('station_id').notNull().references(() => stations.id, { onDelete: 'cascade' }),
-  component: stationComponent('component').notNull(),
-  calibration: jsonb('calibration').$type<Calibration>().notNull(),
-}, (t) => [primaryKey({ columns: [t.stationId, t.component] })]);
+export const stationComponents = pgTable(
+  'station_components',
+  {
+    stationId: uuid('station_id')
+      .notNull()
+      .references(() => stations.id, { onDelete: 'cascade' }),
+    component: stationComponent('component').notNull(),
+    calibration: jsonb('calibration').$type<Calibration>().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.stationId, t.component] })],
+);
 
-export const uploads = pgTable('uploads', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  networkId: uuid('network_id').notNull().references(() => networks.id, { onDelete: 'cascade' }),
-  stationId: uuid('station_id').notNull().references(() => stations.id, { onDelete: 'cascade' }),
-  uploadedBy: text('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
-  fileName: text('file_name').notNull(),
-  format: uploadFormat('format').notNull(),
-  sizeBytes: bigint('size_bytes', { mode: 'number' }).notNull(),
-  sha256: text('sha256').notNull(),
-  state: uploadState('state').notNull().default('queued'),
-  progress: real('progress').notNull().default(0),
-  progressNote: text('progress_note').notNull().default(''),
-  error: text('error'),
-  attempts: integer('attempts').notNull().default(0),
-  intervalCount: integer('interval_count').notNull().default(0),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  startedAt: timestamp('started_at', { withTimezone: true }),
-  finishedAt: timestamp('finished_at', { withTimezone: true }),
-}, (t) => [
-  uniqueIndex('uploads_network_sha_uq').on(t.networkId, t.sha256),
-  index('uploads_station_idx').on(t.stationId, t.createdAt),
-]);
+export const uploads = pgTable(
+  'uploads',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    networkId: uuid('network_id')
+      .notNull()
+      .references(() => networks.id, { onDelete: 'cascade' }),
+    stationId: uuid('station_id')
+      .notNull()
+      .references(() => stations.id, { onDelete: 'cascade' }),
+    uploadedBy: text('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+    fileName: text('file_name').notNull(),
+    format: uploadFormat('format').notNull(),
+    sizeBytes: bigint('size_bytes', { mode: 'number' }).notNull(),
+    sha256: text('sha256').notNull(),
+    state: uploadState('state').notNull().default('queued'),
+    progress: real('progress').notNull().default(0),
+    progressNote: text('progress_note').notNull().default(''),
+    error: text('error'),
+    attempts: integer('attempts').notNull().default(0),
+    intervalCount: integer('interval_count').notNull().default(0),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [
+    uniqueIndex('uploads_network_sha_uq').on(t.networkId, t.sha256),
+    index('uploads_station_idx').on(t.stationId, t.createdAt),
+  ],
+);
 
-export const uploadChunks = pgTable('upload_chunks', {
-  uploadId: uuid('upload_id').notNull().references(() => uploads.id, { onDelete: 'cascade' }),
-  seq: integer('seq').notNull(),
-  data: bytea('data').notNull(),
-}, (t) => [primaryKey({ columns: [t.uploadId, t.seq] })]);
+export const uploadChunks = pgTable(
+  'upload_chunks',
+  {
+    uploadId: uuid('upload_id')
+      .notNull()
+      .references(() => uploads.id, { onDelete: 'cascade' }),
+    seq: integer('seq').notNull(),
+    data: bytea('data').notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.uploadId, t.seq] })],
+);
 
 /** Automatic quality flags of an interval (names from the pipeline) live in `qualityFlags`. */
-export const intervals = pgTable('intervals', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  networkId: uuid('network_id').notNull().references(() => networks.id, { onDelete: 'cascade' }),
-  stationId: uuid('station_id').notNull().references(() => stations.id, { onDelete: 'cascade' }),
-  component: stationComponent('component').notNull(),
-  startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
-  durationS: integer('duration_s').notNull().default(600),
-  origin: intervalOrigin('origin').notNull(),
-  uploadId: uuid('upload_id').references(() => uploads.id, { onDelete: 'set null' }),
-  rejectedShare: real('rejected_share').notNull().default(0),
-  qualityFlags: text('quality_flags').array().notNull().default(sql`'{}'::text[]`),
-  flagReason: text('flag_reason'),
-  flaggedBy: text('flagged_by').references(() => users.id, { onDelete: 'set null' }),
-  flaggedAt: timestamp('flagged_at', { withTimezone: true }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [
-  uniqueIndex('intervals_station_component_start_uq').on(t.stationId, t.component, t.startsAt),
-  index('intervals_network_start_idx').on(t.networkId, t.startsAt),
-]);
+export const intervals = pgTable(
+  'intervals',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    networkId: uuid('network_id')
+      .notNull()
+      .references(() => networks.id, { onDelete: 'cascade' }),
+    stationId: uuid('station_id')
+      .notNull()
+      .references(() => stations.id, { onDelete: 'cascade' }),
+    component: stationComponent('component').notNull(),
+    startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
+    durationS: integer('duration_s').notNull().default(600),
+    origin: intervalOrigin('origin').notNull(),
+    uploadId: uuid('upload_id').references(() => uploads.id, { onDelete: 'set null' }),
+    rejectedShare: real('rejected_share').notNull().default(0),
+    qualityFlags: text('quality_flags')
+      .array()
+      .notNull()
+      .default(sql`'{}'::text[]`),
+    flagReason: text('flag_reason'),
+    flaggedBy: text('flagged_by').references(() => users.id, { onDelete: 'set null' }),
+    flaggedAt: timestamp('flagged_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('intervals_station_component_start_uq').on(t.stationId, t.component, t.startsAt),
+    index('intervals_network_start_idx').on(t.networkId, t.startsAt),
+  ],
+);
 
 /** One-sided PSD of an interval in SI units ((V/m)^2/Hz for Ez, T^2/Hz for Bns/Bew). */
 export const intervalSpectra = pgTable('interval_spectra', {
-  intervalId: uuid('interval_id').primaryKey().references(() => intervals.id, { onDelete: 'cascade' }),
+  intervalId: uuid('interval_id')
+    .primaryKey()
+    .references(() => intervals.id, { onDelete: 'cascade' }),
   frequencies: doublePrecision('frequencies').array().notNull(),
   power: doublePrecision('power').array().notNull(),
   segments: integer('segments').notNull(),
 });
 
 export type StoredMode = {
-  frequency: number; amplitude: number; halfWidth: number; q: number;
+  frequency: number;
+  amplitude: number;
+  halfWidth: number;
+  q: number;
   errors: { frequency: number; amplitude: number; halfWidth: number };
 };
 
@@ -129,7 +183,9 @@ export type StoredMode = {
  * were recorded have them null.
  */
 export const intervalFits = pgTable('interval_fits', {
-  intervalId: uuid('interval_id').primaryKey().references(() => intervals.id, { onDelete: 'cascade' }),
+  intervalId: uuid('interval_id')
+    .primaryKey()
+    .references(() => intervals.id, { onDelete: 'cascade' }),
   modes: jsonb('modes').$type<StoredMode[]>().notNull(),
   background: jsonb('background').$type<{ b0: number; b1: number }>().notNull(),
   misfit: doublePrecision('misfit').notNull(),
@@ -140,19 +196,27 @@ export const intervalFits = pgTable('interval_fits', {
   excluded: jsonb('excluded_ranges').$type<{ minHz: number; maxHz: number }[]>(),
 });
 
-export const pushTokens = pgTable('push_tokens', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  networkId: uuid('network_id').notNull().references(() => networks.id, { onDelete: 'cascade' }),
-  stationId: uuid('station_id').notNull().references(() => stations.id, { onDelete: 'cascade' }),
-  label: text('label').notNull(),
-  /** SHA-256 (hex) of the secret; the secret itself is shown once and never stored. */
-  secretHash: text('secret_hash').notNull(),
-  hint: text('hint').notNull(),
-  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  expiresAt: timestamp('expires_at', { withTimezone: true }),
-  revokedAt: timestamp('revoked_at', { withTimezone: true }),
-  lastUsedAt: timestamp('last_used_at', { withTimezone: true }),
-  windowStartedAt: timestamp('window_started_at', { withTimezone: true }).notNull().defaultNow(),
-  windowCount: integer('window_count').notNull().default(0),
-}, (t) => [uniqueIndex('push_tokens_secret_uq').on(t.secretHash)]);
+export const pushTokens = pgTable(
+  'push_tokens',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    networkId: uuid('network_id')
+      .notNull()
+      .references(() => networks.id, { onDelete: 'cascade' }),
+    stationId: uuid('station_id')
+      .notNull()
+      .references(() => stations.id, { onDelete: 'cascade' }),
+    label: text('label').notNull(),
+    /** SHA-256 (hex) of the secret; the secret itself is shown once and never stored. */
+    secretHash: text('secret_hash').notNull(),
+    hint: text('hint').notNull(),
+    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+    lastUsedAt: timestamp('last_used_at', { withTimezone: true }),
+    windowStartedAt: timestamp('window_started_at', { withTimezone: true }).notNull().defaultNow(),
+    windowCount: integer('window_count').notNull().default(0),
+  },
+  (t) => [uniqueIndex('push_tokens_secret_uq').on(t.secretHash)],
+);

@@ -37,9 +37,15 @@ export const nameSchema = z
   .max(120, { error: 'Keep the name to 120 characters or fewer.' });
 
 export const signUpSchema = z.object({ email: emailSchema, name: nameSchema, password: passwordSchema });
-export const signInSchema = z.object({ email: emailSchema, password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }) });
+export const signInSchema = z.object({
+  email: emailSchema,
+  password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }),
+});
 export const resetRequestSchema = z.object({ email: emailSchema });
-export const resetConfirmSchema = z.object({ token: z.string().min(10, { error: 'The reset link is incomplete.' }), password: passwordSchema });
+export const resetConfirmSchema = z.object({
+  token: z.string().min(10, { error: 'The reset link is incomplete.' }),
+  password: passwordSchema,
+});
 
 export function publicUser(u: Pick<UserRow, 'id' | 'email' | 'name' | 'isAdmin'>): User {
   return { id: u.id, email: u.email, name: u.name, isAdmin: u.isAdmin };
@@ -52,7 +58,12 @@ export function newUserId(): string {
 export async function signUp(input: z.infer<typeof signUpSchema>): Promise<{ user: User; cookie: string }> {
   const settings = await getInstanceSettings();
   if (!settings.openSignUp) throw forbidden('New accounts on this instance need an invitation from a network owner.');
-  const row = await insertUser({ id: newUserId(), email: input.email, name: input.name, passwordHash: await hashPassword(input.password) });
+  const row = await insertUser({
+    id: newUserId(),
+    email: input.email,
+    name: input.name,
+    passwordHash: await hashPassword(input.password),
+  });
   return { user: publicUser(row), cookie: await startSession(row.id) };
 }
 
@@ -90,7 +101,9 @@ export async function requestPasswordReset(email: string, origin: string, now = 
   const user = await findUserByEmail(email);
   if (!user) return;
   if (!(await mayMailReset(user.id, now))) {
-    console.warn(`[cavitas] password-reset mail for account ${user.id} not sent: ${MAIL_LIMITS.resetsPerAccount} links within the last hour`);
+    console.warn(
+      `[cavitas] password-reset mail for account ${user.id} not sent: ${MAIL_LIMITS.resetsPerAccount} links within the last hour`,
+    );
     return;
   }
   const token = newToken();

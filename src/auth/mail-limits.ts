@@ -16,7 +16,10 @@ export const MAIL_LIMITS = { resetsPerAccount: 3, invitationsPerSender: 20, wind
 
 /** Pure: milliseconds until one more may be sent, or 0 when one may be sent now. */
 export function waitBeforeNext(times: readonly Date[], allowance: number, now: Date, windowMs = MAIL_LIMITS.windowMs): number {
-  const recent = times.filter((t) => now.getTime() - t.getTime() < windowMs).map((t) => t.getTime()).sort((a, b) => a - b);
+  const recent = times
+    .filter((t) => now.getTime() - t.getTime() < windowMs)
+    .map((t) => t.getTime())
+    .sort((a, b) => a - b);
   if (recent.length < allowance) return 0;
   // The oldest of the last `allowance` sends must leave the window first.
   return recent[recent.length - allowance] + windowMs - now.getTime();
@@ -33,6 +36,8 @@ export async function assertMayInvite(userId: string, now: Date): Promise<void> 
   const times = await invitationTimesSince(userId, new Date(now.getTime() - MAIL_LIMITS.windowMs));
   const wait = waitBeforeNext(times, MAIL_LIMITS.invitationsPerSender, now);
   if (wait > 0) {
-    throw tooManyRequests(`You have sent ${MAIL_LIMITS.invitationsPerSender} invitations within the last hour. Try again in ${describeWait(wait)}.`);
+    throw tooManyRequests(
+      `You have sent ${MAIL_LIMITS.invitationsPerSender} invitations within the last hour. Try again in ${describeWait(wait)}.`,
+    );
   }
 }

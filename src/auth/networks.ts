@@ -138,4 +138,3 @@ export async function acceptInvitationAs(
   const r = await acceptInvitation(tokenHash, { userId: user.id, email: user.email }, now);
   return { networkId: r.networkId, role: r.role, cookie: await startSession(user.id) };
 }
-

@@ -7,7 +7,13 @@
 import { clearThrottleRows, getThrottleRows, saveThrottleRow, type ThrottleRow } from '@/db/repo/users';
 import { tooManyRequests } from '@/src/server/errors';
 
-export const THROTTLE = { allowance: 5, addressAllowance: 20, windowMs: 15 * 60_000, baseLockMs: 30_000, maxLockMs: 15 * 60_000 } as const;
+export const THROTTLE = {
+  allowance: 5,
+  addressAllowance: 20,
+  windowMs: 15 * 60_000,
+  baseLockMs: 30_000,
+  maxLockMs: 15 * 60_000,
+} as const;
 
 /** Pure: the row after one more failure at `now`. */
 export function afterFailure(prev: ThrottleRow | undefined, key: string, now: Date): ThrottleRow {
@@ -15,8 +21,7 @@ export function afterFailure(prev: ThrottleRow | undefined, key: string, now: Da
   const failures = stale ? 1 : prev!.failures + 1;
   const firstFailureAt = stale ? now : prev!.firstFailureAt;
   const over = failures - (key.startsWith('address:') ? THROTTLE.addressAllowance : THROTTLE.allowance);
-  const lockedUntil =
-    over >= 0 ? new Date(now.getTime() + Math.min(THROTTLE.maxLockMs, THROTTLE.baseLockMs * 2 ** over)) : null;
+  const lockedUntil = over >= 0 ? new Date(now.getTime() + Math.min(THROTTLE.maxLockMs, THROTTLE.baseLockMs * 2 ** over)) : null;
   return { key, failures, firstFailureAt, lockedUntil };
 }
 
@@ -48,7 +53,14 @@ export async function assertNotThrottled(keys: string[], now: Date): Promise<voi
 
 export async function recordFailure(keys: string[], now: Date): Promise<void> {
   const rows = await getThrottleRows(keys);
-  for (const key of keys) await saveThrottleRow(afterFailure(rows.find((r) => r.key === key), key, now));
+  for (const key of keys)
+    await saveThrottleRow(
+      afterFailure(
+        rows.find((r) => r.key === key),
+        key,
+        now,
+      ),
+    );
 }
 
 export async function clearAccountThrottle(email: string): Promise<void> {

@@ -46,7 +46,9 @@ const STATIONS: ForwardStation[] = Array.from({ length: 12 }, (_, i) => ({
 }));
 
 export default async function engineBench(): Promise<void> {
-  console.log(`machine: ${os.cpus().length} cores, load average ${os.loadavg()[0].toFixed(1)} (figures above ~1 per core are disturbed by other jobs)`);
+  console.log(
+    `machine: ${os.cpus().length} cores, load average ${os.loadavg()[0].toFixed(1)} (figures above ~1 per core are disturbed by other jobs)`,
+  );
   const freqs = bandFrequencies({ minHz: 5, maxHz: 40, stepHz: 0.25 });
   for (const model of ['linear', 'ishaq-jones'] as const) {
     const cavity = resolveCavity({ model, earthRadiusKm: 6371, heightKm: 60 });
@@ -54,24 +56,33 @@ export default async function engineBench(): Promise<void> {
     const ms = time(5, 1, () => {
       nodes = buildKernelTable(cavity, freqs).nodes;
     });
-    console.log(`kernel table build (${model}, ${freqs.length} bins x ${nodes} theta nodes): ${ms.toFixed(1)} ms (median of 5) ${cpuNote(1, 'ms', 1)}`);
+    console.log(
+      `kernel table build (${model}, ${freqs.length} bins x ${nodes} theta nodes): ${ms.toFixed(1)} ms (median of 5) ${cpuNote(1, 'ms', 1)}`,
+    );
   }
   const cavity = resolveCavity({ model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 });
   const model = createForwardModel(cavity, freqs, STATIONS);
   const sample = createKernelSample(freqs.length);
   let th = 0.01;
-  const us = time(7, 20000, () => {
-    th = th > 3.1 ? 0.01 : th + 0.0137;
-    model.table.sample(th, sample);
-  }) * 1000;
+  const us =
+    time(7, 20000, () => {
+      th = th > 3.1 ? 0.01 : th + 0.0137;
+      model.table.sample(th, sample);
+    }) * 1000;
   console.log(`KernelTable.sample (${freqs.length} bins): ${us.toFixed(2)} µs per call (median of 7) ${cpuNote(1000, 'µs', 2)}`);
-  const usPower = time(7, 20000, () => {
-    th = th > 3.1 ? 0.01 : th + 0.0137;
-    model.table.samplePower(th, sample);
-  }) * 1000;
-  console.log(`KernelTable.samplePower (${freqs.length} bins, no derivatives): ${usPower.toFixed(2)} µs per call (median of 7) ${cpuNote(1000, 'µs', 2)}`);
+  const usPower =
+    time(7, 20000, () => {
+      th = th > 3.1 ? 0.01 : th + 0.0137;
+      model.table.samplePower(th, sample);
+    }) * 1000;
+  console.log(
+    `KernelTable.samplePower (${freqs.length} bins, no derivatives): ${usPower.toFixed(2)} µs per call (median of 7) ${cpuNote(1000, 'µs', 2)}`,
+  );
   const out = model.createOutput();
-  for (const [label, spread] of [['moving spots, spread 6°, 7 nodes each', 6], ['point sources', 0]] as const) {
+  for (const [label, spread] of [
+    ['moving spots, spread 6°, 7 nodes each', 6],
+    ['point sources', 0],
+  ] as const) {
     const sources: ForwardSource[] = [
       { lat: 2, lon: -60, intensity: 3e4, spreadDeg: spread },
       { lat: 5, lon: 20, intensity: 5e4, spreadDeg: spread },
@@ -82,6 +93,8 @@ export default async function engineBench(): Promise<void> {
       sources[0].lat = 2 + (k++ % 10) * 0.1; // moving centre, as the inverter does
       model.evaluate(sources, out);
     });
-    console.log(`forward evaluation, 12 stations x 3 components x ${freqs.length} bins x 3 ${label}: ${ms.toFixed(3)} ms (median of 9) ${cpuNote(1, 'ms', 3)}`);
+    console.log(
+      `forward evaluation, 12 stations x 3 components x ${freqs.length} bins x 3 ${label}: ${ms.toFixed(3)} ms (median of 9) ${cpuNote(1, 'ms', 3)}`,
+    );
   }
 }

@@ -51,7 +51,9 @@ function rssMb(): string {
 export default async function bench(): Promise<void> {
   const threads = availableParallelism();
   const input = synthetic(0.25, 99);
-  console.log(`data: 12 stations x 3 components x ${freqs.length} bins; 9 free parameters; threads ${threads}; load average ${loadavg()[0].toFixed(1)}`);
+  console.log(
+    `data: 12 stations x 3 components x ${freqs.length} bins; 9 free parameters; threads ${threads}; load average ${loadavg()[0].toFixed(1)}`,
+  );
   // wall time, and CPU time of all threads of this process (less sensitive to other load)
   const timed = async (label: string, t: number) => {
     const c0 = process.cpuUsage();
@@ -71,11 +73,15 @@ export default async function bench(): Promise<void> {
   const t0 = performance.now();
   const c0 = process.cpuUsage();
   let good = 0;
-  await invertSeries(day, { starts: 16, seed: 1, threads }, {
-    onInterval: ({ result }) => {
-      if (result.minima[0].reducedChi2 < 1.2) good++;
+  await invertSeries(
+    day,
+    { starts: 16, seed: 1, threads },
+    {
+      onInterval: ({ result }) => {
+        if (result.minima[0].reducedChi2 < 1.2) good++;
+      },
     },
-  });
+  );
   const c = process.cpuUsage(c0);
   console.log(
     `day: 144 intervals x 16 starts (warm-started): ${((performance.now() - t0) / 1000).toFixed(1)} s wall, ${((c.user + c.system) / 1e6).toFixed(1)} s CPU; intervals with reduced chi2 < 1.2: ${good}; load average ${loadavg()[0].toFixed(1)}`,
@@ -87,7 +93,9 @@ export default async function bench(): Promise<void> {
 
 /** Mode-parameter inversion: every misfit evaluation fits each predicted spectrum with the pipeline's mode fit. */
 async function modeStarts(): Promise<void> {
-  const c = invertAnyCaseSchema.parse(JSON.parse(readFileSync(new URL('../../fixtures/cases/modes.json', import.meta.url), 'utf8')));
+  const c = invertAnyCaseSchema.parse(
+    JSON.parse(readFileSync(new URL('../../fixtures/cases/modes.json', import.meta.url), 'utf8')),
+  );
   const input = modeInputFromCase(c);
   await invertModes(input, { starts: 1, seed: 2, threads: 1 }); // kernel tables
   const c0 = process.cpuUsage();

@@ -33,8 +33,17 @@ export function makeGenerator(seed: number) {
   const gauss = () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
   const N = 16384;
   const fft = new FFT(N);
-  const modes = [[7.85, 1.0, 0.9], [14.15, 0.7, 1.35], [20.4, 0.5, 1.8], [26.5, 0.36, 2.1], [32.7, 0.26, 2.4], [38.9, 0.19, 2.7], [45.1, 0.14, 3.0]];
-  const psd = (f: number) => modes.reduce((acc, [fn, a, g]) => acc + a / (1 + ((f - fn) / g) ** 2), 0.12 - 1e-3 * Math.min(f, 100));
+  const modes = [
+    [7.85, 1.0, 0.9],
+    [14.15, 0.7, 1.35],
+    [20.4, 0.5, 1.8],
+    [26.5, 0.36, 2.1],
+    [32.7, 0.26, 2.4],
+    [38.9, 0.19, 2.7],
+    [45.1, 0.14, 3.0],
+  ];
+  const psd = (f: number) =>
+    modes.reduce((acc, [fn, a, g]) => acc + a / (1 + ((f - fn) / g) ** 2), 0.12 - 1e-3 * Math.min(f, 100));
   const amp = Float64Array.from({ length: N / 2 }, (_, k) => (k === 0 ? 0 : Math.sqrt((psd((k * FS) / N) * FS * N) / 4)));
   const spec = new Float64Array(2 * N);
   const out = new Float64Array(2 * N);
@@ -68,7 +77,13 @@ export default async function pipelineBench(): Promise<void> {
     sampleRateHz: FS,
     mainsHz: 50,
     interferenceLines: [{ frequencyHz: 50 / 3 }],
-    calibration: { kind: 'response', points: [{ frequencyHz: 0, amplitude: 1, phaseDeg: 0 }, { frequencyHz: 100, amplitude: 0.8, phaseDeg: -30 }] },
+    calibration: {
+      kind: 'response',
+      points: [
+        { frequencyHz: 0, amplitude: 1, phaseDeg: 0 },
+        { frequencyHz: 100, amplitude: 0.8, phaseDeg: -30 },
+      ],
+    },
     modes: 5,
   };
   const total = DAY_SECONDS * FS;
@@ -111,11 +126,17 @@ export default async function pipelineBench(): Promise<void> {
   handle(splitter.finish());
   perInterval.sort((a, b) => a - b);
   const rssMb = process.resourceUsage().maxRSS / 1024;
-  console.log(`samples: ${(total * COMPONENTS / 1e6).toFixed(1)} million (${COMPONENTS} components x ${DAY_SECONDS} s x ${FS} Hz)`);
+  console.log(
+    `samples: ${((total * COMPONENTS) / 1e6).toFixed(1)} million (${COMPONENTS} components x ${DAY_SECONDS} s x ${FS} Hz)`,
+  );
   console.log(`intervals processed: ${intervals} (interval x component)`);
   console.log(`synthetic generation: ${(genMs / 1000).toFixed(2)} s (not part of the pipeline)`);
-  console.log(`pipeline (split + process): ${(procMs / 1000).toFixed(2)} s wall, ${(procCpuUs / 1e6).toFixed(2)} s CPU, one thread (target <= 30 s)`);
-  console.log(`per interval and component: median ${perInterval[Math.floor(perInterval.length / 2)].toFixed(1)} ms, max ${perInterval[perInterval.length - 1].toFixed(1)} ms`);
+  console.log(
+    `pipeline (split + process): ${(procMs / 1000).toFixed(2)} s wall, ${(procCpuUs / 1e6).toFixed(2)} s CPU, one thread (target <= 30 s)`,
+  );
+  console.log(
+    `per interval and component: median ${perInterval[Math.floor(perInterval.length / 2)].toFixed(1)} ms, max ${perInterval[perInterval.length - 1].toFixed(1)} ms`,
+  );
   console.log(`peak resident memory: ${rssMb.toFixed(0)} MB (target < 500 MB)`);
   console.log(`flags raised: ${[...flagCounts].map(([k, v]) => `${k} ${v}`).join(', ') || 'none'}`);
 }

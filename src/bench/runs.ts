@@ -66,7 +66,8 @@ import { waitForHttp } from '@/src/ops/supervisor';
 import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { launchBrowser } from '@/src/ops/browser';
 
-const envCount = (name: string, fallback: number) => (Number.isInteger(Number(process.env[name])) && Number(process.env[name]) > 0 ? Number(process.env[name]) : fallback);
+const envCount = (name: string, fallback: number) =>
+  Number.isInteger(Number(process.env[name])) && Number(process.env[name]) > 0 ? Number(process.env[name]) : fallback;
 const INTERVALS = envCount('BENCH_RUN_INTERVALS', 144);
 const STARTS = envCount('BENCH_RUN_STARTS', 16); // the launch form's default
 const DAY_INTERVALS = envCount('BENCH_RUN_DAY_INTERVALS', 144);
@@ -84,19 +85,41 @@ const SITES = [
   { code: 'BR2', name: 'Bench hut south', latitude: -33.2, longitude: 146.8 },
   { code: 'BR3', name: 'Bench hut west', latitude: 38.6, longitude: -104.2 },
 ];
-const SOURCES = [{ lat: -2, lon: 24, intensity: 3e4 }, { lat: -5, lon: -50, intensity: 2e4 }, { lat: -5, lon: 120, intensity: 1.5e4 }];
+const SOURCES = [
+  { lat: -2, lon: 24, intensity: 3e4 },
+  { lat: -5, lon: -50, intensity: 2e4 },
+  { lat: -5, lon: 120, intensity: 1.5e4 },
+];
 
-const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); const n = s.length; return n % 2 ? s[(n - 1) / 2] : (s[n / 2 - 1] + s[n / 2]) / 2; };
+const median = (xs: number[]) => {
+  const s = [...xs].sort((a, b) => a - b);
+  const n = s.length;
+  return n % 2 ? s[(n - 1) / 2] : (s[n / 2 - 1] + s[n / 2]) / 2;
+};
 const ms = (x: number) => `${x.toFixed(x < 10 ? 2 : 0)} ms`;
 
 /** Invented bench huts with three components each, unit gain. */
-async function benchStations(networkId: string, sites: { code: string; name: string; latitude: number; longitude: number }[]): Promise<Station[]> {
+async function benchStations(
+  networkId: string,
+  sites: { code: string; name: string; latitude: number; longitude: number }[],
+): Promise<Station[]> {
   const stations: Station[] = [];
   for (const s of sites) {
-    stations.push(await createStation(networkId, {
-      ...s, elevationM: 200, mainsHz: 50, interferenceLines: [], sampleRateHz: 200, notes: '', status: 'operating',
-      components: (['Ez', 'Bns', 'Bew'] as const).map((component) => ({ component, calibration: { kind: 'gain' as const, gain: 1 } })),
-    }));
+    stations.push(
+      await createStation(networkId, {
+        ...s,
+        elevationM: 200,
+        mainsHz: 50,
+        interferenceLines: [],
+        sampleRateHz: 200,
+        notes: '',
+        status: 'operating',
+        components: (['Ez', 'Bns', 'Bew'] as const).map((component) => ({
+          component,
+          calibration: { kind: 'gain' as const, gain: 1 },
+        })),
+      }),
+    );
   }
   return stations;
 }
@@ -108,30 +131,70 @@ export async function seed() {
   const stations = await benchStations(network.id, SITES);
   const model = await saveModel(network.id, userId, { name: 'Bench linear', notes: '', config: CAVITY });
   const grid = await saveGrid(network.id, userId, {
-    name: 'Bench belts', notes: '', cellSizeDeg: 10,
+    name: 'Bench belts',
+    notes: '',
+    cellSizeDeg: 10,
     regions: [
-      { key: 'africa-belt', name: 'Eastern belt', colour: '#E69F00', kind: 'moving', centre: { lat: 0, lon: 20 }, bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } }, spreadDeg: 0 },
+      {
+        key: 'africa-belt',
+        name: 'Eastern belt',
+        colour: '#E69F00',
+        kind: 'moving',
+        centre: { lat: 0, lon: 20 },
+        bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
+        spreadDeg: 0,
+      },
       { key: 'america-belt', name: 'Western belt', colour: '#56B4E9', kind: 'cells', cells: [300, 301] },
       { key: 'asia-belt', name: 'Far eastern belt', colour: '#009E73', kind: 'cells', cells: [317, 318] },
     ],
   });
   const spectra = predictSpectra({
-    cavity: CAVITY, band: BAND,
-    stations: stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez', 'Bns', 'Bew'] as const })),
+    cavity: CAVITY,
+    band: BAND,
+    stations: stations.map((s) => ({
+      code: s.code,
+      lat: s.latitude,
+      lon: s.longitude,
+      components: ['Ez', 'Bns', 'Bew'] as const,
+    })),
     sources: SOURCES,
   });
   const day = Date.UTC(2031, 6, 2, 0, 0, 0);
   const starts = Array.from({ length: INTERVALS }, (_, i) => new Date(day + i * 600_000));
   const SEGMENTS = 100;
   const rand = mulberry32(20310702);
-  await saveIntervals(starts.flatMap((t) => spectra.map((sp) => ({
-    networkId: network.id, stationId: stations.find((s) => s.code === sp.station)!.id, component: sp.component,
-    startsAt: t, durationS: 600, origin: 'synthetic' as const, uploadId: null, rejectedShare: 0, qualityFlags: [],
-    spectrum: { frequencies: sp.frequencies, power: sp.power.map((p) => p * gammaDeviate(rand, SEGMENTS) / SEGMENTS), segments: SEGMENTS }, fit: null,
-  }))));
+  await saveIntervals(
+    starts.flatMap((t) =>
+      spectra.map((sp) => ({
+        networkId: network.id,
+        stationId: stations.find((s) => s.code === sp.station)!.id,
+        component: sp.component,
+        startsAt: t,
+        durationS: 600,
+        origin: 'synthetic' as const,
+        uploadId: null,
+        rejectedShare: 0,
+        qualityFlags: [],
+        spectrum: {
+          frequencies: sp.frequencies,
+          power: sp.power.map((p) => (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS),
+          segments: SEGMENTS,
+        },
+        fit: null,
+      })),
+    ),
+  );
   const config: RunConfig = {
-    name: 'Bench day', modelId: model.id, gridId: grid.id,
-    data: { stationIds: stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'], from: starts[0].toISOString(), to: starts.at(-1)!.toISOString(), includeFlagged: false },
+    name: 'Bench day',
+    modelId: model.id,
+    gridId: grid.id,
+    data: {
+      stationIds: stations.map((s) => s.id),
+      components: ['Ez', 'Bns', 'Bew'],
+      from: starts[0].toISOString(),
+      to: starts.at(-1)!.toISOString(),
+      includeFlagged: false,
+    },
     observables: { kind: 'spectrum', minHz: BAND.minHz, maxHz: BAND.maxHz, every: 1 },
     regions: [
       { region: 'africa-belt', intensity: { min: 1e2, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 5, max: 35 } },
@@ -139,7 +202,8 @@ export async function seed() {
       { region: 'asia-belt', intensity: { min: 1e2, max: 1e6 } },
     ],
     damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
-    starts: STARTS, seed: 11,
+    starts: STARTS,
+    seed: 11,
   };
   return { userId, networkId: network.id, config };
 }
@@ -152,7 +216,9 @@ async function measureLaunch(networkId: string, userId: string, config: RunConfi
     times.push(performance.now() - t0);
   }
   times.shift(); // first call warms the pool and the queue
-  console.log(`(a) launchRun, ${INTERVALS} intervals x 3 stations x 3 components: median ${ms(median(times))} of ${times.length} (target < 200 ms)`);
+  console.log(
+    `(a) launchRun, ${INTERVALS} intervals x 3 stations x 3 components: median ${ms(median(times))} of ${times.length} (target < 200 ms)`,
+  );
 }
 
 /** CPU seconds (user + system) of the database server: the postmaster, its reaped and its live backends. */
@@ -169,7 +235,9 @@ function pgCpuSeconds(): number | null {
       try {
         const argv = readFileSync(`/proc/${pid}/cmdline`, 'utf8').split('\0');
         return /postgres$/.test(argv[0]) && argv.some((x, i) => x === '-p' && argv[i + 1] === port);
-      } catch { return false; }
+      } catch {
+        return false;
+      }
     });
     if (!master) return null;
     // fields after the command: state(0) ppid(1) … utime(11) stime(12) cutime(13) cstime(14)
@@ -179,7 +247,9 @@ function pgCpuSeconds(): number | null {
       try {
         const f = stat(pid);
         if (f[1] === master) ticks += Number(f[11]) + Number(f[12]);
-      } catch { /* ended meanwhile */ }
+      } catch {
+        /* ended meanwhile */
+      }
     }
     return ticks / tick;
   } catch {
@@ -187,17 +257,24 @@ function pgCpuSeconds(): number | null {
   }
 }
 
-interface Pass { wallMs: number; solveMs: number; cpuS: number; pgCpuS: number | null }
+interface Pass {
+  wallMs: number;
+  solveMs: number;
+  cpuS: number;
+  pgCpuS: number | null;
+}
 /**
  * The driver's extra CPU (this process and the database server) over the engine alone, in % per
  * round: less disturbed than wall time by other work on a shared machine (not immune: CPU time
  * grows too when the cores are shared).
  */
-const cpuExtra = (passes: { driver: Pass; alone: Pass }[]) => passes.map(({ driver: d, alone: a }) => {
-  const total = (p: Pass) => p.cpuS + (p.pgCpuS ?? 0);
-  return (100 * (total(d) - total(a))) / total(a);
-});
-const cpu = (p: Pass) => `${p.cpuS.toFixed(1)} s CPU here, ${p.pgCpuS === null ? '?' : p.pgCpuS.toFixed(1)} s in the database server`;
+const cpuExtra = (passes: { driver: Pass; alone: Pass }[]) =>
+  passes.map(({ driver: d, alone: a }) => {
+    const total = (p: Pass) => p.cpuS + (p.pgCpuS ?? 0);
+    return (100 * (total(d) - total(a))) / total(a);
+  });
+const cpu = (p: Pass) =>
+  `${p.cpuS.toFixed(1)} s CPU here, ${p.pgCpuS === null ? '?' : p.pgCpuS.toFixed(1)} s in the database server`;
 
 /**
  * The day through the worker's driver against the engine alone on the same intervals (data in
@@ -208,13 +285,26 @@ const cpu = (p: Pass) => `${p.cpuS.toFixed(1)} s CPU here, ${p.pgCpuS === null ?
 async function driverAgainstEngine(tag: string, networkId: string, userId: string, config: RunConfig, rounds: number) {
   const { checkLaunch } = await import('@/src/runs/launch');
   const { preview } = await checkLaunch(networkId, config);
-  const newRun = (name: string) => createRun({
-    networkId, name, config: config as unknown as Record<string, unknown>, modelId: config.modelId, gridId: config.gridId,
-    engineVersion: engineVersion(), intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: userId,
-  });
+  const newRun = (name: string) =>
+    createRun({
+      networkId,
+      name,
+      config: config as unknown as Record<string, unknown>,
+      modelId: config.modelId,
+      gridId: config.gridId,
+      engineVersion: engineVersion(),
+      intervalStarts: preview!.intervalStarts,
+      startsPerInterval: config.starts,
+      createdBy: userId,
+    });
   const probe = await newRun(`${config.name}, engine alone`);
   const ctx = await loadRunContext(probe);
-  const cases = await Promise.all(probe.intervalStarts.map(async (startsAt) => ({ startsAt, ...(await loadIntervalObservations(networkId, config, new Date(startsAt))) })));
+  const cases = await Promise.all(
+    probe.intervalStarts.map(async (startsAt) => ({
+      startsAt,
+      ...(await loadIntervalObservations(networkId, config, new Date(startsAt))),
+    })),
+  );
   const measure = async (body: () => Promise<number>): Promise<Pass> => {
     const c0 = process.cpuUsage();
     const p0 = pgCpuSeconds();
@@ -225,15 +315,16 @@ async function driverAgainstEngine(tag: string, networkId: string, userId: strin
     const p1 = pgCpuSeconds();
     return { wallMs, solveMs, cpuS: (c.user + c.system) / 1e6, pgCpuS: p0 === null || p1 === null ? null : p1 - p0 };
   };
-  const engineAlone = () => measure(async () => {
-    let inSolver = 0;
-    for (const c of cases) {
-      const t1 = Date.now(); // as the driver times its solver calls
-      await engineSolver(ctx, c, { onStart: () => {}, shouldStop: () => false });
-      inSolver += Date.now() - t1;
-    }
-    return inSolver;
-  });
+  const engineAlone = () =>
+    measure(async () => {
+      let inSolver = 0;
+      for (const c of cases) {
+        const t1 = Date.now(); // as the driver times its solver calls
+        await engineSolver(ctx, c, { onStart: () => {}, shouldStop: () => false });
+        inSolver += Date.now() - t1;
+      }
+      return inSolver;
+    });
   await engineAlone(); // warms the thread pool and the JIT, as a working worker is
   const passes: { driver: Pass; alone: Pass }[] = [];
   let run = probe;
@@ -251,20 +342,29 @@ async function driverAgainstEngine(tag: string, networkId: string, userId: strin
     if (outcome !== 'finished') throw new Error(`the bench run ended ${outcome}: ${(await getRunById(run.id))?.error ?? ''}`);
     const rows = await listRunIntervals(run.id);
     driver.solveMs = 1000 * rows.reduce((a, r) => a + r.seconds, 0);
-    const alone = first ?? await engineAlone();
+    const alone = first ?? (await engineAlone());
     passes.push({ driver, alone });
-    console.log(`${tag} round ${round}: the run through the driver ${(driver.wallMs / 1000).toFixed(2)} s, the engine alone ${(alone.wallMs / 1000).toFixed(2)} s`);
+    console.log(
+      `${tag} round ${round}: the run through the driver ${(driver.wallMs / 1000).toFixed(2)} s, the engine alone ${(alone.wallMs / 1000).toFixed(2)} s`,
+    );
     if (PROBE) {
       // The driver with no database work during the day: data from memory, one write at the end.
       const quiet = await newRun(`${config.name}, quiet ${round}`);
       const byTime = new Map(cases.map((c) => [new Date(c.startsAt).getTime(), c]));
       const q = await measure(async () => {
-        await executeRun(quiet.id, { solve: engineSolver, workerId: 'bench', writeEveryMs: 1e9, observe: async (_, t) => byTime.get(t.getTime())! });
+        await executeRun(quiet.id, {
+          solve: engineSolver,
+          workerId: 'bench',
+          writeEveryMs: 1e9,
+          observe: async (_, t) => byTime.get(t.getTime())!,
+        });
         return 0;
       });
       q.solveMs = 1000 * (await listRunIntervals(quiet.id)).reduce((a, r) => a + r.seconds, 0);
-      console.log(`${tag} round ${round} probe: the driver without database work during the day ${(q.wallMs / 1000).toFixed(2)} s, its solver calls ${(q.solveMs / 1000).toFixed(2)} s; `
-        + `solver calls: driver ${(driver.solveMs / 1000).toFixed(2)} s, alone ${(alone.solveMs / 1000).toFixed(2)} s; driver ${cpu(driver)}; alone ${cpu(alone)}; quiet ${cpu(q)}`);
+      console.log(
+        `${tag} round ${round} probe: the driver without database work during the day ${(q.wallMs / 1000).toFixed(2)} s, its solver calls ${(q.solveMs / 1000).toFixed(2)} s; ` +
+          `solver calls: driver ${(driver.solveMs / 1000).toFixed(2)} s, alone ${(alone.solveMs / 1000).toFixed(2)} s; driver ${cpu(driver)}; alone ${cpu(alone)}; quiet ${cpu(q)}`,
+      );
     }
   }
   const extra = passes.map((p) => (100 * (p.driver.wallMs - p.alone.wallMs)) / p.alone.wallMs);
@@ -279,42 +379,64 @@ async function driverAgainstEngine(tag: string, networkId: string, userId: strin
  */
 async function measureLoading(networkId: string, config: RunConfig): Promise<void> {
   const starts = Array.from({ length: INTERVALS }, (_, i) => new Date(new Date(config.data.from).getTime() + i * 600_000));
-  const walls: number[] = [], cpus: number[] = [], pgs: number[] = [];
+  const walls: number[] = [],
+    cpus: number[] = [],
+    pgs: number[] = [];
   let series = 0;
   for (let rep = 0; rep < 5; rep++) {
-    const c0 = process.cpuUsage(), p0 = pgCpuSeconds(), t0 = performance.now();
+    const c0 = process.cpuUsage(),
+      p0 = pgCpuSeconds(),
+      t0 = performance.now();
     const load = intervalLoader(networkId, config, starts);
     series = 0;
     for (const t of starts) series += (await load(t)).observed.length;
     walls.push(performance.now() - t0);
-    const c = process.cpuUsage(c0), p1 = pgCpuSeconds();
+    const c = process.cpuUsage(c0),
+      p1 = pgCpuSeconds();
     cpus.push((c.user + c.system) / 1000);
     if (p0 !== null && p1 !== null) pgs.push(1000 * (p1 - p0));
   }
-  console.log(`(c) loading the day's observations alone (${series} series, 16 intervals per query): median of 5 ${ms(median(walls))} wall, `
-    + `${ms(median(cpus))} CPU here (${ms(median(cpus) / INTERVALS)} per interval), ${pgs.length ? ms(median(pgs)) : '?'} in the database server (10 ms ticks)`);
+  console.log(
+    `(c) loading the day's observations alone (${series} series, 16 intervals per query): median of 5 ${ms(median(walls))} wall, ` +
+      `${ms(median(cpus))} CPU here (${ms(median(cpus) / INTERVALS)} per interval), ${pgs.length ? ms(median(pgs)) : '?'} in the database server (10 ms ticks)`,
+  );
 }
 
 /** (c): the small problem; its solves are quick, so it shows the driver's fixed cost per interval. */
 async function solveAndStore(networkId: string, userId: string, config: RunConfig): Promise<string> {
   const { runId, extra, rows, last, passes } = await driverAgainstEngine('(c)', networkId, userId, config, 3);
-  console.log(`(c) the run through the driver takes a median ${median(extra).toFixed(2)} % longer than the engine alone `
-    + `(rounds: ${extra.map((x) => x.toFixed(1)).join(', ')} %; target <= 10 %)`);
+  console.log(
+    `(c) the run through the driver takes a median ${median(extra).toFixed(2)} % longer than the engine alone ` +
+      `(rounds: ${extra.map((x) => x.toFixed(1)).join(', ')} %; target <= 10 %)`,
+  );
   const wallMs = last.wallMs;
   const solveMs = last.solveMs;
-  console.log(`(c) last round, ${rows.length} intervals (${config.starts} starts each): ${(solveMs / 1000).toFixed(2)} s in the solver calls, `
-    + `${ms(wallMs - solveMs)} for everything else (claiming the run, its model and grid, loading data, writing results, progress) `
-    + `= ${((100 * (wallMs - solveMs)) / solveMs).toFixed(2)} % of solving = ${ms((wallMs - solveMs) / rows.length)} per interval (the driver's fixed cost)`);
+  console.log(
+    `(c) last round, ${rows.length} intervals (${config.starts} starts each): ${(solveMs / 1000).toFixed(2)} s in the solver calls, ` +
+      `${ms(wallMs - solveMs)} for everything else (claiming the run, its model and grid, loading data, writing results, progress) ` +
+      `= ${((100 * (wallMs - solveMs)) / solveMs).toFixed(2)} % of solving = ${ms((wallMs - solveMs) / rows.length)} per interval (the driver's fixed cost)`,
+  );
   const cx = cpuExtra(passes);
-  console.log(`(c) CPU (this process and the database server): the driver a median ${median(cx).toFixed(2)} % more than the engine alone (rounds: ${cx.map((x) => x.toFixed(1)).join(', ')} %)`);
-  console.log(`(c) the solver calls themselves, median of the rounds: ${(median(passes.map((p) => p.driver.solveMs)) / 1000).toFixed(2)} s in the driver, `
-    + `${(median(passes.map((p) => p.alone.solveMs)) / 1000).toFixed(2)} s alone; last round ${cpu(last)}, alone ${cpu(passes.at(-1)!.alone)}`);
+  console.log(
+    `(c) CPU (this process and the database server): the driver a median ${median(cx).toFixed(2)} % more than the engine alone (rounds: ${cx.map((x) => x.toFixed(1)).join(', ')} %)`,
+  );
+  console.log(
+    `(c) the solver calls themselves, median of the rounds: ${(median(passes.map((p) => p.driver.solveMs)) / 1000).toFixed(2)} s in the driver, ` +
+      `${(median(passes.map((p) => p.alone.solveMs)) / 1000).toFixed(2)} s alone; last round ${cpu(last)}, alone ${cpu(passes.at(-1)!.alone)}`,
+  );
   await measureLoading(networkId, config);
   // One result write on its own: the same rows written again under new interval times (a throwaway run).
   const { preview } = await (await import('@/src/runs/launch')).checkLaunch(networkId, config);
   const copy = await createRun({
-    networkId, name: 'Bench copy', config: config as unknown as Record<string, unknown>, modelId: config.modelId, gridId: config.gridId,
-    engineVersion: engineVersion(), intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: userId,
+    networkId,
+    name: 'Bench copy',
+    config: config as unknown as Record<string, unknown>,
+    modelId: config.modelId,
+    gridId: config.gridId,
+    engineVersion: engineVersion(),
+    intervalStarts: preview!.intervalStarts,
+    startsPerInterval: config.starts,
+    createdBy: userId,
   });
   const writes: number[] = [];
   for (const r of rows) {
@@ -323,14 +445,19 @@ async function solveAndStore(networkId: string, userId: string, config: RunConfi
     writes.push(performance.now() - t1);
   }
   const kb = rows.reduce((a, r) => a + Buffer.byteLength(JSON.stringify(r.result)), 0) / rows.length / 1024;
-  console.log(`(c) one interval's result write: median ${ms(median(writes))} (${kb.toFixed(1)} KiB of JSON each) vs median solve ${ms(1000 * median(rows.map((r) => r.seconds)))}`);
+  console.log(
+    `(c) one interval's result write: median ${ms(median(writes))} (${kb.toFixed(1)} KiB of JSON each) vs median solve ${ms(1000 * median(rows.map((r) => r.seconds)))}`,
+  );
   return runId;
 }
 
 const DAY_BAND = { minHz: 5, maxHz: 40, stepHz: 0.25 };
 // An invented layout (the inverter bench's): twelve sites over both hemispheres, not real ones.
 const DAY_SITES = Array.from({ length: 12 }, (_, i) => ({
-  code: `BD${String(i + 1).padStart(2, '0')}`, name: `Bench day site ${i + 1}`, latitude: -55 + ((i * 37) % 110), longitude: -170 + i * 29,
+  code: `BD${String(i + 1).padStart(2, '0')}`,
+  name: `Bench day site ${i + 1}`,
+  latitude: -55 + ((i * 37) % 110),
+  longitude: -170 + i * 29,
 }));
 const DAY_REGIONS = [
   { key: 'day-west', name: 'Western cell', colour: '#E69F00', lat: { min: -25, max: 25 }, lon: { min: -90, max: -40 } },
@@ -350,33 +477,73 @@ export async function seedDay(userId: string): Promise<{ networkId: string; conf
   const stations = await benchStations(network.id, DAY_SITES);
   const model = await saveModel(network.id, userId, { name: 'Bench day linear', notes: '', config: CAVITY });
   const grid = await saveGrid(network.id, userId, {
-    name: 'Bench day cells', notes: '', cellSizeDeg: 10,
+    name: 'Bench day cells',
+    notes: '',
+    cellSizeDeg: 10,
     regions: DAY_REGIONS.map((r) => ({
-      key: r.key, name: r.name, colour: r.colour, kind: 'moving' as const, spreadDeg: 0,
-      centre: { lat: (r.lat.min + r.lat.max) / 2, lon: (r.lon.min + r.lon.max) / 2 }, bounds: { lat: r.lat, lon: r.lon },
+      key: r.key,
+      name: r.name,
+      colour: r.colour,
+      kind: 'moving' as const,
+      spreadDeg: 0,
+      centre: { lat: (r.lat.min + r.lat.max) / 2, lon: (r.lon.min + r.lon.max) / 2 },
+      bounds: { lat: r.lat, lon: r.lon },
     })),
   });
   const day = Date.UTC(2031, 6, 3, 0, 0, 0);
   const starts = Array.from({ length: DAY_INTERVALS }, (_, i) => new Date(day + i * 600_000));
   const SEGMENTS = 100;
   const rand = mulberry32(20310703);
-  const sites = stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez', 'Bns', 'Bew'] as const }));
+  const sites = stations.map((s) => ({
+    code: s.code,
+    lat: s.latitude,
+    lon: s.longitude,
+    components: ['Ez', 'Bns', 'Bew'] as const,
+  }));
   for (let i0 = 0; i0 < starts.length; i0 += 12) {
-    await saveIntervals(starts.slice(i0, i0 + 12).flatMap((t, j) => predictSpectra({
-      cavity: CAVITY, band: DAY_BAND, stations: sites, sources: dayTruth((i0 + j) / 144),
-    }).map((sp) => ({
-      networkId: network.id, stationId: stations.find((s) => s.code === sp.station)!.id, component: sp.component,
-      startsAt: t, durationS: 600, origin: 'synthetic' as const, uploadId: null, rejectedShare: 0, qualityFlags: [],
-      spectrum: { frequencies: sp.frequencies, power: sp.power.map((p) => p * gammaDeviate(rand, SEGMENTS) / SEGMENTS), segments: SEGMENTS }, fit: null,
-    }))));
+    await saveIntervals(
+      starts.slice(i0, i0 + 12).flatMap((t, j) =>
+        predictSpectra({
+          cavity: CAVITY,
+          band: DAY_BAND,
+          stations: sites,
+          sources: dayTruth((i0 + j) / 144),
+        }).map((sp) => ({
+          networkId: network.id,
+          stationId: stations.find((s) => s.code === sp.station)!.id,
+          component: sp.component,
+          startsAt: t,
+          durationS: 600,
+          origin: 'synthetic' as const,
+          uploadId: null,
+          rejectedShare: 0,
+          qualityFlags: [],
+          spectrum: {
+            frequencies: sp.frequencies,
+            power: sp.power.map((p) => (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS),
+            segments: SEGMENTS,
+          },
+          fit: null,
+        })),
+      ),
+    );
   }
   const config: RunConfig = {
-    name: 'Bench inverter day', modelId: model.id, gridId: grid.id,
-    data: { stationIds: stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'], from: starts[0].toISOString(), to: starts.at(-1)!.toISOString(), includeFlagged: false },
+    name: 'Bench inverter day',
+    modelId: model.id,
+    gridId: grid.id,
+    data: {
+      stationIds: stations.map((s) => s.id),
+      components: ['Ez', 'Bns', 'Bew'],
+      from: starts[0].toISOString(),
+      to: starts.at(-1)!.toISOString(),
+      includeFlagged: false,
+    },
     observables: { kind: 'spectrum', minHz: DAY_BAND.minHz, maxHz: DAY_BAND.maxHz, every: 1 },
     regions: DAY_REGIONS.map((r) => ({ region: r.key, intensity: { min: 1e3, max: 1e6 }, lat: r.lat, lon: r.lon })),
     damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
-    starts: DAY_STARTS, seed: 11,
+    starts: DAY_STARTS,
+    seed: 11,
   };
   return { networkId: network.id, config };
 }
@@ -386,25 +553,41 @@ async function solveDay(userId: string): Promise<void> {
   const t0 = performance.now();
   const { networkId, config } = await seedDay(userId);
   const nData = 12 * 3 * bandFrequencies(DAY_BAND).length;
-  console.log(`(c2) seeded ${DAY_INTERVALS} intervals x 12 stations x 3 components x ${bandFrequencies(DAY_BAND).length} bins (${nData} data per interval), `
-    + `3 moving regions (9 parameters), ${DAY_STARTS} starts, in ${((performance.now() - t0) / 1000).toFixed(1)} s; load average ${loadavg().map((x) => x.toFixed(1)).join(' ')}`);
+  console.log(
+    `(c2) seeded ${DAY_INTERVALS} intervals x 12 stations x 3 components x ${bandFrequencies(DAY_BAND).length} bins (${nData} data per interval), ` +
+      `3 moving regions (9 parameters), ${DAY_STARTS} starts, in ${((performance.now() - t0) / 1000).toFixed(1)} s; load average ${loadavg()
+        .map((x) => x.toFixed(1))
+        .join(' ')}`,
+  );
   const { extra, rows, last, passes } = await driverAgainstEngine('(c2)', networkId, userId, config, DAY_ROUNDS);
   const mid = (pick: (p: { driver: Pass; alone: Pass }) => number) => median(passes.map(pick));
-  console.log(`(c2) the run through the driver ${(mid((p) => p.driver.wallMs) / 1000).toFixed(2)} s, the engine alone ${(mid((p) => p.alone.wallMs) / 1000).toFixed(2)} s (medians of ${passes.length} rounds); `
-    + `the driver takes a median ${median(extra).toFixed(2)} % longer (rounds: ${extra.map((x) => x.toFixed(1)).join(', ')} %; target <= 10 %)`);
+  console.log(
+    `(c2) the run through the driver ${(mid((p) => p.driver.wallMs) / 1000).toFixed(2)} s, the engine alone ${(mid((p) => p.alone.wallMs) / 1000).toFixed(2)} s (medians of ${passes.length} rounds); ` +
+      `the driver takes a median ${median(extra).toFixed(2)} % longer (rounds: ${extra.map((x) => x.toFixed(1)).join(', ')} %; target <= 10 %)`,
+  );
   const cx = cpuExtra(passes);
-  console.log(`(c2) CPU (this process and the database server): the driver a median ${median(cx).toFixed(2)} % more than the engine alone (rounds: ${cx.map((x) => x.toFixed(1)).join(', ')} %)`);
+  console.log(
+    `(c2) CPU (this process and the database server): the driver a median ${median(cx).toFixed(2)} % more than the engine alone (rounds: ${cx.map((x) => x.toFixed(1)).join(', ')} %)`,
+  );
   const outside = passes.map((p) => (p.driver.wallMs - p.driver.solveMs) / rows.length);
-  console.log(`(c2) outside the solver calls: median ${ms(median(outside))} per interval (rounds: ${outside.map((x) => x.toFixed(2)).join(', ')} ms) `
-    + `= ${((100 * median(passes.map((p) => p.driver.wallMs - p.driver.solveMs))) / mid((p) => p.driver.solveMs)).toFixed(2)} % of solving`);
-  console.log(`(c2) the solver calls themselves: ${(mid((p) => p.driver.solveMs) / 1000).toFixed(2)} s in the driver, ${(mid((p) => p.alone.solveMs) / 1000).toFixed(2)} s alone `
-    + `(median ${ms(1000 * median(rows.map((r) => r.seconds)))} per interval); CPU per round: ${passes.map((p) => `driver ${cpu(p.driver)} / alone ${cpu(p.alone)}`).join('; ')}`);
+  console.log(
+    `(c2) outside the solver calls: median ${ms(median(outside))} per interval (rounds: ${outside.map((x) => x.toFixed(2)).join(', ')} ms) ` +
+      `= ${((100 * median(passes.map((p) => p.driver.wallMs - p.driver.solveMs))) / mid((p) => p.driver.solveMs)).toFixed(2)} % of solving`,
+  );
+  console.log(
+    `(c2) the solver calls themselves: ${(mid((p) => p.driver.solveMs) / 1000).toFixed(2)} s in the driver, ${(mid((p) => p.alone.solveMs) / 1000).toFixed(2)} s alone ` +
+      `(median ${ms(1000 * median(rows.map((r) => r.seconds)))} per interval); CPU per round: ${passes.map((p) => `driver ${cpu(p.driver)} / alone ${cpu(p.alone)}`).join('; ')}`,
+  );
   const perDay = (x: number) => (x / 1000) * (144 / rows.length);
   const budget = DAY_TARGET_S * (1 + STORING_SHARE);
   const dayS = perDay(mid((p) => p.driver.wallMs));
-  console.log(`(c2) the day through the driver${rows.length === 144 ? '' : ` (scaled to 144 intervals from ${rows.length})`}: ${dayS.toFixed(1)} s `
-    + `against ${DAY_TARGET_S} s + ${100 * STORING_SHARE} % = ${budget.toFixed(0)} s: ${dayS <= budget ? 'within' : 'OVER'}; `
-    + `engine alone ${perDay(mid((p) => p.alone.wallMs)).toFixed(1)} s; load average ${loadavg().map((x) => x.toFixed(1)).join(' ')}`);
+  console.log(
+    `(c2) the day through the driver${rows.length === 144 ? '' : ` (scaled to 144 intervals from ${rows.length})`}: ${dayS.toFixed(1)} s ` +
+      `against ${DAY_TARGET_S} s + ${100 * STORING_SHARE} % = ${budget.toFixed(0)} s: ${dayS <= budget ? 'within' : 'OVER'}; ` +
+      `engine alone ${perDay(mid((p) => p.alone.wallMs)).toFixed(1)} s; load average ${loadavg()
+        .map((x) => x.toFixed(1))
+        .join(' ')}`,
+  );
 }
 
 async function measureView(networkId: string, runId: string): Promise<void> {
@@ -416,7 +599,9 @@ async function measureView(networkId: string, runId: string): Promise<void> {
   }
   times.shift();
   const kb = Buffer.byteLength(JSON.stringify(await getRunView(networkId, runId))) / 1024;
-  console.log(`(b) getRunView of a finished ${INTERVALS}-interval, three-region run: median ${ms(median(times))} of ${times.length} (${kb.toFixed(0)} KiB as JSON)`);
+  console.log(
+    `(b) getRunView of a finished ${INTERVALS}-interval, three-region run: median ${ms(median(times))} of ${times.length} (${kb.toFixed(0)} KiB as JSON)`,
+  );
 }
 
 /** The first view's figures, each drawn (its svg in the document) — see measurePage. */
@@ -454,9 +639,17 @@ const WATCH_FIGURES = `(() => {
   observer.observe(document, { childList: true, subtree: true, attributes: true, attributeFilter: ['data-drawn'] });
 })();`;
 
-async function measurePage(databaseUrl: string, networkId: string, userId: string, runId: string, stop: Array<() => Promise<void> | void>): Promise<void> {
+async function measurePage(
+  databaseUrl: string,
+  networkId: string,
+  userId: string,
+  runId: string,
+  stop: Array<() => Promise<void> | void>,
+): Promise<void> {
   if (!existsSync(path.join(projectRoot, '.next', 'BUILD_ID'))) {
-    console.log('(b) page load: skipped — no production build in .next (build with `npm run build` or `npm start`, then run again)');
+    console.log(
+      '(b) page load: skipped — no production build in .next (build with `npm run build` or `npm start`, then run again)',
+    );
     return;
   }
   const stale = buildStaleness();
@@ -465,14 +658,25 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
   const port = await freePort();
   const { NODE_ENV: _n, ...inherited } = process.env;
   const web: ChildProcess = spawn(process.execPath, [nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
-    cwd: projectRoot, stdio: ['ignore', 'ignore', 'pipe'],
-    env: { ...inherited, DATABASE_URL: databaseUrl, PORT: String(port), APP_URL: `http://127.0.0.1:${port}`, COOKIE_SECURE: 'false', NEXT_TELEMETRY_DISABLED: '1' } as unknown as NodeJS.ProcessEnv,
+    cwd: projectRoot,
+    stdio: ['ignore', 'ignore', 'pipe'],
+    env: {
+      ...inherited,
+      DATABASE_URL: databaseUrl,
+      PORT: String(port),
+      APP_URL: `http://127.0.0.1:${port}`,
+      COOKIE_SECURE: 'false',
+      NEXT_TELEMETRY_DISABLED: '1',
+    } as unknown as NodeJS.ProcessEnv,
   });
-  stop.push(() => new Promise<void>((resolve) => {
-    if (web.exitCode !== null || web.signalCode !== null) return resolve();
-    web.once('exit', () => resolve());
-    web.kill('SIGTERM');
-  }));
+  stop.push(
+    () =>
+      new Promise<void>((resolve) => {
+        if (web.exitCode !== null || web.signalCode !== null) return resolve();
+        web.once('exit', () => resolve());
+        web.kill('SIGTERM');
+      }),
+  );
   const base = `http://127.0.0.1:${port}`;
   await waitForHttp(`${base}/`, 60_000, () => web.exitCode === null);
   const cookie = await startSession(userId);
@@ -490,23 +694,40 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
   for (let i = 0; i < 6; i++) {
     const page = await context.newPage();
     await page.goto(url, { waitUntil: 'commit' });
-    const t = await page.waitForFunction(() => {
-      const f = (window as unknown as { figureTimes?: { drawn?: number; live?: number } }).figureTimes;
-      return f && (f.drawn ?? -1) >= 0 && (f.live ?? -1) >= 0 ? f : null;
-    }, undefined, { timeout: 60_000, polling: 100 }).then((h) => h.jsonValue() as Promise<{ drawn: number; live: number }>);
+    const t = await page
+      .waitForFunction(
+        () => {
+          const f = (window as unknown as { figureTimes?: { drawn?: number; live?: number } }).figureTimes;
+          return f && (f.drawn ?? -1) >= 0 && (f.live ?? -1) >= 0 ? f : null;
+        },
+        undefined,
+        { timeout: 60_000, polling: 100 },
+      )
+      .then((h) => h.jsonValue() as Promise<{ drawn: number; live: number }>);
     drawn.push(t.drawn);
     live.push(t.live);
     const nav = await page.evaluate(() => {
       const n = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming;
       const fcp = performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? NaN;
-      return { first: n.responseStart - n.requestStart, last: n.responseEnd - n.requestStart, dcl: n.domContentLoadedEventEnd - n.requestStart, fcp: fcp - n.requestStart };
+      return {
+        first: n.responseStart - n.requestStart,
+        last: n.responseEnd - n.requestStart,
+        dcl: n.domContentLoadedEventEnd - n.requestStart,
+        fcp: fcp - n.requestStart,
+      };
     });
     server.push(nav);
     if (i === 5) {
       sizes = await page.evaluate(() => {
         const nav = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming;
-        const scripts = performance.getEntriesByType('resource').filter((e) => (e as PerformanceResourceTiming).initiatorType === 'script' || e.name.endsWith('.js'));
-        return { html: nav.decodedBodySize, js: scripts.reduce((a, e) => a + (e as PerformanceResourceTiming).decodedBodySize, 0), chunks: scripts.length };
+        const scripts = performance
+          .getEntriesByType('resource')
+          .filter((e) => (e as PerformanceResourceTiming).initiatorType === 'script' || e.name.endsWith('.js'));
+        return {
+          html: nav.decodedBodySize,
+          js: scripts.reduce((a, e) => a + (e as PerformanceResourceTiming).decodedBodySize, 0),
+          chunks: scripts.length,
+        };
       });
     }
     await page.close();
@@ -514,13 +735,19 @@ async function measurePage(databaseUrl: string, networkId: string, userId: strin
   // the first load warms the server
   for (const xs of [drawn, live, server]) xs.shift();
   const at = (pick: (x: (typeof server)[number]) => number) => ms(median(server.map(pick)));
-  console.log(`(b) run page, from the request: first byte of HTML (server rendering) median ${at((x) => x.first)}, `
-    + `last byte ${at((x) => x.last)}, first contentful paint ${at((x) => x.fcp)}, DOMContentLoaded ${at((x) => x.dcl)} `
-    + `(${(sizes.html / 1024).toFixed(0)} KiB of HTML; ${(sizes.js / 1024).toFixed(0)} KiB of JavaScript in ${sizes.chunks} chunks)`);
+  console.log(
+    `(b) run page, from the request: first byte of HTML (server rendering) median ${at((x) => x.first)}, ` +
+      `last byte ${at((x) => x.last)}, first contentful paint ${at((x) => x.fcp)}, DOMContentLoaded ${at((x) => x.dcl)} ` +
+      `(${(sizes.html / 1024).toFixed(0)} KiB of HTML; ${(sizes.js / 1024).toFixed(0)} KiB of JavaScript in ${sizes.chunks} chunks)`,
+  );
   const note = stale.stale ? ' — note: the build in .next is older than the sources' : '';
-  console.log(`(b) run page in headless chromium until every figure is drawn (map, series, correlations, starts, fitted spectrum, residuals): `
-    + `median ${ms(median(drawn))} of ${drawn.length} (target < 1 s)${note}`);
-  console.log(`(b) run page until every figure is live (redrawn by the browser, hover tips): median ${ms(median(live))} of ${live.length}`);
+  console.log(
+    `(b) run page in headless chromium until every figure is drawn (map, series, correlations, starts, fitted spectrum, residuals): ` +
+      `median ${ms(median(drawn))} of ${drawn.length} (target < 1 s)${note}`,
+  );
+  console.log(
+    `(b) run page until every figure is live (redrawn by the browser, hover tips): median ${ms(median(live))} of ${live.length}`,
+  );
 }
 
 export default async function main(): Promise<void> {
@@ -533,19 +760,25 @@ export default async function main(): Promise<void> {
     await migrate(pg.url);
     const t0 = performance.now();
     const { userId, networkId, config } = await seed();
-    console.log(`seeded ${INTERVALS} intervals x 3 stations x 3 components of synthetic spectra in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+    console.log(
+      `seeded ${INTERVALS} intervals x 3 stations x 3 components of synthetic spectra in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+    );
     await measureLaunch(networkId, userId, config);
     const runId = await solveAndStore(networkId, userId, config);
-    if (process.env.BENCH_RUN_DAY === '0') console.log('(c2) the inverter\'s day through the driver: skipped (BENCH_RUN_DAY=0)');
+    if (process.env.BENCH_RUN_DAY === '0') console.log("(c2) the inverter's day through the driver: skipped (BENCH_RUN_DAY=0)");
     else await solveDay(userId);
     await measureView(networkId, runId);
     if (process.env.BENCH_RUN_PAGE === '0') console.log('(b) page load: skipped (BENCH_RUN_PAGE=0)');
     else await measurePage(pg.url, networkId, userId, runId, stop);
   } finally {
-    for (const s of stop.reverse()) await Promise.resolve().then(s).catch(() => {});
+    for (const s of stop.reverse())
+      await Promise.resolve()
+        .then(s)
+        .catch(() => {});
     await stopBoss(5_000).catch(() => {});
     await closeDatabase().catch(() => {});
     await pg?.stop().catch(() => {});
-    if (previousUrl === undefined) delete process.env.DATABASE_URL; else process.env.DATABASE_URL = previousUrl;
+    if (previousUrl === undefined) delete process.env.DATABASE_URL;
+    else process.env.DATABASE_URL = previousUrl;
   }
 }

@@ -28,7 +28,16 @@ const fit: Verb = async (args) => {
   const s = await readPipelineJson(positional[0], 'spectrum', parseSpectrumJson);
   try {
     const r = fitModes(s.frequencies, s.power, { modes, averages: s.averages, minHz: s.minHz, maxHz: s.maxHz });
-    return { modes: r.modes, background: r.background, misfit: r.misfit, dof: r.dof, band: r.band, averages: r.averages ?? null, converged: r.converged, flags: r.flags };
+    return {
+      modes: r.modes,
+      background: r.background,
+      misfit: r.misfit,
+      dof: r.dof,
+      band: r.band,
+      averages: r.averages ?? null,
+      converged: r.converged,
+      flags: r.flags,
+    };
   } catch (e) {
     if (e instanceof ModeFitError || e instanceof ModeFitOptionError) throw new CliError(`${positional[0]}: ${e.message}`);
     throw e;

@@ -4,7 +4,11 @@ import { FormatError } from '@/src/engine/formats/format-error';
 import { parseJsonText } from '@/src/engine/formats/json-text';
 import { CliError } from './verb';
 
-export async function readPipelineJson<T>(path: string | undefined, what: string, parse: (data: unknown, file: string) => T): Promise<T> {
+export async function readPipelineJson<T>(
+  path: string | undefined,
+  what: string,
+  parse: (data: unknown, file: string) => T,
+): Promise<T> {
   if (!path) throw new CliError(`missing the ${what} file argument`);
   let text: string;
   try {

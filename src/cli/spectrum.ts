@@ -16,7 +16,10 @@ const spectrum: Verb = async (args) => {
   const est = welch(s.samples, { sampleRateHz: s.sampleRateHz, segmentLength: s.segmentLength });
   let power = est.power;
   if (s.mainsHz !== undefined) {
-    if (s.mainsHz >= s.sampleRateHz / 2) throw new CliError(`${positional[0]}: field "mainsHz": ${s.mainsHz} Hz is at or above the Nyquist frequency ${s.sampleRateHz / 2} Hz`);
+    if (s.mainsHz >= s.sampleRateHz / 2)
+      throw new CliError(
+        `${positional[0]}: field "mainsHz": ${s.mainsHz} Hz is at or above the Nyquist frequency ${s.sampleRateHz / 2} Hz`,
+      );
     power = suppressLines(est.frequencies, est.power, mainsLines(s.mainsHz, s.sampleRateHz / 2)).power;
   }
   return { frequencies: Array.from(est.frequencies), power: Array.from(power), segments: est.used };

@@ -7,7 +7,10 @@ export type Verb = (args: string[]) => Promise<unknown>;
 
 /** An error in the user's input; printed without a stack trace. */
 export class CliError extends Error {
-  constructor(message: string, readonly exitCode = 2) {
+  constructor(
+    message: string,
+    readonly exitCode = 2,
+  ) {
     super(message);
   }
 }
@@ -20,7 +23,8 @@ export function parseArgs(args: string[], flags: readonly string[]): { positiona
     const a = args[i];
     if (a.startsWith('--')) {
       const [key, inline] = a.slice(2).split('=', 2);
-      if (!flags.includes(key)) throw new CliError(`unknown option --${key} (allowed: ${flags.map((f) => '--' + f).join(', ') || 'none'})`);
+      if (!flags.includes(key))
+        throw new CliError(`unknown option --${key} (allowed: ${flags.map((f) => '--' + f).join(', ') || 'none'})`);
       const value = inline ?? args[++i];
       if (value === undefined) throw new CliError(`option --${key} needs a value`);
       out[key] = value;
@@ -34,7 +38,8 @@ export function intFlag(flags: Record<string, string>, name: string, fallback: n
   const raw = flags[name];
   if (raw === undefined) return fallback;
   const v = Number(raw);
-  if (!Number.isInteger(v) || v < min || v > max) throw new CliError(`--${name} must be a whole number from ${min} to ${max}, got "${raw}"`);
+  if (!Number.isInteger(v) || v < min || v > max)
+    throw new CliError(`--${name} must be a whole number from ${min} to ${max}, got "${raw}"`);
   return v;
 }
 

@@ -13,9 +13,23 @@ function cell(v: unknown): string {
   return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
-const BASE = ['station', 'component', 'starts_at_utc', 'duration_s', 'origin', 'rejected_share',
-  'quality_flags', 'flag_reason', 'fit_misfit', 'background_b0', 'background_b1', 'fit_min_hz', 'fit_max_hz', 'fit_averages',
-  'fit_excluded_hz'];
+const BASE = [
+  'station',
+  'component',
+  'starts_at_utc',
+  'duration_s',
+  'origin',
+  'rejected_share',
+  'quality_flags',
+  'flag_reason',
+  'fit_misfit',
+  'background_b0',
+  'background_b1',
+  'fit_min_hz',
+  'fit_max_hz',
+  'fit_averages',
+  'fit_excluded_hz',
+];
 const MODE = ['frequency_hz', 'frequency_err_hz', 'half_width_hz', 'half_width_err_hz', 'q', 'amplitude', 'amplitude_err'];
 
 /**
@@ -34,9 +48,23 @@ export function intervalsToCsv(rows: IntervalSummary[]): string {
   for (let n = 1; n <= nModes; n++) header.push(...MODE.map((c) => `mode${n}_${c}`));
   const lines = [header.join(',')];
   for (const r of rows) {
-    const out: unknown[] = [r.stationCode, r.component, r.startsAt, r.durationS, r.origin, r.rejectedShare,
-      r.qualityFlags.join(' '), r.flagReason, r.fit?.misfit, r.fit?.background.b0, r.fit?.background.b1,
-      r.fit?.band?.minHz, r.fit?.band?.maxHz, r.fit?.averages, excludedCell(r.fit?.excluded)];
+    const out: unknown[] = [
+      r.stationCode,
+      r.component,
+      r.startsAt,
+      r.durationS,
+      r.origin,
+      r.rejectedShare,
+      r.qualityFlags.join(' '),
+      r.flagReason,
+      r.fit?.misfit,
+      r.fit?.background.b0,
+      r.fit?.background.b1,
+      r.fit?.band?.minHz,
+      r.fit?.band?.maxHz,
+      r.fit?.averages,
+      excludedCell(r.fit?.excluded),
+    ];
     for (let n = 0; n < nModes; n++) {
       const m = r.fit?.modes[n];
       out.push(m?.frequency, m?.errors.frequency, m?.halfWidth, m?.errors.halfWidth, m?.q, m?.amplitude, m?.errors.amplitude);
@@ -52,8 +80,14 @@ export function intervalsToJson(networkId: string, rows: IntervalSummary[]) {
     generatedAt: new Date().toISOString(),
     units: { Ez: '(V/m)^2/Hz', Bns: 'T^2/Hz', Bew: 'T^2/Hz', frequency: 'Hz', time: 'UTC' },
     intervals: rows.map((r) => ({
-      station: r.stationCode, component: r.component, startsAt: r.startsAt.toISOString(), durationS: r.durationS,
-      origin: r.origin, rejectedShare: r.rejectedShare, qualityFlags: r.qualityFlags, flagReason: r.flagReason,
+      station: r.stationCode,
+      component: r.component,
+      startsAt: r.startsAt.toISOString(),
+      durationS: r.durationS,
+      origin: r.origin,
+      rejectedShare: r.rejectedShare,
+      qualityFlags: r.qualityFlags,
+      flagReason: r.flagReason,
       fit: r.fit,
     })),
   };

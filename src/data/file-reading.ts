@@ -22,10 +22,18 @@ import { COMPONENTS } from './station-input';
 
 /** A problem with a file's content: the message names file, line and field. */
 export class FileProblem extends Error {
-  constructor(message: string, readonly field: string) { super(message); }
+  constructor(
+    message: string,
+    readonly field: string,
+  ) {
+    super(message);
+  }
 }
 
-export interface FileContext { fileName: string; station: Station }
+export interface FileContext {
+  fileName: string;
+  station: Station;
+}
 type Chunks = AsyncIterable<Uint8Array>;
 
 function problem(e: unknown): never {
@@ -42,27 +50,42 @@ export function sniffFormat(fileName: string, head: string): UploadFormat {
   if (first.startsWith(`# ${SPECTRA_SIGNATURE}`) || first.startsWith(`#${SPECTRA_SIGNATURE}`)) return 'spectra-csv';
   throw new FileProblem(
     `${fileName}, line 1: not a Cavitas station file — the first line should read "# ${SERIES_SIGNATURE} 1" or "# ${SPECTRA_SIGNATURE} 1", or the file should be a JSON series starting with "{"`,
-    'file');
+    'file',
+  );
 }
 
 async function checkStationCode(code: string, ctx: FileContext, field: string): Promise<void> {
   if (code === ctx.station.code) return;
   const other = await getStationByCode(ctx.station.networkId, code);
-  if (other) throw new FileProblem(`${ctx.fileName}: the file is from station ${code}, not ${ctx.station.code}; upload it on ${code}'s page`, field);
-  throw new FileProblem(`${ctx.fileName}: unknown station code "${code}" — this network has no such station (add it first, or correct the file)`, field);
+  if (other)
+    throw new FileProblem(
+      `${ctx.fileName}: the file is from station ${code}, not ${ctx.station.code}; upload it on ${code}'s page`,
+      field,
+    );
+  throw new FileProblem(
+    `${ctx.fileName}: unknown station code "${code}" — this network has no such station (add it first, or correct the file)`,
+    field,
+  );
 }
 
 function checkComponent(c: string, ctx: FileContext, field: string): ComponentName {
-  if (!COMPONENTS.includes(c as ComponentName)) throw new FileProblem(`${ctx.fileName}: "${c}" is not a component (Ez, Bns or Bew)`, field);
+  if (!COMPONENTS.includes(c as ComponentName))
+    throw new FileProblem(`${ctx.fileName}: "${c}" is not a component (Ez, Bns or Bew)`, field);
   if (!ctx.station.components.some((x) => x.component === c)) {
-    throw new FileProblem(`${ctx.fileName}: station ${ctx.station.code} has no ${c} component installed (add it to the station first)`, field);
+    throw new FileProblem(
+      `${ctx.fileName}: station ${ctx.station.code} has no ${c} component installed (add it to the station first)`,
+      field,
+    );
   }
   return c as ComponentName;
 }
 
 function checkRate(rate: number, ctx: FileContext, field: string) {
   if (Math.abs(rate - ctx.station.sampleRateHz) > 1e-9 * rate) {
-    throw new FileProblem(`${ctx.fileName}: ${field} ${rate} Hz disagrees with station ${ctx.station.code}'s registered ${ctx.station.sampleRateHz} Hz (correct the file or the station)`, field);
+    throw new FileProblem(
+      `${ctx.fileName}: ${field} ${rate} Hz disagrees with station ${ctx.station.code}'s registered ${ctx.station.sampleRateHz} Hz (correct the file or the station)`,
+      field,
+    );
   }
 }
 
@@ -78,20 +101,31 @@ async function checkSeriesHeader(h: SeriesHeader, ctx: FileContext): Promise<Par
   return factors;
 }
 
-interface JsonUpload { component: ComponentName; startMs: number; sampleRateHz: number; samples: number[] }
+interface JsonUpload {
+  component: ComponentName;
+  startMs: number;
+  sampleRateHz: number;
+  samples: number[];
+}
 
 async function readJsonUpload(chunks: Chunks, ctx: FileContext): Promise<JsonUpload> {
   const file = ctx.fileName;
   const data = parseJsonText(await textOf(chunks), file) as Record<string, unknown>;
-  if (!data || typeof data !== 'object' || Array.isArray(data)) throw new FileProblem(`${file}: the JSON must be an object`, 'file');
+  if (!data || typeof data !== 'object' || Array.isArray(data))
+    throw new FileProblem(`${file}: the JSON must be an object`, 'file');
   for (const key of ['station', 'component', 'startUtc'] as const) {
-    if (typeof data[key] !== 'string') throw new FileProblem(`${file}, field "${key}": an uploaded JSON series needs "${key}" (a string)`, key);
+    if (typeof data[key] !== 'string')
+      throw new FileProblem(`${file}, field "${key}": an uploaded JSON series needs "${key}" (a string)`, key);
   }
   const series = parseSeriesJson({ segmentSeconds: 10, ...data }, file);
   await checkStationCode(data.station as string, ctx, 'station');
   const component = checkComponent(data.component as string, ctx, 'component');
   const startMs = parseUtc(data.startUtc as string);
-  if (startMs === null) throw new FileProblem(`${file}, field "startUtc": "${data.startUtc}" is not a UTC time like 2026-03-14T00:00:00Z`, 'startUtc');
+  if (startMs === null)
+    throw new FileProblem(
+      `${file}, field "startUtc": "${data.startUtc}" is not a UTC time like 2026-03-14T00:00:00Z`,
+      'startUtc',
+    );
   checkRate(series.sampleRateHz, ctx, 'sampleRateHz');
   return { component, startMs, sampleRateHz: series.sampleRateHz, samples: series.samples };
 }
@@ -127,11 +161,23 @@ export async function* readUploadIntervals(format: UploadFormat, chunks: Chunks,
       const reader = await openSeriesCsv(chunks, ctx.fileName);
       const h = reader.header;
       const factors = await checkSeriesHeader(h, ctx);
-      const split = splitIntervals(reader.blocks, { sampleRateHz: h.sampleRateHz, startMs: h.startMs, components: h.components.length, intervalSeconds: INTERVAL_SECONDS });
+      const split = splitIntervals(reader.blocks, {
+        sampleRateHz: h.sampleRateHz,
+        startMs: h.startMs,
+        components: h.components.length,
+        intervalSeconds: INTERVAL_SECONDS,
+      });
       for await (const iv of split) {
         for (let c = 0; c < h.components.length; c++) {
-          yield { kind: 'samples', component: h.components[c], startsAt: new Date(iv.startMs), durationS: INTERVAL_SECONDS,
-            sampleRateHz: h.sampleRateHz, samples: iv.columns[c], siFactor: factors[h.components[c]] };
+          yield {
+            kind: 'samples',
+            component: h.components[c],
+            startsAt: new Date(iv.startMs),
+            durationS: INTERVAL_SECONDS,
+            sampleRateHz: h.sampleRateHz,
+            samples: iv.columns[c],
+            siFactor: factors[h.components[c]],
+          };
         }
       }
       return;
@@ -142,16 +188,36 @@ export async function* readUploadIntervals(format: UploadFormat, chunks: Chunks,
       const component = checkComponent(f.component, ctx, 'component');
       const siFactor = spectrumUnitFactor(f.units);
       for (const iv of f.intervals) {
-        yield { kind: 'spectrum', component, startsAt: new Date(iv.startMs), durationS: f.intervalSeconds,
-          frequencies: f.frequencies, power: iv.power, siFactor };
+        yield {
+          kind: 'spectrum',
+          component,
+          startsAt: new Date(iv.startMs),
+          durationS: f.intervalSeconds,
+          frequencies: f.frequencies,
+          power: iv.power,
+          siFactor,
+        };
       }
       return;
     }
     const j = await readJsonUpload(chunks, ctx);
-    const blocks = (async function* () { yield { firstSample: 0, length: j.samples.length, columns: [j.samples] }; })();
-    for await (const iv of splitIntervals(blocks, { sampleRateHz: j.sampleRateHz, startMs: j.startMs, components: 1, intervalSeconds: INTERVAL_SECONDS })) {
-      yield { kind: 'samples', component: j.component, startsAt: new Date(iv.startMs), durationS: INTERVAL_SECONDS,
-        sampleRateHz: j.sampleRateHz, samples: iv.columns[0] };
+    const blocks = (async function* () {
+      yield { firstSample: 0, length: j.samples.length, columns: [j.samples] };
+    })();
+    for await (const iv of splitIntervals(blocks, {
+      sampleRateHz: j.sampleRateHz,
+      startMs: j.startMs,
+      components: 1,
+      intervalSeconds: INTERVAL_SECONDS,
+    })) {
+      yield {
+        kind: 'samples',
+        component: j.component,
+        startsAt: new Date(iv.startMs),
+        durationS: INTERVAL_SECONDS,
+        sampleRateHz: j.sampleRateHz,
+        samples: iv.columns[0],
+      };
     }
   } catch (e) {
     problem(e);

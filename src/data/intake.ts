@@ -16,7 +16,12 @@ import type { Station } from '@/db/repo/stations';
 export const PROCESS_UPLOAD_QUEUE = 'process-upload';
 
 const tooLarge = (name: string, limit: number) =>
-  new AppError(413, 'too_large', `${name} is larger than the ${formatBytes(limit)} limit for one file; split it into smaller files.`, 'file');
+  new AppError(
+    413,
+    'too_large',
+    `${name} is larger than the ${formatBytes(limit)} limit for one file; split it into smaller files.`,
+    'file',
+  );
 
 export interface IntakeRequest {
   station: Station;
@@ -46,32 +51,43 @@ export async function receiveUpload(req: IntakeRequest): Promise<{ upload: uploa
     throw e;
   }
 
-  const result = await uploads.storeUpload({
-    networkId: req.station.networkId, stationId: req.station.id, uploadedBy: req.userId, fileName: name, format,
-  }, async (writer) => {
-    const hash = createHash('sha256');
-    let size = 0;
-    async function* tap(): AsyncGenerator<Uint8Array> {
-      let chunk: ReadableStreamReadResult<Uint8Array> = first;
-      while (!chunk.done) {
-        size += chunk.value.length;
-        if (size > limit) throw tooLarge(name, limit);
-        hash.update(chunk.value);
-        await writer.append(Buffer.from(chunk.value));
-        yield chunk.value;
-        chunk = await reader.read();
-      }
-    }
-    const stream = tap();
-    try {
-      await checkFile(format, stream, { fileName: name, station: req.station });
-    } catch (e) {
-      if (e instanceof FileProblem) throw badRequest(e.message, e.field);
-      throw e;
-    }
-    for await (const _ of stream) { /* the parser may stop early: take in the rest */ }
-    return { sha256: hash.digest('hex'), sizeBytes: size };
-  }).finally(() => reader.cancel().catch(() => {}));
+  const result = await uploads
+    .storeUpload(
+      {
+        networkId: req.station.networkId,
+        stationId: req.station.id,
+        uploadedBy: req.userId,
+        fileName: name,
+        format,
+      },
+      async (writer) => {
+        const hash = createHash('sha256');
+        let size = 0;
+        async function* tap(): AsyncGenerator<Uint8Array> {
+          let chunk: ReadableStreamReadResult<Uint8Array> = first;
+          while (!chunk.done) {
+            size += chunk.value.length;
+            if (size > limit) throw tooLarge(name, limit);
+            hash.update(chunk.value);
+            await writer.append(Buffer.from(chunk.value));
+            yield chunk.value;
+            chunk = await reader.read();
+          }
+        }
+        const stream = tap();
+        try {
+          await checkFile(format, stream, { fileName: name, station: req.station });
+        } catch (e) {
+          if (e instanceof FileProblem) throw badRequest(e.message, e.field);
+          throw e;
+        }
+        for await (const _ of stream) {
+          /* the parser may stop early: take in the rest */
+        }
+        return { sha256: hash.digest('hex'), sizeBytes: size };
+      },
+    )
+    .finally(() => reader.cancel().catch(() => {}));
 
   if (!result.duplicate) await queueProcessing(result.upload.id);
   return result;
@@ -82,7 +98,10 @@ export async function queueProcessing(uploadId: string): Promise<void> {
   try {
     await enqueue(PROCESS_UPLOAD_QUEUE, { uploadId }, { retryLimit: 0 });
   } catch (e) {
-    await uploads.failUpload(uploadId, `Could not queue processing (${e instanceof Error ? e.message : String(e)}); use "Process again".`);
+    await uploads.failUpload(
+      uploadId,
+      `Could not queue processing (${e instanceof Error ? e.message : String(e)}); use "Process again".`,
+    );
   }
 }
 
@@ -92,7 +111,11 @@ export async function retryUpload(networkId: string, uploadId: string) {
   if (!row) {
     const existing = await uploads.getUpload(networkId, uploadId);
     if (!existing) throw new AppError(404, 'not_found', 'No such upload in this network.');
-    throw new AppError(409, 'conflict', `This upload is ${existing.state}; only failed uploads (or ones stuck processing for over an hour) can be processed again.`);
+    throw new AppError(
+      409,
+      'conflict',
+      `This upload is ${existing.state}; only failed uploads (or ones stuck processing for over an hour) can be processed again.`,
+    );
   }
   await queueProcessing(row.id);
   return (await uploads.getUpload(networkId, uploadId))!;

@@ -12,7 +12,12 @@ import { fitModes, ModeFitError } from '@/src/engine/modes/fit-modes';
 import { hannWelchScatter } from '@/src/engine/modes/bin-scatter';
 import type { ModeFit } from '@/src/engine/modes/types';
 import { ModeFitOptionError } from '@/src/engine/modes/options';
-import { SIGNAL_INTERVAL_SECONDS, SIGNAL_SEGMENT_SECONDS, SPECTRUM_BAND_MAX_HZ, MODE_FREQUENCY_WINDOW_HZ } from '@/src/engine/tolerances';
+import {
+  SIGNAL_INTERVAL_SECONDS,
+  SIGNAL_SEGMENT_SECONDS,
+  SPECTRUM_BAND_MAX_HZ,
+  MODE_FREQUENCY_WINDOW_HZ,
+} from '@/src/engine/tolerances';
 import { MIN_MODES, USUAL_MODE_FREQUENCIES_HZ } from '@/src/engine/modes/usual-modes';
 import type { IntervalFit, IntervalResultInput } from '@/db/repo/intervals';
 import type { ComponentName, Station } from '@/db/repo/stations';
@@ -29,21 +34,40 @@ export function modeCountBelow(topHz: number): number {
 
 export type RawInterval = { component: ComponentName; startsAt: Date; durationS: number } & (
   | {
-    kind: 'samples'; sampleRateHz: number; samples: Float64Array;
-    /** Physical samples: multiply by this to reach SI (V/m, T); the station calibration is then skipped. */
-    siFactor?: number;
-  }
+      kind: 'samples';
+      sampleRateHz: number;
+      samples: Float64Array;
+      /** Physical samples: multiply by this to reach SI (V/m, T); the station calibration is then skipped. */
+      siFactor?: number;
+    }
   | {
-    kind: 'spectrum'; frequencies: ArrayLike<number>; power: ArrayLike<number>;
-    /** Physical power: multiply by this to reach SI ((V/m)^2/Hz, T^2/Hz); otherwise the calibration applies. */
-    siFactor?: number;
-  });
+      kind: 'spectrum';
+      frequencies: ArrayLike<number>;
+      power: ArrayLike<number>;
+      /** Physical power: multiply by this to reach SI ((V/m)^2/Hz, T^2/Hz); otherwise the calibration applies. */
+      siFactor?: number;
+    }
+);
 
 /** Units of samples that are already physical, as factors to SI. */
-const SAMPLE_UNITS: Record<string, number> = { 'V/m': 1, 'mV/m': 1e-3, 'uV/m': 1e-6, 'µV/m': 1e-6, T: 1, nT: 1e-9, pT: 1e-12, fT: 1e-15 };
+const SAMPLE_UNITS: Record<string, number> = {
+  'V/m': 1,
+  'mV/m': 1e-3,
+  'uV/m': 1e-6,
+  'µV/m': 1e-6,
+  T: 1,
+  nT: 1e-9,
+  pT: 1e-12,
+  fT: 1e-15,
+};
 /** Units of spectra that are already physical, as factors to SI. */
 const SPECTRUM_UNITS: Record<string, number> = {
-  '(V/m)^2/Hz': 1, '(mV/m)^2/Hz': 1e-6, 'T^2/Hz': 1, 'nT^2/Hz': 1e-18, 'pT^2/Hz': 1e-24, 'fT^2/Hz': 1e-30,
+  '(V/m)^2/Hz': 1,
+  '(mV/m)^2/Hz': 1e-6,
+  'T^2/Hz': 1,
+  'nT^2/Hz': 1e-18,
+  'pT^2/Hz': 1e-24,
+  'fT^2/Hz': 1e-30,
 };
 export const sampleUnitFactor = (unit: string): number | undefined => SAMPLE_UNITS[unit.trim()];
 export const spectrumUnitFactor = (unit: string): number | undefined => SPECTRUM_UNITS[unit.replace(/\s+/g, '')];
@@ -55,7 +79,12 @@ function calibrationOf(station: Station, component: ComponentName): Calibration 
 }
 
 /** Processing settings of one station component (samples in physical units when siFactor is given). */
-export function processingConfigFor(station: Station, component: ComponentName, sampleRateHz: number, siFactor?: number): ProcessingConfig {
+export function processingConfigFor(
+  station: Station,
+  component: ComponentName,
+  sampleRateHz: number,
+  siFactor?: number,
+): ProcessingConfig {
   return {
     sampleRateHz,
     segmentSeconds: SIGNAL_SEGMENT_SECONDS,
@@ -75,7 +104,10 @@ export type ProcessedRow = Omit<IntervalResultInput, 'uploadId' | 'origin'>;
  */
 export function storedFit(f: ModeFit): IntervalFit {
   return {
-    modes: f.modes, background: f.background, misfit: f.misfit, band: { ...f.band },
+    modes: f.modes,
+    background: f.background,
+    misfit: f.misfit,
+    band: { ...f.band },
     excluded: f.excluded.map((r) => ({ minHz: r.minHz, maxHz: r.maxHz })),
     ...(f.averages !== undefined ? { averages: f.averages } : {}),
     ...(f.binCorrelation ? { binCorrelation: [...f.binCorrelation] } : {}),
@@ -84,20 +116,26 @@ export function storedFit(f: ModeFit): IntervalFit {
 
 export function processRawInterval(station: Station, raw: RawInterval): ProcessedRow {
   const base = {
-    networkId: station.networkId, stationId: station.id, component: raw.component,
-    startsAt: raw.startsAt, durationS: raw.durationS,
+    networkId: station.networkId,
+    stationId: station.id,
+    component: raw.component,
+    startsAt: raw.startsAt,
+    durationS: raw.durationS,
   };
   if (raw.kind === 'samples') {
     const r = processInterval(raw.samples, processingConfigFor(station, raw.component, raw.sampleRateHz, raw.siFactor));
     return {
-      ...base, rejectedShare: r.rejectedShare, qualityFlags: r.flags,
+      ...base,
+      rejectedShare: r.rejectedShare,
+      qualityFlags: r.flags,
       spectrum: r.spectrum ? { ...r.spectrum, segments: r.segments } : { frequencies: [], power: [], segments: 0 },
       fit: r.fit ? storedFit(r.fit) : null,
     };
   }
-  const power = raw.siFactor !== undefined
-    ? Array.from(raw.power, (p) => p * raw.siFactor!)
-    : Array.from(calibrateSpectrum(raw.frequencies, raw.power, calibrationOf(station, raw.component)).power);
+  const power =
+    raw.siFactor !== undefined
+      ? Array.from(raw.power, (p) => p * raw.siFactor!)
+      : Array.from(calibrateSpectrum(raw.frequencies, raw.power, calibrationOf(station, raw.component)).power);
   const frequencies = Array.from(raw.frequencies);
   // A file's spectrum carries no segment count: assume the usual 10-s Hann segments with 50 % overlap
   // (their equivalent averages and correlated neighbouring bins, as for the pipeline's own spectra).
@@ -107,13 +145,14 @@ export function processRawInterval(station: Station, raw: RawInterval): Processe
   let fit = null;
   const modes = modeCountBelow(frequencies[frequencies.length - 1] ?? 0);
   if (modes === 0) flags.push('fit-failed');
-  else try {
-    const f = fitModes(frequencies, power, { modes, averages: scatter.averages, binCorrelation: scatter.lagCorrelation });
-    fit = storedFit(f);
-    flags.push(...f.flags);
-  } catch (e) {
-    if (!(e instanceof ModeFitError) && !(e instanceof ModeFitOptionError)) throw e;
-    flags.push('fit-failed');
-  }
+  else
+    try {
+      const f = fitModes(frequencies, power, { modes, averages: scatter.averages, binCorrelation: scatter.lagCorrelation });
+      fit = storedFit(f);
+      flags.push(...f.flags);
+    } catch (e) {
+      if (!(e instanceof ModeFitError) && !(e instanceof ModeFitOptionError)) throw e;
+      flags.push('fit-failed');
+    }
   return { ...base, rejectedShare: 0, qualityFlags: flags, spectrum: { frequencies, power, segments }, fit };
 }

@@ -19,14 +19,21 @@ export function hashSecret(secret: string): string {
 }
 
 export async function issuePushToken(
-  networkId: string, stationId: string, createdBy: string,
+  networkId: string,
+  stationId: string,
+  createdBy: string,
   opts: { label: string; expiresInDays: number | null },
 ): Promise<{ token: repo.PushTokenInfo; secret: string }> {
   const secret = PREFIX + randomBytes(32).toString('base64url');
   const expiresAt = opts.expiresInDays ? new Date(Date.now() + opts.expiresInDays * 86_400_000) : null;
   const token = await repo.createPushToken({
-    networkId, stationId, label: opts.label, secretHash: hashSecret(secret),
-    hint: `${secret.slice(0, PREFIX.length + 4)}…`, createdBy, expiresAt,
+    networkId,
+    stationId,
+    label: opts.label,
+    secretHash: hashSecret(secret),
+    hint: `${secret.slice(0, PREFIX.length + 4)}…`,
+    createdBy,
+    expiresAt,
   });
   return { token, secret };
 }
@@ -53,14 +60,18 @@ export async function authenticatePush(authorization: string | null) {
   if (!token) throw refused('token_unknown', 'This push token is not known. Ask a network owner for a new one.');
   if (token.revokedAt) throw refused('token_revoked', 'This push token was revoked. Ask a network owner for a new one.');
   if (token.expiresAt && token.expiresAt.getTime() <= Date.now()) {
-    throw refused('token_expired', `This push token expired on ${token.expiresAt.toISOString()}. Ask a network owner for a new one.`);
+    throw refused(
+      'token_expired',
+      `This push token expired on ${token.expiresAt.toISOString()}. Ask a network owner for a new one.`,
+    );
   }
   const { max, windowSeconds } = pushRateLimit();
   const { count, resetInS } = await repo.countPushRequest(token.id, windowSeconds);
   if (count > max) {
     const wait = Math.max(1, Math.ceil(resetInS));
-    throw Object.assign(tooManyRequests(
-      `This token may push ${max} times per ${windowSeconds} s; try again in ${wait} s.`), { retryAfterS: wait });
+    throw Object.assign(tooManyRequests(`This token may push ${max} times per ${windowSeconds} s; try again in ${wait} s.`), {
+      retryAfterS: wait,
+    });
   }
   return token;
 }

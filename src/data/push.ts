@@ -16,7 +16,8 @@ export const PUSH_MAX_BYTES = 32 * 1024 * 1024;
 
 /** The request body as text, refusing more than PUSH_MAX_BYTES whether announced or streamed. */
 export async function readPushBody(req: Request): Promise<string> {
-  const tooBig = () => new AppError(413, 'too_large', `A push may carry at most ${PUSH_MAX_BYTES >> 20} MB; send one interval per request.`, 'body');
+  const tooBig = () =>
+    new AppError(413, 'too_large', `A push may carry at most ${PUSH_MAX_BYTES >> 20} MB; send one interval per request.`, 'body');
   if (Number(req.headers.get('content-length') ?? 0) > PUSH_MAX_BYTES) throw tooBig();
   if (!req.body) return '';
   const reader = req.body.getReader();
@@ -26,7 +27,10 @@ export async function readPushBody(req: Request): Promise<string> {
     const { done, value } = await reader.read();
     if (done) break;
     size += value.length;
-    if (size > PUSH_MAX_BYTES) { await reader.cancel().catch(() => {}); throw tooBig(); }
+    if (size > PUSH_MAX_BYTES) {
+      await reader.cancel().catch(() => {});
+      throw tooBig();
+    }
     parts.push(value);
   }
   return Buffer.concat(parts).toString('utf8');
@@ -36,7 +40,8 @@ const sample = z.union([z.number(), z.null()]);
 export const pushBodySchema = z.object({
   startsAt: z.iso.datetime({ message: 'give the interval start as an ISO time in UTC, e.g. 2026-03-14T06:20:00Z' }),
   sampleRateHz: z.number().positive().finite(),
-  components: z.partialRecord(z.enum(COMPONENTS), z.array(sample).min(1))
+  components: z
+    .partialRecord(z.enum(COMPONENTS), z.array(sample).min(1))
     .refine((c) => Object.keys(c).length > 0, 'send at least one component (Ez, Bns or Bew)'),
 });
 export type PushBody = z.infer<typeof pushBodySchema>;
@@ -48,32 +53,49 @@ export async function receivePush(token: { networkId: string; stationId: string 
   if (startsAt.getTime() % (INTERVAL_SECONDS * 1000) !== 0) {
     throw badRequest('Intervals start on a 10-minute boundary of UTC (e.g. 06:20:00Z).', 'startsAt');
   }
-  if (startsAt.getTime() > Date.now() + 15 * 60_000) throw badRequest('This interval starts in the future; check the station clock.', 'startsAt');
+  if (startsAt.getTime() > Date.now() + 15 * 60_000)
+    throw badRequest('This interval starts in the future; check the station clock.', 'startsAt');
   if (Math.abs(body.sampleRateHz - station.sampleRateHz) > 1e-9 * station.sampleRateHz) {
-    throw badRequest(`The station ${station.code} is registered at ${station.sampleRateHz} Hz, not ${body.sampleRateHz} Hz.`, 'sampleRateHz');
+    throw badRequest(
+      `The station ${station.code} is registered at ${station.sampleRateHz} Hz, not ${body.sampleRateHz} Hz.`,
+      'sampleRateHz',
+    );
   }
   const expected = Math.round(body.sampleRateHz * INTERVAL_SECONDS);
   const installed = new Set(station.components.map((c) => c.component));
   const entries = Object.entries(body.components) as [(typeof COMPONENTS)[number], (number | null)[]][];
   for (const [component, samples] of entries) {
-    if (!installed.has(component)) throw badRequest(`${station.code} has no ${component} component installed.`, `components.${component}`);
+    if (!installed.has(component))
+      throw badRequest(`${station.code} has no ${component} component installed.`, `components.${component}`);
     if (samples.length !== expected) {
-      throw badRequest(`${component} has ${samples.length} samples; 10 minutes at ${body.sampleRateHz} Hz are ${expected} (send null for a missing sample).`, `components.${component}`);
+      throw badRequest(
+        `${component} has ${samples.length} samples; 10 minutes at ${body.sampleRateHz} Hz are ${expected} (send null for a missing sample).`,
+        `components.${component}`,
+      );
     }
   }
   const results = entries.map(([component, samples]) => ({
     ...processRawInterval(station, {
-      kind: 'samples', component, startsAt, durationS: INTERVAL_SECONDS, sampleRateHz: body.sampleRateHz,
+      kind: 'samples',
+      component,
+      startsAt,
+      durationS: INTERVAL_SECONDS,
+      sampleRateHz: body.sampleRateHz,
       samples: Float64Array.from(samples, (v) => (v === null ? NaN : v)),
     }),
-    origin: 'push' as const, uploadId: null,
+    origin: 'push' as const,
+    uploadId: null,
   }));
   const saved = await saveIntervals(results);
   return {
     station: station.code,
     intervals: saved.map((s, i) => ({
-      id: s.id, component: results[i].component, startsAt: startsAt.toISOString(), created: s.created,
-      qualityFlags: results[i].qualityFlags, modes: results[i].fit?.modes.length ?? 0,
+      id: s.id,
+      component: results[i].component,
+      startsAt: startsAt.toISOString(),
+      created: s.created,
+      qualityFlags: results[i].qualityFlags,
+      modes: results[i].fit?.modes.length ?? 0,
     })),
   };
 }

@@ -15,10 +15,25 @@ import type { Component } from '@/src/engine/components';
 import type { IntervalFit } from '@/db/repo/intervals';
 import { storedFit } from './interval-processing';
 
-export interface SyntheticStation { id: string; code: string; lat: number; lon: number; components: Component[] }
+export interface SyntheticStation {
+  id: string;
+  code: string;
+  lat: number;
+  lon: number;
+  components: Component[];
+}
 
 /** An invented regional centre: where it sits and when in the UTC day it peaks. */
-export interface ActivityCentre { name: string; lat: number; lon: number; spreadDeg: number; baseline: number; peak: number; peakHourUtc: number; widthHours: number }
+export interface ActivityCentre {
+  name: string;
+  lat: number;
+  lon: number;
+  spreadDeg: number;
+  baseline: number;
+  peak: number;
+  peakHourUtc: number;
+  widthHours: number;
+}
 
 export const DEMO_CENTRES: ActivityCentre[] = [
   { name: 'west', lat: -6, lon: -58, spreadDeg: 10, baseline: 2.0e4, peak: 9.0e4, peakHourUtc: 20, widthHours: 3 },
@@ -49,8 +64,11 @@ export interface SyntheticInterval {
 
 /** Every 10-minute interval of one UTC day (dayStartMs at 00:00Z) for all stations and components. */
 export function syntheticDay(stations: SyntheticStation[], dayStartMs: number, seed = 1): SyntheticInterval[] {
-  const model = createForwardModel(asCavity({ model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 }), DEMO_BAND,
-    stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon, components: s.components })));
+  const model = createForwardModel(
+    asCavity({ model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 }),
+    DEMO_BAND,
+    stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon, components: s.components })),
+  );
   const out = model.createOutput();
   const freqs = Array.from(model.freqs);
   const rand = mulberry32(seed);
@@ -60,7 +78,11 @@ export function syntheticDay(stations: SyntheticStation[], dayStartMs: number, s
   for (let k = 0; k < 144; k++) {
     const hour = (k + 0.5) / 6;
     const sources: ForwardSource[] = DEMO_CENTRES.map((c) => ({
-      name: c.name, lat: c.lat, lon: c.lon, spreadDeg: c.spreadDeg, intensity: centreIntensity(c, hour),
+      name: c.name,
+      lat: c.lat,
+      lon: c.lon,
+      spreadDeg: c.spreadDeg,
+      intensity: centreIntensity(c, hour),
     }));
     model.evaluate(sources, out);
     stations.forEach((st, s) => {
@@ -76,7 +98,15 @@ export function syntheticDay(stations: SyntheticStation[], dayStartMs: number, s
         } catch {
           flags = ['fit-failed'];
         }
-        result.push({ stationId: st.id, component, startsAt: new Date(dayStartMs + k * 600_000), frequencies: freqs, power, fit, flags });
+        result.push({
+          stationId: st.id,
+          component,
+          startsAt: new Date(dayStartMs + k * 600_000),
+          frequencies: freqs,
+          power,
+          fit,
+          flags,
+        });
       }
     });
   }

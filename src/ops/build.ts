@@ -12,7 +12,17 @@ import { fileURLToPath } from 'node:url';
 import { NEXT_LOCK, nextBin, projectRoot } from './paths';
 
 /** Everything a production build depends on. */
-export const BUILD_INPUTS = ['app', 'src', 'db', 'public', 'next.config.mjs', 'postcss.config.mjs', 'tsconfig.json', 'package.json', 'package-lock.json'];
+export const BUILD_INPUTS = [
+  'app',
+  'src',
+  'db',
+  'public',
+  'next.config.mjs',
+  'postcss.config.mjs',
+  'tsconfig.json',
+  'package.json',
+  'package-lock.json',
+];
 const SKIP = new Set(['node_modules', '.next', '.data', '.git']);
 
 /** Newest modification time (ms) of any file under `p`, or 0 when it does not exist. */

@@ -54,7 +54,8 @@ export async function startStack(o: StackOptions): Promise<Stack> {
   const ports: Array<[string, number, string]> = [['web server', o.port, 'PORT']];
   if (!relay) ports.push(['mail catcher', o.smtpPort, 'SMTP_PORT']);
   for (const [what, port, variable] of ports) {
-    if (await portInUse(port)) throw new Error(`port ${port} on 127.0.0.1 (${what}) is already in use; choose another with ${variable}=<port>`);
+    if (await portInUse(port))
+      throw new Error(`port ${port} on 127.0.0.1 (${what}) is already in use; choose another with ${variable}=<port>`);
   }
   const appUrl = o.appUrl ?? `http://127.0.0.1:${o.port}`;
   const { NODE_ENV: _nodeEnv, ...inherited } = process.env; // next sets NODE_ENV per command
@@ -84,7 +85,11 @@ export async function startStack(o: StackOptions): Promise<Stack> {
       env,
       cwd: projectRoot,
     });
-    await waitForHttp(`http://127.0.0.1:${o.port}/`, o.mode === 'dev' ? 180_000 : 60_000, () => web.exitCode === null && web.signalCode === null);
+    await waitForHttp(
+      `http://127.0.0.1:${o.port}/`,
+      o.mode === 'dev' ? 180_000 : 60_000,
+      () => web.exitCode === null && web.signalCode === null,
+    );
     log(`[start] web server answers on http://127.0.0.1:${o.port}/`);
   } catch (err) {
     await sup.stopAll(5_000);

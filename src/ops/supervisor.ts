@@ -33,7 +33,12 @@ export class Supervisor {
   start(spec: ChildSpec): ChildProcess {
     // Own process group, so stop() reaches grandchildren (next dev) and a terminal Ctrl-C
     // reaches only us: we decide the order of shutdown.
-    const proc = spawn(spec.command, spec.args, { cwd: spec.cwd, env: spec.env, stdio: ['ignore', 'pipe', 'pipe'], detached: true });
+    const proc = spawn(spec.command, spec.args, {
+      cwd: spec.cwd,
+      env: spec.env,
+      stdio: ['ignore', 'pipe', 'pipe'],
+      detached: true,
+    });
     for (const stream of [proc.stdout!, proc.stderr!]) {
       readline.createInterface({ input: stream }).on('line', (line) => this.log(`${spec.name.padEnd(7)}| ${line}`));
     }

@@ -19,9 +19,18 @@ const totals: Counts = { passed: 0, failed: 0, skipped: 0 };
 function vitest(config: string, args: string[], env: NodeJS.ProcessEnv): number {
   const report = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'cavitas-report-')), 'report.json');
   const reporters = ['--reporter=default', '--reporter=json', `--outputFile.json=${report}`];
-  const r = spawnSync(process.execPath, [vitestBin, 'run', '--config', config, ...reporters, ...args], { cwd: projectRoot, stdio: 'inherit', env });
+  const r = spawnSync(process.execPath, [vitestBin, 'run', '--config', config, ...reporters, ...args], {
+    cwd: projectRoot,
+    stdio: 'inherit',
+    env,
+  });
   try {
-    const json = JSON.parse(fs.readFileSync(report, 'utf8')) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number };
+    const json = JSON.parse(fs.readFileSync(report, 'utf8')) as {
+      numPassedTests: number;
+      numFailedTests: number;
+      numPendingTests: number;
+      numTodoTests: number;
+    };
     totals.passed += json.numPassedTests;
     totals.failed += json.numFailedTests;
     totals.skipped += json.numPendingTests + json.numTodoTests;

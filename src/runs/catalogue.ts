@@ -34,7 +34,9 @@ export async function saveModel(networkId: string, userId: string | null, input:
 
 export async function saveGrid(networkId: string, userId: string | null, input: GridInput, baseId?: string): Promise<GridRow> {
   checkGrid(input);
-  const regions = input.regions.map((r) => (r.kind === 'cells' ? { ...r, cells: [...new Set(r.cells)].sort((a, b) => a - b) } : r));
+  const regions = input.regions.map((r) =>
+    r.kind === 'cells' ? { ...r, cells: [...new Set(r.cells)].sort((a, b) => a - b) } : r,
+  );
   const fields = { name: input.name, notes: input.notes, cellSizeDeg: input.cellSizeDeg, regions };
   if (!baseId) return createGrid(networkId, userId, fields);
   const row = await addGridVersion(networkId, baseId, userId, fields);

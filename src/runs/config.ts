@@ -5,7 +5,8 @@
  */
 import { z } from 'zod';
 
-const bounds = z.object({ min: z.number(), max: z.number() })
+const bounds = z
+  .object({ min: z.number(), max: z.number() })
   .refine((b) => b.min < b.max, { message: 'the lower bound must be below the upper bound' });
 
 export const COMPONENTS = ['Ez', 'Bns', 'Bew'] as const;
@@ -23,26 +24,41 @@ export const runConfigSchema = z.object({
   name: z.string().trim().min(1, 'give the run a name').max(120),
   modelId: z.uuid('choose a cavity model'),
   gridId: z.uuid('choose a source grid'),
-  data: z.object({
-    stationIds: z.array(z.uuid()).min(1, 'choose at least one station'),
-    components: z.array(z.enum(COMPONENTS)).min(1, 'choose at least one component'),
-    from: z.iso.datetime({ offset: true }),
-    to: z.iso.datetime({ offset: true }),
-    includeFlagged: z.boolean().default(false),
-  }).refine((d) => Date.parse(d.from) <= Date.parse(d.to), { message: 'the range ends before it starts', path: ['to'] }),
+  data: z
+    .object({
+      stationIds: z.array(z.uuid()).min(1, 'choose at least one station'),
+      components: z.array(z.enum(COMPONENTS)).min(1, 'choose at least one component'),
+      from: z.iso.datetime({ offset: true }),
+      to: z.iso.datetime({ offset: true }),
+      includeFlagged: z.boolean().default(false),
+    })
+    .refine((d) => Date.parse(d.from) <= Date.parse(d.to), { message: 'the range ends before it starts', path: ['to'] }),
   observables: z.discriminatedUnion('kind', [
-    z.object({ kind: z.literal('spectrum'), minHz: z.number().positive(), maxHz: z.number().positive(), every: z.number().int().min(1).max(20).default(1) })
+    z
+      .object({
+        kind: z.literal('spectrum'),
+        minHz: z.number().positive(),
+        maxHz: z.number().positive(),
+        every: z.number().int().min(1).max(20).default(1),
+      })
       .refine((o) => o.minHz < o.maxHz, { message: 'the band must have its lower edge below its upper edge', path: ['maxHz'] }),
     z.object({ kind: z.literal('modes'), modes: z.number().int().min(1).max(7) }),
   ]),
   regions: z.array(regionUnknownSchema).min(1, 'choose at least one source region'),
-  damping: z.object({
-    initialLambda: z.number().positive().max(1e6).default(1e-2),
-    maxIterations: z.number().int().min(5).max(2000).default(200),
-    scaleCovariance: z.boolean().default(true),
-  }).default({ initialLambda: 1e-2, maxIterations: 200, scaleCovariance: true }),
+  damping: z
+    .object({
+      initialLambda: z.number().positive().max(1e6).default(1e-2),
+      maxIterations: z.number().int().min(5).max(2000).default(200),
+      scaleCovariance: z.boolean().default(true),
+    })
+    .default({ initialLambda: 1e-2, maxIterations: 200, scaleCovariance: true }),
   starts: z.number().int().min(1).max(256).default(16),
-  seed: z.number().int().min(0).max(2 ** 31 - 1).default(1),
+  seed: z
+    .number()
+    .int()
+    .min(0)
+    .max(2 ** 31 - 1)
+    .default(1),
 });
 export type RunConfig = z.infer<typeof runConfigSchema>;
 export type RunConfigInput = z.input<typeof runConfigSchema>;

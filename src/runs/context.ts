@@ -23,7 +23,9 @@ export async function loadRunContext(run: RunRow): Promise<RunContext> {
     .map((s) => ({ id: s.id, code: s.code, lat: s.latitude, lon: s.longitude }));
   if (stations.length === 0) throw new Error('none of the chosen stations exists any more');
   return {
-    runId: run.id, networkId: run.networkId, config,
+    runId: run.id,
+    networkId: run.networkId,
+    config,
     cavity: model.config as unknown as CavityConfig,
     grid: { cellSizeDeg: grid.cellSizeDeg, regions: grid.regions.map((r) => regionSchema.parse(r)) },
     stations,

@@ -5,7 +5,12 @@
  * Returns polygon vertices [lon, lat] in degrees around the centre.
  */
 export function covarianceEllipse(
-  centre: { lat: number; lon: number }, sLat: number, sLon: number, rho: number, k: number, vertices = 72,
+  centre: { lat: number; lon: number },
+  sLat: number,
+  sLon: number,
+  rho: number,
+  k: number,
+  vertices = 72,
 ): [number, number][] {
   const a = sLon * sLon;
   const d = sLat * sLat;

@@ -27,7 +27,12 @@
  * inverter), so the driver knows no physics.
  */
 import {
-  claimRun, endRun, finishedIntervalStarts, releaseRun, reportProgress, saveRunIntervals,
+  claimRun,
+  endRun,
+  finishedIntervalStarts,
+  releaseRun,
+  reportProgress,
+  saveRunIntervals,
   type RunProgress,
 } from '@/db/repo/runs';
 import { loadRunContext } from './context';
@@ -89,7 +94,9 @@ export function nonFiniteBest(result: Record<string, unknown>): string | null {
   if (!Array.isArray(minima) || minima.length === 0) return null;
   const best = minima[0];
   if (typeof best.misfit === 'number' && Number.isFinite(best.misfit)) return null;
-  const reasons = Object.entries(best.stopReasons ?? {}).map(([k, n]) => `${k} ${n}`).join(', ');
+  const reasons = Object.entries(best.stopReasons ?? {})
+    .map(([k, n]) => `${k} ${n}`)
+    .join(', ');
   return `no start reached a finite misfit (best minimum misfit ${String(best.misfit)}${reasons ? `; stop reasons: ${reasons}` : ''}), so there is no result to show`;
 }
 
@@ -100,17 +107,35 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
 
   const total = run.intervalStarts.length;
   const startsTotal = (run.config as { starts?: number }).starts ?? 1;
-  const progress: RunProgress = { ...run.progress, phase: 'loading the model, grid and stations', intervalsTotal: total, startsTotal, startsDone: 0 };
+  const progress: RunProgress = {
+    ...run.progress,
+    phase: 'loading the model, grid and stations',
+    intervalsTotal: total,
+    startsTotal,
+    startsDone: 0,
+  };
   let ctx: RunContext;
   try {
     ctx = await loadRunContext(run);
   } catch (e) {
-    return (await endRun(runId, 'failed', { ...progress, phase: 'failed' }, `Could not prepare the run: ${(e as Error).message}`, opts.workerId)) ? 'failed' : 'lost';
+    return (await endRun(
+      runId,
+      'failed',
+      { ...progress, phase: 'failed' },
+      `Could not prepare the run: ${(e as Error).message}`,
+      opts.workerId,
+    ))
+      ? 'failed'
+      : 'lost';
   }
   const finished = await finishedIntervalStarts(runId);
   const todo = run.intervalStarts.map((t, i) => ({ t, i })).filter(({ t }) => !finished.has(new Date(t).toISOString()));
   progress.intervalsDone = finished.size;
-  const loader = intervalLoader(ctx.networkId, ctx.config, todo.map(({ t }) => new Date(t)));
+  const loader = intervalLoader(
+    ctx.networkId,
+    ctx.config,
+    todo.map(({ t }) => new Date(t)),
+  );
   const observe = opts.observe ?? ((_: RunContext, t: Date) => loader(t));
   const t0 = Date.now();
   let doneThisAttempt = 0;
@@ -118,7 +143,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   let lost = false; // a write was refused: the run is not ours any more
   let cancelled = false;
   let writing: Promise<unknown> = Promise.resolve();
-  const writeEvery = opts.afterInterval ? 0 : opts.writeEveryMs ?? WRITE_EVERY_MS;
+  const writeEvery = opts.afterInterval ? 0 : (opts.writeEveryMs ?? WRITE_EVERY_MS);
   let pending: { entry: RunIntervalEntry; index: number }[] = [];
   let lastWrite = Date.now();
   const heard = (r: { cancelRequested: boolean; held: boolean }) => {
@@ -135,7 +160,12 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     const batch = pending;
     pending = [];
     lastWrite = Date.now();
-    writing = saveRunIntervals(runId, batch.map((b) => b.entry), { ...progress }, opts.workerId).then(async (r) => {
+    writing = saveRunIntervals(
+      runId,
+      batch.map((b) => b.entry),
+      { ...progress },
+      opts.workerId,
+    ).then(async (r) => {
       heard(r);
       if (r.held) for (const b of batch) await opts.afterInterval?.(b.index);
     });
@@ -146,7 +176,9 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     await flush(); // what finished before stays stored
     await writing;
     if (lost) return 'lost' as const;
-    return (await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg, opts.workerId)) ? 'failed' as const : 'lost' as const;
+    return (await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg, opts.workerId))
+      ? ('failed' as const)
+      : ('lost' as const);
   };
   const load = (k: number) => {
     const p = k < todo.length ? observe(ctx, new Date(todo[k].t)) : null;
@@ -155,7 +187,10 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   };
   let next = load(0);
   for (let k = 0; k < todo.length; k++) {
-    if (cancelRequested || lost) { cancelled = true; break; }
+    if (cancelRequested || lost) {
+      cancelled = true;
+      break;
+    }
     const { t: startsAt, i } = todo[k];
     const label = new Date(startsAt).toISOString().slice(0, 16).replace('T', ' ');
     progress.phase = `interval ${label} UT: solving`;
@@ -173,7 +208,13 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
         // Progress and heartbeat on a timer (the solver may run on worker threads and
         // keep this event loop free); the same write brings back a cancel request.
         const timer = setInterval(() => {
-          reportProgress(runId, { ...progress }, opts.workerId).then((r) => { heard(r); if (r.cancelRequested) stop = true; }, () => {});
+          reportProgress(runId, { ...progress }, opts.workerId).then(
+            (r) => {
+              heard(r);
+              if (r.cancelRequested) stop = true;
+            },
+            () => {},
+          );
         }, every);
         try {
           outcome = await opts.solve(ctx, c, {
@@ -192,7 +233,10 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     } catch (e) {
       return failWith(`Interval ${label} UT failed: ${e instanceof Error ? e.message : String(e)}`);
     }
-    if (outcome === 'cancelled') { cancelled = true; break; } // cut short by the stop: not kept
+    if (outcome === 'cancelled') {
+      cancelled = true;
+      break;
+    } // cut short by the stop: not kept
     const notFinite = nonFiniteBest(outcome.result);
     if (notFinite) return failWith(`Interval ${label} UT failed: ${notFinite}`);
     // Finished (also when a cancel request came in while it completed): kept.
@@ -202,14 +246,20 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     progress.phase = `interval ${label} UT finished`;
     const seconds = (outcome as { seconds?: number }).seconds ?? 0;
     pending.push({ entry: { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds }, index: i });
-    if (cancelRequested) { cancelled = k < todo.length - 1; break; }
+    if (cancelRequested) {
+      cancelled = k < todo.length - 1;
+      break;
+    }
     if (Date.now() - lastWrite >= writeEvery || pending.length >= MAX_BATCH) await flush();
     const sliceOver = opts.budgetMs !== undefined && Date.now() - t0 >= opts.budgetMs;
     if ((sliceOver || opts.yieldNow?.()) && k < todo.length - 1) {
       await flush();
       await writing;
       if (lost) return 'lost';
-      if (cancelRequested) { cancelled = true; break; }
+      if (cancelRequested) {
+        cancelled = true;
+        break;
+      }
       await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
       return 'yielded';
     }
@@ -220,12 +270,28 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   if (cancelled) {
     // The progress counts what is stored (a crashed attempt may have stored one more than it said).
     const kept = (await finishedIntervalStarts(runId)).size;
-    const ended = await endRun(runId, 'cancelled', {
-      ...progress, intervalsDone: kept, startsDone: 0, phase: `cancelled after ${kept} of ${total} intervals`, etaSeconds: null,
-    }, null, opts.workerId);
+    const ended = await endRun(
+      runId,
+      'cancelled',
+      {
+        ...progress,
+        intervalsDone: kept,
+        startsDone: 0,
+        phase: `cancelled after ${kept} of ${total} intervals`,
+        etaSeconds: null,
+      },
+      null,
+      opts.workerId,
+    );
     return ended ? 'cancelled' : 'lost';
   }
   const stored = await finishedIntervalStarts(runId);
-  const ended = await endRun(runId, 'finished', { ...progress, intervalsDone: stored.size, phase: 'finished', etaSeconds: 0 }, null, opts.workerId);
+  const ended = await endRun(
+    runId,
+    'finished',
+    { ...progress, intervalsDone: stored.size, phase: 'finished', etaSeconds: 0 },
+    null,
+    opts.workerId,
+  );
   return ended ? 'finished' : 'lost'; // taken over between the last write and here: the holder ends it
 }

@@ -29,11 +29,19 @@ export interface SeriesFit {
 }
 
 /** For mode runs: chi2PerBin is chi-square per datum and bins the number of data (three per mode). */
-export interface StationFit { station: string; lat: number; lon: number; chi2PerBin: number; bins: number }
+export interface StationFit {
+  station: string;
+  lat: number;
+  lon: number;
+  chi2PerBin: number;
+  bins: number;
+}
 
 /** One observed mode of a mode-parameter run beside its prediction at the minimum. */
 export interface ModeFit {
-  station: string; component: 'Ez' | 'Bns' | 'Bew'; mode: number; // 1-based, order of the observed modes
+  station: string;
+  component: 'Ez' | 'Bns' | 'Bew';
+  mode: number; // 1-based, order of the observed modes
   observed: { frequency: number; intensity: number; halfWidth: number };
   sigma: { frequency: number; logIntensity: number; halfWidth: number };
   predicted: { frequency: number; intensity: number; halfWidth: number };
@@ -65,7 +73,10 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
     const modes: ModeFit[] = prepareModes(recipe.input).problem.compare(Float64Array.from(minimum.internal));
     const stations: StationFit[] = ctx.stations.map((st) => {
       const mine = modes.filter((m) => m.station === st.code);
-      const chi2 = mine.reduce((a, m) => a + m.residual.frequency ** 2 + m.residual.logIntensity ** 2 + m.residual.halfWidth ** 2, 0);
+      const chi2 = mine.reduce(
+        (a, m) => a + m.residual.frequency ** 2 + m.residual.logIntensity ** 2 + m.residual.halfWidth ** 2,
+        0,
+      );
       const bins = 3 * mine.length;
       return { station: st.code, lat: st.lat, lon: st.lon, bins, chi2PerBin: bins ? chi2 / bins : NaN };
     });
@@ -73,8 +84,10 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
   }
   const observed = await loadObservations(networkId, ctx.config, when);
   const { problem, layout } = prepareSpectrum({
-    cavity: ctx.cavity, stations: ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),
-    observed, unknowns: buildUnknowns(ctx.config, ctx.grid),
+    cavity: ctx.cavity,
+    stations: ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),
+    observed,
+    unknowns: buildUnknowns(ctx.config, ctx.grid),
   });
   const r = new Float64Array(problem.nResiduals);
   problem.residuals(Float64Array.from(minimum.internal), r);
@@ -82,10 +95,13 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
     const n = s.bins.length;
     const res = Array.from(r.subarray(s.offset, s.offset + n));
     return {
-      station: observed[i].station, component: observed[i].component,
+      station: observed[i].station,
+      component: observed[i].component,
       frequencies: Array.from(s.bins, (b) => layout.freqs[b]),
-      observed: Array.from(s.obs), predicted: Array.from(problem.predicted.subarray(s.offset, s.offset + n)),
-      residual: res, chi2PerBin: res.reduce((a, x) => a + x * x, 0) / Math.max(1, n),
+      observed: Array.from(s.obs),
+      predicted: Array.from(problem.predicted.subarray(s.offset, s.offset + n)),
+      residual: res,
+      chi2PerBin: res.reduce((a, x) => a + x * x, 0) / Math.max(1, n),
     };
   });
   const stations: StationFit[] = ctx.stations.map((st) => {

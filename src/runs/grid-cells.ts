@@ -20,7 +20,11 @@ export function cellBox(cellSizeDeg: number, index: number) {
   const south = -90 + r * cellSizeDeg;
   const west = -180 + c * cellSizeDeg;
   return {
-    south, north: south + cellSizeDeg, west, east: west + cellSizeDeg,
-    lat: south + cellSizeDeg / 2, lon: west + cellSizeDeg / 2,
+    south,
+    north: south + cellSizeDeg,
+    west,
+    east: west + cellSizeDeg,
+    lat: south + cellSizeDeg / 2,
+    lon: west + cellSizeDeg / 2,
   };
 }

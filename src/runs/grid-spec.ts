@@ -16,7 +16,8 @@ export const REGION_PALETTE = ['#E69F00', '#56B4E9', '#009E73', '#F0E442', '#007
 export const CELL_SIZES = [2, 2.5, 3, 4, 5, 6, 9, 10, 15, 18, 20, 30] as const;
 
 const range = (lo: number, hi: number) =>
-  z.object({ min: z.number().min(lo).max(hi), max: z.number().min(lo).max(hi) })
+  z
+    .object({ min: z.number().min(lo).max(hi), max: z.number().min(lo).max(hi) })
     .refine((r) => r.min < r.max, { message: 'the lower bound must be below the upper bound' });
 
 const common = {
@@ -93,10 +94,14 @@ export function gridProblems(grid: GridInput): GridProblem[] {
     if (names.has(r.name.toLowerCase())) problems.push({ field: `${at}.name`, message: `region name "${r.name}" is used twice` });
     names.add(r.name.toLowerCase());
     if (r.kind === 'cells') {
-      if (r.cells.length === 0) problems.push({ field: `${at}.cells`, message: `region "${r.name}" has no cells: select at least one` });
+      if (r.cells.length === 0)
+        problems.push({ field: `${at}.cells`, message: `region "${r.name}" has no cells: select at least one` });
       for (const c of r.cells) {
         if (c >= cells) {
-          problems.push({ field: `${at}.cells`, message: `region "${r.name}" names cell ${c}, outside this ${grid.cellSizeDeg}° grid (${cells} cells)` });
+          problems.push({
+            field: `${at}.cells`,
+            message: `region "${r.name}" names cell ${c}, outside this ${grid.cellSizeDeg}° grid (${cells} cells)`,
+          });
           break;
         }
         const other = owner.get(c);

@@ -21,8 +21,13 @@ import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
 
 export type LaunchProblem = { field: string; message: string };
 export interface LaunchPreview {
-  nData: number; nParams: number; starts: number; intervals: number; series: number;
-  estimateSeconds: number; intervalStarts: string[];
+  nData: number;
+  nParams: number;
+  starts: number;
+  intervals: number;
+  series: number;
+  estimateSeconds: number;
+  intervalStarts: string[];
 }
 
 /** At most one week of 10-minute intervals per run. */
@@ -43,7 +48,10 @@ const EVALS_PER_START = 40;
  */
 const MODE_SECONDS_PER_DATUM_PARAM_START = 4e-3;
 
-export async function checkLaunch(networkId: string, config: RunConfig): Promise<{ problems: LaunchProblem[]; preview: LaunchPreview | null }> {
+export async function checkLaunch(
+  networkId: string,
+  config: RunConfig,
+): Promise<{ problems: LaunchProblem[]; preview: LaunchPreview | null }> {
   const problems: LaunchProblem[] = [];
   const model = await getModel(networkId, config.modelId);
   if (!model) problems.push({ field: 'modelId', message: 'that cavity model is not in this network' });
@@ -55,9 +63,12 @@ export async function checkLaunch(networkId: string, config: RunConfig): Promise
     if (!known.has(id)) problems.push({ field: `data.stationIds.${i}`, message: 'that station is not in this network' });
   });
   if (config.observables.kind === 'spectrum' && model?.config && (model.config as { model?: string }).model === 'table') {
-    const rows = ((model.config as { table?: { rows: number[][] } }).table?.rows) ?? [];
+    const rows = (model.config as { table?: { rows: number[][] } }).table?.rows ?? [];
     if (rows.length && (config.observables.minHz < rows[0][0] || config.observables.maxHz > rows[rows.length - 1][0])) {
-      problems.push({ field: 'observables.maxHz', message: `the band must lie inside the model table (${rows[0][0]}–${rows[rows.length - 1][0]} Hz)` });
+      problems.push({
+        field: 'observables.maxHz',
+        message: `the band must lie inside the model table (${rows[0][0]}–${rows[rows.length - 1][0]} Hz)`,
+      });
     }
   }
   if (grid) {
@@ -66,18 +77,28 @@ export async function checkLaunch(networkId: string, config: RunConfig): Promise
     config.regions.forEach((u, i) => {
       const at = `regions.${i}`;
       const r = regions.get(u.region);
-      if (!r) { problems.push({ field: `${at}.region`, message: `region "${u.region}" is not in this grid version` }); return; }
+      if (!r) {
+        problems.push({ field: `${at}.region`, message: `region "${u.region}" is not in this grid version` });
+        return;
+      }
       if (seen.has(u.region)) problems.push({ field: `${at}.region`, message: `region "${r.name}" is chosen twice` });
       seen.add(u.region);
       if (r.kind === 'cells') {
         if (r.cells.length === 0) problems.push({ field: `${at}.region`, message: `region "${r.name}" has no cells` });
-        if (u.lat || u.lon) problems.push({ field: `${at}.lat`, message: `region "${r.name}" is made of fixed cells: only its intensity can be free` });
+        if (u.lat || u.lon)
+          problems.push({
+            field: `${at}.lat`,
+            message: `region "${r.name}" is made of fixed cells: only its intensity can be free`,
+          });
       } else {
         for (const k of ['lat', 'lon'] as const) {
           const b = u[k];
           const g = r.bounds[k];
           if (b && (b.min < g.min || b.max > g.max)) {
-            problems.push({ field: `${at}.${k}`, message: `the ${k === 'lat' ? 'latitude' : 'longitude'} range of "${r.name}" (${b.min}..${b.max}) leaves the region's bounds in the grid (${g.min}..${g.max})` });
+            problems.push({
+              field: `${at}.${k}`,
+              message: `the ${k === 'lat' ? 'latitude' : 'longitude'} range of "${r.name}" (${b.min}..${b.max}) leaves the region's bounds in the grid (${g.min}..${g.max})`,
+            });
           }
         }
       }
@@ -85,32 +106,57 @@ export async function checkLaunch(networkId: string, config: RunConfig): Promise
   }
   const to = new Date(Date.parse(config.data.to) + 1);
   const rows = await listIntervals({
-    networkId, stationIds: config.data.stationIds.filter((id) => known.has(id)), components: config.data.components,
-    from: new Date(config.data.from), to, includeFlagged: config.data.includeFlagged, limit: 50_000,
+    networkId,
+    stationIds: config.data.stationIds.filter((id) => known.has(id)),
+    components: config.data.components,
+    from: new Date(config.data.from),
+    to,
+    includeFlagged: config.data.includeFlagged,
+    limit: 50_000,
   });
   const starts = [...new Set(rows.map((r) => r.startsAt.toISOString()))].sort();
   if (starts.length === 0) {
-    problems.push({ field: 'data.from', message: config.data.includeFlagged
-      ? 'no data for these stations and components in the chosen range'
-      : 'no unflagged data for these stations and components in the chosen range' });
+    problems.push({
+      field: 'data.from',
+      message: config.data.includeFlagged
+        ? 'no data for these stations and components in the chosen range'
+        : 'no unflagged data for these stations and components in the chosen range',
+    });
   } else if (starts.length > MAX_INTERVALS) {
-    problems.push({ field: 'data.to', message: `the range holds ${starts.length} intervals; at most ${MAX_INTERVALS} (one week) per run` });
+    problems.push({
+      field: 'data.to',
+      message: `the range holds ${starts.length} intervals; at most ${MAX_INTERVALS} (one week) per run`,
+    });
   }
   if (problems.length || !model || !grid) return { problems, preview: null };
   const obs = await loadIntervalObservations(networkId, config, new Date(starts[0]));
   const nData = countIntervalData(obs);
   const nParams = countParameters(config);
-  if (nData === 0) problems.push({ field: 'observables', message: 'the chosen band or modes hold no data in the first interval' });
-  else if (nParams > nData) problems.push({ field: 'regions', message: `too many free parameters (${nParams}) for the data (${nData} values per interval)` });
+  if (nData === 0)
+    problems.push({ field: 'observables', message: 'the chosen band or modes hold no data in the first interval' });
+  else if (nParams > nData)
+    problems.push({
+      field: 'regions',
+      message: `too many free parameters (${nParams}) for the data (${nData} values per interval)`,
+    });
   // Prefer this network's own measured cost (median over recent intervals) to the built-in figure.
   // Spectrum and mode runs cost very differently per datum: each is measured on its own kind.
   const kind = config.observables.kind;
   const measured = await measuredCostPerUnit(networkId, kind);
-  const perUnit = measured ?? (kind === 'modes' ? MODE_SECONDS_PER_DATUM_PARAM_START : EVALS_PER_START * SECONDS_PER_DATUM_PARAM_EVAL);
+  const perUnit =
+    measured ?? (kind === 'modes' ? MODE_SECONDS_PER_DATUM_PARAM_START : EVALS_PER_START * SECONDS_PER_DATUM_PARAM_EVAL);
   const estimateSeconds = starts.length * config.starts * nData * Math.max(1, nParams) * perUnit;
   return {
     problems,
-    preview: { nData, nParams, starts: config.starts, intervals: starts.length, series: obs.observed.length + (obs.modes?.length ?? 0), estimateSeconds, intervalStarts: starts },
+    preview: {
+      nData,
+      nParams,
+      starts: config.starts,
+      intervals: starts.length,
+      series: obs.observed.length + (obs.modes?.length ?? 0),
+      estimateSeconds,
+      intervalStarts: starts,
+    },
   };
 }
 
@@ -121,9 +167,15 @@ export async function launchRun(networkId: string, userId: string | null, config
     throw badRequest(`${p.field}: ${p.message}`, p.field);
   }
   const run = await createRun({
-    networkId, name: config.name, config: config as unknown as Record<string, unknown>,
-    modelId: config.modelId, gridId: config.gridId, engineVersion: engineVersion(),
-    intervalStarts: preview.intervalStarts, startsPerInterval: config.starts, createdBy: userId,
+    networkId,
+    name: config.name,
+    config: config as unknown as Record<string, unknown>,
+    modelId: config.modelId,
+    gridId: config.gridId,
+    engineVersion: engineVersion(),
+    intervalStarts: preview.intervalStarts,
+    startsPerInterval: config.starts,
+    createdBy: userId,
   });
   await enqueue(RUN_QUEUE, { runId: run.id }, RUN_JOB_OPTIONS);
   return run;

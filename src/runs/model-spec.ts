@@ -21,7 +21,10 @@ export function parseTableText(text: string): { rows: [number, number, number][]
   for (let i = 0; i < lines.length; i++) {
     const line = lines[i].replace(/#.*/, '').trim();
     if (!line) continue;
-    const parts = line.split(/[\s,;]+/).filter(Boolean).map(Number);
+    const parts = line
+      .split(/[\s,;]+/)
+      .filter(Boolean)
+      .map(Number);
     if (parts.length !== 3 || parts.some((v) => !Number.isFinite(v))) {
       if (rows.length === 0 && /[a-z]/i.test(line)) continue;
       return { rows, error: `line ${i + 1}: expected three numbers (frequency and two values), got "${lines[i].trim()}"` };

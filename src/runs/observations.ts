@@ -49,8 +49,12 @@ export async function loadSpectrumObservations(networkId: string, config: RunCon
   const o = config.observables;
   if (o.kind !== 'spectrum') throw new Error('loadSpectrumObservations needs spectrum observables');
   const spectra = await getIntervalSpectra({
-    networkId, stationIds: config.data.stationIds, components: config.data.components,
-    from: startsAt, to: new Date(startsAt.getTime() + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
+    networkId,
+    stationIds: config.data.stationIds,
+    components: config.data.components,
+    from: startsAt,
+    to: new Date(startsAt.getTime() + TEN_MINUTES_MS),
+    includeFlagged: config.data.includeFlagged,
   });
   return spectra.map((s) => bandSeries(s, o.minHz, o.maxHz, o.every)).filter((s): s is ObservedSeries => s !== null);
 }
@@ -61,20 +65,33 @@ export async function loadSpectrumObservations(networkId: string, config: RunCon
  * interval it starts in ([t, t + 10 min)). Same result per interval as
  * loadSpectrumObservations, with one round trip for the lot.
  */
-export async function loadSpectrumObservationsOf(networkId: string, config: RunConfig, starts: readonly Date[]): Promise<Map<number, ObservedSeries[]>> {
+export async function loadSpectrumObservationsOf(
+  networkId: string,
+  config: RunConfig,
+  starts: readonly Date[],
+): Promise<Map<number, ObservedSeries[]>> {
   const o = config.observables;
   if (o.kind !== 'spectrum') throw new Error('loadSpectrumObservationsOf needs spectrum observables');
   const times = [...new Set(starts.map((t) => t.getTime()))].sort((a, b) => a - b);
   const out = new Map<number, ObservedSeries[]>(times.map((t) => [t, []]));
   if (times.length === 0) return out;
   const spectra = await getIntervalSpectra({
-    networkId, stationIds: config.data.stationIds, components: config.data.components,
-    from: new Date(times[0]), to: new Date(times[times.length - 1] + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
+    networkId,
+    stationIds: config.data.stationIds,
+    components: config.data.components,
+    from: new Date(times[0]),
+    to: new Date(times[times.length - 1] + TEN_MINUTES_MS),
+    includeFlagged: config.data.includeFlagged,
   });
   for (const sp of spectra) {
     const at = sp.startsAt.getTime();
-    let lo = 0, hi = times.length - 1; // the last run start at or before this spectrum's start
-    while (lo < hi) { const mid = (lo + hi + 1) >> 1; if (times[mid] <= at) lo = mid; else hi = mid - 1; }
+    let lo = 0,
+      hi = times.length - 1; // the last run start at or before this spectrum's start
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (times[mid] <= at) lo = mid;
+      else hi = mid - 1;
+    }
     if (times[lo] > at || at >= times[lo] + TEN_MINUTES_MS) continue;
     const series = bandSeries(sp, o.minHz, o.maxHz, o.every);
     if (series) out.get(times[lo])!.push(series);
@@ -93,34 +110,57 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
   const o = config.observables;
   if (o.kind !== 'modes') throw new Error('loadModeObservations needs mode observables');
   const filter = {
-    networkId, stationIds: config.data.stationIds, components: config.data.components,
-    from: startsAt, to: new Date(startsAt.getTime() + TEN_MINUTES_MS), includeFlagged: config.data.includeFlagged,
+    networkId,
+    stationIds: config.data.stationIds,
+    components: config.data.components,
+    from: startsAt,
+    to: new Date(startsAt.getTime() + TEN_MINUTES_MS),
+    includeFlagged: config.data.includeFlagged,
   };
   const rows = await listIntervals(filter);
   const spectra = new Map((await getIntervalSpectra(filter)).map((sp) => [sp.intervalId, sp]));
   // For fits that did not record what they left out: the bins the pipeline's fit of time series leaves out,
   // the mains line, its harmonics and the station's interference lines (as the station is set up now).
-  const lines = new Map((await listStations(networkId)).map((s) => [s.code, [...mainsLines(s.mainsHz, SPECTRUM_BAND_MAX_HZ), ...listedLines(s.interferenceLines)]]));
+  const lines = new Map(
+    (await listStations(networkId)).map((s) => [
+      s.code,
+      [...mainsLines(s.mainsHz, SPECTRUM_BAND_MAX_HZ), ...listedLines(s.interferenceLines)],
+    ]),
+  );
   const out: ObservedModes[] = [];
   for (const r of rows) {
     if (!r.fit) continue;
-    const modes = [...r.fit.modes].sort((a, b) => a.frequency - b.frequency).slice(0, o.modes).flatMap((m) => {
-      const peak = m.amplitude + r.fit!.background.b0 + r.fit!.background.b1 * m.frequency;
-      const e = m.errors;
-      if (!(peak > 0) || !(e?.frequency > 0) || !(e?.amplitude > 0) || !(e?.halfWidth > 0)) return [];
-      // A mode whose half-width reaches outside the model grid is no usable resonance (observed
-      // Schumann modes have Q about 4-6, Sentman 1995); it is left out rather than failing the run.
-      if (m.frequency - m.halfWidth < MODE_BAND.minHz || m.frequency + m.halfWidth > MODE_BAND.maxHz) return [];
-      return [{
-        frequency: m.frequency, intensity: peak, halfWidth: m.halfWidth,
-        sigmaFrequency: e.frequency, sigmaLogIntensity: e.amplitude / peak, sigmaHalfWidth: e.halfWidth,
-      }];
-    });
+    const modes = [...r.fit.modes]
+      .sort((a, b) => a.frequency - b.frequency)
+      .slice(0, o.modes)
+      .flatMap((m) => {
+        const peak = m.amplitude + r.fit!.background.b0 + r.fit!.background.b1 * m.frequency;
+        const e = m.errors;
+        if (!(peak > 0) || !(e?.frequency > 0) || !(e?.amplitude > 0) || !(e?.halfWidth > 0)) return [];
+        // A mode whose half-width reaches outside the model grid is no usable resonance (observed
+        // Schumann modes have Q about 4-6, Sentman 1995); it is left out rather than failing the run.
+        if (m.frequency - m.halfWidth < MODE_BAND.minHz || m.frequency + m.halfWidth > MODE_BAND.maxHz) return [];
+        return [
+          {
+            frequency: m.frequency,
+            intensity: peak,
+            halfWidth: m.halfWidth,
+            sigmaFrequency: e.frequency,
+            sigmaLogIntensity: e.amplitude / peak,
+            sigmaHalfWidth: e.halfWidth,
+          },
+        ];
+      });
     // The predicted modes go through the same fit: as many modes, over the stored fit's band (older fits:
     // the pipeline's default band, which they used), less the bins it left out (older fits: assumed).
     if (!modes.length) continue;
     const band = r.fit.band ? { minHz: r.fit.band.minHz, maxHz: r.fit.band.maxHz } : {};
-    const om: ObservedModes = { station: r.stationCode, component: r.component, modes, fit: { modes: r.fit.modes.length, ...band, ...fitExclusions(r.fit, lines.get(r.stationCode) ?? []) } };
+    const om: ObservedModes = {
+      station: r.stationCode,
+      component: r.component,
+      modes,
+      fit: { modes: r.fit.modes.length, ...band, ...fitExclusions(r.fit, lines.get(r.stationCode) ?? []) },
+    };
     const sp = spectra.get(r.id);
     out.push(sp ? withPropagatedErrors(om, sp, r.fit) : om);
   }
@@ -132,7 +172,10 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
  * files); for fits stored before exclusions were recorded, the station's mains and listed lines, marked
  * as assumed.
  */
-export function fitExclusions(fit: IntervalFit, stationLines: SpectralLine[]): Pick<NonNullable<ObservedModes['fit']>, 'excludeLines' | 'excludeRanges' | 'exclusionsAssumed'> {
+export function fitExclusions(
+  fit: IntervalFit,
+  stationLines: SpectralLine[],
+): Pick<NonNullable<ObservedModes['fit']>, 'excludeLines' | 'excludeRanges' | 'exclusionsAssumed'> {
   if (fit.excluded) return { excludeRanges: fit.excluded.map((x) => ({ minHz: x.minHz, maxHz: x.maxHz })) };
   return { excludeLines: stationLines, exclusionsAssumed: true };
 }
@@ -151,7 +194,10 @@ export function assumedExclusionSeries(modes: readonly ObservedModes[]): string[
  * count. Modes the fit holds on a bound keep the stored errors.
  */
 function withPropagatedErrors(om: ObservedModes, sp: IntervalSpectrum, fit: IntervalFit): ObservedModes {
-  const scatter = fit.averages !== undefined ? { averages: fit.averages, lagCorrelation: fit.binCorrelation } : hannWelchScatter(Math.max(1, sp.segments));
+  const scatter =
+    fit.averages !== undefined
+      ? { averages: fit.averages, lagCorrelation: fit.binCorrelation }
+      : hannWelchScatter(Math.max(1, sp.segments));
   let prop;
   try {
     prop = propagatedModeErrors(om, Float64Array.from(sp.frequencies), sp.power, scatter);
@@ -169,10 +215,17 @@ function withPropagatedErrors(om: ObservedModes, sp: IntervalSpectrum, fit: Inte
   };
 }
 
-export interface IntervalObservations { observed: ObservedSeries[]; modes?: ObservedModes[] }
+export interface IntervalObservations {
+  observed: ObservedSeries[];
+  modes?: ObservedModes[];
+}
 
 /** Observations of one interval for the run's observables. */
-export async function loadIntervalObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<IntervalObservations> {
+export async function loadIntervalObservations(
+  networkId: string,
+  config: RunConfig,
+  startsAt: Date,
+): Promise<IntervalObservations> {
   if (config.observables.kind === 'spectrum') return { observed: await loadSpectrumObservations(networkId, config, startsAt) };
   return { observed: [], modes: await loadModeObservations(networkId, config, startsAt) };
 }
@@ -182,7 +235,12 @@ export async function loadIntervalObservations(networkId: string, config: RunCon
  * `batch` intervals at a time (one query each), mode observations one interval at a
  * time. Each interval is handed out once and then forgotten.
  */
-export function intervalLoader(networkId: string, config: RunConfig, starts: readonly Date[], batch = 16): (startsAt: Date) => Promise<IntervalObservations> {
+export function intervalLoader(
+  networkId: string,
+  config: RunConfig,
+  starts: readonly Date[],
+  batch = 16,
+): (startsAt: Date) => Promise<IntervalObservations> {
   if (config.observables.kind !== 'spectrum') return (t) => loadIntervalObservations(networkId, config, t);
   const index = new Map(starts.map((t, i) => [t.getTime(), i]));
   const loaded = new Map<number, Promise<ObservedSeries[]>>();

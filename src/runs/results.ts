@@ -28,7 +28,10 @@ export interface IntervalView {
 
 export interface RunView {
   run: Pick<RunRow, 'id' | 'name' | 'state' | 'progress' | 'error' | 'engineVersion' | 'attempts' | 'cancelRequested'> & {
-    createdAt: string; startedAt: string | null; finishedAt: string | null; intervalStarts: string[];
+    createdAt: string;
+    startedAt: string | null;
+    finishedAt: string | null;
+    intervalStarts: string[];
   };
   config: RunConfig;
   model: { id: string; name: string; version: number; config: Record<string, unknown> };
@@ -41,22 +44,44 @@ const iso = (d: Date | null) => (d ? d.toISOString() : null);
 export async function getRunView(networkId: string, runId: string): Promise<RunView> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
-  const [model, grid, rows] = await Promise.all([getModel(networkId, run.modelId), getGrid(networkId, run.gridId), listRunIntervals(run.id)]);
+  const [model, grid, rows] = await Promise.all([
+    getModel(networkId, run.modelId),
+    getGrid(networkId, run.gridId),
+    listRunIntervals(run.id),
+  ]);
   if (!model || !grid) throw notFound('The model or grid of this run is gone.');
   return {
     run: {
-      id: run.id, name: run.name, state: run.state, progress: run.progress, error: run.error, engineVersion: run.engineVersion,
-      attempts: run.attempts, cancelRequested: run.cancelRequested, createdAt: run.createdAt.toISOString(),
-      startedAt: iso(run.startedAt), finishedAt: iso(run.finishedAt), intervalStarts: run.intervalStarts,
+      id: run.id,
+      name: run.name,
+      state: run.state,
+      progress: run.progress,
+      error: run.error,
+      engineVersion: run.engineVersion,
+      attempts: run.attempts,
+      cancelRequested: run.cancelRequested,
+      createdAt: run.createdAt.toISOString(),
+      startedAt: iso(run.startedAt),
+      finishedAt: iso(run.finishedAt),
+      intervalStarts: run.intervalStarts,
     },
     config: runConfigSchema.parse(run.config),
     model: { id: model.id, name: model.name, version: model.version, config: model.config },
-    grid: { id: grid.id, name: grid.name, version: grid.version, cellSizeDeg: grid.cellSizeDeg, regions: grid.regions.map((r) => regionSchema.parse(r)) },
+    grid: {
+      id: grid.id,
+      name: grid.name,
+      version: grid.version,
+      cellSizeDeg: grid.cellSizeDeg,
+      regions: grid.regions.map((r) => regionSchema.parse(r)),
+    },
     intervals: rows.map((r) => {
       const res = r.result as unknown as InversionResult & { skipped?: string };
       return {
-        startsAt: r.startsAt.toISOString(), nData: r.nData, seconds: r.seconds,
-        result: res.skipped ? null : res, ...(res.skipped ? { skipped: res.skipped } : {}),
+        startsAt: r.startsAt.toISOString(),
+        nData: r.nData,
+        seconds: r.seconds,
+        result: res.skipped ? null : res,
+        ...(res.skipped ? { skipped: res.skipped } : {}),
       };
     }),
   };
@@ -81,10 +106,17 @@ export function firstView(view: RunView): RunView {
       if (!iv.result || iv.startsAt === open) return iv;
       const best = iv.result.minima[0];
       const brief = best
-        ? [{
-          sources: best.sources.map((x) => ({ name: x.name, intensity: rounded(x.intensity) })),
-          stdErrors: Object.fromEntries(Object.entries(best.stdErrors).map(([k, e]) => [k, { intensity: e.intensity === undefined ? undefined : rounded(e.intensity) }])),
-        } as unknown as Minimum]
+        ? [
+            {
+              sources: best.sources.map((x) => ({ name: x.name, intensity: rounded(x.intensity) })),
+              stdErrors: Object.fromEntries(
+                Object.entries(best.stdErrors).map(([k, e]) => [
+                  k,
+                  { intensity: e.intensity === undefined ? undefined : rounded(e.intensity) },
+                ]),
+              ),
+            } as unknown as Minimum,
+          ]
         : [];
       return { ...iv, result: { minima: brief } as unknown as InversionResult, brief: true as const };
     }),
@@ -98,7 +130,12 @@ export function minimaRows(view: RunView): Record<string, string | number>[] {
     if (!iv.result) continue;
     iv.result.minima.forEach((m: Minimum, k: number) => {
       const row: Record<string, string | number> = {
-        interval_start_utc: iv.startsAt, minimum: k + 1, misfit: m.misfit, reduced_chi2: m.reducedChi2, starts: m.count, n_data: iv.nData,
+        interval_start_utc: iv.startsAt,
+        minimum: k + 1,
+        misfit: m.misfit,
+        reduced_chi2: m.reducedChi2,
+        starts: m.count,
+        n_data: iv.nData,
       };
       for (const s of m.sources) {
         row[`${s.name}.intensity_C2km2_per_s`] = s.intensity;

@@ -14,7 +14,6 @@ export function runThreads(): number | undefined {
   return Number.isInteger(t) && t >= 1 ? t : undefined;
 }
 
-
 /** The solver with a fixed thread count (1 = in the calling thread, no pool). */
 export function makeEngineSolver(threads?: number): IntervalSolver {
   return (ctx, c, hooks) => solve(ctx, c, hooks, threads ?? runThreads());
@@ -33,7 +32,10 @@ const solve = async (...[ctx, c, hooks, threads]: [...Parameters<IntervalSolver>
     lm: { initialDamping: config.damping.initialLambda, maxIterations: config.damping.maxIterations },
     scaleErrors: config.damping.scaleCovariance,
   };
-  const callbacks = { onProgress: (p: { done: number; total: number }) => hooks.onStart(p.done, p.total), shouldCancel: hooks.shouldStop };
+  const callbacks = {
+    onProgress: (p: { done: number; total: number }) => hooks.onStart(p.done, p.total),
+    shouldCancel: hooks.shouldStop,
+  };
   const result = c.modes
     ? await invertModes({ cavity: ctx.cavity, band: MODE_BAND, stations, modes: c.modes, unknowns }, options, callbacks)
     : await invertSpectra({ cavity: ctx.cavity, stations, observed: c.observed, unknowns }, options, callbacks);

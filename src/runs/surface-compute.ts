@@ -19,7 +19,10 @@ import { buildUnknowns } from './unknowns';
 import type { SurfaceSpec } from './surfaces';
 
 /** The problem recipe of one interval, as the run solver builds its input (src/runs/solver.ts). */
-export function intervalRecipe(ctx: RunContext, obs: IntervalObservations): Extract<ProblemRecipe, { kind: 'spectrum' | 'modes' }> {
+export function intervalRecipe(
+  ctx: RunContext,
+  obs: IntervalObservations,
+): Extract<ProblemRecipe, { kind: 'spectrum' | 'modes' }> {
   const stations = ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon }));
   const unknowns = buildUnknowns(ctx.config, ctx.grid);
   return obs.modes
@@ -67,9 +70,17 @@ export async function computeSurface(surfaceId: string): Promise<'ready' | 'fail
     const phys = (i: number, v: number) => (par.slots[i].kind === 'intensity' ? Math.exp(v) : v);
     const xs = axis(p0[ix], sigmaOf(ix), par.lower[ix], par.upper[ix], spec.points).map((v) => phys(ix, v));
     const ys = axis(p0[iy], sigmaOf(iy), par.lower[iy], par.upper[iy], spec.points).map((v) => phys(iy, v));
-    const computed = misfitSurface(problem, par, { xName: spec.x, yName: spec.y, x: xs, y: ys, mode: spec.mode, at: minimum.internal });
+    const computed = misfitSurface(problem, par, {
+      xName: spec.x,
+      yName: spec.y,
+      x: xs,
+      y: ys,
+      mode: spec.mode,
+      at: minimum.internal,
+    });
     const surface: MisfitSurface & { centre: { x: number; y: number; misfit: number } } = {
-      ...computed, centre: { x: phys(ix, p0[ix]), y: phys(iy, p0[iy]), misfit: minimum.misfit },
+      ...computed,
+      centre: { x: phys(ix, p0[ix]), y: phys(iy, p0[iy]), misfit: minimum.misfit },
     };
     await setSurface(surfaceId, 'ready', surface as unknown as Record<string, unknown>);
     return 'ready';

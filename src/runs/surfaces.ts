@@ -11,14 +11,16 @@ import { badRequest, notFound } from '@/src/server/errors';
 import { getRunView } from './results';
 import { SURFACE_JOB_OPTIONS, SURFACE_QUEUE } from './queues';
 
-export const surfaceSpecSchema = z.object({
-  interval: z.iso.datetime({ offset: true }),
-  minimum: z.number().int().min(0).default(0),
-  x: z.string().min(1),
-  y: z.string().min(1),
-  points: z.number().int().min(5).max(41).default(21),
-  mode: z.enum(['fixed', 'profile']).default('fixed'),
-}).refine((s) => s.x !== s.y, { message: 'choose two different parameters', path: ['y'] });
+export const surfaceSpecSchema = z
+  .object({
+    interval: z.iso.datetime({ offset: true }),
+    minimum: z.number().int().min(0).default(0),
+    x: z.string().min(1),
+    y: z.string().min(1),
+    points: z.number().int().min(5).max(41).default(21),
+    mode: z.enum(['fixed', 'profile']).default('fixed'),
+  })
+  .refine((s) => s.x !== s.y, { message: 'choose two different parameters', path: ['y'] });
 export type SurfaceSpec = z.infer<typeof surfaceSpecSchema>;
 
 export function surfaceKey(s: SurfaceSpec): string {
@@ -31,7 +33,8 @@ export async function requestSurface(networkId: string, runId: string, spec: Sur
   if (!iv || !iv.result) throw badRequest('that interval has no result in this run', 'interval');
   if (!iv.result.minima[spec.minimum]) throw badRequest(`this interval has ${iv.result.minima.length} minima`, 'minimum');
   for (const k of ['x', 'y'] as const) {
-    if (!iv.result.paramNames.includes(spec[k])) throw badRequest(`"${spec[k]}" is not a free parameter of this run (${iv.result.paramNames.join(', ')})`, k);
+    if (!iv.result.paramNames.includes(spec[k]))
+      throw badRequest(`"${spec[k]}" is not a free parameter of this run (${iv.result.paramNames.join(', ')})`, k);
   }
   const { row, created } = await getOrCreateSurface(runId, surfaceKey(spec), spec as unknown as Record<string, unknown>);
   if (created || row.state === 'failed') {

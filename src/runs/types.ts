@@ -17,7 +17,12 @@ export interface ObservedSeries {
   sigmaLog: number;
 }
 
-export interface RunStation { id: string; code: string; lat: number; lon: number }
+export interface RunStation {
+  id: string;
+  code: string;
+  lat: number;
+  lon: number;
+}
 
 /** Everything a worker needs to solve any interval of a run, loaded once. */
 export interface RunContext {
@@ -29,7 +34,11 @@ export interface RunContext {
   stations: RunStation[];
 }
 
-export interface IntervalCase { startsAt: string; observed: ObservedSeries[]; modes?: import('@/src/engine/inverse/types').ObservedModes[] }
+export interface IntervalCase {
+  startsAt: string;
+  observed: ObservedSeries[];
+  modes?: import('@/src/engine/inverse/types').ObservedModes[];
+}
 
 export interface SolveHooks {
   /** Called after each finished start. */
@@ -39,7 +48,10 @@ export interface SolveHooks {
 }
 
 /** What one interval produced: the engine's result as JSON (minima best first) and the data count. */
-export interface IntervalOutcome { nData: number; result: Record<string, unknown> }
+export interface IntervalOutcome {
+  nData: number;
+  result: Record<string, unknown>;
+}
 
 /**
  * Solves one interval; resolves to 'cancelled' when shouldStop() cut it short. A solve that

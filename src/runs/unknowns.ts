@@ -23,7 +23,10 @@ export function buildUnknowns(config: RunConfig, grid: { cellSizeDeg: number; re
       return { name: r.name, intensity: u.intensity, lat: c.lat, lon: c.lon, footprint: c.nodes };
     }
     return {
-      name: r.name, intensity: u.intensity, lat: u.lat ?? r.centre.lat, lon: u.lon ?? r.centre.lon,
+      name: r.name,
+      intensity: u.intensity,
+      lat: u.lat ?? r.centre.lat,
+      lon: u.lon ?? r.centre.lon,
       ...(r.spreadDeg > 0 ? { spread: r.spreadDeg } : {}),
     };
   });

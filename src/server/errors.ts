@@ -24,8 +24,7 @@ export const badRequest = (message: string, field?: string) => new AppError(400,
 
 export const unauthorized = (message = 'Sign in to continue.') => new AppError(401, 'unauthorized', message);
 
-export const forbidden = (message = 'Your role in this network does not allow this.') =>
-  new AppError(403, 'forbidden', message);
+export const forbidden = (message = 'Your role in this network does not allow this.') => new AppError(403, 'forbidden', message);
 
 export const notFound = (message = 'Nothing was found at this address.') => new AppError(404, 'not_found', message);
 

@@ -32,7 +32,11 @@ async function toApiError(res: Response): Promise<ApiError> {
 export async function fetchJson<T>(url: string, init?: RequestInit): Promise<T> {
   let res: Response;
   try {
-    res = await fetch(url, { credentials: 'same-origin', ...init, headers: { accept: 'application/json', ...(init?.headers ?? {}) } });
+    res = await fetch(url, {
+      credentials: 'same-origin',
+      ...init,
+      headers: { accept: 'application/json', ...(init?.headers ?? {}) },
+    });
   } catch {
     throw new ApiError(0, 'network', 'Cavitas could not be reached. Check your connection and try again.');
   }

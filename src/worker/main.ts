@@ -43,6 +43,6 @@ async function main(): Promise<void> {
 }
 
 main().catch((err) => {
-  console.error(`[worker] ${err instanceof Error ? err.stack ?? err.message : err}`);
+  console.error(`[worker] ${err instanceof Error ? (err.stack ?? err.message) : err}`);
   process.exit(1);
 });

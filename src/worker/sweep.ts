@@ -14,32 +14,48 @@ import { BOSS_SCHEMA, enqueue } from '@/db/jobs';
 import { sweepLapsedRuns } from '@/db/repo/runs';
 import { RUN_JOB_OPTIONS, RUN_QUEUE, runLeaseSeconds, runSweepSeconds } from '@/src/runs/queues';
 
-export interface SweepOutcome { continued: string[]; cancelled: string[] }
+export interface SweepOutcome {
+  continued: string[];
+  cancelled: string[];
+}
 
 /** One sweep: queues a continuation for each lapsed run without a pending job. */
 export async function sweepRuns(leaseSeconds = runLeaseSeconds()): Promise<SweepOutcome> {
-  return sweepLapsedRuns(leaseSeconds, RUN_QUEUE, async (runId) => {
-    await enqueue(RUN_QUEUE, { runId }, RUN_JOB_OPTIONS);
-  }, BOSS_SCHEMA);
+  return sweepLapsedRuns(
+    leaseSeconds,
+    RUN_QUEUE,
+    async (runId) => {
+      await enqueue(RUN_QUEUE, { runId }, RUN_JOB_OPTIONS);
+    },
+    BOSS_SCHEMA,
+  );
 }
 
-export interface SweepHandle { stop(): Promise<void> }
+export interface SweepHandle {
+  stop(): Promise<void>;
+}
 
 /** Sweeps now and every `everySeconds`; a failed sweep is logged and tried again next time. */
-export function startRunSweep(log: (line: string) => void = (l) => console.log(l), everySeconds = runSweepSeconds()): SweepHandle {
+export function startRunSweep(
+  log: (line: string) => void = (l) => console.log(l),
+  everySeconds = runSweepSeconds(),
+): SweepHandle {
   let running: Promise<void> = Promise.resolve();
   let stopped = false;
   const once = () => {
     running = sweepRuns().then(
       (r) => {
         for (const id of r.continued) log(`[worker] sweep: run ${id} had no live worker; queued a continuation`);
-        for (const id of r.cancelled) log(`[worker] sweep: run ${id} had no live worker and a cancel request; ended as cancelled`);
+        for (const id of r.cancelled)
+          log(`[worker] sweep: run ${id} had no live worker and a cancel request; ended as cancelled`);
       },
       (err: unknown) => log(`[worker] sweep failed: ${err instanceof Error ? err.message : String(err)}`),
     );
   };
   once();
-  const timer = setInterval(() => { if (!stopped) running.then(once); }, everySeconds * 1000);
+  const timer = setInterval(() => {
+    if (!stopped) running.then(once);
+  }, everySeconds * 1000);
   timer.unref();
   return {
     async stop() {

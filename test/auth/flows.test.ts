@@ -8,7 +8,16 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { resetDatabase, closeDatabase } from '@/test/helpers/db';
-import { call, cookiePair, errorOf, makeUser, setupCallers, TEST_PASSWORD, type AuthzWorld, type Caller } from '@/test/helpers/authz';
+import {
+  call,
+  cookiePair,
+  errorOf,
+  makeUser,
+  setupCallers,
+  TEST_PASSWORD,
+  type AuthzWorld,
+  type Caller,
+} from '@/test/helpers/authz';
 import { startCatcher, type Catcher } from '@/src/mail/catcher';
 import { getMail, listMail } from '@/db/repo/mail';
 import { createInvitation, createNetwork, getMembership, listOpenInvitations } from '@/db/repo/networks';
@@ -62,7 +71,11 @@ afterAll(async () => {
 
 describe('sign-up and sign-in', () => {
   it('refuses a duplicate e-mail (any case) with 409 naming the field', async () => {
-    const res = await call(signUp.POST, anon, post({ email: w.callers.owner.email!.toUpperCase(), name: 'Twin', password: 'long-enough-pass' }));
+    const res = await call(
+      signUp.POST,
+      anon,
+      post({ email: w.callers.owner.email!.toUpperCase(), name: 'Twin', password: 'long-enough-pass' }),
+    );
     expect(res.status).toBe(409);
     expect(await errorOf(res)).toMatchObject({ code: 'conflict', field: 'email' });
   });
@@ -167,7 +180,8 @@ describe('password reset', () => {
     const later = new Date(Date.now() + 24 * 3_600_000); // a quiet hour of its own
     const mails = async () => (await listMail({ to: u.email, limit: 50 })).length;
     const before = await mails();
-    for (let i = 0; i < 5; i++) await requestPasswordReset(u.email, 'http://cavitas.test', new Date(later.getTime() + i * 60_000));
+    for (let i = 0; i < 5; i++)
+      await requestPasswordReset(u.email, 'http://cavitas.test', new Date(later.getTime() + i * 60_000));
     expect(await resetTimesSince(u.userId, later)).toHaveLength(3);
     for (let i = 0; i < 50 && (await mails()) < before + 3; i++) await new Promise((r) => setTimeout(r, 100));
     expect(await mails()).toBe(before + 3);
@@ -211,7 +225,11 @@ describe('networks and members', () => {
   });
 
   it('refuses an unknown role with a message listing the roles', async () => {
-    const res = await call(member.PATCH, w.callers.owner, { method: 'PATCH', body: { role: 'admin' }, params: { networkId: w.networkId, userId: w.callers.viewer.userId! } });
+    const res = await call(member.PATCH, w.callers.owner, {
+      method: 'PATCH',
+      body: { role: 'admin' },
+      params: { networkId: w.networkId, userId: w.callers.viewer.userId! },
+    });
     expect(res.status).toBe(400);
     expect((await errorOf(res)).message).toMatch(/owner, analyst or viewer/);
   });
@@ -221,16 +239,32 @@ describe('invitations', () => {
   const invite = (email: string, role = 'analyst') =>
     call(invitations.POST, w.callers.owner, { method: 'POST', body: { email, role }, params: { networkId: w.networkId } });
 
-  it('refuses a sender\'s 21st invitation within an hour with 429 and the wait', async () => {
+  it("refuses a sender's 21st invitation within an hour with 429 and the wait", async () => {
     const sender = await makeUser('Busy', 'flows');
     const net = await createNetwork('Busy network flows', sender.userId);
     const user = (await getUserById(sender.userId))!;
     const later = new Date(Date.now() + 48 * 3_600_000);
     for (let i = 0; i < 20; i++) {
-      await inviteMember(net.id, net.name, user, { email: `guest${i}.busy@example.org`, role: 'viewer' }, 'http://cavitas.test', new Date(later.getTime() + i * 1000));
+      await inviteMember(
+        net.id,
+        net.name,
+        user,
+        { email: `guest${i}.busy@example.org`, role: 'viewer' },
+        'http://cavitas.test',
+        new Date(later.getTime() + i * 1000),
+      );
     }
-    const refused = await inviteMember(net.id, net.name, user, { email: 'one.more@example.org', role: 'viewer' }, 'http://cavitas.test', new Date(later.getTime() + 30 * 60_000))
-      .then(() => null, (e: { status: number; message: string }) => e);
+    const refused = await inviteMember(
+      net.id,
+      net.name,
+      user,
+      { email: 'one.more@example.org', role: 'viewer' },
+      'http://cavitas.test',
+      new Date(later.getTime() + 30 * 60_000),
+    ).then(
+      () => null,
+      (e: { status: number; message: string }) => e,
+    );
     expect(refused?.status).toBe(429);
     expect(refused?.message).toMatch(/20 invitations within the last hour\. Try again in 30 minutes/);
     // Nothing was stored for the refused one.
@@ -255,14 +289,22 @@ describe('invitations', () => {
     const view = await call(invitationView.GET, anon, { params: { token } });
     expect((await view.json()).invitation).toMatchObject({ email, role: 'analyst', hasAccount: false });
 
-    const joined = await call(accept.POST, anon, { method: 'POST', body: { mode: 'sign-up', name: 'New Colleague', password: 'colleague-pass-1' }, params: { token } });
+    const joined = await call(accept.POST, anon, {
+      method: 'POST',
+      body: { mode: 'sign-up', name: 'New Colleague', password: 'colleague-pass-1' },
+      params: { token },
+    });
     expect(joined.status).toBe(200);
     expect(await joined.json()).toMatchObject({ networkId: w.networkId, role: 'analyst' });
     const cookie = cookiePair(joined.headers.get('set-cookie')!);
     const me = await (await call(session.GET, { ...anon, cookie })).json();
     expect((await getMembership(w.networkId, me.user.id))?.role).toBe('analyst');
 
-    const reused = await call(accept.POST, anon, { method: 'POST', body: { mode: 'sign-up', name: 'Again', password: 'colleague-pass-1' }, params: { token } });
+    const reused = await call(accept.POST, anon, {
+      method: 'POST',
+      body: { mode: 'sign-up', name: 'Again', password: 'colleague-pass-1' },
+      params: { token },
+    });
     expect(reused.status).toBe(410);
     expect((await errorOf(reused)).message).toMatch(/already been used/);
   });
@@ -272,9 +314,17 @@ describe('invitations', () => {
     const res = await invite(outsider.email, 'viewer');
     const { link } = await res.json();
     const token = decodeURIComponent(link.split('/invitations/')[1]);
-    const wrong = await call(accept.POST, anon, { method: 'POST', body: { mode: 'sign-in', password: 'not-the-password' }, params: { token } });
+    const wrong = await call(accept.POST, anon, {
+      method: 'POST',
+      body: { mode: 'sign-in', password: 'not-the-password' },
+      params: { token },
+    });
     expect(wrong.status).toBe(401);
-    const ok = await call(accept.POST, anon, { method: 'POST', body: { mode: 'sign-in', password: TEST_PASSWORD }, params: { token } });
+    const ok = await call(accept.POST, anon, {
+      method: 'POST',
+      body: { mode: 'sign-in', password: TEST_PASSWORD },
+      params: { token },
+    });
     expect(ok.status).toBe(200);
     expect((await getMembership(w.networkId, outsider.userId))?.role).toBe('viewer');
   });
@@ -297,7 +347,11 @@ describe('invitations', () => {
     const { link } = await res.json();
     const token = decodeURIComponent(link.split('/invitations/')[1]);
     await call(signUp.POST, anon, post({ email, name: 'Early Bird', password: 'early-bird-pass' }));
-    const r = await call(accept.POST, anon, { method: 'POST', body: { mode: 'sign-up', name: 'Late', password: 'late-pass-123' }, params: { token } });
+    const r = await call(accept.POST, anon, {
+      method: 'POST',
+      body: { mode: 'sign-up', name: 'Late', password: 'late-pass-123' },
+      params: { token },
+    });
     expect(r.status).toBe(409);
     expect((await call(invitationView.GET, anon, { params: { token } })).status).toBe(200);
   });
@@ -315,7 +369,11 @@ describe('invitations', () => {
       invitedBy: w.callers.owner.userId!,
       expiresAt: new Date(Date.now() - 60_000),
     });
-    const expired = await call(accept.POST, anon, { method: 'POST', body: { mode: 'sign-up', name: 'Late', password: 'late-pass-123' }, params: { token } });
+    const expired = await call(accept.POST, anon, {
+      method: 'POST',
+      body: { mode: 'sign-up', name: 'Late', password: 'late-pass-123' },
+      params: { token },
+    });
     expect(expired.status).toBe(410);
     expect((await errorOf(expired)).message).toMatch(/expired/);
   });

@@ -8,8 +8,24 @@ import { can, GRANTS, type Action } from '@/src/auth/permissions';
 
 const all = Object.keys(GRANTS) as Action[];
 const admin: Action[] = ['admin.mail', 'admin.settings'];
-const analystActions: Action[] = ['network.read', 'export', 'data.upload', 'data.flag', 'models.edit', 'grids.edit', 'runs.launch', 'runs.cancel'];
-const ownerOnly: Action[] = ['network.manage', 'members.manage', 'stations.manage', 'tokens.manage', 'data.delete', 'runs.delete'];
+const analystActions: Action[] = [
+  'network.read',
+  'export',
+  'data.upload',
+  'data.flag',
+  'models.edit',
+  'grids.edit',
+  'runs.launch',
+  'runs.cancel',
+];
+const ownerOnly: Action[] = [
+  'network.manage',
+  'members.manage',
+  'stations.manage',
+  'tokens.manage',
+  'data.delete',
+  'runs.delete',
+];
 
 describe('can(role, action)', () => {
   it('owners can do every network action and no site-administration action', () => {

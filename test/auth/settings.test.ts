@@ -29,11 +29,17 @@ describe('instance settings', () => {
   it('with open sign-up off, self sign-up is refused with 403 and a way forward', async () => {
     await saveInstanceSettings({ openSignUp: false, signInNotice: 'Maintenance on Sunday 02:00 UTC.' });
     expect(await getInstanceSettings()).toEqual({ openSignUp: false, signInNotice: 'Maintenance on Sunday 02:00 UTC.' });
-    const res = await call(signUp.POST, null, { method: 'POST', body: { email: 'closed.door@example.org', name: 'Closed', password: 'long-enough-pass' } });
+    const res = await call(signUp.POST, null, {
+      method: 'POST',
+      body: { email: 'closed.door@example.org', name: 'Closed', password: 'long-enough-pass' },
+    });
     expect(res.status).toBe(403);
     expect((await errorOf(res)).message).toMatch(/invitation/);
     await saveInstanceSettings(DEFAULT_SETTINGS);
-    const again = await call(signUp.POST, null, { method: 'POST', body: { email: 'closed.door@example.org', name: 'Open', password: 'long-enough-pass' } });
+    const again = await call(signUp.POST, null, {
+      method: 'POST',
+      body: { email: 'closed.door@example.org', name: 'Open', password: 'long-enough-pass' },
+    });
     expect(again.status).toBe(201);
   });
 });

@@ -9,7 +9,11 @@ import type { Spectrum } from '@/src/engine/forward/types';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const run = (file: string) =>
-  spawnSync(join(root, 'node_modules/.bin/tsx'), ['src/cli/main.ts', 'forward', file], { cwd: root, encoding: 'utf8', timeout: 60_000 });
+  spawnSync(join(root, 'node_modules/.bin/tsx'), ['src/cli/main.ts', 'forward', file], {
+    cwd: root,
+    encoding: 'utf8',
+    timeout: 60_000,
+  });
 
 describe('cli forward', () => {
   for (const name of ['forward-near-antipode.json', 'forward-two-sources-ij.json'])
@@ -38,14 +42,28 @@ describe('cli forward', () => {
     };
     const cells = join(dir, 'cells.json');
     const points = join(dir, 'points.json');
-    writeFileSync(cells, JSON.stringify({ ...base, sources: [{ cells: { cellSizeDeg: 10, ids: Array.from({ length: 36 }, (_, i) => 612 + i) }, intensity: 3.6e4 }] }));
-    writeFileSync(points, JSON.stringify({ ...base, sources: Array.from({ length: 36 }, (_, i) => ({ lat: 85, lon: -175 + 10 * i, intensity: 1e3 })) }));
+    writeFileSync(
+      cells,
+      JSON.stringify({
+        ...base,
+        sources: [{ cells: { cellSizeDeg: 10, ids: Array.from({ length: 36 }, (_, i) => 612 + i) }, intensity: 3.6e4 }],
+      }),
+    );
+    writeFileSync(
+      points,
+      JSON.stringify({
+        ...base,
+        sources: Array.from({ length: 36 }, (_, i) => ({ lat: 85, lon: -175 + 10 * i, intensity: 1e3 })),
+      }),
+    );
     const a = run(cells);
     const b = run(points);
     expect(a.status, a.stderr).toBe(0);
     const pa = (JSON.parse(a.stdout) as { spectra: Spectrum[] }).spectra;
     const pb = (JSON.parse(b.stdout) as { spectra: Spectrum[] }).spectra;
-    pa.forEach((s, i) => s.power.forEach((p, j) => expect(Math.abs(p - pb[i].power[j])).toBeLessThanOrEqual(1e-12 * pb[i].power[j])));
+    pa.forEach((s, i) =>
+      s.power.forEach((p, j) => expect(Math.abs(p - pb[i].power[j])).toBeLessThanOrEqual(1e-12 * pb[i].power[j])),
+    );
   });
 
   it('a malformed case exits non-zero with a message naming the field, and no stack trace', () => {

@@ -10,7 +10,11 @@ export const root = fileURLToPath(new URL('../../', import.meta.url));
 
 /** `npm run cli -- <verb> ...args` without npm: tsx on src/cli/main.ts from the project root. */
 export function runVerb(verb: string, args: string[], timeoutMs = 120_000) {
-  return spawnSync(join(root, 'node_modules/.bin/tsx'), ['src/cli/main.ts', verb, ...args], { cwd: root, encoding: 'utf8', timeout: timeoutMs });
+  return spawnSync(join(root, 'node_modules/.bin/tsx'), ['src/cli/main.ts', verb, ...args], {
+    cwd: root,
+    encoding: 'utf8',
+    timeout: timeoutMs,
+  });
 }
 
 /**

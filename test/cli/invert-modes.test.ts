@@ -13,8 +13,15 @@ import { refusals, root, runVerb } from './helpers';
 const run = (args: string[]) => runVerb('invert', args, 240_000);
 
 type Out = {
-  starts: number; nData: number; nParams: number;
-  minima: { misfit: number; count: number; sources: { name: string; lat: number; lon: number; intensity: number }[]; stdErrors: Record<string, Record<string, number>> }[];
+  starts: number;
+  nData: number;
+  nParams: number;
+  minima: {
+    misfit: number;
+    count: number;
+    sources: { name: string; lat: number; lon: number; intensity: number }[];
+    stdErrors: Record<string, Record<string, number>>;
+  }[];
 };
 
 describe('cli invert with observed modes', () => {
@@ -31,7 +38,10 @@ describe('cli invert with observed modes', () => {
     expect(b.minima).toEqual(a.minima);
     expect(a.minima.reduce((s, m) => s + m.count, 0)).toBe(3);
     // Three data (frequency, ln intensity, half-width) per observed mode.
-    const nModes = JSON.parse(readFileSync(file, 'utf8')).observedModes.reduce((n: number, o: { modes: unknown[] }) => n + o.modes.length, 0);
+    const nModes = JSON.parse(readFileSync(file, 'utf8')).observedModes.reduce(
+      (n: number, o: { modes: unknown[] }) => n + o.modes.length,
+      0,
+    );
     expect(a.nData).toBe(3 * nModes);
     const best = a.minima[0];
     const s = best.sources[0];
@@ -48,9 +58,18 @@ describe('cli invert with observed modes', () => {
     const bad = refusals('invert', file, ['--threads', '1', '--starts', '1']);
     bad((x) => (x.observedModes[0].modes[0].sigmaHalfWidth = 0), /observedModes\.0\.modes\.0\.sigmaHalfWidth/);
     bad((x) => (x.observedModes[1].station = 'NOPE'), /observedModes\.1\.station.*NOPE/);
-    bad((x) => (x.observed = [{ station: 'HAR', component: 'Ez', frequencies: [5, 6], power: [1, 1], sigmaLog: 0.1 }]), /either observed spectra or observedModes/);
+    bad(
+      (x) => (x.observed = [{ station: 'HAR', component: 'Ez', frequencies: [5, 6], power: [1, 1], sigmaLog: 0.1 }]),
+      /either observed spectra or observedModes/,
+    );
     bad((x) => (x.observedModes[0].modes[0].frequency = 11), /modes\[0\] \(HAR Ez\)\.modes\[0\]: 11 Hz lies in no mode window/);
-    bad((x) => (x.observedModes[0].fit = { modes: 3, excludeRanges: [{ minHz: 16.9, maxHz: 16.4 }] }), /observedModes\.0\.fit\.excludeRanges\.0\.maxHz.*end below its start/);
-    bad((x) => (x.band = { minHz: 10, maxHz: 36, stepHz: 0.1 }), /\.fit: the fitted band 3–23\.8 Hz reaches outside the model grid 10–3[56]/);
+    bad(
+      (x) => (x.observedModes[0].fit = { modes: 3, excludeRanges: [{ minHz: 16.9, maxHz: 16.4 }] }),
+      /observedModes\.0\.fit\.excludeRanges\.0\.maxHz.*end below its start/,
+    );
+    bad(
+      (x) => (x.band = { minHz: 10, maxHz: 36, stepHz: 0.1 }),
+      /\.fit: the fitted band 3–23\.8 Hz reaches outside the model grid 10–3[56]/,
+    );
   }, 120_000);
 });

@@ -14,7 +14,13 @@ type Out = {
   starts: number;
   seed: number;
   seconds: number;
-  minima: { misfit: number; count: number; sources: { name: string; lat: number; lon: number; intensity: number }[]; stdErrors: Record<string, Record<string, number>>; correlation: { names: string[]; matrix: number[][] } }[];
+  minima: {
+    misfit: number;
+    count: number;
+    sources: { name: string; lat: number; lon: number; intensity: number }[];
+    stdErrors: Record<string, Record<string, number>>;
+    correlation: { names: string[]; matrix: number[][] };
+  }[];
 };
 
 describe('cli invert', () => {
@@ -44,7 +50,9 @@ describe('cli invert', () => {
     bad((x) => (x.unknowns[0].lat = { min: 10, max: -10 }), /unknowns\.0\.lat/);
     bad((x) => (x.observed[1].station = 'NOPE'), /NOPE/);
     bad((x) => {
-      x.observed = [{ ...x.observed[0], frequencies: x.observed[0].frequencies.slice(0, 2), power: x.observed[0].power.slice(0, 2) }];
+      x.observed = [
+        { ...x.observed[0], frequencies: x.observed[0].frequencies.slice(0, 2), power: x.observed[0].power.slice(0, 2) },
+      ];
     }, /more free parameters \(3\) than data \(2\)/);
   });
 });

@@ -26,7 +26,9 @@ describe('cli spectrum', () => {
     expect(out.frequencies).toHaveLength(c.frequencies.length);
     const peak = Math.max(...c.power);
     out.power.forEach((p, k) => expect(Math.abs(p - c.power[k])).toBeLessThanOrEqual(1e-6 * Math.max(c.power[k], 1e-9 * peak)));
-    const mains = JSON.parse(run('spectrum', write('m.json', { sampleRateHz: 200, samples: c.samples, segmentSeconds: 10, mainsHz: 50 })).stdout);
+    const mains = JSON.parse(
+      run('spectrum', write('m.json', { sampleRateHz: 200, samples: c.samples, segmentSeconds: 10, mainsHz: 50 })).stdout,
+    );
     // the fixture's 0.4-amplitude 50 Hz tone stands far above the noise floor, and is gone after suppression
     expect(c.power[500] / c.power[450]).toBeGreaterThan(20);
     expect(mains.power[500] / c.power[450]).toBeLessThan(3);

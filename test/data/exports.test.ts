@@ -6,11 +6,29 @@ import { describe, expect, it } from 'vitest';
 import { intervalsToCsv, intervalsToJson } from '@/src/data/exports';
 import type { IntervalSummary } from '@/db/repo/intervals';
 
-const mode = (f: number) => ({ frequency: f, amplitude: 2e-7, halfWidth: 1.9, q: f / 3.8, errors: { frequency: 0.05, amplitude: 1e-8, halfWidth: 0.1 } });
+const mode = (f: number) => ({
+  frequency: f,
+  amplitude: 2e-7,
+  halfWidth: 1.9,
+  q: f / 3.8,
+  errors: { frequency: 0.05, amplitude: 1e-8, halfWidth: 0.1 },
+});
 const row = (over: Partial<IntervalSummary> = {}): IntervalSummary => ({
-  id: 'i1', stationId: 's1', stationCode: 'TST1', component: 'Ez', startsAt: new Date('2026-03-14T06:20:00Z'), durationS: 600,
-  origin: 'upload', uploadId: null, rejectedShare: 0.05, qualityFlags: [], flagReason: null, flaggedBy: null, flaggedAt: null,
-  fit: { modes: [mode(7.8), mode(14.1)], background: { b0: 1e-9, b1: -1e-11 }, misfit: 123.5 }, ...over,
+  id: 'i1',
+  stationId: 's1',
+  stationCode: 'TST1',
+  component: 'Ez',
+  startsAt: new Date('2026-03-14T06:20:00Z'),
+  durationS: 600,
+  origin: 'upload',
+  uploadId: null,
+  rejectedShare: 0.05,
+  qualityFlags: [],
+  flagReason: null,
+  flaggedBy: null,
+  flaggedAt: null,
+  fit: { modes: [mode(7.8), mode(14.1)], background: { b0: 1e-9, b1: -1e-11 }, misfit: 123.5 },
+  ...over,
 });
 
 /** Minimal RFC 4180 reader, to read back what was written. */
@@ -22,17 +40,44 @@ function parseCsv(text: string): string[][] {
   for (let i = 0; i < text.length; i++) {
     const ch = text[i];
     if (q) {
-      if (ch === '"' && text[i + 1] === '"') { cell += '"'; i++; } else if (ch === '"') q = false; else cell += ch;
+      if (ch === '"' && text[i + 1] === '"') {
+        cell += '"';
+        i++;
+      } else if (ch === '"') q = false;
+      else cell += ch;
     } else if (ch === '"') q = true;
-    else if (ch === ',') { cur.push(cell); cell = ''; } else if (ch === '\n') { cur.push(cell); rows.push(cur); cur = []; cell = ''; } else cell += ch;
+    else if (ch === ',') {
+      cur.push(cell);
+      cell = '';
+    } else if (ch === '\n') {
+      cur.push(cell);
+      rows.push(cur);
+      cur = [];
+      cell = '';
+    } else cell += ch;
   }
   return rows;
 }
 
 describe('interval exports', () => {
   it('writes one row per interval with a column group per mode', () => {
-    const withBand = { ...row().fit!, band: { minHz: 3, maxHz: 36.3 }, averages: 112.7, excluded: [{ minHz: 16.4, maxHz: 16.9 }, { minHz: 49.5, maxHz: 50.5 }] };
-    const rows = parseCsv(intervalsToCsv([row(), row({ id: 'i2', fit: null, qualityFlags: ['fit-failed'] }), row({ id: 'i3', fit: withBand }), row({ id: 'i4', fit: { ...withBand, excluded: [] } })]));
+    const withBand = {
+      ...row().fit!,
+      band: { minHz: 3, maxHz: 36.3 },
+      averages: 112.7,
+      excluded: [
+        { minHz: 16.4, maxHz: 16.9 },
+        { minHz: 49.5, maxHz: 50.5 },
+      ],
+    };
+    const rows = parseCsv(
+      intervalsToCsv([
+        row(),
+        row({ id: 'i2', fit: null, qualityFlags: ['fit-failed'] }),
+        row({ id: 'i3', fit: withBand }),
+        row({ id: 'i4', fit: { ...withBand, excluded: [] } }),
+      ]),
+    );
     expect(rows).toHaveLength(5);
     const h = rows[0];
     expect(h.slice(0, 3)).toEqual(['station', 'component', 'starts_at_utc']);
@@ -50,7 +95,10 @@ describe('interval exports', () => {
     expect([r3.fit_min_hz, r3.fit_max_hz, r3.fit_averages]).toEqual(['3', '36.3', '112.7']);
     // excluded ranges as min-max pairs joined by ';' (reads back to the ranges), empty when not recorded
     expect(r1.fit_excluded_hz).toBe('');
-    expect(r3.fit_excluded_hz.split(';').map((p) => p.split('-').map(Number))).toEqual([[16.4, 16.9], [49.5, 50.5]]);
+    expect(r3.fit_excluded_hz.split(';').map((p) => p.split('-').map(Number))).toEqual([
+      [16.4, 16.9],
+      [49.5, 50.5],
+    ]);
     const r4 = Object.fromEntries(h.map((k, i) => [k, rows[4][i]]));
     expect(r4.fit_excluded_hz).toBe('none');
   });

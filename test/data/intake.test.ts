@@ -17,19 +17,33 @@ import { makeWorld, stationInput } from './world';
 import { bodyOf, seriesCsv, TEST_MODES, type SeriesSpec } from './series-maker';
 
 beforeAll(resetDatabase);
-afterAll(async () => { await stopBoss(5000); await closeDatabase(); });
-afterEach(() => { delete process.env.UPLOAD_MAX_MB; });
+afterAll(async () => {
+  await stopBoss(5000);
+  await closeDatabase();
+});
+afterEach(() => {
+  delete process.env.UPLOAD_MAX_MB;
+});
 
 const FS = 100;
 const station100 = { sampleRateHz: FS };
 const spec = (over: Partial<SeriesSpec> = {}): SeriesSpec => ({
-  station: 'TST1', fs: FS, startUtc: '2026-03-14T00:00:00Z', seconds: 600,
+  station: 'TST1',
+  fs: FS,
+  startUtc: '2026-03-14T00:00:00Z',
+  seconds: 600,
   components: { Ez: { kind: 'white', sigma: 1, unit: 'mV/m' }, Bns: { kind: 'white', sigma: 2, unit: 'counts' } },
   ...over,
 });
 
 async function upload(w: Awaited<ReturnType<typeof makeWorld>>, text: string, fileName = 'rec.csv') {
-  return receiveUpload({ station: w.station, userId: w.userId, fileName, body: bodyOf(text), contentLength: Buffer.byteLength(text) });
+  return receiveUpload({
+    station: w.station,
+    userId: w.userId,
+    fileName,
+    body: bodyOf(text),
+    contentLength: Buffer.byteLength(text),
+  });
 }
 
 const mean = (a: number[]) => a.reduce((s, v) => s + v, 0) / a.length;
@@ -58,8 +72,8 @@ describe('upload intake and processing', () => {
     expect(spectra.map((s) => s.component).sort()).toEqual(['Bns', 'Ez']);
     const ez = spectra.find((s) => s.component === 'Ez')!;
     // Ez in mV/m, sigma 1 mV/m = 1e-3 V/m: one-sided PSD 2 sigma^2 / fs (Parseval)
-    expect(mean(ez.power) / (2 * 1e-6 / FS)).toBeGreaterThan(0.97);
-    expect(mean(ez.power) / (2 * 1e-6 / FS)).toBeLessThan(1.03);
+    expect(mean(ez.power) / ((2 * 1e-6) / FS)).toBeGreaterThan(0.97);
+    expect(mean(ez.power) / ((2 * 1e-6) / FS)).toBeLessThan(1.03);
     expect(ez.segments).toBeGreaterThan(100);
     const bns = spectra.find((s) => s.component === 'Bns')!;
     // Bns in counts with the station's flat gain 1e9 counts per tesla: P_T = P_counts / gain^2
@@ -71,7 +85,9 @@ describe('upload intake and processing', () => {
 
   it('fits the modes of a resonant recording near their frequencies', async () => {
     const w = await makeWorld(station100);
-    const text = seriesCsv(spec({ seconds: 1200, seed: 11, components: { Ez: { kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'mV/m' } } }));
+    const text = seriesCsv(
+      spec({ seconds: 1200, seed: 11, components: { Ez: { kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'mV/m' } } }),
+    );
     const { upload: u } = await upload(w, text);
     expect(await processUpload(u.id)).toBe('done');
     const rows = await listIntervals({ networkId: w.networkId });
@@ -96,17 +112,30 @@ describe('upload intake and processing', () => {
     }
   });
 
-  it('stores what each fit left out: the station\'s lines for time series, nothing for a spectra file', async () => {
+  it("stores what each fit left out: the station's lines for time series, nothing for a spectra file", async () => {
     // A listed line at 16.65 Hz with the default notch half-width of 0.3 Hz (src/engine/tolerances.ts) covers
     // the 0.1 Hz bins 16.4–16.9 Hz (|f - 16.65| <= 0.3, worked by hand; no bin on a notch edge). Mains at 50 Hz
     // lies above the fitted band of a 100 Hz recording (3 Hz to 3.5 Hz past the highest usual mode fitted).
     const w = await makeWorld({ ...station100, interferenceLines: [{ frequencyHz: 16.65, label: 'railway supply' }] });
-    const series = await upload(w, seriesCsv(spec({ seconds: 600, seed: 21, components: { Ez: { kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'mV/m' } } })));
+    const series = await upload(
+      w,
+      seriesCsv(
+        spec({ seconds: 600, seed: 21, components: { Ez: { kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'mV/m' } } }),
+      ),
+    );
     expect(await processUpload(series.upload.id)).toBe('done');
     const freqs = Array.from({ length: 331 }, (_, i) => 3 + i * 0.1);
     const lor = (f: number) => 1 + TEST_MODES.reduce((a, m) => a + (10 * m.gain) / (1 + ((f - m.f) / m.halfWidth) ** 2), 0);
-    const file = ['# cavitas-spectra 1', '# station: TST1', '# component: Ez', '# units: (mV/m)^2/Hz', '# interval-seconds: 600',
-      'frequency-hz,2026-03-14T02:00:00Z', ...freqs.map((f) => `${f.toFixed(1)},${lor(f).toPrecision(6)}`)].join('\n') + '\n';
+    const file =
+      [
+        '# cavitas-spectra 1',
+        '# station: TST1',
+        '# component: Ez',
+        '# units: (mV/m)^2/Hz',
+        '# interval-seconds: 600',
+        'frequency-hz,2026-03-14T02:00:00Z',
+        ...freqs.map((f) => `${f.toFixed(1)},${lor(f).toPrecision(6)}`),
+      ].join('\n') + '\n';
     const spectra = await upload(w, file, 'spectra.csv');
     expect(await processUpload(spectra.upload.id)).toBe('done');
 
@@ -127,7 +156,11 @@ describe('upload intake and processing', () => {
     const w = await makeWorld(station100);
     const { upload: u } = await upload(w, seriesCsv(spec({ seed: 3 })));
     // The Bns component is removed before the worker gets to the file.
-    await updateStation(w.networkId, w.station.id, stationInput({ ...station100, components: [{ component: 'Ez', calibration: { kind: 'gain', gain: 1 } }] }));
+    await updateStation(
+      w.networkId,
+      w.station.id,
+      stationInput({ ...station100, components: [{ component: 'Ez', calibration: { kind: 'gain', gain: 1 } }] }),
+    );
     expect(await processUpload(u.id)).toBe('failed');
     const failed = await getUpload(w.networkId, u.id);
     expect(failed?.state).toBe('failed');
@@ -144,9 +177,16 @@ describe('upload intake and processing', () => {
     const w = await makeWorld(station100);
     const freqs = Array.from({ length: 200 }, (_, i) => 3 + i * 0.1);
     const lor = (f: number) => 1 + TEST_MODES.reduce((s, m) => s + (10 * m.gain) / (1 + ((f - m.f) / m.halfWidth) ** 2), 0);
-    const spectra = ['# cavitas-spectra 1', '# station: TST1', '# component: Bns', '# units: pT^2/Hz', '# interval-seconds: 600',
-      'frequency-hz,2026-03-14T00:00:00Z,2026-03-14T00:10:00Z',
-      ...freqs.map((f) => `${f.toFixed(1)},${lor(f).toPrecision(6)},${(1.1 * lor(f)).toPrecision(6)}`)].join('\n') + '\n';
+    const spectra =
+      [
+        '# cavitas-spectra 1',
+        '# station: TST1',
+        '# component: Bns',
+        '# units: pT^2/Hz',
+        '# interval-seconds: 600',
+        'frequency-hz,2026-03-14T00:00:00Z,2026-03-14T00:10:00Z',
+        ...freqs.map((f) => `${f.toFixed(1)},${lor(f).toPrecision(6)},${(1.1 * lor(f)).toPrecision(6)}`),
+      ].join('\n') + '\n';
     const a = await upload(w, spectra, 'spectra.csv');
     expect(a.upload.format).toBe('spectra-csv');
     expect(await processUpload(a.upload.id)).toBe('done');
@@ -160,7 +200,13 @@ describe('upload intake and processing', () => {
     expect(fit.band!.minHz).toBe(3);
 
     const samples = Array.from({ length: 600 * FS }, (_, i) => Math.sin(i * 0.7) + Math.cos(i * 1.3));
-    const json = JSON.stringify({ station: 'TST1', component: 'Ez', startUtc: '2026-03-14T01:00:00Z', sampleRateHz: FS, samples });
+    const json = JSON.stringify({
+      station: 'TST1',
+      component: 'Ez',
+      startUtc: '2026-03-14T01:00:00Z',
+      sampleRateHz: FS,
+      samples,
+    });
     const b = await upload(w, json, 'one.json');
     expect(b.upload.format).toBe('series-json');
     expect(await processUpload(b.upload.id)).toBe('done');
@@ -172,14 +218,39 @@ describe('rejected uploads store nothing and say why', () => {
   const cases: [string, () => string, RegExp, string][] = [
     ['not a station file', () => 'hello,world\n1,2\n', /line 1: not a Cavitas station file/, 'file'],
     ['unknown station code', () => seriesCsv(spec({ station: 'NOPE9', seconds: 1 })), /unknown station code "NOPE9"/, 'station'],
-    ['component not installed', () => seriesCsv(spec({ seconds: 1, components: { Bew: { kind: 'white', sigma: 1, unit: 'pT' } } })), /no Bew component/, 'Bew'],
-    ['station rate disagrees', () => seriesCsv(spec({ seconds: 1, fs: 50 })), /disagrees with station TST1's registered 100 Hz/, 'sample-rate-hz'],
+    [
+      'component not installed',
+      () => seriesCsv(spec({ seconds: 1, components: { Bew: { kind: 'white', sigma: 1, unit: 'pT' } } })),
+      /no Bew component/,
+      'Bew',
+    ],
+    [
+      'station rate disagrees',
+      () => seriesCsv(spec({ seconds: 1, fs: 50 })),
+      /disagrees with station TST1's registered 100 Hz/,
+      'sample-rate-hz',
+    ],
     ['rows off the header rate', () => seriesCsv(spec({ seconds: 1, headerRate: 100, fs: 40 })), /line 8.*"seconds"/, 'seconds'],
-    ['non-numeric cell', () => seriesCsv(spec({ seconds: 1 })).replace(/\n0\.05,[^,]+,/, '\n0.05,abc,'), /line 12, field "Ez".*"abc" is not a number/, 'Ez'],
-    ['NaN cell', () => seriesCsv(spec({ seconds: 1 })).replace(/\n0\.05,[^,]+,/, '\n0.05,NaN,'), /line 12, field "Ez": NaN is not allowed/, 'Ez'],
+    [
+      'non-numeric cell',
+      () => seriesCsv(spec({ seconds: 1 })).replace(/\n0\.05,[^,]+,/, '\n0.05,abc,'),
+      /line 12, field "Ez".*"abc" is not a number/,
+      'Ez',
+    ],
+    [
+      'NaN cell',
+      () => seriesCsv(spec({ seconds: 1 })).replace(/\n0\.05,[^,]+,/, '\n0.05,NaN,'),
+      /line 12, field "Ez": NaN is not allowed/,
+      'Ez',
+    ],
     ['truncated file', () => seriesCsv(spec({ seconds: 1 })).slice(0, -12), /cut off/, 'file'],
     ['missing column', () => seriesCsv(spec({ seconds: 1 })).replace('seconds,Ez,Bns', 'seconds,Ez'), /units/, 'units'],
-    ['out-of-order rows', () => seriesCsv(spec({ seconds: 1 })).replace(/\n0\.05,/, '\n0.03,'), /line 12.*out of order|overlap/, 'seconds'],
+    [
+      'out-of-order rows',
+      () => seriesCsv(spec({ seconds: 1 })).replace(/\n0\.05,/, '\n0.03,'),
+      /line 12.*out of order|overlap/,
+      'seconds',
+    ],
   ];
   for (const [name, make, message, field] of cases) {
     it(name, async () => {
@@ -194,8 +265,9 @@ describe('rejected uploads store nothing and say why', () => {
     const w = await makeWorld(station100);
     const text = seriesCsv(spec({ seconds: 10 }));
     await expect(upload(w, text)).rejects.toMatchObject({ status: 413, field: 'file' });
-    await expect(receiveUpload({ station: w.station, userId: w.userId, fileName: 'x.csv', body: bodyOf(text), contentLength: null }))
-      .rejects.toMatchObject({ status: 413, message: expect.stringMatching(/larger than the 10 kB limit/) });
+    await expect(
+      receiveUpload({ station: w.station, userId: w.userId, fileName: 'x.csv', body: bodyOf(text), contentLength: null }),
+    ).rejects.toMatchObject({ status: 413, message: expect.stringMatching(/larger than the 10 kB limit/) });
     expect(await listUploads(w.networkId)).toHaveLength(0);
   });
 });

@@ -13,7 +13,9 @@ import { makeWorld } from './world';
 
 beforeAll(resetDatabase);
 afterAll(closeDatabase);
-afterEach(() => { delete process.env.PUSH_RATE_PER_MINUTE; });
+afterEach(() => {
+  delete process.env.PUSH_RATE_PER_MINUTE;
+});
 
 describe('push tokens', () => {
   it('hashes secrets with SHA-256 (FIPS 180-2 B.1 test vector)', () => {
@@ -40,11 +42,14 @@ describe('push tokens', () => {
     await revokePushToken(w.networkId, w.station.id, a.token.id);
     await expect(authenticatePush(`Bearer ${a.secret}`)).rejects.toMatchObject({ status: 401, code: 'token_revoked' });
     const b = await issuePushToken(w.networkId, w.station.id, w.userId, { label: 'b', expiresInDays: 1 });
-    await getDb().update(pushTokens).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(pushTokens.id, b.token.id));
+    await getDb()
+      .update(pushTokens)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(pushTokens.id, b.token.id));
     await expect(authenticatePush(`Bearer ${b.secret}`)).rejects.toMatchObject({ status: 401, code: 'token_expired' });
   });
 
-  it('cannot revoke another station\'s token', async () => {
+  it("cannot revoke another station's token", async () => {
     const w = await makeWorld();
     const other = await makeWorld();
     const t = await issuePushToken(w.networkId, w.station.id, w.userId, { label: 'a', expiresInDays: null });

@@ -12,14 +12,19 @@ import { synthesize, TEST_MODES } from './series-maker';
 
 beforeAll(resetDatabase);
 afterAll(closeDatabase);
-afterEach(() => { delete process.env.PUSH_RATE_PER_MINUTE; });
+afterEach(() => {
+  delete process.env.PUSH_RATE_PER_MINUTE;
+});
 
 const FS = 100;
-const push = (secret: string | null, body: unknown) => POST(new Request('http://cavitas.test/api/v1/push/intervals', {
-  method: 'POST',
-  headers: { 'content-type': 'application/json', ...(secret ? { authorization: `Bearer ${secret}` } : {}) },
-  body: typeof body === 'string' ? body : JSON.stringify(body),
-}));
+const push = (secret: string | null, body: unknown) =>
+  POST(
+    new Request('http://cavitas.test/api/v1/push/intervals', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', ...(secret ? { authorization: `Bearer ${secret}` } : {}) },
+      body: typeof body === 'string' ? body : JSON.stringify(body),
+    }),
+  );
 
 async function setup() {
   const w = await makeWorld({ sampleRateHz: FS });
@@ -50,7 +55,7 @@ describe('push', () => {
     expect(level / ((2 * 16) / FS / 4)).toBeLessThan(1.04);
   });
 
-  it('stores with each fit the bins it left out: the station\'s listed line', async () => {
+  it("stores with each fit the bins it left out: the station's listed line", async () => {
     // The test station lists 16.65 Hz here; with the default 0.3 Hz notch half-width that is the 0.1 Hz bins
     // 16.4–16.9 Hz (|f - 16.65| <= 0.3, worked by hand).
     const w = await makeWorld({ sampleRateHz: FS, interferenceLines: [{ frequencyHz: 16.65, label: 'railway supply' }] });

@@ -46,10 +46,17 @@ describe('demo stations seeder', () => {
   it('stores spectra that scatter around the forward model by 1/sqrt(K) in ln(power)', async () => {
     const station = (await listStations(networkId)).find((s) => s.code === 'DNM')!;
     const startsAt = new Date(`${DEMO_DAY}T12:00:00Z`);
-    const [obs] = await getIntervalSpectra({ networkId, stationIds: [station.id], components: ['Ez'], from: startsAt, to: new Date(startsAt.getTime() + 600_000) });
+    const [obs] = await getIntervalSpectra({
+      networkId,
+      stationIds: [station.id],
+      components: ['Ez'],
+      from: startsAt,
+      to: new Date(startsAt.getTime() + 600_000),
+    });
     const hour = 12 + 5 / 60;
     const [pred] = predictSpectra({
-      cavity: { model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 }, band: DEMO_BAND,
+      cavity: { model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 },
+      band: DEMO_BAND,
       stations: [{ code: 'DNM', lat: station.latitude, lon: station.longitude, components: ['Ez'] }],
       sources: DEMO_CENTRES.map((c) => ({ lat: c.lat, lon: c.lon, spreadDeg: c.spreadDeg, intensity: centreIntensity(c, hour) })),
     });

@@ -88,7 +88,10 @@ export function bodyOf(text: string | Uint8Array, size = 65536): ReadableStream<
   let at = 0;
   return new ReadableStream({
     pull(ctrl) {
-      if (at >= bytes.length) { ctrl.close(); return; }
+      if (at >= bytes.length) {
+        ctrl.close();
+        return;
+      }
       ctrl.enqueue(bytes.slice(at, at + size));
       at += size;
     },

@@ -7,7 +7,12 @@ import { describe, expect, it } from 'vitest';
 import { stationInputSchema } from '@/src/data/station-input';
 
 const ok = {
-  code: 'AB1', name: 'Invented hut', latitude: 10, longitude: 20, mainsHz: 50, sampleRateHz: 200,
+  code: 'AB1',
+  name: 'Invented hut',
+  latitude: 10,
+  longitude: 20,
+  mainsHz: 50,
+  sampleRateHz: 200,
   components: [{ component: 'Ez', calibration: { kind: 'gain', gain: 2 } }],
 };
 const firstIssue = (v: unknown) => {
@@ -31,9 +36,24 @@ describe('station input', () => {
     [{ components: [] }, 'components', /at least one/],
     [{ components: [ok.components[0], ok.components[0]] }, 'components', /once/],
     [{ components: [{ component: 'Ez', calibration: { kind: 'gain', gain: -1 } }] }, 'components.0.calibration.gain', /positive/],
-    [{ components: [{ component: 'Bns', calibration: { kind: 'response', points: [
-      { frequencyHz: 10, amplitude: 1, phaseDeg: 0 }, { frequencyHz: 5, amplitude: 1, phaseDeg: 0 }] } }] },
-    'components.0.calibration.points', /increase/],
+    [
+      {
+        components: [
+          {
+            component: 'Bns',
+            calibration: {
+              kind: 'response',
+              points: [
+                { frequencyHz: 10, amplitude: 1, phaseDeg: 0 },
+                { frequencyHz: 5, amplitude: 1, phaseDeg: 0 },
+              ],
+            },
+          },
+        ],
+      },
+      'components.0.calibration.points',
+      /increase/,
+    ],
   ])('refuses %j naming %s', (patch, path, message) => {
     const issue = firstIssue({ ...ok, ...patch });
     expect(issue?.path).toBe(path);

@@ -9,9 +9,16 @@ import { createStation, type StationInput } from '@/db/repo/stations';
 
 export function stationInput(over: Partial<StationInput> = {}): StationInput {
   return {
-    code: 'TST1', name: 'Test hut one', latitude: 12.5, longitude: -40.25, elevationM: 120,
-    mainsHz: 50, interferenceLines: [{ frequencyHz: 16.7, label: 'railway supply' }], sampleRateHz: 200,
-    notes: '', status: 'operating',
+    code: 'TST1',
+    name: 'Test hut one',
+    latitude: 12.5,
+    longitude: -40.25,
+    elevationM: 120,
+    mainsHz: 50,
+    interferenceLines: [{ frequencyHz: 16.7, label: 'railway supply' }],
+    sampleRateHz: 200,
+    notes: '',
+    status: 'operating',
     components: [
       { component: 'Ez', calibration: { kind: 'gain', gain: 2 } },
       { component: 'Bns', calibration: { kind: 'gain', gain: 1e9 } },

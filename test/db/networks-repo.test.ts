@@ -33,7 +33,10 @@ describe('networks repository', () => {
     const b = await makeUser('Ownerb', 'repo1');
     const net = await createNetwork('Concurrent owners', a.userId);
     await upsertMembership(net.id, b.userId, 'owner');
-    const results = await Promise.allSettled([changeMemberRole(net.id, a.userId, 'viewer'), changeMemberRole(net.id, b.userId, 'viewer')]);
+    const results = await Promise.allSettled([
+      changeMemberRole(net.id, a.userId, 'viewer'),
+      changeMemberRole(net.id, b.userId, 'viewer'),
+    ]);
     expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
     const owners = (await listMembers(net.id)).filter((m) => m.role === 'owner');
     expect(owners).toHaveLength(1);

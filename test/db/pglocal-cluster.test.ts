@@ -47,7 +47,13 @@ describe('private PostgreSQL cluster', () => {
   });
 
   it('refuses a wrong password over TCP (scram-sha-256 on host connections)', async () => {
-    const running = await startLocalPostgres({ dataDir, port: await freePort(), ephemeral: true, user: 'probe', database: 'probe_db' });
+    const running = await startLocalPostgres({
+      dataDir,
+      port: await freePort(),
+      ephemeral: true,
+      user: 'probe',
+      database: 'probe_db',
+    });
     const bad = new URL(running.url);
     bad.password = 'wrong';
     await expect(query(bad.toString())).rejects.toThrow(/password authentication failed/);

@@ -54,10 +54,25 @@ describe('station registry', () => {
 
   it('replaces components on update', async () => {
     const { networkId, station } = await makeWorld();
-    const upd = await stations.updateStation(networkId, station.id, stationInput({
-      name: 'Renamed', components: [{ component: 'Bew', calibration: { kind: 'response', points: [
-        { frequencyHz: 1, amplitude: 0.5, phaseDeg: 10 }, { frequencyHz: 50, amplitude: 0.8, phaseDeg: -20 }] } }],
-    }));
+    const upd = await stations.updateStation(
+      networkId,
+      station.id,
+      stationInput({
+        name: 'Renamed',
+        components: [
+          {
+            component: 'Bew',
+            calibration: {
+              kind: 'response',
+              points: [
+                { frequencyHz: 1, amplitude: 0.5, phaseDeg: 10 },
+                { frequencyHz: 50, amplitude: 0.8, phaseDeg: -20 },
+              ],
+            },
+          },
+        ],
+      }),
+    );
     expect(upd?.name).toBe('Renamed');
     expect(upd?.components.map((c) => c.component)).toEqual(['Bew']);
   });
@@ -65,7 +80,11 @@ describe('station registry', () => {
 
 describe('uploads', () => {
   const meta = (networkId: string, stationId: string, userId: string) => ({
-    networkId, stationId, uploadedBy: userId, fileName: 'a.csv', format: 'series-csv' as const,
+    networkId,
+    stationId,
+    uploadedBy: userId,
+    fileName: 'a.csv',
+    format: 'series-csv' as const,
   });
 
   it('stores bytes in chunks and reads them back identical, with the SHA-256', async () => {
@@ -88,7 +107,10 @@ describe('uploads', () => {
     // FIPS 180-2 appendix B.1: SHA-256("abc")
     const abc = 'ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad';
     expect(createHash('sha256').update('abc').digest('hex')).toBe(abc);
-    const fill = async (w: uploads.UploadWriter) => { await w.append(Buffer.from('abc')); return { sha256: abc, sizeBytes: 3 }; };
+    const fill = async (w: uploads.UploadWriter) => {
+      await w.append(Buffer.from('abc'));
+      return { sha256: abc, sizeBytes: 3 };
+    };
     const first = await uploads.storeUpload(meta(networkId, station.id, userId), fill);
     const second = await uploads.storeUpload({ ...meta(networkId, station.id, userId), fileName: 'copy.csv' }, fill);
     expect(second.duplicate).toBe(true);
@@ -98,17 +120,20 @@ describe('uploads', () => {
 
   it('stores nothing when the check of the file fails', async () => {
     const { networkId, station, userId } = await makeWorld();
-    await expect(uploads.storeUpload(meta(networkId, station.id, userId), async (w) => {
-      await w.append(Buffer.alloc(uploads.UPLOAD_CHUNK_BYTES + 10));
-      throw new Error('line 7: not a number');
-    })).rejects.toThrow('line 7');
+    await expect(
+      uploads.storeUpload(meta(networkId, station.id, userId), async (w) => {
+        await w.append(Buffer.alloc(uploads.UPLOAD_CHUNK_BYTES + 10));
+        throw new Error('line 7: not a number');
+      }),
+    ).rejects.toThrow('line 7');
     expect(await uploads.listUploads(networkId)).toHaveLength(0);
   });
 
   it('moves through processing states, fails with a reason and can be queued again', async () => {
     const { networkId, station, userId } = await makeWorld();
     const { upload } = await uploads.storeUpload(meta(networkId, station.id, userId), async (w) => {
-      await w.append(Buffer.from('x')); return { sha256: 'f'.repeat(64), sizeBytes: 1 };
+      await w.append(Buffer.from('x'));
+      return { sha256: 'f'.repeat(64), sizeBytes: 1 };
     });
     expect((await uploads.beginProcessing(upload.id))?.attempts).toBe(1);
     expect(await uploads.beginProcessing(upload.id)).toBeNull(); // already claimed
@@ -122,14 +147,26 @@ describe('uploads', () => {
 
 describe('intervals', () => {
   const base = (networkId: string, stationId: string, minute: number) => ({
-    networkId, stationId, component: 'Ez' as const, startsAt: new Date(Date.UTC(2026, 2, 1, 0, minute)),
-    durationS: 600, origin: 'push' as const, uploadId: null, rejectedShare: 0.1, qualityFlags: [],
+    networkId,
+    stationId,
+    component: 'Ez' as const,
+    startsAt: new Date(Date.UTC(2026, 2, 1, 0, minute)),
+    durationS: 600,
+    origin: 'push' as const,
+    uploadId: null,
+    rejectedShare: 0.1,
+    qualityFlags: [],
     spectrum: { frequencies: [5, 5.1, 5.2], power: [1e-8, 2e-8, 3e-8], segments: 119 },
-    fit: { modes: [{ frequency: 7.8, amplitude: 1e-8, halfWidth: 1, q: 3.9,
-      errors: { frequency: 0.1, amplitude: 1e-9, halfWidth: 0.1 } }], background: { b0: 0, b1: 0 }, misfit: 1 },
+    fit: {
+      modes: [
+        { frequency: 7.8, amplitude: 1e-8, halfWidth: 1, q: 3.9, errors: { frequency: 0.1, amplitude: 1e-9, halfWidth: 0.1 } },
+      ],
+      background: { b0: 0, b1: 0 },
+      misfit: 1,
+    },
   });
 
-  it('saves the same interval twice as one row and keeps a person\'s flag', async () => {
+  it("saves the same interval twice as one row and keeps a person's flag", async () => {
     const { networkId, station, userId } = await makeWorld();
     const [a] = await intervals.saveIntervals([base(networkId, station.id, 0)]);
     expect(a.created).toBe(true);
@@ -143,11 +180,16 @@ describe('intervals', () => {
     expect(await intervals.listIntervals({ networkId })).toHaveLength(0); // flagged ones left out by default
   });
 
-  it('keeps a fit\'s band, averages, bin correlation and excluded ranges, and loads fits stored without them', async () => {
+  it("keeps a fit's band, averages, bin correlation and excluded ranges, and loads fits stored without them", async () => {
     const { networkId, station } = await makeWorld();
     const older = base(networkId, station.id, 40);
     const recorded = base(networkId, station.id, 50);
-    const settings = { band: { minHz: 3, maxHz: 36.3 }, averages: 112.7, binCorrelation: [4 / 9, 1 / 36], excluded: [{ minHz: 16.4, maxHz: 16.9 }] };
+    const settings = {
+      band: { minHz: 3, maxHz: 36.3 },
+      averages: 112.7,
+      binCorrelation: [4 / 9, 1 / 36],
+      excluded: [{ minHz: 16.4, maxHz: 16.9 }],
+    };
     await intervals.saveIntervals([older, { ...recorded, fit: { ...recorded.fit, ...settings } }]);
     const [a, b] = await intervals.listIntervals({ networkId });
     expect(a.fit).toEqual(older.fit); // no band, averages or correlation keys at all
@@ -181,8 +223,15 @@ describe('intervals', () => {
 describe('push token rate window', () => {
   it('counts requests within a window and starts again after it', async () => {
     const { networkId, station, userId } = await makeWorld();
-    const t = await tokens.createPushToken({ networkId, stationId: station.id, label: 'hut pc', secretHash: 'h'.repeat(64),
-      hint: 'cvs_abcd…', createdBy: userId, expiresAt: null });
+    const t = await tokens.createPushToken({
+      networkId,
+      stationId: station.id,
+      label: 'hut pc',
+      secretHash: 'h'.repeat(64),
+      hint: 'cvs_abcd…',
+      createdBy: userId,
+      expiresAt: null,
+    });
     expect((await tokens.countPushRequest(t.id, 60)).count).toBe(1);
     expect((await tokens.countPushRequest(t.id, 60)).count).toBe(2);
     const third = await tokens.countPushRequest(t.id, 60);
@@ -201,8 +250,15 @@ describe('uploads sent twice at the same moment', () => {
   it('keep one copy and report the other as a duplicate', async () => {
     const { networkId, station, userId } = await makeWorld();
     const sha = 'e'.repeat(64);
-    const send = () => uploads.storeUpload({ networkId, stationId: station.id, uploadedBy: userId, fileName: 'x.csv', format: 'series-csv' },
-      async (w) => { await w.append(Buffer.from('same')); await new Promise((r) => setTimeout(r, 200)); return { sha256: sha, sizeBytes: 4 }; });
+    const send = () =>
+      uploads.storeUpload(
+        { networkId, stationId: station.id, uploadedBy: userId, fileName: 'x.csv', format: 'series-csv' },
+        async (w) => {
+          await w.append(Buffer.from('same'));
+          await new Promise((r) => setTimeout(r, 200));
+          return { sha256: sha, sizeBytes: 4 };
+        },
+      );
     const [a, b] = await Promise.all([send(), send()]);
     expect([a.duplicate, b.duplicate].sort()).toEqual([false, true]);
     expect(a.upload.id).toBe(b.upload.id);

@@ -44,7 +44,10 @@ describe('invitations in the browser', () => {
     await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(networkName);
     await shot(page, 'network-overview');
 
-    await page.getByRole('navigation', { name: /sections/ }).getByRole('link', { name: 'Members' }).click();
+    await page
+      .getByRole('navigation', { name: /sections/ })
+      .getByRole('link', { name: 'Members' })
+      .click();
     await page.waitForURL('**/members');
     await page.getByLabel('E-mail address').fill(colleague.email);
     await page.getByLabel('Role', { exact: true }).selectOption('viewer');
@@ -73,7 +76,10 @@ describe('invitations in the browser', () => {
     }
     expect(found, 'invitation mail listed').toBe(true);
     await shot(page, 'admin-mailbox');
-    await page.getByRole('link', { name: new RegExp(networkName) }).first().click();
+    await page
+      .getByRole('link', { name: new RegExp(networkName) })
+      .first()
+      .click();
     const body = await page.getByTestId('mail-body').textContent();
     inviteLink = body?.match(/https?:\/\/\S+\/invitations\/\S+/)?.[0] ?? '';
     expect(inviteLink).toMatch(/\/invitations\//);

@@ -12,7 +12,7 @@ import { demoNetworkId } from '@/src/ops/seed/accounts';
 import { DEMO_MODE_RUN } from '@/src/ops/seed/runs';
 import { listRuns } from '@/db/repo/runs';
 
-describe('a mode-parameter run\'s page', () => {
+describe("a mode-parameter run's page", () => {
   const env = useBrowserApp();
 
   it('shows the mode fits with their residual table and every start at its own misfit', async () => {

@@ -44,7 +44,12 @@ describe('configure a model and a grid, run, and read the results', () => {
     await page.mouse.down();
     await page.mouse.move(box.x + box.width * 0.56, box.y + box.height * 0.5, { steps: 5 });
     await page.mouse.up();
-    await expect(page.getByText(/^\d+ cells?$/).first().textContent()).resolves.not.toBe('0 cells');
+    await expect(
+      page
+        .getByText(/^\d+ cells?$/)
+        .first()
+        .textContent(),
+    ).resolves.not.toBe('0 cells');
     await page.getByRole('button', { name: 'Save grid' }).click();
     await page.waitForURL(/\/grids\/[0-9a-f-]{36}$/, { timeout: 30_000 });
 
@@ -79,7 +84,13 @@ describe('configure a model and a grid, run, and read the results', () => {
       }
     }
     if (text !== 'Finished') {
-      throw new Error(`the run did not finish (${text || 'timed out'}): ${await page.getByRole('alert').first().textContent().catch(() => '')}\n${env.app.logs.slice(-40).join('\n')}`);
+      throw new Error(
+        `the run did not finish (${text || 'timed out'}): ${await page
+          .getByRole('alert')
+          .first()
+          .textContent()
+          .catch(() => '')}\n${env.app.logs.slice(-40).join('\n')}`,
+      );
     }
     await page.getByText('100 %').first().waitFor();
 
@@ -87,7 +98,10 @@ describe('configure a model and a grid, run, and read the results', () => {
     // Map, minima, fits, correlation matrix.
     await page.locator('svg title', { hasText: 'Source regions of the selected minimum' }).waitFor({ state: 'attached' });
     await page.getByRole('table', { name: /Distinct minima/ }).waitFor();
-    await page.getByText(/^Power at /).first().waitFor({ timeout: 60_000 });
+    await page
+      .getByText(/^Power at /)
+      .first()
+      .waitFor({ timeout: 60_000 });
     await page.getByText('Correlation matrix of the parameters').waitFor();
     await page.getByText('Research estimate, not a lightning warning').first().waitFor();
 
@@ -95,12 +109,18 @@ describe('configure a model and a grid, run, and read the results', () => {
     // Opened afresh, the page brings its first view drawn in the HTML (before any script runs); the
     // browser then redraws every figure live (its own width, hover texts), leaving none of the server's.
     const html = await (await page.request.get(page.url())).text();
-    for (const name of ['Correlation matrix of the parameters', 'Weighted residuals']) expect(html).toContain(`aria-label="${name}"`);
+    for (const name of ['Correlation matrix of the parameters', 'Weighted residuals'])
+      expect(html).toContain(`aria-label="${name}"`);
     expect(html).toMatch(/aria-label="Power at /);
     expect(html).toMatch(/aria-label="Where the \d+ starts ended"/);
     await page.reload();
-    await page.waitForFunction(() => document.querySelectorAll('[data-drawn="server"]').length === 0
-      && document.querySelectorAll('[data-drawn="client"]').length >= 4, undefined, { timeout: 60_000 });
+    await page.waitForFunction(
+      () =>
+        document.querySelectorAll('[data-drawn="server"]').length === 0 &&
+        document.querySelectorAll('[data-drawn="client"]').length >= 4,
+      undefined,
+      { timeout: 60_000 },
+    );
     expect(await page.locator('svg[aria-label^="Power at "] title').count()).toBeGreaterThan(0); // hover texts are back
 
     step('first view drawn by the server, then live');

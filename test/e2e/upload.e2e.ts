@@ -29,10 +29,17 @@ describe('upload a station file and see its modes', () => {
     const station = (await getStationByCode(networkId, 'BRQ'))!;
     expect(station, 'the stations seeder creates BRQ').toBeTruthy();
     const file = path.join(dir, 'brq-2026-03-15.csv');
-    writeFileSync(file, seriesCsv({
-      station: 'BRQ', fs: station.sampleRateHz, startUtc: '2026-03-15T06:00:00Z', seconds: 600, seed: Date.now() % 100000,
-      components: { Ez: { kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'mV/m' } },
-    }));
+    writeFileSync(
+      file,
+      seriesCsv({
+        station: 'BRQ',
+        fs: station.sampleRateHz,
+        startUtc: '2026-03-15T06:00:00Z',
+        seconds: 600,
+        seed: Date.now() % 100000,
+        components: { Ez: { kind: 'modes', modes: TEST_MODES, floor: 0.3, unit: 'mV/m' } },
+      }),
+    );
 
     const analyst = env.app.signIns.find((s) => s.role === 'analyst')!;
     const context = await env.browser.newContext();

@@ -19,7 +19,10 @@ describe('supervisor', () => {
   it('prefixes child output and stops children (and their own children) with SIGTERM', async () => {
     const lines: string[] = [];
     const unexpected: string[] = [];
-    const sup = new Supervisor((l) => lines.push(l), (n) => unexpected.push(n));
+    const sup = new Supervisor(
+      (l) => lines.push(l),
+      (n) => unexpected.push(n),
+    );
     // The child starts a grandchild in the same process group, then waits forever.
     const child = sup.start(
       spec(
@@ -31,7 +34,12 @@ describe('supervisor', () => {
       ),
     );
     while (!lines.some((l) => l.includes('grandchild'))) await new Promise((r) => setTimeout(r, 20));
-    const grandchild = Number(lines.find((l) => l.includes('grandchild'))!.split(' ').pop());
+    const grandchild = Number(
+      lines
+        .find((l) => l.includes('grandchild'))!
+        .split(' ')
+        .pop(),
+    );
     expect(lines[0]).toMatch(/^alpha\s*\| grandchild \d+$/);
     await sup.stopAll(5_000);
     expect(child.signalCode).toBe('SIGTERM');
@@ -43,7 +51,10 @@ describe('supervisor', () => {
 
   it('reports a child that exits on its own', async () => {
     const unexpected: Array<[string, number | null]> = [];
-    const sup = new Supervisor(() => {}, (n, c) => unexpected.push([n, c]));
+    const sup = new Supervisor(
+      () => {},
+      (n, c) => unexpected.push([n, c]),
+    );
     sup.start(spec('beta', 'process.exit(3)'));
     while (unexpected.length === 0) await new Promise((r) => setTimeout(r, 20));
     expect(unexpected).toEqual([['beta', 3]]);

@@ -25,12 +25,25 @@ export async function demoModeRun(name: string, from: string, to: string, starts
   const net = await accounts.demoNetworkId();
   const [demo] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN);
   const view = await getRunView(net, demo.id);
-  const config: RunConfig = { ...view.config, name, observables: { kind: 'modes', modes: 3 }, starts, data: { ...view.config.data, from, to } };
+  const config: RunConfig = {
+    ...view.config,
+    name,
+    observables: { kind: 'modes', modes: 3 },
+    starts,
+    data: { ...view.config.data, from, to },
+  };
   const { problems, preview } = await checkLaunch(net, config);
   expect(problems).toEqual([]);
   const run = await createRun({
-    networkId: net, name, config: config as never, modelId: view.model.id, gridId: view.grid.id,
-    engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: null,
+    networkId: net,
+    name,
+    config: config as never,
+    modelId: view.model.id,
+    gridId: view.grid.id,
+    engineVersion: 'test',
+    intervalStarts: preview!.intervalStarts,
+    startsPerInterval: config.starts,
+    createdBy: null,
   });
   return { run, config, preview: preview! };
 }

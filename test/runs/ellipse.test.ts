@@ -3,14 +3,22 @@ import { describe, expect, it } from 'vitest';
 import { covarianceEllipse } from '@/src/runs/ellipse';
 
 function mahalanobis2(dx: number, dy: number, sLon: number, sLat: number, rho: number): number {
-  const a = sLon * sLon, d = sLat * sLat, b = rho * sLat * sLon;
+  const a = sLon * sLon,
+    d = sLat * sLat,
+    b = rho * sLat * sLon;
   const det = a * d - b * b;
   return (d * dx * dx - 2 * b * dx * dy + a * dy * dy) / det;
 }
 
 describe('covarianceEllipse', () => {
   it('puts every vertex on the k-sigma contour, correlated or not', () => {
-    for (const [sLat, sLon, rho] of [[1, 2, 0], [2, 1, 0], [0.5, 1.5, 0.7], [1.2, 0.3, -0.9], [1, 1, 0.5]]) {
+    for (const [sLat, sLon, rho] of [
+      [1, 2, 0],
+      [2, 1, 0],
+      [0.5, 1.5, 0.7],
+      [1.2, 0.3, -0.9],
+      [1, 1, 0.5],
+    ]) {
       for (const k of [1, 2]) {
         for (const [x, y] of covarianceEllipse({ lat: 10, lon: 20 }, sLat, sLon, rho, k, 24)) {
           expect(mahalanobis2(x - 20, y - 10, sLon, sLat, rho)).toBeCloseTo(k * k, 9);

@@ -8,7 +8,16 @@
  */
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { claimRun, createRun, getRunById, listRunIntervals, reportProgress, requestCancel, requeueRun, saveRunIntervals } from '@/db/repo/runs';
+import {
+  claimRun,
+  createRun,
+  getRunById,
+  listRunIntervals,
+  reportProgress,
+  requestCancel,
+  requeueRun,
+  saveRunIntervals,
+} from '@/db/repo/runs';
 import { checkLaunch } from '@/src/runs/launch';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
@@ -26,8 +35,15 @@ async function newRun(w: Awaited<ReturnType<typeof makeRunWorld>>) {
   const { problems, preview } = await checkLaunch(w.networkId, w.config);
   expect(problems).toEqual([]);
   return createRun({
-    networkId: w.networkId, name: w.config.name, config: w.config as never, modelId: w.model.id, gridId: w.grid.id,
-    engineVersion: engineVersion(), intervalStarts: preview!.intervalStarts, startsPerInterval: w.config.starts, createdBy: w.userId,
+    networkId: w.networkId,
+    name: w.config.name,
+    config: w.config as never,
+    modelId: w.model.id,
+    gridId: w.grid.id,
+    engineVersion: engineVersion(),
+    intervalStarts: preview!.intervalStarts,
+    startsPerInterval: w.config.starts,
+    createdBy: w.userId,
   });
 }
 
@@ -69,7 +85,14 @@ describe('run driver', () => {
 
     // Misfit surface around the minimum: the minimum is the lowest point of the grid
     // (chi2 >= 0 with equality only at the exact model).
-    const surfaceId = await requestSurfaceRow(run.id, { interval: t, minimum: 0, x: 'East basin.lat', y: 'East basin.lon', points: 7, mode: 'fixed' });
+    const surfaceId = await requestSurfaceRow(run.id, {
+      interval: t,
+      minimum: 0,
+      x: 'East basin.lat',
+      y: 'East basin.lon',
+      points: 7,
+      mode: 'fixed',
+    });
     expect(await computeSurface(surfaceId)).toBe('ready');
     const surf = (await getSurfaceById(surfaceId))!.result as { misfit: number[][]; centre: { misfit: number } };
     const all = surf.misfit.flat();
@@ -80,10 +103,15 @@ describe('run driver', () => {
   it('resumes after a crash with every interval stored exactly once', async () => {
     const w = await makeRunWorld(5);
     const run = await newRun(w);
-    await expect(executeRun(run.id, {
-      solve: engineSolver, workerId: 'crashing',
-      afterInterval: (i) => { if (i === 1) throw new SimulatedCrash('worker killed after two intervals'); },
-    })).rejects.toBeInstanceOf(SimulatedCrash);
+    await expect(
+      executeRun(run.id, {
+        solve: engineSolver,
+        workerId: 'crashing',
+        afterInterval: (i) => {
+          if (i === 1) throw new SimulatedCrash('worker killed after two intervals');
+        },
+      }),
+    ).rejects.toBeInstanceOf(SimulatedCrash);
     const mid = await getRunById(run.id);
     expect(mid!.state).toBe('running');
     expect(await listRunIntervals(run.id)).toHaveLength(2);
@@ -91,9 +119,16 @@ describe('run driver', () => {
     expect(await executeRun(run.id, { solve: engineSolver, workerId: 'early', leaseSeconds: 3600 })).toBe('not-runnable');
     // After the lease ran out (leaseSeconds 0), the retried job resumes.
     const solved: string[] = [];
-    expect(await executeRun(run.id, {
-      solve: (ctx, c, h) => { solved.push(c.startsAt); return engineSolver(ctx, c, h); }, workerId: 'restarted', leaseSeconds: 0,
-    })).toBe('finished');
+    expect(
+      await executeRun(run.id, {
+        solve: (ctx, c, h) => {
+          solved.push(c.startsAt);
+          return engineSolver(ctx, c, h);
+        },
+        workerId: 'restarted',
+        leaseSeconds: 0,
+      }),
+    ).toBe('finished');
     expect(solved).toEqual(run.intervalStarts.slice(2));
     const rows = await listRunIntervals(run.id);
     expect(rows.map((r) => r.startsAt.toISOString())).toEqual(run.intervalStarts.map((t) => new Date(t).toISOString()));
@@ -106,10 +141,15 @@ describe('run driver', () => {
   it('stops on cancel, keeps finished intervals, and a re-run completes the rest', async () => {
     const w = await makeRunWorld(4);
     const run = await newRun(w);
-    expect(await executeRun(run.id, {
-      solve: engineSolver, workerId: 'w1',
-      afterInterval: async (i) => { if (i === 0) await requestCancel(w.networkId, run.id); },
-    })).toBe('cancelled');
+    expect(
+      await executeRun(run.id, {
+        solve: engineSolver,
+        workerId: 'w1',
+        afterInterval: async (i) => {
+          if (i === 0) await requestCancel(w.networkId, run.id);
+        },
+      }),
+    ).toBe('cancelled');
     expect((await getRunById(run.id))!.state).toBe('cancelled');
     // The driver hears of the request with its next write (its result write of the interval in
     // hand, or the progress timer within a longer solve): the interval in hand is finished and
@@ -133,9 +173,16 @@ describe('run driver', () => {
     const w = await makeRunWorld(3);
     const run = await newRun(w);
     let stopping = false;
-    expect(await executeRun(run.id, {
-      solve: (ctx, c, h) => { stopping = true; return engineSolver(ctx, c, h); }, workerId: 'leaving', yieldNow: () => stopping,
-    })).toBe('yielded');
+    expect(
+      await executeRun(run.id, {
+        solve: (ctx, c, h) => {
+          stopping = true;
+          return engineSolver(ctx, c, h);
+        },
+        workerId: 'leaving',
+        yieldNow: () => stopping,
+      }),
+    ).toBe('yielded');
     expect((await getRunById(run.id))!.state).toBe('queued');
     expect(await listRunIntervals(run.id)).toHaveLength(1);
     expect(await executeRun(run.id, { solve: engineSolver, workerId: 'next' })).toBe('finished');
@@ -158,10 +205,13 @@ describe('run driver', () => {
     const w = await makeRunWorld(3);
     const run = await newRun(w);
     let calls = 0;
-    expect(await executeRun(run.id, {
-      workerId: 'w1',
-      solve: (ctx, c, h) => (++calls === 2 ? Promise.reject(new Error('kernel table could not be built')) : engineSolver(ctx, c, h)),
-    })).toBe('failed');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'w1',
+        solve: (ctx, c, h) =>
+          ++calls === 2 ? Promise.reject(new Error('kernel table could not be built')) : engineSolver(ctx, c, h),
+      }),
+    ).toBe('failed');
     const r = await getRunById(run.id);
     expect(r!.state).toBe('failed');
     expect(r!.error).toMatch(/kernel table could not be built/);
@@ -173,38 +223,51 @@ describe('run driver', () => {
     const run = await newRun(w);
     const { loadIntervalObservations } = await import('@/src/runs/observations');
     const solved: string[] = [];
-    expect(await executeRun(run.id, {
-      workerId: 'w1',
-      observe: (ctx, t) => (t.toISOString() === new Date(run.intervalStarts[2]).toISOString()
-        ? Promise.reject(new Error('spectra table unreadable'))
-        : loadIntervalObservations(ctx.networkId, ctx.config, t)),
-      solve: (ctx, c, h) => { solved.push(c.startsAt); return engineSolver(ctx, c, h); },
-    })).toBe('failed');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'w1',
+        observe: (ctx, t) =>
+          t.toISOString() === new Date(run.intervalStarts[2]).toISOString()
+            ? Promise.reject(new Error('spectra table unreadable'))
+            : loadIntervalObservations(ctx.networkId, ctx.config, t),
+        solve: (ctx, c, h) => {
+          solved.push(c.startsAt);
+          return engineSolver(ctx, c, h);
+        },
+      }),
+    ).toBe('failed');
     const r = await getRunById(run.id);
     expect(r!.error).toMatch(/^Interval .* UT failed: spectra table unreadable/);
     expect(solved).toEqual(run.intervalStarts.slice(0, 2));
-    expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(run.intervalStarts.slice(0, 2).map((t) => new Date(t).toISOString()));
+    expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(
+      run.intervalStarts.slice(0, 2).map((t) => new Date(t).toISOString()),
+    );
   });
 
   it('hears a cancel request made by someone else through its own writes and keeps what it finished', async () => {
     const w = await makeRunWorld(5);
     const run = await newRun(w);
     const solved: string[] = [];
-    expect(await executeRun(run.id, {
-      workerId: 'w1', writeEveryMs: 0, // each interval written at once, so each write can bring the request back
-      solve: async (ctx, c, h) => {
-        solved.push(c.startsAt);
-        if (solved.length === 2) await requestCancel(w.networkId, run.id); // from "another process", mid-solve
-        return engineSolver(ctx, c, h);
-      },
-    })).toBe('cancelled');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'w1',
+        writeEveryMs: 0, // each interval written at once, so each write can bring the request back
+        solve: async (ctx, c, h) => {
+          solved.push(c.startsAt);
+          if (solved.length === 2) await requestCancel(w.networkId, run.id); // from "another process", mid-solve
+          return engineSolver(ctx, c, h);
+        },
+      }),
+    ).toBe('cancelled');
     // Interval 2 finished after the request was made and is kept; its result write brings the
     // request back while interval 3 may already be in hand: interval 3 is kept if its solve
     // completed, dropped if the stop cut it short; nothing after it begins.
     expect(solved.length).toBeLessThanOrEqual(3);
     const rows = await listRunIntervals(run.id);
     expect(rows.length).toBeGreaterThanOrEqual(2);
-    expect(rows.map((r) => r.startsAt.toISOString())).toEqual(run.intervalStarts.slice(0, rows.length).map((t) => new Date(t).toISOString()));
+    expect(rows.map((r) => r.startsAt.toISOString())).toEqual(
+      run.intervalStarts.slice(0, rows.length).map((t) => new Date(t).toISOString()),
+    );
     const r = await getRunById(run.id);
     expect(r!.state).toBe('cancelled');
     expect(r!.progress.intervalsDone).toBe(rows.length);
@@ -218,19 +281,23 @@ describe('run driver', () => {
     const w = await makeRunWorld(6);
     const run = await newRun(w);
     const solved: string[] = [];
-    expect(await executeRun(run.id, {
-      workerId: 'w1', writeEveryMs: 60_000, progressEveryMs: 5,
-      solve: async (ctx, c, h) => {
-        solved.push(c.startsAt);
-        const out = await engineSolver(ctx, c, h);
-        if (solved.length === 3) {
-          // The third solve has completed; the request comes in and is heard before it returns.
-          await requestCancel(w.networkId, run.id);
-          while (!h.shouldStop()) await new Promise((r) => setTimeout(r, 5));
-        }
-        return out;
-      },
-    })).toBe('cancelled');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'w1',
+        writeEveryMs: 60_000,
+        progressEveryMs: 5,
+        solve: async (ctx, c, h) => {
+          solved.push(c.startsAt);
+          const out = await engineSolver(ctx, c, h);
+          if (solved.length === 3) {
+            // The third solve has completed; the request comes in and is heard before it returns.
+            await requestCancel(w.networkId, run.id);
+            while (!h.shouldStop()) await new Promise((r) => setTimeout(r, 5));
+          }
+          return out;
+        },
+      }),
+    ).toBe('cancelled');
     expect(solved).toEqual(run.intervalStarts.slice(0, 3)); // nothing begins after the cancel is heard
     const rows = await listRunIntervals(run.id);
     expect(rows.map((r) => r.startsAt.toISOString())).toEqual(iso(run.intervalStarts.slice(0, 3)));
@@ -241,9 +308,15 @@ describe('run driver', () => {
     // "Run the rest again": the re-run solves only the three left, and every interval is stored once.
     expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
     const again: string[] = [];
-    expect(await executeRun(run.id, {
-      workerId: 'w2', solve: (ctx, c, h) => { again.push(c.startsAt); return engineSolver(ctx, c, h); },
-    })).toBe('finished');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'w2',
+        solve: (ctx, c, h) => {
+          again.push(c.startsAt);
+          return engineSolver(ctx, c, h);
+        },
+      }),
+    ).toBe('finished');
     expect(again).toEqual(run.intervalStarts.slice(3));
     const all = await listRunIntervals(run.id);
     expect(all.map((x) => x.startsAt.toISOString())).toEqual(iso(run.intervalStarts));
@@ -257,22 +330,26 @@ describe('run driver', () => {
     const run = await newRun(w);
     const solved: string[] = [];
     let third: string | undefined;
-    expect(await executeRun(run.id, {
-      workerId: 'w1', writeEveryMs: 60_000, progressEveryMs: 5,
-      solve: async (ctx, c, h) => {
-        solved.push(c.startsAt);
-        if (solved.length === 3) {
-          // The request is heard before the third solve begins its starts: the engine stops each
-          // start at once (stop reason 'cancelled'), so the solve is cut short.
-          await requestCancel(w.networkId, run.id);
-          while (!h.shouldStop()) await new Promise((r) => setTimeout(r, 5));
-          const out = await engineSolver(ctx, c, h);
-          third = out === 'cancelled' ? out : 'complete';
-          return out;
-        }
-        return engineSolver(ctx, c, h);
-      },
-    })).toBe('cancelled');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'w1',
+        writeEveryMs: 60_000,
+        progressEveryMs: 5,
+        solve: async (ctx, c, h) => {
+          solved.push(c.startsAt);
+          if (solved.length === 3) {
+            // The request is heard before the third solve begins its starts: the engine stops each
+            // start at once (stop reason 'cancelled'), so the solve is cut short.
+            await requestCancel(w.networkId, run.id);
+            while (!h.shouldStop()) await new Promise((r) => setTimeout(r, 5));
+            const out = await engineSolver(ctx, c, h);
+            third = out === 'cancelled' ? out : 'complete';
+            return out;
+          }
+          return engineSolver(ctx, c, h);
+        },
+      }),
+    ).toBe('cancelled');
     expect(third).toBe('cancelled');
     expect(solved).toHaveLength(3);
     const rows = await listRunIntervals(run.id);
@@ -284,9 +361,15 @@ describe('run driver', () => {
 
     expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
     const again: string[] = [];
-    expect(await executeRun(run.id, {
-      workerId: 'w2', solve: (ctx, c, h) => { again.push(c.startsAt); return engineSolver(ctx, c, h); },
-    })).toBe('finished');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'w2',
+        solve: (ctx, c, h) => {
+          again.push(c.startsAt);
+          return engineSolver(ctx, c, h);
+        },
+      }),
+    ).toBe('finished');
     expect(again).toEqual(run.intervalStarts.slice(2));
     expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(iso(run.intervalStarts));
   });
@@ -294,16 +377,29 @@ describe('run driver', () => {
   it('writes nothing to a run once it has ended, nor for a worker that no longer holds it', async () => {
     const w = await makeRunWorld(3);
     const run = await newRun(w);
-    expect(await executeRun(run.id, {
-      solve: engineSolver, workerId: 'w1', afterInterval: async (i) => { if (i === 0) await requestCancel(w.networkId, run.id); },
-    })).toBe('cancelled');
+    expect(
+      await executeRun(run.id, {
+        solve: engineSolver,
+        workerId: 'w1',
+        afterInterval: async (i) => {
+          if (i === 0) await requestCancel(w.networkId, run.id);
+        },
+      }),
+    ).toBe('cancelled');
     const rows = await listRunIntervals(run.id);
     const ended = await getRunById(run.id);
     const late = { startsAt: new Date(run.intervalStarts[2]), nData: 1, result: { minima: [] }, seconds: 1 };
     // The ended run takes no interval and no progress, with or without a worker id.
     for (const worker of ['w1', undefined]) {
-      expect(await saveRunIntervals(run.id, [late], { ...ended!.progress, phase: 'late' }, worker)).toEqual({ inserted: 0, cancelRequested: true, held: false });
-      expect(await reportProgress(run.id, { ...ended!.progress, phase: 'late' }, worker)).toEqual({ cancelRequested: true, held: false });
+      expect(await saveRunIntervals(run.id, [late], { ...ended!.progress, phase: 'late' }, worker)).toEqual({
+        inserted: 0,
+        cancelRequested: true,
+        held: false,
+      });
+      expect(await reportProgress(run.id, { ...ended!.progress, phase: 'late' }, worker)).toEqual({
+        cancelRequested: true,
+        held: false,
+      });
     }
     expect(await listRunIntervals(run.id)).toHaveLength(rows.length);
     expect((await getRunById(run.id))!.progress).toEqual(ended!.progress);
@@ -312,7 +408,15 @@ describe('run driver', () => {
     expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
     expect(await saveRunIntervals(run.id, [late], ended!.progress, 'w1')).toMatchObject({ inserted: 0, held: false });
     const solvedBy: string[] = [];
-    expect(await executeRun(run.id, { workerId: 'w2', solve: (ctx, c, h) => { solvedBy.push(c.startsAt); return engineSolver(ctx, c, h); } })).toBe('finished');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'w2',
+        solve: (ctx, c, h) => {
+          solvedBy.push(c.startsAt);
+          return engineSolver(ctx, c, h);
+        },
+      }),
+    ).toBe('finished');
     expect(solvedBy).toEqual(run.intervalStarts.slice(rows.length));
     expect(await saveRunIntervals(run.id, [late], ended!.progress, 'w2')).toMatchObject({ inserted: 0, held: false });
     expect((await listRunIntervals(run.id)).map((x) => x.startsAt.toISOString())).toEqual(iso(run.intervalStarts));
@@ -322,18 +426,21 @@ describe('run driver', () => {
     const w = await makeRunWorld(4);
     const run = await newRun(w);
     const solved: string[] = [];
-    expect(await executeRun(run.id, {
-      workerId: 'slow', writeEveryMs: 0,
-      solve: async (ctx, c, h) => {
-        solved.push(c.startsAt);
-        // Meanwhile the lease lapsed and another worker claimed the run (as after a stall).
-        if (solved.length === 2) {
-          while ((await listRunIntervals(run.id)).length < 1) await new Promise((r) => setTimeout(r, 5)); // interval 1's write landed
-          expect(await claimRun(run.id, 'taker', 0)).not.toBeNull();
-        }
-        return engineSolver(ctx, c, h);
-      },
-    })).toBe('lost');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'slow',
+        writeEveryMs: 0,
+        solve: async (ctx, c, h) => {
+          solved.push(c.startsAt);
+          // Meanwhile the lease lapsed and another worker claimed the run (as after a stall).
+          if (solved.length === 2) {
+            while ((await listRunIntervals(run.id)).length < 1) await new Promise((r) => setTimeout(r, 5)); // interval 1's write landed
+            expect(await claimRun(run.id, 'taker', 0)).not.toBeNull();
+          }
+          return engineSolver(ctx, c, h);
+        },
+      }),
+    ).toBe('lost');
     const r = await getRunById(run.id);
     expect(r!.state).toBe('running');
     expect(r!.workerId).toBe('taker');
@@ -344,18 +451,32 @@ describe('run driver', () => {
   it('does not end a run another worker took after its last write: the holder ends it', async () => {
     const w = await makeRunWorld(2);
     const run = await newRun(w);
-    expect(await executeRun(run.id, {
-      workerId: 'slow', solve: engineSolver,
-      // After the last interval's write, before the end: the lease lapsed and another worker claimed the run.
-      afterInterval: async (i) => { if (i === run.intervalStarts.length - 1) expect(await claimRun(run.id, 'taker', 0)).not.toBeNull(); },
-    })).toBe('lost');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'slow',
+        solve: engineSolver,
+        // After the last interval's write, before the end: the lease lapsed and another worker claimed the run.
+        afterInterval: async (i) => {
+          if (i === run.intervalStarts.length - 1) expect(await claimRun(run.id, 'taker', 0)).not.toBeNull();
+        },
+      }),
+    ).toBe('lost');
     const r = await getRunById(run.id);
     expect(r!.state).toBe('running');
     expect(r!.workerId).toBe('taker');
     expect(r!.finishedAt).toBeNull();
     // The holder (here claiming it again, its own lease lapsed too) finds every interval stored and ends the run itself.
     const solvedByTaker: string[] = [];
-    expect(await executeRun(run.id, { workerId: 'taker', leaseSeconds: 0, solve: (ctx, c, h) => { solvedByTaker.push(c.startsAt); return engineSolver(ctx, c, h); } })).toBe('finished');
+    expect(
+      await executeRun(run.id, {
+        workerId: 'taker',
+        leaseSeconds: 0,
+        solve: (ctx, c, h) => {
+          solvedByTaker.push(c.startsAt);
+          return engineSolver(ctx, c, h);
+        },
+      }),
+    ).toBe('finished');
     expect(solvedByTaker).toEqual([]);
     expect((await getRunById(run.id))!.state).toBe('finished');
   });

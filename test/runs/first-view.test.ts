@@ -5,18 +5,47 @@ import type { InversionResult } from '@/src/engine/inverse/types';
 // A run view built by hand: three intervals with one or two minima each, the last one unsolved.
 function minimum(seed: number) {
   return {
-    misfit: 10 + seed, reducedChi2: 1.1, count: 3, startIndexes: [0, 1, 2], internal: [Math.log(2e4 + seed)], params: {},
+    misfit: 10 + seed,
+    reducedChi2: 1.1,
+    count: 3,
+    startIndexes: [0, 1, 2],
+    internal: [Math.log(2e4 + seed)],
+    params: {},
     sources: [
-      { name: 'North belt', lat: -1.98917276305476 + seed, lon: 23.97088716107521, intensity: 29770.942455289398 * (1 + seed / 7) },
-      { name: 'South belt', lat: -5.019001817489643, lon: -50, spread: 7.9650086686350585, intensity: 0.000123456789 * (1 + seed) },
+      {
+        name: 'North belt',
+        lat: -1.98917276305476 + seed,
+        lon: 23.97088716107521,
+        intensity: 29770.942455289398 * (1 + seed / 7),
+      },
+      {
+        name: 'South belt',
+        lat: -5.019001817489643,
+        lon: -50,
+        spread: 7.9650086686350585,
+        intensity: 0.000123456789 * (1 + seed),
+      },
     ],
     stdErrors: { 'North belt': { intensity: 379.1669798496104, lat: 0.3, lon: 0.4 }, 'South belt': { intensity: 3.3e-6 } },
-    correlation: { names: ['a'], matrix: [[1]] }, resolution: { names: ['a'], matrix: [[1]] }, singular: false, rank: 1, stopReasons: {},
+    correlation: { names: ['a'], matrix: [[1]] },
+    resolution: { names: ['a'], matrix: [[1]] },
+    singular: false,
+    rank: 1,
+    stopReasons: {},
   };
 }
-const result = (k: number) => ({ minima: [minimum(k), minimum(k + 0.5)], starts: 4, unconverged: 0, paramNames: ['North belt.intensity'] }) as unknown as InversionResult;
+const result = (k: number) =>
+  ({
+    minima: [minimum(k), minimum(k + 0.5)],
+    starts: 4,
+    unconverged: 0,
+    paramNames: ['North belt.intensity'],
+  }) as unknown as InversionResult;
 const view = {
-  run: { id: 'r', intervalStarts: [] }, config: {}, model: {}, grid: {},
+  run: { id: 'r', intervalStarts: [] },
+  config: {},
+  model: {},
+  grid: {},
   intervals: [
     { startsAt: '2031-07-02T00:00:00.000Z', nData: 40, seconds: 1, result: result(1) },
     { startsAt: '2031-07-02T00:10:00.000Z', nData: 40, seconds: 1, result: result(2) },
@@ -39,7 +68,10 @@ describe('firstView', () => {
       expect(iv.brief).toBe(true);
       expect(iv.result!.minima).toHaveLength(1);
       const m = iv.result!.minima[0];
-      expect(m.sources.map((s) => Object.keys(s).sort())).toEqual([['intensity', 'name'], ['intensity', 'name']]);
+      expect(m.sources.map((s) => Object.keys(s).sort())).toEqual([
+        ['intensity', 'name'],
+        ['intensity', 'name'],
+      ]);
       expect(Object.keys(m.stdErrors['North belt'])).toEqual(['intensity']);
       // Rounding to n significant digits moves a value by at most half a unit in its last kept
       // digit: |x - round(x)| <= 0.5 * 10^(1 - n) * |x| (relative), here n = BRIEF_DIGITS.

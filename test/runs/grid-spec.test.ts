@@ -19,7 +19,12 @@ describe('global grid cells', () => {
   });
 
   it('find the cell holding a point, consistent with its box', () => {
-    for (const [lat, lon] of [[0.1, 0.1], [-89.9, -179.9], [89.9, 179.9], [12.3, -45.6]]) {
+    for (const [lat, lon] of [
+      [0.1, 0.1],
+      [-89.9, -179.9],
+      [89.9, 179.9],
+      [12.3, -45.6],
+    ]) {
       const b = cellBox(5, cellAt(5, lat, lon));
       expect(lat).toBeGreaterThanOrEqual(b.south);
       expect(lat).toBeLessThanOrEqual(b.north);
@@ -33,7 +38,7 @@ describe('global grid cells', () => {
     expect(cells.map((c) => cellBox(10, c).lon).sort((a, b) => a - b)).toEqual([-175, -175, 175, 175]);
   });
 
-  it('numbers cells as the engine does, so a region\'s footprint is the cells the editor shows', () => {
+  it("numbers cells as the engine does, so a region's footprint is the cells the editor shows", () => {
     const cells = [cellAt(10, 5, 15), cellAt(10, -5, 15), cellAt(10, 5, 25), cellAt(10, -5, 25)];
     const c = cellRegion(10, cells);
     expect(c.lat).toBeCloseTo(0, 12);
@@ -43,9 +48,20 @@ describe('global grid cells', () => {
 
   it('report duplicate names and a centre outside its bounds', () => {
     const p = gridProblems({
-      name: 'g', notes: '', cellSizeDeg: 10, regions: [
+      name: 'g',
+      notes: '',
+      cellSizeDeg: 10,
+      regions: [
         { key: 'a', name: 'Same', colour: '#E69F00', kind: 'cells', cells: [1] },
-        { key: 'b', name: 'same', colour: '#56B4E9', kind: 'moving', centre: { lat: 50, lon: 0 }, bounds: { lat: { min: -10, max: 10 }, lon: { min: -10, max: 10 } }, spreadDeg: 0 },
+        {
+          key: 'b',
+          name: 'same',
+          colour: '#56B4E9',
+          kind: 'moving',
+          centre: { lat: 50, lon: 0 },
+          bounds: { lat: { min: -10, max: 10 }, lon: { min: -10, max: 10 } },
+          spreadDeg: 0,
+        },
       ],
     });
     expect(p.map((x) => x.field)).toEqual(['regions.1.name', 'regions.1.centre']);

@@ -13,11 +13,19 @@ async function queuedRun() {
   const w = await makeRunWorld(2);
   const { preview } = await checkLaunch(w.networkId, w.config);
   return createRun({
-    networkId: w.networkId, name: 'job', config: w.config as never, modelId: w.model.id, gridId: w.grid.id,
-    engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: w.config.starts, createdBy: null,
+    networkId: w.networkId,
+    name: 'job',
+    config: w.config as never,
+    modelId: w.model.id,
+    gridId: w.grid.id,
+    engineVersion: 'test',
+    intervalStarts: preview!.intervalStarts,
+    startsPerInterval: w.config.starts,
+    createdBy: null,
   });
 }
-const jobFor = (runId: string) => [{ id: `job-${runId.slice(0, 8)}`, name: 'run-inversion', data: { runId } }] as unknown as Job<{ runId: string }>[];
+const jobFor = (runId: string) =>
+  [{ id: `job-${runId.slice(0, 8)}`, name: 'run-inversion', data: { runId } }] as unknown as Job<{ runId: string }>[];
 
 describe('run-inversion job', () => {
   beforeEach(resetDatabase);

@@ -21,7 +21,10 @@ async function problemsOf(w: Awaited<ReturnType<typeof makeRunWorld>>, patch: (c
 
 describe('launch checks', () => {
   beforeEach(resetDatabase);
-  afterAll(async () => { await stopBoss(); await closeDatabase(); });
+  afterAll(async () => {
+    await stopBoss();
+    await closeDatabase();
+  });
 
   it('previews data, parameters, starts and intervals of a good configuration', async () => {
     const w = await makeRunWorld(3);
@@ -34,15 +37,26 @@ describe('launch checks', () => {
     expect(preview!.estimateSeconds).toBeGreaterThan(0);
   });
 
-  it('bases the time estimate on the network\'s own finished intervals once there are some', async () => {
+  it("bases the time estimate on the network's own finished intervals once there are some", async () => {
     const w = await makeRunWorld(1);
     const { preview } = await checkLaunch(w.networkId, w.config);
     const run = await createRun({
-      networkId: w.networkId, name: 'measured', config: w.config as never, modelId: w.model.id, gridId: w.grid.id,
-      engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: 4, createdBy: null,
+      networkId: w.networkId,
+      name: 'measured',
+      config: w.config as never,
+      modelId: w.model.id,
+      gridId: w.grid.id,
+      engineVersion: 'test',
+      intervalStarts: preview!.intervalStarts,
+      startsPerInterval: 4,
+      createdBy: null,
     });
     // One stored interval that took 10 s for 100 data x 2 parameters x 5 starts: 0.01 s per unit.
-    await saveRunInterval(run.id, { startsAt: new Date(preview!.intervalStarts[0]), nData: 100, seconds: 10, result: { nParams: 2, starts: 5, minima: [] } }, run.progress);
+    await saveRunInterval(
+      run.id,
+      { startsAt: new Date(preview!.intervalStarts[0]), nData: 100, seconds: 10, result: { nParams: 2, starts: 5, minima: [] } },
+      run.progress,
+    );
     const again = await checkLaunch(w.networkId, w.config);
     expect(again.preview!.estimateSeconds).toBeCloseTo(1 * 4 * (3 * 3 * 49) * 3 * 0.01, 6);
     // A spectrum run's cost says nothing about a mode run's (each predicted spectrum is fitted).
@@ -52,14 +66,19 @@ describe('launch checks', () => {
 
   it('refuses a centre range outside the region bounds of the grid', async () => {
     const w = await makeRunWorld(1);
-    const p = await problemsOf(w, (c) => { c.regions[0].lon = { min: -10, max: 35 }; });
+    const p = await problemsOf(w, (c) => {
+      c.regions[0].lon = { min: -10, max: 35 };
+    });
     expect(p[0].field).toBe('regions.0.lon');
     expect(p[0].message).toMatch(/leaves the region's bounds/);
   });
 
   it('refuses a range without data, and flagged-only data unless asked', async () => {
     const w = await makeRunWorld(1);
-    const p = await problemsOf(w, (c) => { c.data.from = '2031-06-01T00:00:00.000Z'; c.data.to = '2031-06-02T00:00:00.000Z'; });
+    const p = await problemsOf(w, (c) => {
+      c.data.from = '2031-06-01T00:00:00.000Z';
+      c.data.to = '2031-06-02T00:00:00.000Z';
+    });
     expect(p[0]).toEqual({ field: 'data.from', message: expect.stringMatching(/no unflagged data/) });
   });
 
@@ -76,9 +95,13 @@ describe('launch checks', () => {
 
   it('refuses a region that is not in the grid and a fixed-cell region with a free centre', async () => {
     const w = await makeRunWorld(1);
-    const p1 = await problemsOf(w, (c) => { c.regions[0].region = 'nowhere'; });
+    const p1 = await problemsOf(w, (c) => {
+      c.regions[0].region = 'nowhere';
+    });
     expect(p1[0].field).toBe('regions.0.region');
-    const p2 = await problemsOf(w, (c) => { c.regions = [{ region: 'west-shelf', intensity: { min: 1, max: 1e6 }, lat: { min: 0, max: 1 } }]; });
+    const p2 = await problemsOf(w, (c) => {
+      c.regions = [{ region: 'west-shelf', intensity: { min: 1, max: 1e6 }, lat: { min: 0, max: 1 } }];
+    });
     expect(p2[0].field).toBe('regions.0.lat');
   });
 
@@ -100,7 +123,12 @@ describe('launch checks', () => {
 
   it('editing a model or grid adds a version and leaves the pinned one unchanged', async () => {
     const w = await makeRunWorld(1);
-    const v2 = await saveModel(w.networkId, w.userId, { name: 'Linear test', notes: 'taller', config: { model: 'linear', earthRadiusKm: 6371, heightKm: 70 } }, w.model.id);
+    const v2 = await saveModel(
+      w.networkId,
+      w.userId,
+      { name: 'Linear test', notes: 'taller', config: { model: 'linear', earthRadiusKm: 6371, heightKm: 70 } },
+      w.model.id,
+    );
     expect(v2.version).toBe(2);
     expect(v2.lineageId).toBe(w.model.lineageId);
     const versions = await listModelVersions(w.networkId, w.model.id);
@@ -113,7 +141,19 @@ describe('launch checks', () => {
   it('refuses a table model whose frequencies do not increase, naming the row', async () => {
     const { modelInputSchema } = await import('@/src/runs/model-spec');
     const parsed = modelInputSchema.safeParse({
-      name: 'Bad table', config: { model: 'table', earthRadiusKm: 6371, heightKm: 60, table: { columns: 'nu', rows: [[5, 0.5, -0.1], [4, 1, -0.2]] } },
+      name: 'Bad table',
+      config: {
+        model: 'table',
+        earthRadiusKm: 6371,
+        heightKm: 60,
+        table: {
+          columns: 'nu',
+          rows: [
+            [5, 0.5, -0.1],
+            [4, 1, -0.2],
+          ],
+        },
+      },
     });
     expect(parsed.success).toBe(false);
     expect(parsed.error!.issues[0].message).toMatch(/row 1: frequencies must be strictly increasing/);
@@ -121,7 +161,10 @@ describe('launch checks', () => {
 
   it('refuses overlapping and empty cell regions', async () => {
     const w = await makeRunWorld(1);
-    const overlap = { ...GRID, regions: [GRID.regions[1], { ...GRID.regions[1], key: 'other', name: 'Other', cells: [301, 302] }] };
+    const overlap = {
+      ...GRID,
+      regions: [GRID.regions[1], { ...GRID.regions[1], key: 'other', name: 'Other', cells: [301, 302] }],
+    };
     await expect(saveGrid(w.networkId, w.userId, overlap)).rejects.toThrow(/overlap \(cell 301\)/);
     const empty = { ...GRID, regions: [{ ...GRID.regions[1], cells: [] }] };
     await expect(saveGrid(w.networkId, w.userId, empty)).rejects.toThrow(/has no cells/);

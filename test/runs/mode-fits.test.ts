@@ -33,25 +33,47 @@ describe('fits of a mode-parameter run', () => {
     const w = await makeRunWorld(1);
     const t = w.starts[0];
     const spectra = predictSpectra({
-      cavity: CAVITY, band: GRID_BAND,
-      stations: w.stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez', 'Bns', 'Bew'] as const })),
+      cavity: CAVITY,
+      band: GRID_BAND,
+      stations: w.stations.map((s) => ({
+        code: s.code,
+        lat: s.latitude,
+        lon: s.longitude,
+        components: ['Ez', 'Bns', 'Bew'] as const,
+      })),
       sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
     });
-    await saveIntervals(spectra.map((sp) => {
-      const fit = fitModes(sp.frequencies, sp.power, { modes: 5, averages: SEGMENTS });
-      return {
-        networkId: w.networkId, stationId: w.stations.find((s) => s.code === sp.station)!.id, component: sp.component,
-        startsAt: t, durationS: 600, origin: 'synthetic' as const, uploadId: null, rejectedShare: 0, qualityFlags: [],
-        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS },
-        fit: { modes: fit.modes, background: fit.background, misfit: fit.misfit },
-      };
-    }));
+    await saveIntervals(
+      spectra.map((sp) => {
+        const fit = fitModes(sp.frequencies, sp.power, { modes: 5, averages: SEGMENTS });
+        return {
+          networkId: w.networkId,
+          stationId: w.stations.find((s) => s.code === sp.station)!.id,
+          component: sp.component,
+          startsAt: t,
+          durationS: 600,
+          origin: 'synthetic' as const,
+          uploadId: null,
+          rejectedShare: 0,
+          qualityFlags: [],
+          spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS },
+          fit: { modes: fit.modes, background: fit.background, misfit: fit.misfit },
+        };
+      }),
+    );
     const config: RunConfig = { ...w.config, name: 'Mode fits', observables: { kind: 'modes', modes: 3 }, starts: 4 };
     const { problems, preview } = await checkLaunch(w.networkId, config);
     expect(problems).toEqual([]);
     const run = await createRun({
-      networkId: w.networkId, name: config.name, config: config as never, modelId: w.model.id, gridId: w.grid.id,
-      engineVersion: engineVersion(), intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: w.userId,
+      networkId: w.networkId,
+      name: config.name,
+      config: config as never,
+      modelId: w.model.id,
+      gridId: w.grid.id,
+      engineVersion: engineVersion(),
+      intervalStarts: preview!.intervalStarts,
+      startsPerInterval: config.starts,
+      createdBy: w.userId,
     });
     expect(await executeRun(run.id, { solve: makeEngineSolver(1), workerId: 'mode-fits' })).toBe('finished');
     const [row] = await listRunIntervals(run.id);
@@ -74,9 +96,13 @@ describe('fits of a mode-parameter run', () => {
       for (const v of [m.sigma.frequency, m.sigma.logIntensity, m.sigma.halfWidth]) expect(v).toBeGreaterThan(0);
       // Weighted residuals are (predicted - observed) / sigma, ln for the intensity.
       expect(m.residual.frequency).toBeCloseTo((m.predicted.frequency - m.observed.frequency) / m.sigma.frequency, 9);
-      expect(m.residual.logIntensity).toBeCloseTo(Math.log(m.predicted.intensity / m.observed.intensity) / m.sigma.logIntensity, 9);
+      expect(m.residual.logIntensity).toBeCloseTo(
+        Math.log(m.predicted.intensity / m.observed.intensity) / m.sigma.logIntensity,
+        9,
+      );
       expect(m.residual.halfWidth).toBeCloseTo((m.predicted.halfWidth - m.observed.halfWidth) / m.sigma.halfWidth, 9);
-      for (const r of [m.residual.frequency, m.residual.logIntensity, m.residual.halfWidth]) expect(Math.abs(r)).toBeLessThan(1e-3);
+      for (const r of [m.residual.frequency, m.residual.logIntensity, m.residual.halfWidth])
+        expect(Math.abs(r)).toBeLessThan(1e-3);
     }
     // Modes are numbered 1.. within each station and component.
     const first = modes.filter((m) => m.station === modes[0].station && m.component === modes[0].component);
@@ -85,7 +111,10 @@ describe('fits of a mode-parameter run', () => {
     for (const s of fits.stations) {
       const mine = modes.filter((m) => m.station === s.station);
       expect(s.bins).toBe(3 * mine.length);
-      const chi2 = mine.reduce((a, m) => a + m.residual.frequency ** 2 + m.residual.logIntensity ** 2 + m.residual.halfWidth ** 2, 0);
+      const chi2 = mine.reduce(
+        (a, m) => a + m.residual.frequency ** 2 + m.residual.logIntensity ** 2 + m.residual.halfWidth ** 2,
+        0,
+      );
       expect(s.chi2PerBin).toBeCloseTo(chi2 / s.bins, 12);
       expect(s.chi2PerBin).toBeLessThan(1e-6);
     }

@@ -51,7 +51,10 @@ describe('mode runs on the demo data', () => {
   it('fails the run, saying why, when the best minimum of an interval has no finite misfit', async () => {
     const { run } = await modeRun('Modes, nothing finite', '2026-03-14T15:00:00.000Z', '2026-03-14T15:10:00.000Z');
     // A solver whose every start ended on a non-finite misfit (what the engine returned before the fix).
-    const nothingFinite: IntervalSolver = async () => ({ nData: 9, result: { minima: [{ misfit: NaN, count: 6, stopReasons: { 'non-finite': 6 } }] } });
+    const nothingFinite: IntervalSolver = async () => ({
+      nData: 9,
+      result: { minima: [{ misfit: NaN, count: 6, stopReasons: { 'non-finite': 6 } }] },
+    });
     expect(await executeRun(run.id, { solve: nothingFinite, workerId: 'modes' })).toBe('failed');
     const after = await getRunById(run.id);
     expect(after!.state).toBe('failed');

@@ -37,9 +37,18 @@ describe('misfit surfaces of a mode run', () => {
     const own = best.startIndexes.map((s) => res.startEnds!.misfit[s]).filter((v): v is number => v !== null);
     expect(best.misfit).toBe(Math.min(...own));
 
-    const id = await requestSurfaceRow(run.id, { interval: row.startsAt.toISOString(), minimum: 0, x: 'Middle belt.lat', y: 'Middle belt.lon', points: 5, mode: 'fixed' });
+    const id = await requestSurfaceRow(run.id, {
+      interval: row.startsAt.toISOString(),
+      minimum: 0,
+      x: 'Middle belt.lat',
+      y: 'Middle belt.lon',
+      points: 5,
+      mode: 'fixed',
+    });
     expect(await computeSurface(id), (await getSurfaceById(id))?.error ?? '').toBe('ready');
-    const surf = (await getSurfaceById(id))!.result as unknown as MisfitSurface & { centre: { x: number; y: number; misfit: number } };
+    const surf = (await getSurfaceById(id))!.result as unknown as MisfitSurface & {
+      centre: { x: number; y: number; misfit: number };
+    };
     for (const v of surf.misfit.flat()) expect(Number.isFinite(v)).toBe(true);
     expect(surf.centre.misfit).toBe(best.misfit);
     // the grid spans +-3 standard errors around the minimum; with an odd number of points and

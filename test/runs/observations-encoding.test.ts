@@ -18,7 +18,11 @@ import { BAND, CAVITY, makeRunWorld, SEGMENTS, TRUTH } from './world';
 const via = vi.hoisted(() => ({ plain: false }));
 vi.mock('@/db/repo/intervals', async (importOriginal) => {
   const m = await importOriginal<typeof import('@/db/repo/intervals')>();
-  return { ...m, getIntervalSpectra: (f: Parameters<typeof m.getIntervalSpectra>[0]) => (via.plain ? m.getIntervalSpectraPlain(f) : m.getIntervalSpectra(f)) };
+  return {
+    ...m,
+    getIntervalSpectra: (f: Parameters<typeof m.getIntervalSpectra>[0]) =>
+      via.plain ? m.getIntervalSpectraPlain(f) : m.getIntervalSpectra(f),
+  };
 });
 
 const sameBits = (a: readonly number[], b: readonly number[]) => a.length === b.length && a.every((x, k) => Object.is(x, b[k]));
@@ -32,8 +36,14 @@ describe('stored spectra read in binary form', () => {
     const day = Date.UTC(2031, 6, 3);
     const starts = Array.from({ length: 144 }, (_, i) => new Date(day + i * 600_000));
     const spectra = predictSpectra({
-      cavity: CAVITY, band: BAND,
-      stations: w.stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez', 'Bns', 'Bew'] as const })),
+      cavity: CAVITY,
+      band: BAND,
+      stations: w.stations.map((s) => ({
+        code: s.code,
+        lat: s.latitude,
+        lon: s.longitude,
+        components: ['Ez', 'Bns', 'Bew'] as const,
+      })),
       sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
     });
     // Welch-like scatter (power x Gamma(K, 1/K), K = SEGMENTS), so the doubles use all 17 digits; the first
@@ -42,17 +52,28 @@ describe('stored spectra read in binary form', () => {
     // saving sends numbers as decimal text, and JavaScript prints -0 as "0".)
     const rand = mulberry32(7);
     const edges = [5e-324, 1.7976931348623157e308, Number.NaN, 0.1 + 0.2];
-    const saved = starts.flatMap((t, i) => spectra.map((sp, j) => ({
-      networkId: w.networkId, stationId: w.stations.find((s) => s.code === sp.station)!.id, component: sp.component,
-      startsAt: t, durationS: 600, origin: 'synthetic' as const, uploadId: null, rejectedShare: 0, qualityFlags: [],
-      spectrum: {
-        // One interval of one series on another grid, so the frequencies change within the series and back.
-        frequencies: i === 50 && j === 4 ? sp.frequencies.map((f) => f + 0.25) : sp.frequencies,
-        power: sp.power.map((p, k) => (i === 0 && j === 0 && k < edges.length ? edges[k] : (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS)),
-        segments: SEGMENTS,
-      },
-      fit: null,
-    })));
+    const saved = starts.flatMap((t, i) =>
+      spectra.map((sp, j) => ({
+        networkId: w.networkId,
+        stationId: w.stations.find((s) => s.code === sp.station)!.id,
+        component: sp.component,
+        startsAt: t,
+        durationS: 600,
+        origin: 'synthetic' as const,
+        uploadId: null,
+        rejectedShare: 0,
+        qualityFlags: [],
+        spectrum: {
+          // One interval of one series on another grid, so the frequencies change within the series and back.
+          frequencies: i === 50 && j === 4 ? sp.frequencies.map((f) => f + 0.25) : sp.frequencies,
+          power: sp.power.map((p, k) =>
+            i === 0 && j === 0 && k < edges.length ? edges[k] : (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS,
+          ),
+          segments: SEGMENTS,
+        },
+        fit: null,
+      })),
+    );
     await saveIntervals(saved);
     const key = (stationId: string, component: string, t: Date) => `${stationId} ${component} ${t.getTime()}`;
     const byKey = new Map(saved.map((s) => [key(s.stationId, s.component, s.startsAt), s.spectrum]));
@@ -85,7 +106,13 @@ describe('stored spectra read in binary form', () => {
       via.plain = false;
       expect(fromBinary.map((o) => o.length)).toEqual(starts.map(() => 9));
       expect(fromBinary).toEqual(fromText);
-      expect(fromBinary.flat().every((s, k) => sameBits(s.power, fromText.flat()[k].power) && sameBits(s.frequencies, fromText.flat()[k].frequencies))).toBe(true);
+      expect(
+        fromBinary
+          .flat()
+          .every(
+            (s, k) => sameBits(s.power, fromText.flat()[k].power) && sameBits(s.frequencies, fromText.flat()[k].frequencies),
+          ),
+      ).toBe(true);
     }
   });
 });

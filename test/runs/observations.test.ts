@@ -17,7 +17,12 @@ import { listedLines, suppressLines } from '@/src/engine/signal/line-suppression
 import { storedFit } from '@/src/data/interval-processing';
 import type { RunConfig } from '@/src/runs/config';
 import {
-  assumedExclusionSeries, intervalLoader, loadModeObservations, loadSpectrumObservations, loadSpectrumObservationsOf, MODE_BAND,
+  assumedExclusionSeries,
+  intervalLoader,
+  loadModeObservations,
+  loadSpectrumObservations,
+  loadSpectrumObservationsOf,
+  MODE_BAND,
 } from '@/src/runs/observations';
 import { CAVITY, makeRunWorld, SEGMENTS, TRUTH } from './world';
 
@@ -28,7 +33,9 @@ describe('observations of several intervals at once', () => {
   it('match interval-by-interval loading, bucket by bucket', async () => {
     const w = await makeRunWorld(5);
     const rows = await listIntervals({ networkId: w.networkId, from: w.starts[2], to: new Date(w.starts[2].getTime() + 1) });
-    expect(await setIntervalFlag(w.networkId, rows[0].id, { reason: 'test: cattle at the electrode', userId: w.userId })).not.toBeNull();
+    expect(
+      await setIntervalFlag(w.networkId, rows[0].id, { reason: 'test: cattle at the electrode', userId: w.userId }),
+    ).not.toBeNull();
     const empty = new Date(w.starts[4].getTime() + 3_600_000);
     const times = [...w.starts, empty];
     const batch = await loadSpectrumObservationsOf(w.networkId, w.config, times);
@@ -46,12 +53,13 @@ describe('exclusions of stored mode fits in a mode run', () => {
 
   // The notch rule of line suppression, |f - line| <= half-width, worked by hand on the 0.1 Hz grid: a line at
   // 16.65 Hz with the default 0.3 Hz half-width covers 16.4–16.9 Hz; one at 11.05 Hz covers 10.8–11.3 Hz.
-  it('fit the predicted spectrum with the stored exclusions, and with the station\'s lines for older fits', async () => {
+  it("fit the predicted spectrum with the stored exclusions, and with the station's lines for older fits", async () => {
     const w = await makeRunWorld(1);
     const t = w.starts[0];
     const grid = bandFrequencies(MODE_BAND);
     const spectra = predictSpectra({
-      cavity: CAVITY, band: MODE_BAND,
+      cavity: CAVITY,
+      band: MODE_BAND,
       stations: w.stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez'] as const })),
       sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
     });
@@ -64,22 +72,49 @@ describe('exclusions of stored mode fits in a mode run', () => {
       if (sp.station === 'QX2') delete f.excluded;
       return f;
     });
-    await saveIntervals(spectra.map((sp, k) => ({
-      networkId: w.networkId, stationId: w.stations.find((s) => s.code === sp.station)!.id, component: sp.component,
-      startsAt: t, durationS: 600, origin: 'synthetic' as const, uploadId: null, rejectedShare: 0, qualityFlags: [],
-      spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS }, fit: fits[k],
-    })));
-    const lines = { QX1: [{ frequencyHz: 16.65, label: 'rail' }, { frequencyHz: 11.05, label: 'new pump' }], QX2: [{ frequencyHz: 16.65, label: 'rail' }], QX3: [{ frequencyHz: 16.65, label: 'rail' }] };
+    await saveIntervals(
+      spectra.map((sp, k) => ({
+        networkId: w.networkId,
+        stationId: w.stations.find((s) => s.code === sp.station)!.id,
+        component: sp.component,
+        startsAt: t,
+        durationS: 600,
+        origin: 'synthetic' as const,
+        uploadId: null,
+        rejectedShare: 0,
+        qualityFlags: [],
+        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS },
+        fit: fits[k],
+      })),
+    );
+    const lines = {
+      QX1: [
+        { frequencyHz: 16.65, label: 'rail' },
+        { frequencyHz: 11.05, label: 'new pump' },
+      ],
+      QX2: [{ frequencyHz: 16.65, label: 'rail' }],
+      QX3: [{ frequencyHz: 16.65, label: 'rail' }],
+    };
     for (const s of w.stations) {
       const { id: _id, networkId: _n, createdAt: _c, updatedAt: _u, ...input } = s;
-      expect(await updateStation(w.networkId, s.id, { ...input, interferenceLines: lines[s.code as keyof typeof lines] })).not.toBeNull();
+      expect(
+        await updateStation(w.networkId, s.id, { ...input, interferenceLines: lines[s.code as keyof typeof lines] }),
+      ).not.toBeNull();
     }
-    const config: RunConfig = { ...w.config, name: 'Modes', observables: { kind: 'modes', modes: 3 }, data: { ...w.config.data, components: ['Ez'] } };
+    const config: RunConfig = {
+      ...w.config,
+      name: 'Modes',
+      observables: { kind: 'modes', modes: 3 },
+      data: { ...w.config.data, components: ['Ez'] },
+    };
     const obs = await loadModeObservations(w.networkId, config, t);
     const by = Object.fromEntries(obs.map((o) => [o.station, o]));
     expect(Object.keys(by).sort()).toEqual(['QX1', 'QX2', 'QX3']);
     const binsOf = (code: string) => Array.from(modeSeriesSetup(by[code], grid, code).bins, (i) => Math.round(grid[i] * 10) / 10);
-    const band = (code: string) => Array.from(grid, (f) => Math.round(f * 10) / 10).filter((f) => f >= by[code].fit!.minHz! - 1e-9 && f <= by[code].fit!.maxHz! + 1e-9);
+    const band = (code: string) =>
+      Array.from(grid, (f) => Math.round(f * 10) / 10).filter(
+        (f) => f >= by[code].fit!.minHz! - 1e-9 && f <= by[code].fit!.maxHz! + 1e-9,
+      );
     const notch = [16.4, 16.5, 16.6, 16.7, 16.8, 16.9];
     const pump = [10.8, 10.9, 11, 11.1, 11.2, 11.3];
 

@@ -46,7 +46,7 @@ describe('demo runs seeder', () => {
     expect(await listGrids(net)).toHaveLength(1);
   });
 
-  it('stores a finished mode-parameter run that keeps each start\'s own end', async () => {
+  it("stores a finished mode-parameter run that keeps each start's own end", async () => {
     const net = await accounts.demoNetworkId();
     const [run] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_MODE_RUN);
     expect(run.state).toBe('finished');
@@ -57,26 +57,39 @@ describe('demo runs seeder', () => {
       expect(res.paramNames).toContain('Middle belt.lat');
       expect(res.startEnds!.index).toEqual([0, 1, 2, 3]);
       // each minimum's misfit is the smallest final misfit of the starts counted in it
-      for (const m of res.minima) expect(m.misfit).toBe(Math.min(...m.startIndexes.map((i) => res.startEnds!.misfit[i] ?? Infinity)));
+      for (const m of res.minima)
+        expect(m.misfit).toBe(Math.min(...m.startIndexes.map((i) => res.startEnds!.misfit[i] ?? Infinity)));
     }
   });
 
-  it('inverts the stored mode fits of the demo data with the engine\'s mode objective', async () => {
+  it("inverts the stored mode fits of the demo data with the engine's mode objective", async () => {
     const net = await accounts.demoNetworkId();
     const [demo] = (await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN);
     const view = await getRunView(net, demo.id);
     const config: RunConfig = {
-      ...view.config, name: 'Modes', observables: { kind: 'modes', modes: 3 },
+      ...view.config,
+      name: 'Modes',
+      observables: { kind: 'modes', modes: 3 },
       data: { ...view.config.data, from: '2026-03-14T15:00:00.000Z', to: '2026-03-14T15:00:00.000Z' },
-      regions: [{ region: 'middle-belt', intensity: { min: 1e3, max: 1e6 } }, { region: 'west-belt', intensity: { min: 1e3, max: 1e6 } }],
+      regions: [
+        { region: 'middle-belt', intensity: { min: 1e3, max: 1e6 } },
+        { region: 'west-belt', intensity: { min: 1e3, max: 1e6 } },
+      ],
     };
     const { problems, preview } = await checkLaunch(net, config);
     expect(problems).toEqual([]);
     // Three data per observed mode (frequency, peak power, half-width).
     expect(preview!.nData % 3).toBe(0);
     const run = await createRun({
-      networkId: net, name: 'Modes', config: config as never, modelId: view.model.id, gridId: view.grid.id,
-      engineVersion: 'test', intervalStarts: preview!.intervalStarts, startsPerInterval: config.starts, createdBy: null,
+      networkId: net,
+      name: 'Modes',
+      config: config as never,
+      modelId: view.model.id,
+      gridId: view.grid.id,
+      engineVersion: 'test',
+      intervalStarts: preview!.intervalStarts,
+      startsPerInterval: config.starts,
+      createdBy: null,
     });
     const outcome = await executeRun(run.id, { solve: makeEngineSolver(1), workerId: 'modes' });
     expect(outcome, (await getRunById(run.id))?.error ?? '').toBe('finished');

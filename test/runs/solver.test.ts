@@ -20,12 +20,23 @@ async function oneInterval() {
   const w = await makeRunWorld(1);
   const { preview } = await checkLaunch(w.networkId, w.config);
   const run = await createRun({
-    networkId: w.networkId, name: w.config.name, config: w.config as never, modelId: w.model.id, gridId: w.grid.id,
-    engineVersion: engineVersion(), intervalStarts: preview!.intervalStarts, startsPerInterval: w.config.starts, createdBy: w.userId,
+    networkId: w.networkId,
+    name: w.config.name,
+    config: w.config as never,
+    modelId: w.model.id,
+    gridId: w.grid.id,
+    engineVersion: engineVersion(),
+    intervalStarts: preview!.intervalStarts,
+    startsPerInterval: w.config.starts,
+    createdBy: w.userId,
   });
   const ctx = await loadRunContext(run);
   const startsAt = run.intervalStarts[0];
-  return { ctx, c: { startsAt, ...(await loadIntervalObservations(w.networkId, w.config, new Date(startsAt))) }, starts: w.config.starts };
+  return {
+    ctx,
+    c: { startsAt, ...(await loadIntervalObservations(w.networkId, w.config, new Date(startsAt))) },
+    starts: w.config.starts,
+  };
 }
 
 describe('engine solver and stop requests', () => {
@@ -36,7 +47,12 @@ describe('engine solver and stop requests', () => {
     const { ctx, c, starts } = await oneInterval();
     // The stop is asked for once the last start has reported: every start ended on its own.
     let done = 0;
-    const late = await engineSolver(ctx, c, { onStart: (d) => { done = d; }, shouldStop: () => done >= starts });
+    const late = await engineSolver(ctx, c, {
+      onStart: (d) => {
+        done = d;
+      },
+      shouldStop: () => done >= starts,
+    });
     expect(late).not.toBe('cancelled');
     const result = (late as { result: Record<string, unknown> }).result as unknown as InversionResult;
     expect(result.startEnds!.index).toHaveLength(starts);
@@ -45,14 +61,33 @@ describe('engine solver and stop requests', () => {
 
     // The stop is asked for after the first start: the rest end at once with stop reason 'cancelled'.
     done = 0;
-    const early = await engineSolver(ctx, c, { onStart: (d) => { done = d; }, shouldStop: () => done >= 1 });
+    const early = await engineSolver(ctx, c, {
+      onStart: (d) => {
+        done = d;
+      },
+      shouldStop: () => done >= 1,
+    });
     expect(early).toBe('cancelled');
   });
 
   it('calls a result interrupted when a start is missing or was ended by the stop', () => {
-    const base = { starts: 3, startEnds: { index: [0, 1, 2], misfit: [1, 2, 3], iterations: [4, 4, 4], stopReason: ['misfit-change', 'step-size', 'gradient'], minimum: [0, 0, 1] } };
+    const base = {
+      starts: 3,
+      startEnds: {
+        index: [0, 1, 2],
+        misfit: [1, 2, 3],
+        iterations: [4, 4, 4],
+        stopReason: ['misfit-change', 'step-size', 'gradient'],
+        minimum: [0, 0, 1],
+      },
+    };
     expect(interrupted(base as unknown as InversionResult)).toBe(false);
-    expect(interrupted({ ...base, startEnds: { ...base.startEnds, stopReason: ['misfit-change', 'cancelled', 'gradient'] } } as unknown as InversionResult)).toBe(true);
+    expect(
+      interrupted({
+        ...base,
+        startEnds: { ...base.startEnds, stopReason: ['misfit-change', 'cancelled', 'gradient'] },
+      } as unknown as InversionResult),
+    ).toBe(true);
     expect(interrupted({ ...base, starts: 4 } as unknown as InversionResult)).toBe(true);
     expect(interrupted({ starts: 3 } as unknown as InversionResult)).toBe(true); // no record of how the starts ended
   });

@@ -27,7 +27,13 @@ const SITES = [
 
 function station(site: (typeof SITES)[number]): StationInput {
   return {
-    ...site, elevationM: 300, mainsHz: 50, interferenceLines: [], sampleRateHz: 200, notes: '', status: 'operating',
+    ...site,
+    elevationM: 300,
+    mainsHz: 50,
+    interferenceLines: [],
+    sampleRateHz: 200,
+    notes: '',
+    status: 'operating',
     components: [
       { component: 'Ez', calibration: { kind: 'gain', gain: 1 } },
       { component: 'Bns', calibration: { kind: 'gain', gain: 1 } },
@@ -37,9 +43,19 @@ function station(site: (typeof SITES)[number]): StationInput {
 }
 
 export const GRID: GridInput = {
-  name: 'Test grid', notes: '', cellSizeDeg: 10,
+  name: 'Test grid',
+  notes: '',
+  cellSizeDeg: 10,
   regions: [
-    { key: 'east-basin', name: TRUTH.name, colour: '#E69F00', kind: 'moving', centre: { lat: 0, lon: 20 }, bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } }, spreadDeg: 0 },
+    {
+      key: 'east-basin',
+      name: TRUTH.name,
+      colour: '#E69F00',
+      kind: 'moving',
+      centre: { lat: 0, lon: 20 },
+      bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
+      spreadDeg: 0,
+    },
     { key: 'west-shelf', name: 'West shelf', colour: '#56B4E9', kind: 'cells', cells: [300, 301] },
   ],
 };
@@ -53,24 +69,51 @@ export async function makeRunWorld(intervalCount = 4) {
   const model = await saveModel(network.id, userId, { name: 'Linear test', notes: '', config: CAVITY });
   const grid = await saveGrid(network.id, userId, GRID);
   const spectra = predictSpectra({
-    cavity: CAVITY, band: BAND,
-    stations: stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez', 'Bns', 'Bew'] as const })),
+    cavity: CAVITY,
+    band: BAND,
+    stations: stations.map((s) => ({
+      code: s.code,
+      lat: s.latitude,
+      lon: s.longitude,
+      components: ['Ez', 'Bns', 'Bew'] as const,
+    })),
     sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
   });
   const day = Date.UTC(2031, 4, 12, 6, 0, 0);
   const starts = Array.from({ length: intervalCount }, (_, i) => new Date(day + i * 600_000));
-  await saveIntervals(starts.flatMap((t) => spectra.map((sp) => ({
-    networkId: network.id, stationId: stations.find((s) => s.code === sp.station)!.id, component: sp.component,
-    startsAt: t, durationS: 600, origin: 'synthetic' as const, uploadId: null, rejectedShare: 0, qualityFlags: [],
-    spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS }, fit: null,
-  }))));
+  await saveIntervals(
+    starts.flatMap((t) =>
+      spectra.map((sp) => ({
+        networkId: network.id,
+        stationId: stations.find((s) => s.code === sp.station)!.id,
+        component: sp.component,
+        startsAt: t,
+        durationS: 600,
+        origin: 'synthetic' as const,
+        uploadId: null,
+        rejectedShare: 0,
+        qualityFlags: [],
+        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS },
+        fit: null,
+      })),
+    ),
+  );
   const config: RunConfig = {
-    name: 'Round trip', modelId: model.id, gridId: grid.id,
-    data: { stationIds: stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'], from: starts[0].toISOString(), to: starts.at(-1)!.toISOString(), includeFlagged: false },
+    name: 'Round trip',
+    modelId: model.id,
+    gridId: grid.id,
+    data: {
+      stationIds: stations.map((s) => s.id),
+      components: ['Ez', 'Bns', 'Bew'],
+      from: starts[0].toISOString(),
+      to: starts.at(-1)!.toISOString(),
+      includeFlagged: false,
+    },
     observables: { kind: 'spectrum', minHz: BAND.minHz, maxHz: BAND.maxHz, every: 1 },
     regions: [{ region: 'east-basin', intensity: { min: 1e2, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 5, max: 35 } }],
     damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
-    starts: 4, seed: 7,
+    starts: 4,
+    seed: 7,
   };
   return { userId, networkId: network.id, stations, model, grid, starts, config };
 }

@@ -37,7 +37,9 @@ describe('route()', () => {
     const schema = z.object({ grid: z.object({ step: z.number({ error: 'Give the step in degrees.' }) }) });
     const res = await route(async (r) => parseJson(r, schema))(req({ method: 'POST', body: '{"grid":{}}' }));
     expect(res.status).toBe(400);
-    expect(await res.json()).toEqual({ error: { code: 'invalid_input', message: 'grid.step: Give the step in degrees.', field: 'grid.step' } });
+    expect(await res.json()).toEqual({
+      error: { code: 'invalid_input', message: 'grid.step: Give the step in degrees.', field: 'grid.step' },
+    });
   });
 
   it('answers an unexpected error with 500 and no stack trace', async () => {
@@ -63,7 +65,10 @@ describe('route()', () => {
   });
 
   it('passes resolved params and parses the query', async () => {
-    const h = route<{ id: string }>(async (r, { params }) => ({ id: params.id, q: parseQuery(r, z.object({ n: z.coerce.number() })) }));
+    const h = route<{ id: string }>(async (r, { params }) => ({
+      id: params.id,
+      q: parseQuery(r, z.object({ n: z.coerce.number() })),
+    }));
     const res = await h(req({ url: 'http://localhost/api/x?n=7' }), { params: Promise.resolve({ id: 'abc' }) });
     expect(await res.json()).toEqual({ id: 'abc', q: { n: 7 } });
   });

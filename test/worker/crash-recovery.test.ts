@@ -28,7 +28,10 @@ function startWorker(): { child: ChildProcess; out: () => string } {
     cwd: root,
     env: {
       ...process.env,
-      CAVITAS_RUN_LEASE_S: '3', CAVITAS_RUN_SWEEP_S: '1', CAVITAS_RUN_SLICE_S: '2', CAVITAS_RUN_THREADS: '1',
+      CAVITAS_RUN_LEASE_S: '3',
+      CAVITAS_RUN_SWEEP_S: '1',
+      CAVITAS_RUN_SLICE_S: '2',
+      CAVITAS_RUN_THREADS: '1',
       CAVITAS_RUN_WRITE_MS: '0', // each interval written at once, so that a kill can fall between two stored intervals
       WORKER_CONCURRENCY: '1',
     },
@@ -41,18 +44,27 @@ function startWorker(): { child: ChildProcess; out: () => string } {
   return { child, out: () => out };
 }
 
-async function until<T>(what: string, probe: () => Promise<T | null | undefined | false>, timeoutMs: number, log: () => string, everyMs = 200): Promise<T> {
+async function until<T>(
+  what: string,
+  probe: () => Promise<T | null | undefined | false>,
+  timeoutMs: number,
+  log: () => string,
+  everyMs = 200,
+): Promise<T> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const v = await probe();
     if (v) return v;
-    if (Date.now() > deadline) throw new Error(`${what}: not reached within ${timeoutMs / 1000} s\n--- worker output ---\n${log().slice(-3000)}`);
+    if (Date.now() > deadline)
+      throw new Error(`${what}: not reached within ${timeoutMs / 1000} s\n--- worker output ---\n${log().slice(-3000)}`);
     await new Promise((r) => setTimeout(r, everyMs));
   }
 }
 
 function exited(child: ChildProcess): Promise<void> {
-  return child.exitCode !== null || child.signalCode !== null ? Promise.resolve() : new Promise((r) => child.once('exit', () => r()));
+  return child.exitCode !== null || child.signalCode !== null
+    ? Promise.resolve()
+    : new Promise((r) => child.once('exit', () => r()));
 }
 
 describe('crash recovery with real worker processes', () => {
@@ -98,10 +110,21 @@ describe('crash recovery with real worker processes', () => {
 
     const first = startWorker();
     // Kill mid-run: at least one interval stored, the run not yet over.
-    await until('first interval stored while the run is still going', async () => {
-      const r = await getRunById(run.id);
-      return r && (r.state === 'running' || r.state === 'queued') && r.progress.intervalsDone >= 1 && r.progress.intervalsDone < total;
-    }, 40_000, first.out, 25);
+    await until(
+      'first interval stored while the run is still going',
+      async () => {
+        const r = await getRunById(run.id);
+        return (
+          r &&
+          (r.state === 'running' || r.state === 'queued') &&
+          r.progress.intervalsDone >= 1 &&
+          r.progress.intervalsDone < total
+        );
+      },
+      40_000,
+      first.out,
+      25,
+    );
     first.child.kill('SIGKILL');
     await exited(first.child);
     const afterKill = await getRunById(run.id);
@@ -110,10 +133,15 @@ describe('crash recovery with real worker processes', () => {
     expect(storedAtKill).toBeLessThan(total);
 
     const second = startWorker();
-    const done = await until('run finished by the second worker', async () => {
-      const r = await getRunById(run.id);
-      return r && ['finished', 'failed', 'cancelled'].includes(r.state) ? r : null;
-    }, 45_000, second.out);
+    const done = await until(
+      'run finished by the second worker',
+      async () => {
+        const r = await getRunById(run.id);
+        return r && ['finished', 'failed', 'cancelled'].includes(r.state) ? r : null;
+      },
+      45_000,
+      second.out,
+    );
     expect(done.error).toBeNull();
     expect(done.state).toBe('finished');
 

@@ -13,7 +13,8 @@ export default async function SignOutPage() {
       {user ? (
         <>
           <p className="text-sm text-muted">
-            You are signed in as <span className="font-medium text-fg">{user.email}</span>. Signing out ends this session on this device.
+            You are signed in as <span className="font-medium text-fg">{user.email}</span>. Signing out ends this session on this
+            device.
           </p>
           <SignOutButton />
         </>

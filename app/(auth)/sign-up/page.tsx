@@ -21,8 +21,8 @@ export default async function SignUpPage() {
         <SignUpForm />
       ) : (
         <Notice title="Accounts by invitation">
-          On this instance new accounts are created from an invitation sent by a network owner. Open the link in your
-          invitation e-mail, or{' '}
+          On this instance new accounts are created from an invitation sent by a network owner. Open the link in your invitation
+          e-mail, or{' '}
           <Link href="/sign-in" className="text-accent underline">
             sign in
           </Link>

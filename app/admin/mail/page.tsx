@@ -24,7 +24,8 @@ export default async function MailboxPage() {
         subtitle="Messages this instance sent (invitations, password resets), as caught by the local mail catcher. Newest first."
       />
       <Notice className="mb-4">
-        Showing {rows.length} of {total}. With the local catcher nothing leaves this machine; point SMTP_HOST at a relay to deliver mail.
+        Showing {rows.length} of {total}. With the local catcher nothing leaves this machine; point SMTP_HOST at a relay to
+        deliver mail.
       </Notice>
       <DataTable
         caption="Caught messages"
@@ -37,7 +38,9 @@ export default async function MailboxPage() {
           { key: 'size', header: 'Size', unit: 'KiB', numeric: true, digits: 1 },
         ]}
         initialSort={{ key: 'receivedAt', desc: true }}
-        empty={<EmptyState title="No mail yet">Invitations and password-reset messages appear here once they are sent.</EmptyState>}
+        empty={
+          <EmptyState title="No mail yet">Invitations and password-reset messages appear here once they are sent.</EmptyState>
+        }
       />
     </>
   );

@@ -3,7 +3,13 @@ import { pageNetworkAction } from '@/src/auth/pages';
 import { listNetworksForUser } from '@/db/repo/networks';
 import { AppShell } from '@/src/web/shell/AppShell';
 
-export default async function NetworkLayout({ children, params }: { children: ReactNode; params: Promise<{ networkId: string }> }) {
+export default async function NetworkLayout({
+  children,
+  params,
+}: {
+  children: ReactNode;
+  params: Promise<{ networkId: string }>;
+}) {
   const { networkId } = await params;
   const { user, membership } = await pageNetworkAction(networkId, 'network.read');
   const networks = await listNetworksForUser(user.id);

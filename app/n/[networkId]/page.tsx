@@ -9,21 +9,42 @@ import { StationOverviewMap } from '@/src/web/networks/StationOverviewMap';
 
 export const metadata: Metadata = { title: 'Overview' };
 
-export default async function NetworkOverview({ params, searchParams }: { params: Promise<{ networkId: string }>; searchParams: Promise<{ denied?: string }> }) {
+export default async function NetworkOverview({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ networkId: string }>;
+  searchParams: Promise<{ denied?: string }>;
+}) {
   const { networkId } = await params;
   const { denied } = await searchParams;
   const { membership } = await pageNetworkAction(networkId, 'network.read');
   const [stations, members] = await Promise.all([listStations(networkId), listMembers(networkId)]);
-  const points = stations.map((s) => ({ id: s.id, code: s.code, name: s.name, lat: s.latitude, lon: s.longitude, intervals: s.intervalCount }));
+  const points = stations.map((s) => ({
+    id: s.id,
+    code: s.code,
+    name: s.name,
+    lat: s.latitude,
+    lon: s.longitude,
+    intervals: s.intervalCount,
+  }));
   const intervalTotal = stations.reduce((a, s) => a + s.intervalCount, 0);
-  const newest = stations.map((s) => s.lastIntervalAt).filter((d): d is Date => !!d).sort((a, b) => b.getTime() - a.getTime())[0];
+  const newest = stations
+    .map((s) => s.lastIntervalAt)
+    .filter((d): d is Date => !!d)
+    .sort((a, b) => b.getTime() - a.getTime())[0];
   const base = `/n/${networkId}`;
   return (
     <>
       <PageHeader
         eyebrow="Network"
         title={membership.networkName}
-        subtitle={<>You are <strong className="font-medium text-fg">{ROLE_LABEL[membership.role].toLowerCase()}</strong>: {ROLE_SUMMARY[membership.role]}</>}
+        subtitle={
+          <>
+            You are <strong className="font-medium text-fg">{ROLE_LABEL[membership.role].toLowerCase()}</strong>:{' '}
+            {ROLE_SUMMARY[membership.role]}
+          </>
+        }
         actions={
           <>
             <ButtonLink href={`${base}/stations`}>Stations</ButtonLink>

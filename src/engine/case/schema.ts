@@ -41,7 +41,11 @@ export const cellsSchema = z
     try {
       cellRegion(c.cellSizeDeg, c.ids);
     } catch (e) {
-      ctx.addIssue({ code: 'custom', path: (e as Error).message.startsWith('grid cell size') ? ['cellSizeDeg'] : ['ids'], message: (e as Error).message });
+      ctx.addIssue({
+        code: 'custom',
+        path: (e as Error).message.startsWith('grid cell size') ? ['cellSizeDeg'] : ['ids'],
+        message: (e as Error).message,
+      });
     }
   });
 
@@ -50,7 +54,8 @@ type Placed = { lat?: number; lon?: number; cells?: z.infer<typeof cellsSchema> 
 function placement(what: string) {
   return (s: Placed, ctx: z.RefinementCtx) => {
     if (s.cells) {
-      if (s.lat !== undefined || s.lon !== undefined) ctx.addIssue({ code: 'custom', path: ['cells'], message: `a ${what} is placed by cells or by lat/lon, not both` });
+      if (s.lat !== undefined || s.lon !== undefined)
+        ctx.addIssue({ code: 'custom', path: ['cells'], message: `a ${what} is placed by cells or by lat/lon, not both` });
       return;
     }
     if (s.lat === undefined) ctx.addIssue({ code: 'custom', path: ['lat'], message: `lat is required (or give cells)` });
@@ -81,11 +86,17 @@ export const observedSchema = z
   })
   .superRefine((o, ctx) => {
     if (o.frequencies.length !== o.power.length)
-      ctx.addIssue({ code: 'custom', path: ['power'], message: `power has ${o.power.length} values but frequencies has ${o.frequencies.length}` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['power'],
+        message: `power has ${o.power.length} values but frequencies has ${o.frequencies.length}`,
+      });
   });
 
 const range = (lo: number, hi: number) =>
-  z.looseObject({ min: z.number().min(lo).max(hi), max: z.number().min(lo).max(hi) }).refine((r) => r.min <= r.max, { message: 'min must not exceed max', path: ['max'] });
+  z
+    .looseObject({ min: z.number().min(lo).max(hi), max: z.number().min(lo).max(hi) })
+    .refine((r) => r.min <= r.max, { message: 'min must not exceed max', path: ['max'] });
 
 export const unknownSchema = z
   .looseObject({
@@ -97,13 +108,20 @@ export const unknownSchema = z
     /** A fixed region of grid cells instead of lat/lon: only its intensity is searched. */
     cells: cellsSchema.optional(),
   })
-  .superRefine((u, ctx) => placement('region')({ lat: u.lat as number | undefined, lon: u.lon as number | undefined, cells: u.cells }, ctx))
+  .superRefine((u, ctx) =>
+    placement('region')({ lat: u.lat as number | undefined, lon: u.lon as number | undefined, cells: u.cells }, ctx),
+  )
   .transform(({ cells, ...u }) => {
     type Coordinate = number | { min: number; max: number };
     type Footprint = { lat: number; lon: number; weight: number }[];
     if (!cells) return u as typeof u & { lat: Coordinate; lon: Coordinate; footprint?: Footprint };
     const region = cellRegion(cells.cellSizeDeg, cells.ids);
-    return { ...u, lat: region.lat as Coordinate, lon: region.lon as Coordinate, footprint: region.nodes as Footprint | undefined };
+    return {
+      ...u,
+      lat: region.lat as Coordinate,
+      lon: region.lon as Coordinate,
+      footprint: region.nodes as Footprint | undefined,
+    };
   });
 
 export const caseSchema = z
@@ -118,18 +136,25 @@ export const caseSchema = z
   .superRefine((c, ctx) => {
     const codes = new Map<string, Set<string>>();
     c.stations.forEach((s, i) => {
-      if (codes.has(s.code)) ctx.addIssue({ code: 'custom', path: ['stations', i, 'code'], message: `station code "${s.code}" is used twice` });
+      if (codes.has(s.code))
+        ctx.addIssue({ code: 'custom', path: ['stations', i, 'code'], message: `station code "${s.code}" is used twice` });
       codes.set(s.code, new Set(s.components));
     });
     c.observed?.forEach((o, i) => {
       const comps = codes.get(o.station);
-      if (!comps) ctx.addIssue({ code: 'custom', path: ['observed', i, 'station'], message: `no station with code "${o.station}"` });
+      if (!comps)
+        ctx.addIssue({ code: 'custom', path: ['observed', i, 'station'], message: `no station with code "${o.station}"` });
       else if (!comps.has(o.component))
-        ctx.addIssue({ code: 'custom', path: ['observed', i, 'component'], message: `station "${o.station}" does not list component ${o.component}` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['observed', i, 'component'],
+          message: `station "${o.station}" does not list component ${o.component}`,
+        });
     });
     const names = new Set<string>();
     c.unknowns?.forEach((u, i) => {
-      if (names.has(u.name)) ctx.addIssue({ code: 'custom', path: ['unknowns', i, 'name'], message: `unknown "${u.name}" is listed twice` });
+      if (names.has(u.name))
+        ctx.addIssue({ code: 'custom', path: ['unknowns', i, 'name'], message: `unknown "${u.name}" is listed twice` });
       names.add(u.name);
     });
     const t = c.cavity.table;
@@ -138,7 +163,11 @@ export const caseSchema = z
       const hi = t.rows[t.rows.length - 1][0];
       const top = c.band.minHz + (bandSize(c.band) - 1) * c.band.stepHz;
       if (c.band.minHz < lo || top > hi)
-        ctx.addIssue({ code: 'custom', path: ['band'], message: `band ${c.band.minHz}–${top} Hz reaches outside the propagation table (${lo}–${hi} Hz)` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['band'],
+          message: `band ${c.band.minHz}–${top} Hz reaches outside the propagation table (${lo}–${hi} Hz)`,
+        });
     }
   });
 
@@ -146,11 +175,14 @@ export type CaseFile = z.infer<typeof caseSchema>;
 
 /** A case for `forward`: sources are required. */
 export const forwardCaseSchema = caseSchema.superRefine((c, ctx) => {
-  if (!c.sources || c.sources.length === 0) ctx.addIssue({ code: 'custom', path: ['sources'], message: 'forward needs at least one source' });
+  if (!c.sources || c.sources.length === 0)
+    ctx.addIssue({ code: 'custom', path: ['sources'], message: 'forward needs at least one source' });
 });
 
 /** A case for `invert`: observed spectra and unknowns are required. */
 export const invertCaseSchema = caseSchema.superRefine((c, ctx) => {
-  if (!c.observed || c.observed.length === 0) ctx.addIssue({ code: 'custom', path: ['observed'], message: 'invert needs at least one observed spectrum' });
-  if (!c.unknowns || c.unknowns.length === 0) ctx.addIssue({ code: 'custom', path: ['unknowns'], message: 'invert needs at least one unknown source' });
+  if (!c.observed || c.observed.length === 0)
+    ctx.addIssue({ code: 'custom', path: ['observed'], message: 'invert needs at least one observed spectrum' });
+  if (!c.unknowns || c.unknowns.length === 0)
+    ctx.addIssue({ code: 'custom', path: ['unknowns'], message: 'invert needs at least one unknown source' });
 });

@@ -14,8 +14,19 @@ export function forwardSources(sources: readonly CaseSource[]): ForwardSource[] 
   return sources.flatMap((s, i) => {
     if (s.cells) {
       const name = s.name ?? `sources[${i}]`;
-      return regionSources(makeGlobalGrid(s.cells.cellSizeDeg), s.cells.ids, s.intensity).map((c) => ({ ...c, name: `${name} ${c.name}` }));
+      return regionSources(makeGlobalGrid(s.cells.cellSizeDeg), s.cells.ids, s.intensity).map((c) => ({
+        ...c,
+        name: `${name} ${c.name}`,
+      }));
     }
-    return [{ ...(s.name ? { name: s.name } : {}), lat: s.lat!, lon: s.lon!, intensity: s.intensity, ...(s.spreadDeg !== undefined ? { spreadDeg: s.spreadDeg } : {}) }];
+    return [
+      {
+        ...(s.name ? { name: s.name } : {}),
+        lat: s.lat!,
+        lon: s.lon!,
+        intensity: s.intensity,
+        ...(s.spreadDeg !== undefined ? { spreadDeg: s.spreadDeg } : {}),
+      },
+    ];
   });
 }

@@ -26,5 +26,5 @@ export function speedAttenuationFromNu(fHz: number, radiusM: number, nu: Nu): { 
   const pRe = nu.re * (nu.re + 1) - nu.im * nu.im;
   const pIm = nu.im * (2 * nu.re + 1);
   const s = csqrt({ re: pRe, im: pIm });
-  return { cOverV: s.re / ka, alphaDbPerMm: (-s.im / ka) * fHz / ATTENUATION_FACTOR };
+  return { cOverV: s.re / ka, alphaDbPerMm: ((-s.im / ka) * fHz) / ATTENUATION_FACTOR };
 }

@@ -20,5 +20,6 @@ export const cavityConfigSchema = z
     table: cavityTableSchema.optional(),
   })
   .superRefine((c, ctx) => {
-    if (c.model === 'table' && !c.table) ctx.addIssue({ code: 'custom', path: ['table'], message: 'a table is required when model is "table"' });
+    if (c.model === 'table' && !c.table)
+      ctx.addIssue({ code: 'custom', path: ['table'], message: 'a table is required when model is "table"' });
   }) satisfies z.ZodType<CavityConfig, unknown>;

@@ -21,7 +21,10 @@ export function tableProblems(table: CavityTable): TableProblem[] {
     }
     if (f <= 0) out.push({ path: at(0), message: `row ${i}: frequency must be above 0 Hz, got ${f}` });
     if (i > 0 && !(f > rows[i - 1][0]))
-      out.push({ path: at(0), message: `row ${i}: frequencies must be strictly increasing (${f} Hz after ${rows[i - 1][0]} Hz)` });
+      out.push({
+        path: at(0),
+        message: `row ${i}: frequencies must be strictly increasing (${f} Hz after ${rows[i - 1][0]} Hz)`,
+      });
     if (table.columns === 'speed-attenuation') {
       if (!(b > 0)) out.push({ path: at(1), message: `row ${i}: c/V must be above 0, got ${b}` });
       if (!(c >= 0)) out.push({ path: at(2), message: `row ${i}: attenuation must be 0 dB/Mm or more, got ${c}` });

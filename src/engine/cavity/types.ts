@@ -2,8 +2,7 @@
 
 /** A user propagation table: rows of [f Hz, c/V, attenuation dB/Mm] or [f Hz, Re nu, Im nu]. */
 export type CavityTable =
-  | { columns: 'speed-attenuation'; rows: [number, number, number][] }
-  | { columns: 'nu'; rows: [number, number, number][] };
+  { columns: 'speed-attenuation'; rows: [number, number, number][] } | { columns: 'nu'; rows: [number, number, number][] };
 
 export type CavityModelName = 'linear' | 'ishaq-jones' | 'table';
 

@@ -10,15 +10,18 @@ export interface HeaderBlock {
 
 export function parseSignature(text: string, file: string, line: number, expected: string): void {
   const m = /^#\s*(\S+)\s+(\d+)\s*$/.exec(text);
-  if (!m || m[1] !== expected) throw new FormatError(file, line, null, `the first line must read "# ${expected} 1" (got "${text.slice(0, 40)}")`);
-  if (m[2] !== '1') throw new FormatError(file, line, null, `layout version ${m[2]} is not supported (this reader knows version 1)`);
+  if (!m || m[1] !== expected)
+    throw new FormatError(file, line, null, `the first line must read "# ${expected} 1" (got "${text.slice(0, 40)}")`);
+  if (m[2] !== '1')
+    throw new FormatError(file, line, null, `layout version ${m[2]} is not supported (this reader knows version 1)`);
 }
 
 export function parseHeaderLine(text: string, file: string, line: number, block: HeaderBlock): void {
   const m = /^#\s*([A-Za-z][\w-]*)\s*:\s*(.*?)\s*$/.exec(text);
   if (!m) throw new FormatError(file, line, null, `header lines look like "# key: value" (got "${text.slice(0, 40)}")`);
   const key = m[1].toLowerCase();
-  if (block.values.has(key)) throw new FormatError(file, line, key, `appears twice in the header (first on line ${block.values.get(key)!.line})`);
+  if (block.values.has(key))
+    throw new FormatError(file, line, key, `appears twice in the header (first on line ${block.values.get(key)!.line})`);
   block.values.set(key, { value: m[2], line });
 }
 

@@ -11,7 +11,9 @@ export interface TextLine {
   complete: boolean;
 }
 
-export async function* linesOf(chunks: AsyncIterable<string | Uint8Array> | Iterable<string | Uint8Array>): AsyncGenerator<TextLine> {
+export async function* linesOf(
+  chunks: AsyncIterable<string | Uint8Array> | Iterable<string | Uint8Array>,
+): AsyncGenerator<TextLine> {
   const decoder = new TextDecoder('utf-8', { fatal: false });
   let rest = '';
   let number = 0;

@@ -28,7 +28,9 @@ export type SpectrumJson = z.infer<typeof spectrumJsonSchema>;
 
 function fromZod(file: string, error: z.ZodError): FormatError {
   const issue = error.issues[0];
-  const field = issue.path.length ? issue.path.map((p, i) => (typeof p === 'number' ? `[${p}]` : (i ? '.' : '') + String(p))).join('') : '(top level)';
+  const field = issue.path.length
+    ? issue.path.map((p, i) => (typeof p === 'number' ? `[${p}]` : (i ? '.' : '') + String(p))).join('')
+    : '(top level)';
   return new FormatError(file, null, field, issue.message);
 }
 
@@ -40,10 +42,20 @@ export function parseSeriesJson(data: unknown, file: string): SeriesJson & { seg
   const exact = s.sampleRateHz * s.segmentSeconds;
   const segmentLength = Math.round(exact);
   if (Math.abs(exact - segmentLength) > 1e-9 * exact || segmentLength < 2) {
-    throw new FormatError(file, null, 'segmentSeconds', `${s.segmentSeconds} s at ${s.sampleRateHz} Hz is not a whole number (>= 2) of samples`);
+    throw new FormatError(
+      file,
+      null,
+      'segmentSeconds',
+      `${s.segmentSeconds} s at ${s.sampleRateHz} Hz is not a whole number (>= 2) of samples`,
+    );
   }
   if (s.samples.length < segmentLength) {
-    throw new FormatError(file, null, 'samples', `${s.samples.length} samples are fewer than one ${s.segmentSeconds} s segment (${segmentLength} samples)`);
+    throw new FormatError(
+      file,
+      null,
+      'samples',
+      `${s.samples.length} samples are fewer than one ${s.segmentSeconds} s segment (${segmentLength} samples)`,
+    );
   }
   return { ...s, segmentLength };
 }
@@ -57,7 +69,13 @@ export function parseSpectrumJson(data: unknown, file: string): SpectrumJson {
     throw new FormatError(file, null, 'power', `has ${s.power.length} values but frequencies has ${s.frequencies.length}`);
   }
   for (let i = 1; i < s.frequencies.length; i++) {
-    if (!(s.frequencies[i] > s.frequencies[i - 1])) throw new FormatError(file, null, `frequencies[${i}]`, `${s.frequencies[i]} does not increase on the previous value ${s.frequencies[i - 1]}`);
+    if (!(s.frequencies[i] > s.frequencies[i - 1]))
+      throw new FormatError(
+        file,
+        null,
+        `frequencies[${i}]`,
+        `${s.frequencies[i]} does not increase on the previous value ${s.frequencies[i - 1]}`,
+      );
   }
   return s;
 }

@@ -32,7 +32,10 @@ export interface SpectraFile {
   intervals: { startUtc: string; startMs: number; power: Float64Array }[];
 }
 
-export async function readSpectraCsv(chunks: AsyncIterable<string | Uint8Array> | Iterable<string | Uint8Array>, file: string): Promise<SpectraFile> {
+export async function readSpectraCsv(
+  chunks: AsyncIterable<string | Uint8Array> | Iterable<string | Uint8Array>,
+  file: string,
+): Promise<SpectraFile> {
   const lines = linesOf(chunks);
   const first = await lines.next();
   if (first.done) throw new FormatError(file, 1, null, 'the file is empty');
@@ -41,7 +44,8 @@ export async function readSpectraCsv(chunks: AsyncIterable<string | Uint8Array> 
   let columnsLine: TextLine | null = null;
   for (;;) {
     const next = await lines.next();
-    if (next.done) throw new FormatError(file, first.value.number, null, 'the file ends inside the header (no column line and no data)');
+    if (next.done)
+      throw new FormatError(file, first.value.number, null, 'the file ends inside the header (no column line and no data)');
     if (next.value.text.trim() === '') continue;
     if (next.value.text.startsWith('#')) parseHeaderLine(next.value.text, file, next.value.number, block);
     else {
@@ -52,22 +56,37 @@ export async function readSpectraCsv(chunks: AsyncIterable<string | Uint8Array> 
   const end = columnsLine.number;
   const station = requireValue(block, 'station', file, end).value;
   const comp = requireValue(block, 'component', file, end);
-  if (!COMPONENTS.includes(comp.value as Component)) throw new FormatError(file, comp.line, 'component', `"${comp.value}" is not one of ${COMPONENTS.join(', ')}`);
+  if (!COMPONENTS.includes(comp.value as Component))
+    throw new FormatError(file, comp.line, 'component', `"${comp.value}" is not one of ${COMPONENTS.join(', ')}`);
   const units = requireValue(block, 'units', file, end).value;
   const iv = requireValue(block, 'interval-seconds', file, end);
   const intervalSeconds = parseNumberCell(iv.value);
-  if (intervalSeconds === null || !(intervalSeconds > 0)) throw new FormatError(file, iv.line, 'interval-seconds', `"${iv.value}" is not a positive number`);
+  if (intervalSeconds === null || !(intervalSeconds > 0))
+    throw new FormatError(file, iv.line, 'interval-seconds', `"${iv.value}" is not a positive number`);
 
   const names = columnsLine.text.split(',').map((s) => s.trim());
-  if (names[0] !== SPECTRA_FREQUENCY_COLUMN) throw new FormatError(file, end, names[0] || '(empty)', `the first column must be "${SPECTRA_FREQUENCY_COLUMN}"`);
+  if (names[0] !== SPECTRA_FREQUENCY_COLUMN)
+    throw new FormatError(file, end, names[0] || '(empty)', `the first column must be "${SPECTRA_FREQUENCY_COLUMN}"`);
   if (names.length < 2) throw new FormatError(file, end, null, 'no interval columns after "frequency-hz"');
   const starts: number[] = [];
   names.slice(1).forEach((name, i) => {
     const ms = parseUtc(name);
-    if (ms === null) throw new FormatError(file, end, name || `(column ${i + 2})`, 'an interval column must be headed by its start, a UTC time like 2026-03-14T00:10:00Z');
+    if (ms === null)
+      throw new FormatError(
+        file,
+        end,
+        name || `(column ${i + 2})`,
+        'an interval column must be headed by its start, a UTC time like 2026-03-14T00:10:00Z',
+      );
     if (i > 0) {
       if (ms <= starts[i - 1]) throw new FormatError(file, end, name, `interval starts must increase (after ${names[i]})`);
-      if (ms - starts[i - 1] < intervalSeconds * 1000) throw new FormatError(file, end, name, `overlaps the interval starting ${names[i]} (interval-seconds ${intervalSeconds})`);
+      if (ms - starts[i - 1] < intervalSeconds * 1000)
+        throw new FormatError(
+          file,
+          end,
+          name,
+          `overlaps the interval starting ${names[i]} (interval-seconds ${intervalSeconds})`,
+        );
     }
     starts.push(ms);
   });
@@ -78,17 +97,33 @@ export async function readSpectraCsv(chunks: AsyncIterable<string | Uint8Array> 
     if (line.text.trim() === '') continue;
     const cells = line.text.split(',');
     if (cells.length !== nCols) {
-      throw new FormatError(file, line.number, null, `expected ${nCols} cells, found ${cells.length}${line.complete ? '' : ' (the file seems cut off)'}`);
+      throw new FormatError(
+        file,
+        line.number,
+        null,
+        `expected ${nCols} cells, found ${cells.length}${line.complete ? '' : ' (the file seems cut off)'}`,
+      );
     }
     const f = parseNumberCell(cells[0]);
-    if (f === null || f < 0) throw new FormatError(file, line.number, SPECTRA_FREQUENCY_COLUMN, `"${cells[0].trim()}" is not a frequency >= 0`);
-    if (freqs.length && f <= freqs[freqs.length - 1]) throw new FormatError(file, line.number, SPECTRA_FREQUENCY_COLUMN, `${f} Hz does not increase on the previous row (${freqs[freqs.length - 1]} Hz)`);
+    if (f === null || f < 0)
+      throw new FormatError(file, line.number, SPECTRA_FREQUENCY_COLUMN, `"${cells[0].trim()}" is not a frequency >= 0`);
+    if (freqs.length && f <= freqs[freqs.length - 1])
+      throw new FormatError(
+        file,
+        line.number,
+        SPECTRA_FREQUENCY_COLUMN,
+        `${f} Hz does not increase on the previous row (${freqs[freqs.length - 1]} Hz)`,
+      );
     freqs.push(f);
     for (let c = 1; c < nCols; c++) {
       const v = parseNumberCell(cells[c]);
       if (v === null || v < 0) {
         const cell = cells[c].trim();
-        const why = /^[+-]?nan$/i.test(cell) ? 'NaN is not allowed' : cell === '' ? 'the cell is empty' : `"${cell.slice(0, 24)}" is not a power >= 0`;
+        const why = /^[+-]?nan$/i.test(cell)
+          ? 'NaN is not allowed'
+          : cell === ''
+            ? 'the cell is empty'
+            : `"${cell.slice(0, 24)}" is not a power >= 0`;
         throw new FormatError(file, line.number, names[c], why);
       }
       powers[c - 1].push(v);

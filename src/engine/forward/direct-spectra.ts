@@ -12,7 +12,12 @@ import { asCavity } from './predict';
 import type { Cavity, CavityConfig } from '../cavity/types';
 import type { ForwardStation, Spectrum } from './types';
 
-export function predictSpectraDirect(input: { cavity: Cavity | CavityConfig; band: Band; stations: readonly ForwardStation[]; sources: readonly ForwardSource[] }): Spectrum[] {
+export function predictSpectraDirect(input: {
+  cavity: Cavity | CavityConfig;
+  band: Band;
+  stations: readonly ForwardStation[];
+  sources: readonly ForwardSource[];
+}): Spectrum[] {
   const cavity = asCavity(input.cavity);
   const freqs = Array.from(bandFrequencies(input.band));
   const out: Spectrum[] = [];
@@ -32,7 +37,12 @@ export function predictSpectraDirect(input: { cavity: Cavity | CavityConfig; ban
         });
       }
     for (const component of st.components)
-      out.push({ station: st.code, component, frequencies: freqs, power: component === 'Ez' ? ez : component === 'Bns' ? bns : bew });
+      out.push({
+        station: st.code,
+        component,
+        frequencies: freqs,
+        power: component === 'Ez' ? ez : component === 'Bns' ? bns : bew,
+      });
   }
   return out;
 }

@@ -43,7 +43,8 @@ export function createForwardModel(cavity: Cavity, band: Band | Float64Array, st
     createOutput,
     evaluate(sources, out) {
       // quadrature nodes once per source (not per station)
-      if (nodes.length < sources.length * SPOT_MAX_NODES * SPOT_STRIDE) nodes = new Float64Array(sources.length * SPOT_MAX_NODES * SPOT_STRIDE);
+      if (nodes.length < sources.length * SPOT_MAX_NODES * SPOT_STRIDE)
+        nodes = new Float64Array(sources.length * SPOT_MAX_NODES * SPOT_STRIDE);
       if (counts.length < sources.length) counts = new Int32Array(sources.length);
       for (let k = 0; k < sources.length; k++) {
         const src = sources[k];

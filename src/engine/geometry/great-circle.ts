@@ -31,13 +31,22 @@ export function greatCircle(stLatDeg: number, stLonDeg: number, srcLatDeg: numbe
 }
 
 /** Same as greatCircle, writing into a reusable object (no allocation). */
-export function greatCircleInto(stLatDeg: number, stLonDeg: number, srcLatDeg: number, srcLonDeg: number, out: GreatCircle): void {
+export function greatCircleInto(
+  stLatDeg: number,
+  stLonDeg: number,
+  srcLatDeg: number,
+  srcLonDeg: number,
+  out: GreatCircle,
+): void {
   const p1 = stLatDeg * DEG;
   const p2 = srcLatDeg * DEG;
   const dl = (srcLonDeg - stLonDeg) * DEG;
-  const s1 = Math.sin(p1), c1 = Math.cos(p1);
-  const s2 = Math.sin(p2), c2 = Math.cos(p2);
-  const sdl = Math.sin(dl), cdl = Math.cos(dl);
+  const s1 = Math.sin(p1),
+    c1 = Math.cos(p1);
+  const s2 = Math.sin(p2),
+    c2 = Math.cos(p2);
+  const sdl = Math.sin(dl),
+    cdl = Math.cos(dl);
   const X = c2 * sdl;
   const Y = c1 * s2 - s1 * c2 * cdl;
   const C = s1 * s2 + c1 * c2 * cdl;
@@ -80,7 +89,7 @@ export function destination(latDeg: number, lonDeg: number, bearing: number, dis
 
 /** Longitude wrapped to (-180, 180]. */
 export function wrapLon(lonDeg: number): number {
-  let l = ((lonDeg + 180) % 360 + 360) % 360 - 180;
+  let l = ((((lonDeg + 180) % 360) + 360) % 360) - 180;
   if (l === -180) l = 180;
   return l;
 }

@@ -49,7 +49,8 @@ export function curveProblem(recipe: CurveRecipe): LeastSquaresProblem {
   const n = CURVE_MODEL_PARAMS[recipe.model];
   if (!n) throw new InversionInputError(`unknown curve model "${recipe.model}"`);
   const { x, y } = recipe;
-  if (x.length === 0 || x.length !== y.length) throw new InversionInputError(`curve data: ${x.length} x values and ${y.length} y values`);
+  if (x.length === 0 || x.length !== y.length)
+    throw new InversionInputError(`curve data: ${x.length} x values and ${y.length} y values`);
   if (x.length < n) throw new InversionInputError(`more parameters (${n}) than data (${x.length})`);
   const inv = Float64Array.from(x, (_, i) => 1 / (recipe.sigma?.[i] ?? 1));
   const g = new Float64Array(n);

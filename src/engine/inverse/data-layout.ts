@@ -47,13 +47,16 @@ export function buildDataLayout(stations: StationSite[], observed: ObservedSerie
   if (observed.length === 0) throw new InversionInputError('observed: no spectra given');
   const stationIndex = new Map(stations.map((s, i) => [s.code, i]));
   for (const b of selection.exclude ?? []) {
-    if (!(b.minHz <= b.maxHz)) throw new InversionInputError(`excluded band ${b.minHz}..${b.maxHz} Hz: minHz is greater than maxHz`);
+    if (!(b.minHz <= b.maxHz))
+      throw new InversionInputError(`excluded band ${b.minHz}..${b.maxHz} Hz: minHz is greater than maxHz`);
   }
   const kept: { f: number[]; p: number[] }[] = observed.map((o, si) => {
     const where = `observed[${si}] (${o.station} ${o.component})`;
     if (!stationIndex.has(o.station)) throw new InversionInputError(`${where}: unknown station "${o.station}"`);
-    if (!(o.component in COMPONENT_CODE)) throw new InversionInputError(`${where}: unknown component "${String(o.component)}" (use Ez, Bns or Bew)`);
-    if (!(o.sigmaLog > 0) || !Number.isFinite(o.sigmaLog)) throw new InversionInputError(`${where}: sigmaLog must be a positive number, got ${o.sigmaLog}`);
+    if (!(o.component in COMPONENT_CODE))
+      throw new InversionInputError(`${where}: unknown component "${String(o.component)}" (use Ez, Bns or Bew)`);
+    if (!(o.sigmaLog > 0) || !Number.isFinite(o.sigmaLog))
+      throw new InversionInputError(`${where}: sigmaLog must be a positive number, got ${o.sigmaLog}`);
     if (o.frequencies.length !== o.power.length) {
       throw new InversionInputError(`${where}: ${o.frequencies.length} frequencies but ${o.power.length} power values`);
     }
@@ -62,9 +65,11 @@ export function buildDataLayout(stations: StationSite[], observed: ObservedSerie
     for (let k = 0; k < o.power.length; k++) {
       const fk = o.frequencies[k];
       const pk = o.power[k];
-      if (!Number.isFinite(fk) || fk <= 0) throw new InversionInputError(`${where}: frequency at bin ${k} must be a positive number, got ${fk}`);
+      if (!Number.isFinite(fk) || fk <= 0)
+        throw new InversionInputError(`${where}: frequency at bin ${k} must be a positive number, got ${fk}`);
       if (excluded(fk, selection)) continue;
-      if (!Number.isFinite(pk) || pk <= 0) throw new InversionInputError(`${where}: power at bin ${k} (${fk} Hz) must be a positive number, got ${pk}`);
+      if (!Number.isFinite(pk) || pk <= 0)
+        throw new InversionInputError(`${where}: power at bin ${k} (${fk} Hz) must be a positive number, got ${pk}`);
       f.push(fk);
       p.push(pk);
     }

@@ -18,7 +18,13 @@ const ZERO_INTENSITY_FLOOR = 1e-9;
 export const binSelectionSchema = z.object({
   mainsHz: z.number().positive().optional(),
   mainsHalfWidthHz: z.number().positive().optional(),
-  exclude: z.array(z.object({ minHz: z.number(), maxHz: z.number() }).refine((b) => b.minHz <= b.maxHz, { message: 'minHz must not exceed maxHz', path: ['maxHz'] })).optional(),
+  exclude: z
+    .array(
+      z
+        .object({ minHz: z.number(), maxHz: z.number() })
+        .refine((b) => b.minHz <= b.maxHz, { message: 'minHz must not exceed maxHz', path: ['maxHz'] }),
+    )
+    .optional(),
 });
 
 function selectionOf(c: CaseFile): BinSelection | undefined {

@@ -36,7 +36,8 @@ export async function invertSeries(
   const count = intervals.length;
   const get = Array.isArray(intervals) ? (i: number) => intervals[i] : intervals.get;
   const from = options.fromIndex ?? 0;
-  if (!Number.isInteger(from) || from < 0 || from > count) throw new InversionInputError(`fromIndex must be within 0..${count}, got ${from}`);
+  if (!Number.isInteger(from) || from < 0 || from > count)
+    throw new InversionInputError(`fromIndex must be within 0..${count}, got ${from}`);
   const starts = options.starts ?? 16;
   const seed = options.seed ?? 1;
   const maxWarm = options.maxWarm ?? Math.floor(starts / 2);

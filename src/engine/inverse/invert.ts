@@ -33,10 +33,18 @@ async function runInversion(
   };
 }
 
-export function invertSpectra(input: SpectrumInversionInput, options: Partial<MultiStartOptions> = {}, callbacks: InversionCallbacks = {}): Promise<InversionResult> {
+export function invertSpectra(
+  input: SpectrumInversionInput,
+  options: Partial<MultiStartOptions> = {},
+  callbacks: InversionCallbacks = {},
+): Promise<InversionResult> {
   return runInversion({ kind: 'spectrum', input }, options, callbacks);
 }
 
-export function invertModes(input: ModeInversionInput, options: Partial<MultiStartOptions> = {}, callbacks: InversionCallbacks = {}): Promise<InversionResult> {
+export function invertModes(
+  input: ModeInversionInput,
+  options: Partial<MultiStartOptions> = {},
+  callbacks: InversionCallbacks = {},
+): Promise<InversionResult> {
   return runInversion({ kind: 'modes', input }, options, callbacks);
 }

@@ -15,12 +15,7 @@ function square(a: Float64Array, n: number): number[][] {
   return Array.from({ length: n }, (_, i) => Array.from(a.subarray(i * n, i * n + n)));
 }
 
-export function buildMinima(
-  outcomes: StartOutcome[],
-  par: Parameterisation,
-  nData: number,
-  scaleErrors: boolean,
-): Minimum[] {
+export function buildMinima(outcomes: StartOutcome[], par: Parameterisation, nData: number, scaleErrors: boolean): Minimum[] {
   const n = par.slots.length;
   const periodic = Uint8Array.from(par.slots, (s) => (s.kind === 'lon' ? 1 : 0));
   const byIndex = new Map(outcomes.map((o) => [o.index, o]));

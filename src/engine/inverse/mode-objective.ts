@@ -15,7 +15,13 @@ import { COMPONENT_CODE, type DataLayout, type SeriesLayout } from './data-layou
 import { InversionInputError } from './errors';
 import type { KernelSampler } from './kernel-sampler';
 import type { Parameterisation } from './parameters';
-import { modeSeriesSetup, predictedModeDerivatives, predictedSeriesModes, type ModeSeriesSetup, type PredictedSeriesModes } from './predicted-modes';
+import {
+  modeSeriesSetup,
+  predictedModeDerivatives,
+  predictedSeriesModes,
+  type ModeSeriesSetup,
+  type PredictedSeriesModes,
+} from './predicted-modes';
 import { spectrumProblem } from './spectrum-objective';
 import type { ObservedModes, StationSite } from './types';
 
@@ -40,7 +46,12 @@ export interface ModeProblem extends LeastSquaresProblem {
   compare(p: Float64Array): ModeComparison[];
 }
 
-export function modeProblem(stations: StationSite[], modes: ObservedModes[], kernel: KernelSampler, par: Parameterisation): ModeProblem {
+export function modeProblem(
+  stations: StationSite[],
+  modes: ObservedModes[],
+  kernel: KernelSampler,
+  par: Parameterisation,
+): ModeProblem {
   const stationIndex = new Map(stations.map((s, i) => [s.code, i]));
   const setups: ModeSeriesSetup[] = [];
   const series: SeriesLayout[] = [];
@@ -53,15 +64,37 @@ export function modeProblem(stations: StationSite[], modes: ObservedModes[], ker
     if (m.modes.length === 0) throw new InversionInputError(`${where}: no observed modes`);
     m.modes.forEach((md, k) => {
       const at = `${where}.modes[${k}]`;
-      for (const [name, v] of [['frequency', md.frequency], ['intensity', md.intensity], ['halfWidth', md.halfWidth], ['sigmaFrequency', md.sigmaFrequency], ['sigmaLogIntensity', md.sigmaLogIntensity], ['sigmaHalfWidth', md.sigmaHalfWidth]] as const) {
+      for (const [name, v] of [
+        ['frequency', md.frequency],
+        ['intensity', md.intensity],
+        ['halfWidth', md.halfWidth],
+        ['sigmaFrequency', md.sigmaFrequency],
+        ['sigmaLogIntensity', md.sigmaLogIntensity],
+        ['sigmaHalfWidth', md.sigmaHalfWidth],
+      ] as const) {
         if (!(v > 0) || !Number.isFinite(v)) throw new InversionInputError(`${at}.${name} must be a positive number, got ${v}`);
       }
-      obs.push({ f: md.frequency, lnA: Math.log(md.intensity), g: md.halfWidth, sf: md.sigmaFrequency, sA: md.sigmaLogIntensity, sg: md.sigmaHalfWidth });
+      obs.push({
+        f: md.frequency,
+        lnA: Math.log(md.intensity),
+        g: md.halfWidth,
+        sf: md.sigmaFrequency,
+        sA: md.sigmaLogIntensity,
+        sg: md.sigmaHalfWidth,
+      });
     });
     const setup = modeSeriesSetup(m, kernel.freqs, where);
     setups.push(setup);
     const nb = setup.bins.length;
-    series.push({ station: stationIndex.get(m.station)!, component: COMPONENT_CODE[m.component], bins: setup.bins, lnObs: new Float64Array(nb), obs: new Float64Array(nb).fill(1), invSigma: 1, offset });
+    series.push({
+      station: stationIndex.get(m.station)!,
+      component: COMPONENT_CODE[m.component],
+      bins: setup.bins,
+      lnObs: new Float64Array(nb),
+      obs: new Float64Array(nb).fill(1),
+      invSigma: 1,
+      offset,
+    });
     offset += nb;
   });
   const nModes = obs.length;

@@ -32,14 +32,21 @@ export const observedModesSchema = z.looseObject({
   station: z.string().min(1),
   component: z.enum(['Ez', 'Bns', 'Bew']),
   modes: z.array(observedModeSchema).min(1),
-  fit: z.looseObject({
-    modes: z.number().int().min(MIN_MODES).max(MAX_MODES),
-    minHz: positive.optional(),
-    maxHz: positive.optional(),
-    excludeLines: z.array(z.looseObject({ frequencyHz: positive, halfWidthHz: positive })).optional(),
-    excludeRanges: z.array(z.looseObject({ minHz: positive, maxHz: positive })
-      .refine((r) => r.minHz <= r.maxHz, { message: 'the range must not end below its start', path: ['maxHz'] })).optional(),
-  }).optional(),
+  fit: z
+    .looseObject({
+      modes: z.number().int().min(MIN_MODES).max(MAX_MODES),
+      minHz: positive.optional(),
+      maxHz: positive.optional(),
+      excludeLines: z.array(z.looseObject({ frequencyHz: positive, halfWidthHz: positive })).optional(),
+      excludeRanges: z
+        .array(
+          z
+            .looseObject({ minHz: positive, maxHz: positive })
+            .refine((r) => r.minHz <= r.maxHz, { message: 'the range must not end below its start', path: ['maxHz'] }),
+        )
+        .optional(),
+    })
+    .optional(),
 });
 
 export type CaseModes = z.infer<typeof observedModesSchema>;
@@ -48,20 +55,38 @@ export type CaseModes = z.infer<typeof observedModesSchema>;
 export const invertAnyCaseSchema = caseSchema.superRefine((c, ctx) => {
   const raw = (c as { observedModes?: unknown }).observedModes;
   const hasSpectra = (c.observed?.length ?? 0) > 0;
-  if (raw !== undefined && hasSpectra) ctx.addIssue({ code: 'custom', path: ['observedModes'], message: 'give either observed spectra or observedModes, not both' });
-  if (raw === undefined && !hasSpectra) ctx.addIssue({ code: 'custom', path: ['observed'], message: 'invert needs at least one observed spectrum (or observedModes)' });
-  if (!c.unknowns || c.unknowns.length === 0) ctx.addIssue({ code: 'custom', path: ['unknowns'], message: 'invert needs at least one unknown source' });
+  if (raw !== undefined && hasSpectra)
+    ctx.addIssue({ code: 'custom', path: ['observedModes'], message: 'give either observed spectra or observedModes, not both' });
+  if (raw === undefined && !hasSpectra)
+    ctx.addIssue({
+      code: 'custom',
+      path: ['observed'],
+      message: 'invert needs at least one observed spectrum (or observedModes)',
+    });
+  if (!c.unknowns || c.unknowns.length === 0)
+    ctx.addIssue({ code: 'custom', path: ['unknowns'], message: 'invert needs at least one unknown source' });
   if (raw === undefined) return;
   const parsed = z.array(observedModesSchema).min(1).safeParse(raw);
   if (!parsed.success) {
-    for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', path: ['observedModes', ...issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p))], message: issue.message });
+    for (const issue of parsed.error.issues)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['observedModes', ...issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p))],
+        message: issue.message,
+      });
     return;
   }
   const comps = new Map(c.stations.map((s) => [s.code, new Set(s.components)]));
   parsed.data.forEach((o, i) => {
     const mine = comps.get(o.station);
-    if (!mine) ctx.addIssue({ code: 'custom', path: ['observedModes', i, 'station'], message: `no station with code "${o.station}"` });
-    else if (!mine.has(o.component)) ctx.addIssue({ code: 'custom', path: ['observedModes', i, 'component'], message: `station "${o.station}" does not list component ${o.component}` });
+    if (!mine)
+      ctx.addIssue({ code: 'custom', path: ['observedModes', i, 'station'], message: `no station with code "${o.station}"` });
+    else if (!mine.has(o.component))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['observedModes', i, 'component'],
+        message: `station "${o.station}" does not list component ${o.component}`,
+      });
   });
 });
 
@@ -80,9 +105,25 @@ export function modeInputFromCase(c: CaseFile): ModeInversionInput {
     modes: modes.map((o) => ({
       station: o.station,
       component: o.component as Component,
-      modes: o.modes.map((m) => ({ frequency: m.frequency, intensity: m.intensity, halfWidth: m.halfWidth, sigmaFrequency: m.sigmaFrequency, sigmaLogIntensity: m.sigmaLogIntensity, sigmaHalfWidth: m.sigmaHalfWidth })),
-      ...(o.fit ? { fit: { modes: o.fit.modes, minHz: o.fit.minHz, maxHz: o.fit.maxHz, excludeLines: o.fit.excludeLines?.map((l) => ({ frequencyHz: l.frequencyHz, halfWidthHz: l.halfWidthHz })),
-        excludeRanges: o.fit.excludeRanges?.map((r) => ({ minHz: r.minHz, maxHz: r.maxHz })) } } : {}),
+      modes: o.modes.map((m) => ({
+        frequency: m.frequency,
+        intensity: m.intensity,
+        halfWidth: m.halfWidth,
+        sigmaFrequency: m.sigmaFrequency,
+        sigmaLogIntensity: m.sigmaLogIntensity,
+        sigmaHalfWidth: m.sigmaHalfWidth,
+      })),
+      ...(o.fit
+        ? {
+            fit: {
+              modes: o.fit.modes,
+              minHz: o.fit.minHz,
+              maxHz: o.fit.maxHz,
+              excludeLines: o.fit.excludeLines?.map((l) => ({ frequencyHz: l.frequencyHz, halfWidthHz: l.halfWidthHz })),
+              excludeRanges: o.fit.excludeRanges?.map((r) => ({ minHz: r.minHz, maxHz: r.maxHz })),
+            },
+          }
+        : {}),
     })),
     unknowns: unknownsFromCase(c),
   };

@@ -44,9 +44,11 @@ export function resolveMultiStartOptions(o: Partial<MultiStartOptions> = {}): Mu
     scaleErrors: o.scaleErrors ?? false,
     callerWorks: o.callerWorks ?? true,
   };
-  if (!Number.isInteger(r.starts) || r.starts < 1) throw new InversionInputError(`starts must be a whole number >= 1, got ${r.starts}`);
+  if (!Number.isInteger(r.starts) || r.starts < 1)
+    throw new InversionInputError(`starts must be a whole number >= 1, got ${r.starts}`);
   if (!Number.isInteger(r.seed) || r.seed < 0) throw new InversionInputError(`seed must be a whole number >= 0, got ${r.seed}`);
-  if (!Number.isInteger(r.threads) || r.threads < 1) throw new InversionInputError(`threads must be a whole number >= 1, got ${r.threads}`);
+  if (!Number.isInteger(r.threads) || r.threads < 1)
+    throw new InversionInputError(`threads must be a whole number >= 1, got ${r.threads}`);
   if (r.warm.length > r.starts) r.warm = r.warm.slice(0, r.starts);
   return r;
 }

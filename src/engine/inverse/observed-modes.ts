@@ -37,7 +37,12 @@ export interface PropagatedErrors {
  * scatter (e.g. hannWelchScatter(segments) for the pipeline's spectra) through the fit described by
  * `modes.fit` (the pipeline's estimator).
  */
-export function propagatedModeErrors(modes: ObservedModes, grid: Float64Array, power: ArrayLike<number>, scatter: BinScatter): PropagatedErrors {
+export function propagatedModeErrors(
+  modes: ObservedModes,
+  grid: Float64Array,
+  power: ArrayLike<number>,
+  scatter: BinScatter,
+): PropagatedErrors {
   const setup = modeSeriesSetup(modes, grid, `${modes.station} ${modes.component}`);
   const y = Float64Array.from(setup.bins, (b) => power[b]);
   const est = predictedSeriesModes(setup, y);
@@ -51,20 +56,38 @@ export function propagatedModeErrors(modes: ObservedModes, grid: Float64Array, p
   return {
     sigmas: modes.modes.map((_, k) => [sd(3 * k), sd(3 * k + 1), sd(3 * k + 2)]),
     onEdge: setup.slots.map((s) => {
-      const f = q[3 * s], g = q[3 * s + 2];
-      return !(q[3 * s + 1] > 0) || Math.abs(f - est.lower[3 * s]) < EDGE_HZ || Math.abs(f - est.upper[3 * s]) < EDGE_HZ
-        || Math.abs(g - MODE_HALF_WIDTH_MIN_HZ) < EDGE_HZ || Math.abs(g - MODE_HALF_WIDTH_MAX_HZ) < EDGE_HZ;
+      const f = q[3 * s],
+        g = q[3 * s + 2];
+      return (
+        !(q[3 * s + 1] > 0) ||
+        Math.abs(f - est.lower[3 * s]) < EDGE_HZ ||
+        Math.abs(f - est.upper[3 * s]) < EDGE_HZ ||
+        Math.abs(g - MODE_HALF_WIDTH_MIN_HZ) < EDGE_HZ ||
+        Math.abs(g - MODE_HALF_WIDTH_MAX_HZ) < EDGE_HZ
+      );
     }),
   };
 }
 
 export function observedModesOf(series: ObservedSeries, options: ObservedModeOptions): ObservedModes {
   const grid = Float64Array.from(series.frequencies);
-  const fit = fitModes(grid, series.power, { modes: options.modes, minHz: options.minHz, maxHz: options.maxHz, averages: 1 / series.sigmaLog ** 2 });
+  const fit = fitModes(grid, series.power, {
+    modes: options.modes,
+    minHz: options.minHz,
+    maxHz: options.maxHz,
+    averages: 1 / series.sigmaLog ** 2,
+  });
   const all: ObservedModes = {
     station: series.station,
     component: series.component,
-    modes: fit.modes.map((m) => ({ frequency: m.frequency, intensity: m.amplitude + fit.background.b0 + fit.background.b1 * m.frequency, halfWidth: m.halfWidth, sigmaFrequency: 1, sigmaLogIntensity: 1, sigmaHalfWidth: 1 })),
+    modes: fit.modes.map((m) => ({
+      frequency: m.frequency,
+      intensity: m.amplitude + fit.background.b0 + fit.background.b1 * m.frequency,
+      halfWidth: m.halfWidth,
+      sigmaFrequency: 1,
+      sigmaLogIntensity: 1,
+      sigmaHalfWidth: 1,
+    })),
     fit: { modes: options.modes, ...fit.band },
   };
   const { sigmas, onEdge } = propagatedModeErrors(all, grid, series.power, { averages: 1 / series.sigmaLog ** 2 });

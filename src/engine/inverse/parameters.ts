@@ -47,7 +47,8 @@ function range(v: Range | number | undefined, where: string): { min: number; max
     if (typeof v === 'number' && !Number.isFinite(v)) throw new InversionInputError(`${where} must be a finite number`);
     return v;
   }
-  if (!Number.isFinite(v.min) || !Number.isFinite(v.max)) throw new InversionInputError(`${where}: min and max must be finite numbers`);
+  if (!Number.isFinite(v.min) || !Number.isFinite(v.max))
+    throw new InversionInputError(`${where}: min and max must be finite numbers`);
   return v;
 }
 
@@ -55,12 +56,14 @@ function range(v: Range | number | undefined, where: string): { min: number; max
 function footprintNodes(u: RegionUnknown, where: string): Float64Array {
   const f = u.footprint!;
   if (f.length === 0) throw new InversionInputError(`${where}.footprint has no nodes`);
-  if (typeof u.lat !== 'number' || typeof u.lon !== 'number') throw new InversionInputError(`${where}: a region with a fixed footprint cannot move (lat and lon must be numbers)`);
+  if (typeof u.lat !== 'number' || typeof u.lon !== 'number')
+    throw new InversionInputError(`${where}: a region with a fixed footprint cannot move (lat and lon must be numbers)`);
   if (u.spread !== undefined) throw new InversionInputError(`${where}: a region with a fixed footprint has no spread`);
   let total = 0;
   const out = new Float64Array(f.length * SPOT_STRIDE);
   f.forEach((q, k) => {
-    if (!(q.weight > 0) || !(Math.abs(q.lat) <= 90) || !Number.isFinite(q.lon)) throw new InversionInputError(`${where}.footprint[${k}] needs lat within -90..90, a finite lon and a weight above 0`);
+    if (!(q.weight > 0) || !(Math.abs(q.lat) <= 90) || !Number.isFinite(q.lon))
+      throw new InversionInputError(`${where}.footprint[${k}] needs lat within -90..90, a finite lon and a weight above 0`);
     total += q.weight;
     out.set([q.lat, q.lon, q.weight, 1, 0, 0, 1], k * SPOT_STRIDE);
   });

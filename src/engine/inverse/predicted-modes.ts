@@ -77,12 +77,15 @@ export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: str
   const slots = m.modes.map((md, k) => {
     const s = slotOf(md.frequency);
     if (Math.abs(md.frequency - USUAL_MODE_FREQUENCIES_HZ[s]) > MODE_FREQUENCY_WINDOW_HZ * (1 + 1e-9)) {
-      throw new InversionInputError(`${where}.modes[${k}]: ${md.frequency} Hz lies in no mode window (usual frequency ± ${MODE_FREQUENCY_WINDOW_HZ} Hz)`);
+      throw new InversionInputError(
+        `${where}.modes[${k}]: ${md.frequency} Hz lies in no mode window (usual frequency ± ${MODE_FREQUENCY_WINDOW_HZ} Hz)`,
+      );
     }
     return s;
   });
   slots.forEach((s, k) => {
-    if (slots.indexOf(s) !== k) throw new InversionInputError(`${where}.modes[${k}]: two observed modes lie in the window of mode ${s + 1}`);
+    if (slots.indexOf(s) !== k)
+      throw new InversionInputError(`${where}.modes[${k}]: two observed modes lie in the window of mode ${s + 1}`);
   });
   const modes = m.fit?.modes ?? Math.min(MAX_MODES, Math.max(MIN_MODES, Math.max(...slots) + 1));
   let o;
@@ -97,7 +100,9 @@ export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: str
   });
   const top = grid[grid.length - 1];
   if (o.minHz < grid[0] - 1e-9 || o.maxHz > top + 1e-9) {
-    throw new InversionInputError(`${where}.fit: the fitted band ${o.minHz}–${o.maxHz} Hz reaches outside the model grid ${grid[0]}–${top} Hz`);
+    throw new InversionInputError(
+      `${where}.fit: the fitted band ${o.minHz}–${o.maxHz} Hz reaches outside the model grid ${grid[0]}–${top} Hz`,
+    );
   }
   // Bins the observed fit left out (bridged interference lines): by line suppression's own rule for lines,
   // the stored runs of left-out bins for ranges.
@@ -107,14 +112,27 @@ export function modeSeriesSetup(m: ObservedModes, grid: Float64Array, where: str
   const idx: number[] = [];
   for (let i = 0; i < grid.length; i++) if (grid[i] >= o.minHz && grid[i] <= o.maxHz && !left(grid[i])) idx.push(i);
   const np = paramCount(modes);
-  if (idx.length < 2 * np) throw new InversionInputError(`${where}: only ${idx.length} grid bins between ${o.minHz} and ${o.maxHz} Hz for a fit of ${modes} modes`);
+  if (idx.length < 2 * np)
+    throw new InversionInputError(
+      `${where}: only ${idx.length} grid bins between ${o.minHz} and ${o.maxHz} Hz for a fit of ${modes} modes`,
+    );
   const freqs = Float64Array.from(idx, (i) => grid[i]);
   o.guessHz.forEach((u, n) => {
     if (u + MODE_FREQUENCY_WINDOW_HZ < freqs[0] || u - MODE_FREQUENCY_WINDOW_HZ > freqs[freqs.length - 1]) {
-      throw new InversionInputError(`${where}: mode ${n + 1} (near ${u} Hz) lies outside the grid's part of the fitted band, ${freqs[0]}–${freqs[freqs.length - 1]} Hz`);
+      throw new InversionInputError(
+        `${where}: mode ${n + 1} (near ${u} Hz) lies outside the grid's part of the fitted band, ${freqs[0]}–${freqs[freqs.length - 1]} Hz`,
+      );
     }
   });
-  return { bins: Int32Array.from(idx), freqs, modes, guessHz: o.guessHz, slots, lm: o.lm, observed: m.modes.map((md) => ({ frequency: md.frequency, halfWidth: md.halfWidth })) };
+  return {
+    bins: Int32Array.from(idx),
+    freqs,
+    modes,
+    guessHz: o.guessHz,
+    slots,
+    lm: o.lm,
+    observed: m.modes.map((md) => ({ frequency: md.frequency, halfWidth: md.halfWidth })),
+  };
 }
 
 /** C1 floor: x (x >= 2m), m (1 + exp(x/m - 2)) below; value and derivative. */
@@ -131,7 +149,17 @@ export function predictedSeriesModes(setup: ModeSeriesSetup, power: ArrayLike<nu
   const unit = raw[medianBin];
   const data = raw.map((v) => v / unit);
   const guess = initialGuess(setup.freqs, data, setup.guessHz);
-  const fit = twoStageLorentzianFit({ modes: setup.modes, freqs: setup.freqs, data, rel: 1, start: guess.start, lower: guess.lower, upper: guess.upper, lm: setup.lm, polish: PREDICTED_MODE_NEWTON_STEPS });
+  const fit = twoStageLorentzianFit({
+    modes: setup.modes,
+    freqs: setup.freqs,
+    data,
+    rel: 1,
+    start: guess.start,
+    lower: guess.lower,
+    upper: guess.upper,
+    lm: setup.lm,
+    polish: PREDICTED_MODE_NEWTON_STEPS,
+  });
   const q = fit.final.params;
   const b0 = 3 * setup.modes;
   const values = new Float64Array(3 * setup.slots.length);
@@ -140,7 +168,10 @@ export function predictedSeriesModes(setup: ModeSeriesSetup, power: ArrayLike<nu
     const [peak] = softFloor(q[3 * s + 1] + q[b0] + q[b0 + 1] * f, PREDICTED_PEAK_FLOOR);
     // No mode found (amplitude held at zero): frequency and half-width are undetermined; read them as the observed ones.
     const absent = !(q[3 * s + 1] > 0);
-    values.set([absent ? setup.observed[k].frequency : f, Math.log(peak * unit), absent ? setup.observed[k].halfWidth : q[3 * s + 2]], 3 * k);
+    values.set(
+      [absent ? setup.observed[k].frequency : f, Math.log(peak * unit), absent ? setup.observed[k].halfWidth : q[3 * s + 2]],
+      3 * k,
+    );
   });
   return { unit, medianBin, data, lower: guess.lower, upper: guess.upper, fit, values };
 }
@@ -150,7 +181,13 @@ export function predictedSeriesModes(setup: ModeSeriesSetup, power: ArrayLike<nu
  * parameters, given d(power of the setup's bins)/dp (raw SI, nb x n row-major); dPowerDp null gives
  * the derivatives with respect to the bins' power itself (n = nb).
  */
-export function predictedModeDerivatives(setup: ModeSeriesSetup, est: PredictedSeriesModes, dPowerDp: ArrayLike<number> | null, n: number, out: Float64Array): void {
+export function predictedModeDerivatives(
+  setup: ModeSeriesSetup,
+  est: PredictedSeriesModes,
+  dPowerDp: ArrayLike<number> | null,
+  n: number,
+  out: Float64Array,
+): void {
   const nbins = setup.freqs.length;
   let dy: Float64Array | null = null;
   if (dPowerDp) {
@@ -159,7 +196,16 @@ export function predictedModeDerivatives(setup: ModeSeriesSetup, est: PredictedS
   }
   const { fit } = est;
   const dq = fitSensitivity(
-    { modes: setup.modes, freqs: setup.freqs, data: est.data, first: fit.first.params, final: fit.final.params, firstModel: fit.firstModel, lower: est.lower, upper: est.upper },
+    {
+      modes: setup.modes,
+      freqs: setup.freqs,
+      data: est.data,
+      first: fit.first.params,
+      final: fit.final.params,
+      firstModel: fit.firstModel,
+      lower: est.lower,
+      upper: est.upper,
+    },
     dy,
     n,
   );

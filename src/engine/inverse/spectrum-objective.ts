@@ -43,7 +43,12 @@ export interface SpectrumProblem extends LeastSquaresProblem {
   refineStart(p: Float64Array): void;
 }
 
-export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: Parameterisation, scale: MisfitScale = 'log'): SpectrumProblem {
+export function spectrumProblem(
+  layout: DataLayout,
+  kernel: KernelSampler,
+  par: Parameterisation,
+  scale: MisfitScale = 'log',
+): SpectrumProblem {
   if (kernel.n !== layout.freqs.length) throw new Error('kernel grid does not match the data grid');
   const nS = layout.stations.length;
   const nR = par.regions.length;
@@ -90,7 +95,9 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
       inten[r] = Math.exp(regionValue(reg, 'intensity', p));
       if (still[r] && sampledOnce) continue;
       spread[r] = reg.hasSpread ? regionValue(reg, 'spread', p) : 0;
-      nodeCount[r] = reg.footprint ? maxNodes[r] : spotNodesInto(regionValue(reg, 'lat', p), regionValue(reg, 'lon', p), spread[r], nodes[r]);
+      nodeCount[r] = reg.footprint
+        ? maxNodes[r]
+        : spotNodesInto(regionValue(reg, 'lat', p), regionValue(reg, 'lon', p), spread[r], nodes[r]);
       for (let s = 0; s < nS; s++) {
         if (!used[s]) continue;
         const i = s * nR + r;
@@ -139,9 +146,26 @@ export function spectrumProblem(layout: DataLayout, kernel: KernelSampler, par: 
       for (let s = 0; s < nS; s++) {
         if (!used[s]) continue;
         const i = s * nR + r;
-        effectiveKernels(kernel, layout.stations[s], scratchNodes, spotNodesInto(lat, lon, hi, scratchNodes), scratchBuf, scratchGc, effPlus[i]);
-        effectiveKernels(kernel, layout.stations[s], scratchNodes, spotNodesInto(lat, lon, lo, scratchNodes), scratchBuf, scratchGc, effMinus[i]);
-        for (let c = 0; c < 3; c++) for (let k = 0; k < nb; k++) effPlus[i][c][k] = (effPlus[i][c][k] - effMinus[i][c][k]) / (hi - lo);
+        effectiveKernels(
+          kernel,
+          layout.stations[s],
+          scratchNodes,
+          spotNodesInto(lat, lon, hi, scratchNodes),
+          scratchBuf,
+          scratchGc,
+          effPlus[i],
+        );
+        effectiveKernels(
+          kernel,
+          layout.stations[s],
+          scratchNodes,
+          spotNodesInto(lat, lon, lo, scratchNodes),
+          scratchBuf,
+          scratchGc,
+          effMinus[i],
+        );
+        for (let c = 0; c < 3; c++)
+          for (let k = 0; k < nb; k++) effPlus[i][c][k] = (effPlus[i][c][k] - effMinus[i][c][k]) / (hi - lo);
       }
     }
     for (const se of layout.series) {

@@ -8,7 +8,9 @@
  */
 import { mulberry32 } from '../random';
 
-const PRIMES = [2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43, 47, 53, 59, 61, 67, 71, 73, 79, 83, 89, 97, 101, 103, 107, 109, 113];
+const PRIMES = [
+  2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43, 47, 53, 59, 61, 67, 71, 73, 79, 83, 89, 97, 101, 103, 107, 109, 113,
+];
 
 /** Radical inverse of i in the given base (van der Corput). */
 export function radicalInverse(i: number, base: number): number {
@@ -39,7 +41,13 @@ export function haltonPoint(i: number, shift: Float64Array, out: Float64Array): 
 }
 
 /** Start i mapped onto the box [lower, upper] (infinite bounds fall back to `fallback`). */
-export function startPoint(i: number, seed: number, lower: Float64Array, upper: Float64Array, fallback?: Float64Array): Float64Array {
+export function startPoint(
+  i: number,
+  seed: number,
+  lower: Float64Array,
+  upper: Float64Array,
+  fallback?: Float64Array,
+): Float64Array {
   const n = lower.length;
   const u = haltonPoint(i, haltonShift(seed, n), new Float64Array(n));
   const out = new Float64Array(n);

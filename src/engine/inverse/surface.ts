@@ -49,7 +49,8 @@ export function misfitSurface(
   if (ix < 0) throw new InversionInputError(`surface: "${req.xName}" is not a free parameter (free: ${par.names.join(', ')})`);
   if (iy < 0) throw new InversionInputError(`surface: "${req.yName}" is not a free parameter (free: ${par.names.join(', ')})`);
   if (ix === iy) throw new InversionInputError('surface: the two parameters must differ');
-  if (req.at.length !== par.names.length) throw new InversionInputError(`surface: the minimum has ${req.at.length} values, expected ${par.names.length}`);
+  if (req.at.length !== par.names.length)
+    throw new InversionInputError(`surface: the minimum has ${req.at.length} values, expected ${par.names.length}`);
   if (req.x.length === 0 || req.y.length === 0) throw new InversionInputError('surface: empty grid');
   const r = new Float64Array(problem.nResiduals);
   const p = Float64Array.from(req.at);
@@ -65,7 +66,13 @@ export function misfitSurface(
         problem.residuals(p, r);
         return sumSquares(r);
       }
-      const sub = holdParameters(problem, new Map([[ix, xi], [iy, yi]]));
+      const sub = holdParameters(
+        problem,
+        new Map([
+          [ix, xi],
+          [iy, yi],
+        ]),
+      );
       return levenbergMarquardt(sub, sub.reduce(req.at), req.lm ?? {}).chi2;
     }),
   );

@@ -78,7 +78,9 @@ export interface ObservedModes {
    * (the station's mains and listed lines, which the pipeline leaves out of fits of time series).
    */
   fit?: {
-    modes: number; minHz?: number; maxHz?: number;
+    modes: number;
+    minHz?: number;
+    maxHz?: number;
     excludeLines?: { frequencyHz: number; halfWidthHz: number }[];
     excludeRanges?: { minHz: number; maxHz: number }[];
     exclusionsAssumed?: boolean;

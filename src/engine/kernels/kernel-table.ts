@@ -19,7 +19,6 @@ import { createHermiteSampler } from './hermite-sampler';
 
 export { createKernelSample, type KernelSample, type KernelTable } from './kernel-sample';
 
-
 export type KernelTableOptions = { stepDeg: number; minThetaDeg: number };
 
 export function resolveKernelTableOptions(o: Partial<KernelTableOptions> = {}): KernelTableOptions {
@@ -42,7 +41,8 @@ export function getKernelTable(cavity: Cavity, freqs: Float64Array, options?: Pa
   cache.set(key, table);
   // evict least recently used tables beyond the count or memory budget (always keep the newest)
   const bytes = () => [...cache.values()].reduce((a, t) => a + t.nodes * t.n * 48, 0);
-  while (cache.size > 1 && (cache.size > KERNEL_CACHE_SIZE || bytes() > KERNEL_CACHE_BYTES)) cache.delete(cache.keys().next().value as string);
+  while (cache.size > 1 && (cache.size > KERNEL_CACHE_SIZE || bytes() > KERNEL_CACHE_BYTES))
+    cache.delete(cache.keys().next().value as string);
   return table;
 }
 
@@ -75,7 +75,18 @@ export function buildKernelTable(cavity: Cavity, freqs: Float64Array, options?: 
 }
 
 /** ln|X|^2 + lnK, h * 2 Re(X'/X), h^2 * 2 Re(X''/X - (X'/X)^2) into data[at..at+2]. */
-function logDerivs(xr: number, xi: number, dr: number, di: number, d2r: number, d2i: number, lnK: number, h: number, data: Float64Array, at: number): void {
+function logDerivs(
+  xr: number,
+  xi: number,
+  dr: number,
+  di: number,
+  d2r: number,
+  d2i: number,
+  lnK: number,
+  h: number,
+  data: Float64Array,
+  at: number,
+): void {
   const m = xr * xr + xi * xi;
   // r1 = X'/X, r2 = X''/X
   const r1r = (dr * xr + di * xi) / m;
@@ -85,7 +96,6 @@ function logDerivs(xr: number, xi: number, dr: number, di: number, d2r: number, 
   data[at + 1] = h * 2 * r1r;
   data[at + 2] = h * h * 2 * (r2r - (r1r * r1r - r1i * r1i));
 }
-
 
 /** Empties the in-process table cache (tests, memory pressure). */
 export function clearKernelTableCache(): void {

@@ -41,7 +41,13 @@ export function hannWelchScatter(segments: number): BinScatter {
  * cov(q) = G V G^T (nq x nq, row-major) for rows G = dq/dy (nq x nb, row-major), bins y (nb) on grid
  * indexes `index` (nb, increasing; default 0, 1, 2, ...).
  */
-export function propagateBinScatter(rows: Float64Array, nq: number, y: ArrayLike<number>, scatter: BinScatter, index?: ArrayLike<number>): Float64Array {
+export function propagateBinScatter(
+  rows: Float64Array,
+  nq: number,
+  y: ArrayLike<number>,
+  scatter: BinScatter,
+  index?: ArrayLike<number>,
+): Float64Array {
   const nb = y.length;
   if (rows.length !== nq * nb) throw new RangeError(`rows hold ${rows.length} values for ${nq} x ${nb}`);
   if (!(scatter.averages > 0)) throw new RangeError(`averages must be positive, got ${scatter.averages}`);

@@ -9,7 +9,12 @@ import { EXCLUDED_RANGE_SLACK_HZ } from '@/src/engine/tolerances';
 import type { ExcludedRange } from './types';
 
 /** Runs of bins with `exclude[i]` set and minHz <= f <= maxHz, in increasing order. */
-export function excludedRanges(frequencies: ArrayLike<number>, exclude: ArrayLike<number> | undefined, minHz: number, maxHz: number): ExcludedRange[] {
+export function excludedRanges(
+  frequencies: ArrayLike<number>,
+  exclude: ArrayLike<number> | undefined,
+  minHz: number,
+  maxHz: number,
+): ExcludedRange[] {
   const out: ExcludedRange[] = [];
   if (!exclude) return out;
   let open: ExcludedRange | null = null;

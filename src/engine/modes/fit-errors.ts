@@ -32,7 +32,11 @@ import { paramCount } from './types';
  * scattering as `scatter` says; `index` gives the bins' places on the spectrum's grid (for the bin correlation).
  * Parameters the fit holds on a bound get zero rows (they do not move with the data).
  */
-export function propagatedFitCovariance(input: FitSensitivityInput, scatter: BinScatter, index?: ArrayLike<number>): Float64Array {
+export function propagatedFitCovariance(
+  input: FitSensitivityInput,
+  scatter: BinScatter,
+  index?: ArrayLike<number>,
+): Float64Array {
   const g = fitSensitivity(input, null, input.freqs.length);
   return propagateBinScatter(g, paramCount(input.modes), input.data, scatter, index);
 }

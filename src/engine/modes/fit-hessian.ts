@@ -16,12 +16,18 @@ import { paramCount } from './types';
 export function addCurvature(q: Float64Array, modes: number, freqs: Float64Array, c: Float64Array, h: Float64Array): void {
   const np = paramCount(modes);
   for (let n = 0; n < modes; n++) {
-    const a = q[3 * n + 1], g = q[3 * n + 2];
-    let ff = 0, fa = 0, fg = 0, ag = 0, gg = 0;
+    const a = q[3 * n + 1],
+      g = q[3 * n + 2];
+    let ff = 0,
+      fa = 0,
+      fg = 0,
+      ag = 0,
+      gg = 0;
     for (let k = 0; k < freqs.length; k++) {
       const u = (freqs[k] - q[3 * n]) / g;
       const l = 1 / (1 + u * u);
-      const l2 = l * l, l3 = l2 * l;
+      const l2 = l * l,
+        l3 = l2 * l;
       const w = c[k];
       ff -= w * ((2 * a) / (g * g)) * (l2 - 4 * u * u * l3);
       fa += w * ((2 * u * l2) / g);
@@ -34,7 +40,11 @@ export function addCurvature(q: Float64Array, modes: number, freqs: Float64Array
       h[(i + r) * np + i + s] += v;
       if (r !== s) h[(i + s) * np + i + r] += v;
     };
-    put(0, 0, ff); put(0, 1, fa); put(0, 2, fg); put(1, 2, ag); put(2, 2, gg);
+    put(0, 0, ff);
+    put(0, 1, fa);
+    put(0, 2, fg);
+    put(1, 2, ag);
+    put(2, 2, gg);
   }
 }
 
@@ -53,7 +63,6 @@ export function heldSet(q: Float64Array, modes: number, lower: Float64Array, upp
   for (let n = 0; n < modes; n++) if (held[3 * n + 1] && !(q[3 * n + 1] > 0)) held[3 * n] = held[3 * n + 2] = 1;
   return held;
 }
-
 
 /** Solve H X = B (np x n, in place in B) over the parameters not held; held rows of X are 0. */
 export function solveFree(h: Float64Array, b: Float64Array, np: number, n: number, held: Uint8Array): void {
@@ -76,4 +85,3 @@ export function solveFree(h: Float64Array, b: Float64Array, np: number, n: numbe
     for (let r = 0; r < nf; r++) b[free[r] * n + c] = Number.isFinite(col[r]) ? col[r] : 0;
   }
 }
-

@@ -29,19 +29,27 @@ import { twoStageLorentzianFit } from './two-stage-fit';
 
 export class ModeFitError extends Error {}
 
-export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number>, options: Partial<ModeFitOptions> = {}): ModeFit {
-  if (frequencies.length !== power.length) throw new ModeFitError(`frequencies has ${frequencies.length} values but power has ${power.length}`);
+export function fitModes(
+  frequencies: ArrayLike<number>,
+  power: ArrayLike<number>,
+  options: Partial<ModeFitOptions> = {},
+): ModeFit {
+  if (frequencies.length !== power.length)
+    throw new ModeFitError(`frequencies has ${frequencies.length} values but power has ${power.length}`);
   const o = resolveModeFitOptions(options, frequencies);
   const idx: number[] = [];
   for (let i = 0; i < frequencies.length; i++) {
     const f = frequencies[i];
     if (f < o.minHz || f > o.maxHz || (o.exclude && o.exclude[i])) continue;
-    if (!Number.isFinite(power[i]) || !(power[i] > 0)) throw new ModeFitError(`power[${i}] must be a positive number, got ${power[i]}`);
-    if (idx.length && !(f > frequencies[idx[idx.length - 1]])) throw new ModeFitError(`frequencies must increase (frequencies[${i}] = ${f})`);
+    if (!Number.isFinite(power[i]) || !(power[i] > 0))
+      throw new ModeFitError(`power[${i}] must be a positive number, got ${power[i]}`);
+    if (idx.length && !(f > frequencies[idx[idx.length - 1]]))
+      throw new ModeFitError(`frequencies must increase (frequencies[${i}] = ${f})`);
     idx.push(i);
   }
   const np = paramCount(o.modes);
-  if (idx.length < 2 * np) throw new ModeFitError(`only ${idx.length} usable bins between ${o.minHz} and ${o.maxHz} Hz for ${np} parameters`);
+  if (idx.length < 2 * np)
+    throw new ModeFitError(`only ${idx.length} usable bins between ${o.minHz} and ${o.maxHz} Hz for ${np} parameters`);
   const freqs = Float64Array.from(idx, (i) => frequencies[i]);
   const raw = Float64Array.from(idx, (i) => power[i]);
   const unit = [...raw].sort((a, b) => a - b)[Math.floor(raw.length / 2)];
@@ -50,13 +58,25 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
 
   o.guessHz.forEach((u, n) => {
     if (u + MODE_FREQUENCY_WINDOW_HZ < freqs[0] || u - MODE_FREQUENCY_WINDOW_HZ > freqs[freqs.length - 1]) {
-      throw new ModeFitError(`mode ${n + 1} (near ${u} Hz) lies outside the fitted band ${freqs[0]}–${freqs[freqs.length - 1]} Hz; fit fewer modes or widen the band`);
+      throw new ModeFitError(
+        `mode ${n + 1} (near ${u} Hz) lies outside the fitted band ${freqs[0]}–${freqs[freqs.length - 1]} Hz; fit fewer modes or widen the band`,
+      );
     }
   });
   const guess = initialGuess(freqs, data, o.guessHz);
   let two;
   try {
-    two = twoStageLorentzianFit({ modes: o.modes, freqs, data, rel, start: guess.start, lower: guess.lower, upper: guess.upper, lm: o.lm, shouldStop: o.shouldStop });
+    two = twoStageLorentzianFit({
+      modes: o.modes,
+      freqs,
+      data,
+      rel,
+      start: guess.start,
+      lower: guess.lower,
+      upper: guess.upper,
+      lm: o.lm,
+      shouldStop: o.shouldStop,
+    });
   } catch (e) {
     if (e instanceof OptimInputError) throw new ModeFitError(`the fit could not start: ${e.message}`);
     throw e;
@@ -67,7 +87,16 @@ export function fitModes(frequencies: ArrayLike<number>, power: ArrayLike<number
   const reduced = dof > 0 ? final.chi2 / dof : Infinity;
   const formal = covarianceFromJtJ(final.jtj, np, { scale: o.averages ? 1 : reduced });
   const scatter = { averages: o.averages ?? 1 / reduced, lagCorrelation: o.binCorrelation };
-  const sens = { modes: o.modes, freqs, data, first: two.first.params, final: final.params, firstModel: two.firstModel, lower: guess.lower, upper: guess.upper };
+  const sens = {
+    modes: o.modes,
+    freqs,
+    data,
+    first: two.first.params,
+    final: final.params,
+    firstModel: two.firstModel,
+    lower: guess.lower,
+    upper: guess.upper,
+  };
   const prop = scatter.averages > 0 && Number.isFinite(scatter.averages) ? propagatedFitCovariance(sens, scatter, idx) : null;
   const held = heldSet(final.params, o.modes, guess.lower, guess.upper);
   const sigma = (j: number) => (prop && !held[j] ? Math.sqrt(Math.max(0, prop[j * np + j])) : formal.stdErrors[j]);

@@ -5,11 +5,7 @@
  * level and the half-width where the smoothed spectrum falls to half that
  * height (clamped to the allowed range).
  */
-import {
-  MODE_FREQUENCY_WINDOW_HZ,
-  MODE_HALF_WIDTH_MAX_HZ,
-  MODE_HALF_WIDTH_MIN_HZ,
-} from '@/src/engine/tolerances';
+import { MODE_FREQUENCY_WINDOW_HZ, MODE_HALF_WIDTH_MAX_HZ, MODE_HALF_WIDTH_MIN_HZ } from '@/src/engine/tolerances';
 import { paramCount } from './types';
 
 export interface ModeStart {

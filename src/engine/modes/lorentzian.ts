@@ -22,14 +22,22 @@ export function lorentzianModel(p: ArrayLike<number>, modes: number, freqs: Arra
 }
 
 /** Row-major derivative matrix dP(f_i)/dp_j, each row divided by scale[i] (pass 1s for the bare derivatives). */
-export function lorentzianJacobian(p: ArrayLike<number>, modes: number, freqs: ArrayLike<number>, scale: ArrayLike<number>, out: Float64Array): void {
+export function lorentzianJacobian(
+  p: ArrayLike<number>,
+  modes: number,
+  freqs: ArrayLike<number>,
+  scale: ArrayLike<number>,
+  out: Float64Array,
+): void {
   const np = 3 * modes + 2;
   for (let i = 0; i < freqs.length; i++) {
     const f = freqs[i];
     const s = 1 / scale[i];
     const row = i * np;
     for (let n = 0; n < modes; n++) {
-      const fn = p[3 * n], an = p[3 * n + 1], gn = p[3 * n + 2];
+      const fn = p[3 * n],
+        an = p[3 * n + 1],
+        gn = p[3 * n + 2];
       const u = (f - fn) / gn;
       const l = 1 / (1 + u * u);
       const l2 = l * l;

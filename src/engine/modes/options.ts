@@ -52,6 +52,11 @@ export function resolveModeFitOptions(options: Partial<ModeFitOptions>, frequenc
   binCorrelation?.forEach((c, i) => {
     if (!(Math.abs(c) < 1)) throw new ModeFitOptionError(`binCorrelation[${i}] must lie between -1 and 1, got ${c}`);
   });
-  const lm = { misfitTol: MODE_FIT_MISFIT_REL_TOL, stepTol: MODE_FIT_STEP_REL_TOL, maxIterations: MODE_FIT_MAX_ITERATIONS, ...options.lm };
+  const lm = {
+    misfitTol: MODE_FIT_MISFIT_REL_TOL,
+    stepTol: MODE_FIT_STEP_REL_TOL,
+    maxIterations: MODE_FIT_MAX_ITERATIONS,
+    ...options.lm,
+  };
   return { ...options, modes, minHz, maxHz, averages, binCorrelation, guessHz: [...guessHz], lm };
 }

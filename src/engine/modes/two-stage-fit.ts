@@ -43,12 +43,21 @@ export function twoStageLorentzianFit(input: TwoStageInput): TwoStageResult {
   const pass = (sigma: Float64Array, start: Float64Array): LmResult => {
     const r = weightedLorentzianFit({ ...common, sigma, start });
     if (!input.polish || !r.converged) return r;
-    return { ...r, ...newtonPolish({ modes, freqs, data, sigma, lower: input.lower, upper: input.upper }, r.params, input.polish) };
+    return {
+      ...r,
+      ...newtonPolish({ modes, freqs, data, sigma, lower: input.lower, upper: input.upper }, r.params, input.polish),
+    };
   };
-  const first = pass(data.map((v) => rel * v), input.start);
+  const first = pass(
+    data.map((v) => rel * v),
+    input.start,
+  );
   const model = new Float64Array(freqs.length);
   lorentzianModel(first.params, modes, freqs, model);
   if (!model.every((v) => v > 0 && Number.isFinite(v))) return { first, final: first, firstModel: null };
-  const final = pass(model.map((v) => rel * v), first.params);
+  const final = pass(
+    model.map((v) => rel * v),
+    first.params,
+  );
   return { first, final, firstModel: model };
 }

@@ -12,7 +12,14 @@ import { choleskyFactor, choleskySolve } from './cholesky';
 import { OptimInputError } from './errors';
 import { accumulateNormalEquations, sumSquares } from './normal-equations';
 import { resolveLmOptions } from './options';
-import { CONVERGED_REASONS, type LeastSquaresProblem, type LmHooks, type LmOptions, type LmResult, type StopReason } from './types';
+import {
+  CONVERGED_REASONS,
+  type LeastSquaresProblem,
+  type LmHooks,
+  type LmOptions,
+  type LmResult,
+  type StopReason,
+} from './types';
 
 function checkProblem(problem: LeastSquaresProblem, start: Float64Array): void {
   const { nParams: n, nResiduals: m, lower, upper } = problem;
@@ -23,7 +30,8 @@ function checkProblem(problem: LeastSquaresProblem, start: Float64Array): void {
   if (upper && upper.length !== n) throw new OptimInputError(`upper bounds have ${upper.length} values, expected ${n}`);
   for (let j = 0; j < n; j++) {
     if (!Number.isFinite(start[j])) throw new OptimInputError(`start value of parameter ${j} is not finite`);
-    if (lower && upper && lower[j] > upper[j]) throw new OptimInputError(`parameter ${j}: lower bound ${lower[j]} exceeds upper bound ${upper[j]}`);
+    if (lower && upper && lower[j] > upper[j])
+      throw new OptimInputError(`parameter ${j}: lower bound ${lower[j]} exceeds upper bound ${upper[j]}`);
   }
 }
 

@@ -32,8 +32,14 @@ export function accumulateNormalEquations(
     jtr[a] = g;
     let b = a;
     for (; b + 3 < n; b += 4) {
-      const c0 = b * m, c1 = c0 + m, c2 = c1 + m, c3 = c2 + m;
-      let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+      const c0 = b * m,
+        c1 = c0 + m,
+        c2 = c1 + m,
+        c3 = c2 + m;
+      let s0 = 0,
+        s1 = 0,
+        s2 = 0,
+        s3 = 0;
       for (let i = 0; i < m; i++) {
         const x = c[ca + i];
         s0 += x * c[c0 + i];

@@ -35,7 +35,8 @@ export function resolveLmOptions(options: Partial<LmOptions> = {}): LmOptions {
     }
     o[key] = v;
   }
-  if (o.maxIterations < 1 || o.maxEvaluations < 1) throw new OptimInputError('maxIterations and maxEvaluations must be at least 1');
+  if (o.maxIterations < 1 || o.maxEvaluations < 1)
+    throw new OptimInputError('maxIterations and maxEvaluations must be at least 1');
   if (o.dampingMin > o.dampingMax) throw new OptimInputError('dampingMin must not exceed dampingMax');
   return o;
 }

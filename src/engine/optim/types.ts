@@ -19,13 +19,7 @@ export interface LeastSquaresProblem {
 
 /** Why a Levenberg–Marquardt run ended. */
 export type StopReason =
-  | 'misfit-change'
-  | 'step-size'
-  | 'gradient'
-  | 'max-iterations'
-  | 'max-evaluations'
-  | 'non-finite'
-  | 'cancelled';
+  'misfit-change' | 'step-size' | 'gradient' | 'max-iterations' | 'max-evaluations' | 'non-finite' | 'cancelled';
 
 /** Stop reasons that mean "reached a minimum". */
 export const CONVERGED_REASONS: readonly StopReason[] = ['misfit-change', 'step-size', 'gradient'];

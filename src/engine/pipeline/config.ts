@@ -37,7 +37,9 @@ export function resolveProcessingConfig(config: ProcessingConfig): ResolvedProce
   }
   const band = config.band ?? { minHz: SPECTRUM_BAND_MIN_HZ, maxHz: Math.min(SPECTRUM_BAND_MAX_HZ, fs / 2) };
   if (!(band.minHz >= 0 && band.maxHz > band.minHz && band.maxHz <= fs / 2)) {
-    throw new ProcessingConfigError(`band ${band.minHz}–${band.maxHz} Hz must lie within 0–${fs / 2} Hz (Nyquist) and not be empty`);
+    throw new ProcessingConfigError(
+      `band ${band.minHz}–${band.maxHz} Hz must lie within 0–${fs / 2} Hz (Nyquist) and not be empty`,
+    );
   }
   const modes = config.modes ?? DEFAULT_MODE_COUNT;
   if (modes !== 0 && !(Number.isInteger(modes) && modes >= MIN_MODES && modes <= MAX_MODES)) {
@@ -49,8 +51,10 @@ export function resolveProcessingConfig(config: ProcessingConfig): ResolvedProce
   checkCalibration(calibration);
   const interferenceLines = config.interferenceLines ?? [];
   interferenceLines.forEach((l, i) => {
-    if (!(l.frequencyHz > 0) || !Number.isFinite(l.frequencyHz)) throw new ProcessingConfigError(`interference line ${i + 1}: frequencyHz must be a positive number, got ${l.frequencyHz}`);
-    if (l.halfWidthHz !== undefined && !(l.halfWidthHz > 0)) throw new ProcessingConfigError(`interference line ${i + 1}: halfWidthHz must be positive, got ${l.halfWidthHz}`);
+    if (!(l.frequencyHz > 0) || !Number.isFinite(l.frequencyHz))
+      throw new ProcessingConfigError(`interference line ${i + 1}: frequencyHz must be a positive number, got ${l.frequencyHz}`);
+    if (l.halfWidthHz !== undefined && !(l.halfWidthHz > 0))
+      throw new ProcessingConfigError(`interference line ${i + 1}: halfWidthHz must be positive, got ${l.halfWidthHz}`);
   });
   const fullScale = config.fullScale ?? null;
   if (fullScale !== null && !(fullScale > 0)) throw new ProcessingConfigError(`fullScale must be positive, got ${fullScale}`);

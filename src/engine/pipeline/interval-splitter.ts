@@ -46,7 +46,8 @@ export class IntervalSplitter {
     if (!(fs > 0) || !(seconds > 0) || Math.abs(exact - Math.round(exact)) > 1e-9 * exact) {
       throw new RangeError(`an interval of ${seconds} s at ${fs} Hz is not a whole number of samples`);
     }
-    if (!Number.isInteger(options.components) || options.components < 1) throw new RangeError(`components must be a positive whole number, got ${options.components}`);
+    if (!Number.isInteger(options.components) || options.components < 1)
+      throw new RangeError(`components must be a positive whole number, got ${options.components}`);
     this.fs = fs;
     this.intervalSamples = Math.round(exact);
     this.intervalMs = seconds * 1000;
@@ -70,8 +71,10 @@ export class IntervalSplitter {
 
   /** Feed one block (blocks must move forward in time); returns the intervals it completed. */
   push(block: SampleBlock): IntervalSamples[] {
-    if (block.columns.length !== this.options.components) throw new RangeError(`block has ${block.columns.length} columns, expected ${this.options.components}`);
-    if (block.length > 0 && block.firstSample <= this.lastSample) throw new RangeError(`block starting at sample ${block.firstSample} overlaps earlier samples (up to ${this.lastSample})`);
+    if (block.columns.length !== this.options.components)
+      throw new RangeError(`block has ${block.columns.length} columns, expected ${this.options.components}`);
+    if (block.length > 0 && block.firstSample <= this.lastSample)
+      throw new RangeError(`block starting at sample ${block.firstSample} overlaps earlier samples (up to ${this.lastSample})`);
     const done: IntervalSamples[] = [];
     let s = block.firstSample;
     const end = block.firstSample + block.length;
@@ -107,7 +110,10 @@ export class IntervalSplitter {
 }
 
 /** Convenience: split an async stream of blocks into intervals. */
-export async function* splitIntervals(blocks: AsyncIterable<SampleBlock>, options: SplitterOptions): AsyncGenerator<IntervalSamples> {
+export async function* splitIntervals(
+  blocks: AsyncIterable<SampleBlock>,
+  options: SplitterOptions,
+): AsyncGenerator<IntervalSamples> {
   const splitter = new IntervalSplitter(options);
   for await (const b of blocks) yield* splitter.push(b);
   yield* splitter.finish();

@@ -23,7 +23,12 @@ export async function* processSeries(
   options: { intervalSeconds?: number; shouldStop?: () => boolean } = {},
 ): AsyncGenerator<ProcessedInterval> {
   const { header } = reader;
-  const splitterOptions = { sampleRateHz: header.sampleRateHz, startMs: header.startMs, components: header.components.length, intervalSeconds: options.intervalSeconds };
+  const splitterOptions = {
+    sampleRateHz: header.sampleRateHz,
+    startMs: header.startMs,
+    components: header.components.length,
+    intervalSeconds: options.intervalSeconds,
+  };
   for await (const interval of splitIntervals(reader.blocks, splitterOptions)) {
     for (let c = 0; c < header.components.length; c++) {
       if (options.shouldStop?.()) return;

@@ -31,7 +31,8 @@ export interface ProcessingConfig {
  * rejected or missing), 'clipping' (samples stuck at full scale), 'calibration-range' (band outside the
  * response table), 'no-data' (no usable segment), 'fit-failed', 'implausible-modes'.
  */
-export type IntervalFlag = 'gaps' | 'too-much-rejected' | 'clipping' | 'calibration-range' | 'no-data' | 'fit-failed' | 'implausible-modes';
+export type IntervalFlag =
+  'gaps' | 'too-much-rejected' | 'clipping' | 'calibration-range' | 'no-data' | 'fit-failed' | 'implausible-modes';
 
 export interface IntervalResult {
   /** Calibrated one-sided PSD inside the band, lines suppressed; null when no segment was usable. */

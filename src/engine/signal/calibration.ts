@@ -9,24 +9,27 @@
  */
 
 export type Calibration =
-  | { kind: 'gain'; gain: number }
-  | { kind: 'response'; points: { frequencyHz: number; amplitude: number; phaseDeg: number }[] };
+  { kind: 'gain'; gain: number } | { kind: 'response'; points: { frequencyHz: number; amplitude: number; phaseDeg: number }[] };
 
 export class CalibrationError extends Error {}
 
 /** Check a calibration, naming the first bad entry. */
 export function checkCalibration(cal: Calibration): void {
   if (cal.kind === 'gain') {
-    if (!Number.isFinite(cal.gain) || cal.gain === 0) throw new CalibrationError(`calibration gain must be a non-zero number, got ${cal.gain}`);
+    if (!Number.isFinite(cal.gain) || cal.gain === 0)
+      throw new CalibrationError(`calibration gain must be a non-zero number, got ${cal.gain}`);
     return;
   }
   if (cal.points.length < 2) throw new CalibrationError('a response table needs at least two frequencies');
   cal.points.forEach((p, i) => {
     const row = `response table row ${i + 1}`;
-    if (!Number.isFinite(p.frequencyHz) || p.frequencyHz < 0) throw new CalibrationError(`${row}: frequencyHz must be a number >= 0, got ${p.frequencyHz}`);
-    if (!Number.isFinite(p.amplitude) || p.amplitude <= 0) throw new CalibrationError(`${row}: amplitude must be a positive number, got ${p.amplitude}`);
+    if (!Number.isFinite(p.frequencyHz) || p.frequencyHz < 0)
+      throw new CalibrationError(`${row}: frequencyHz must be a number >= 0, got ${p.frequencyHz}`);
+    if (!Number.isFinite(p.amplitude) || p.amplitude <= 0)
+      throw new CalibrationError(`${row}: amplitude must be a positive number, got ${p.amplitude}`);
     if (!Number.isFinite(p.phaseDeg)) throw new CalibrationError(`${row}: phaseDeg must be a number, got ${p.phaseDeg}`);
-    if (i > 0 && !(p.frequencyHz > cal.points[i - 1].frequencyHz)) throw new CalibrationError(`${row}: frequencies must increase (${p.frequencyHz} after ${cal.points[i - 1].frequencyHz})`);
+    if (i > 0 && !(p.frequencyHz > cal.points[i - 1].frequencyHz))
+      throw new CalibrationError(`${row}: frequencies must increase (${p.frequencyHz} after ${cal.points[i - 1].frequencyHz})`);
   });
 }
 
@@ -66,7 +69,9 @@ export function responseAt(cal: Calibration, frequencies: ArrayLike<number>): Re
   let i = 0;
   for (let k = 0; k < frequencies.length; k++) {
     const f = frequencies[k];
-    let amp: number, ph: number, outside = false;
+    let amp: number,
+      ph: number,
+      outside = false;
     if (f <= pts[0].frequencyHz) {
       amp = pts[0].amplitude;
       ph = phase[0];
@@ -95,7 +100,11 @@ export interface CalibratedSpectrum {
 }
 
 /** P_field = P_raw / |H(f)|^2 at every bin. */
-export function calibrateSpectrum(frequencies: ArrayLike<number>, power: ArrayLike<number>, cal: Calibration): CalibratedSpectrum {
+export function calibrateSpectrum(
+  frequencies: ArrayLike<number>,
+  power: ArrayLike<number>,
+  cal: Calibration,
+): CalibratedSpectrum {
   const h = responseAt(cal, frequencies);
   const out = new Float64Array(power.length);
   let outside = 0;

@@ -51,22 +51,28 @@ function bluesteinPlan(m: number): ComplexDft {
     forward(input, output) {
       a.fill(0);
       for (let j = 0; j < m; j++) {
-        const xr = input[2 * j], xi = input[2 * j + 1];
-        const cr = chirp[2 * j], ci = chirp[2 * j + 1];
+        const xr = input[2 * j],
+          xi = input[2 * j + 1];
+        const cr = chirp[2 * j],
+          ci = chirp[2 * j + 1];
         a[2 * j] = xr * cr - xi * ci;
         a[2 * j + 1] = xr * ci + xi * cr;
       }
       fft.transform(aHat, a);
       for (let k = 0; k < big; k++) {
-        const ar = aHat[2 * k], ai = aHat[2 * k + 1];
-        const br = filterHat[2 * k], bi = filterHat[2 * k + 1];
+        const ar = aHat[2 * k],
+          ai = aHat[2 * k + 1];
+        const br = filterHat[2 * k],
+          bi = filterHat[2 * k + 1];
         aHat[2 * k] = ar * br - ai * bi;
         aHat[2 * k + 1] = ar * bi + ai * br;
       }
       fft.inverseTransform(conv, aHat);
       for (let k = 0; k < m; k++) {
-        const vr = conv[2 * k], vi = conv[2 * k + 1];
-        const cr = chirp[2 * k], ci = chirp[2 * k + 1];
+        const vr = conv[2 * k],
+          vi = conv[2 * k + 1];
+        const cr = chirp[2 * k],
+          ci = chirp[2 * k + 1];
         output[2 * k] = vr * cr - vi * ci;
         output[2 * k + 1] = vr * ci + vi * cr;
       }

@@ -24,7 +24,8 @@ export function mainsLines(mainsHz: number, maxHz: number, halfWidthHz = MAINS_L
 /** Listed lines (e.g. a station's interference lines) with the default notch width unless given. */
 export function listedLines(lines: readonly { frequencyHz: number; halfWidthHz?: number }[]): SpectralLine[] {
   return lines.map((l, i) => {
-    if (!(l.frequencyHz > 0)) throw new RangeError(`interference line ${i + 1}: frequency must be positive, got ${l.frequencyHz}`);
+    if (!(l.frequencyHz > 0))
+      throw new RangeError(`interference line ${i + 1}: frequency must be positive, got ${l.frequencyHz}`);
     return { frequencyHz: l.frequencyHz, halfWidthHz: l.halfWidthHz ?? INTERFERENCE_LINE_HALF_WIDTH_HZ };
   });
 }
@@ -47,7 +48,11 @@ function anchor(power: ArrayLike<number>, from: number, to: number): number {
   return n ? s / n : NaN;
 }
 
-export function suppressLines(frequencies: ArrayLike<number>, power: ArrayLike<number>, lines: readonly SpectralLine[]): SuppressedSpectrum {
+export function suppressLines(
+  frequencies: ArrayLike<number>,
+  power: ArrayLike<number>,
+  lines: readonly SpectralLine[],
+): SuppressedSpectrum {
   const n = power.length;
   if (frequencies.length !== n) throw new RangeError(`frequencies (${frequencies.length}) and power (${n}) differ in length`);
   const suppressed = new Uint8Array(n);

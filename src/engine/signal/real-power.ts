@@ -38,15 +38,21 @@ function evenPlan(n: number): RealPowerPlan {
       for (let k = 0; k <= h; k++) {
         const a = k % h;
         const b = (h - k) % h;
-        const zr = z[2 * a], zi = z[2 * a + 1];
-        const wr = z[2 * b], wi = -z[2 * b + 1]; // conj(Z_{h-k})
-        const er = 0.5 * (zr + wr), ei = 0.5 * (zi + wi);
+        const zr = z[2 * a],
+          zi = z[2 * a + 1];
+        const wr = z[2 * b],
+          wi = -z[2 * b + 1]; // conj(Z_{h-k})
+        const er = 0.5 * (zr + wr),
+          ei = 0.5 * (zi + wi);
         // O_k = (Z_k - conj(Z_{h-k})) / (2i)
-        const dr = zr - wr, di = zi - wi;
-        const or = 0.5 * di, oi = -0.5 * dr;
+        const dr = zr - wr,
+          di = zi - wi;
+        const or = 0.5 * di,
+          oi = -0.5 * dr;
         const tr = twCos[k] * or - twSin[k] * oi;
         const ti = twCos[k] * oi + twSin[k] * or;
-        const xr = er + tr, xi = ei + ti;
+        const xr = er + tr,
+          xi = ei + ti;
         out[k] = xr * xr + xi * xi;
       }
     },

@@ -11,7 +11,8 @@ export interface SegmentLayout {
 }
 
 export function segmentLayout(nSamples: number, length: number, overlap = Math.floor(length / 2)): SegmentLayout {
-  if (!Number.isInteger(length) || length < 2) throw new RangeError(`segment length must be a whole number of at least 2 samples, got ${length}`);
+  if (!Number.isInteger(length) || length < 2)
+    throw new RangeError(`segment length must be a whole number of at least 2 samples, got ${length}`);
   if (!Number.isInteger(overlap) || overlap < 0 || overlap >= length) {
     throw new RangeError(`segment overlap must be a whole number from 0 to ${length - 1} samples, got ${overlap}`);
   }

@@ -10,8 +10,17 @@
 import { DEG } from '../constants';
 import { makeGlobalGrid, type GlobalGrid } from './grid';
 
-export interface FootprintNode { lat: number; lon: number; weight: number }
-export interface CellRegion { lat: number; lon: number; areaSr: number; nodes: FootprintNode[] }
+export interface FootprintNode {
+  lat: number;
+  lon: number;
+  weight: number;
+}
+export interface CellRegion {
+  lat: number;
+  lon: number;
+  areaSr: number;
+  nodes: FootprintNode[];
+}
 
 const grids = new Map<number, GlobalGrid>();
 function gridOf(cellDeg: number): GlobalGrid {
@@ -25,7 +34,10 @@ export function cellRegion(cellDeg: number, cellIds: readonly number[]): CellReg
   const grid = gridOf(cellDeg);
   if (cellIds.length === 0) throw new RangeError('a cell region needs at least one cell');
   const seen = new Set<number>();
-  let x = 0, y = 0, z = 0, area = 0;
+  let x = 0,
+    y = 0,
+    z = 0,
+    area = 0;
   for (const id of cellIds) {
     if (!Number.isInteger(id) || id < 0 || id >= grid.cells.length) {
       throw new RangeError(`cell ${id} is not in a ${cellDeg}-degree grid (ids 0 to ${grid.cells.length - 1})`);
@@ -41,7 +53,8 @@ export function cellRegion(cellDeg: number, cellIds: readonly number[]): CellReg
   const r = Math.hypot(x, y, z);
   // Cells spread evenly round the globe have no centre; the place is then only a label: the first cell's.
   const first = grid.cells[cellIds[0]];
-  const place = r > 1e-9 * area ? { lat: Math.asin(z / r) / DEG, lon: Math.atan2(y, x) / DEG } : { lat: first.lat, lon: first.lon };
+  const place =
+    r > 1e-9 * area ? { lat: Math.asin(z / r) / DEG, lon: Math.atan2(y, x) / DEG } : { lat: first.lat, lon: first.lon };
   return {
     ...place,
     areaSr: area,

@@ -6,7 +6,16 @@
 import { DEG } from '../constants';
 import type { ForwardSource } from './types';
 
-export type GridCell = { id: number; lat: number; lon: number; latMin: number; latMax: number; lonMin: number; lonMax: number; area: number };
+export type GridCell = {
+  id: number;
+  lat: number;
+  lon: number;
+  latMin: number;
+  latMax: number;
+  lonMin: number;
+  lonMax: number;
+  area: number;
+};
 export type GlobalGrid = { cellDeg: number; rows: number; cols: number; cells: GridCell[] };
 
 export function makeGlobalGrid(cellDeg: number): GlobalGrid {
@@ -21,7 +30,16 @@ export function makeGlobalGrid(cellDeg: number): GlobalGrid {
     const area = cellDeg * DEG * (Math.sin(latMax * DEG) - Math.sin(latMin * DEG));
     for (let c = 0; c < cols; c++) {
       const lonMin = -180 + c * cellDeg;
-      cells.push({ id: r * cols + c, lat: latMin + cellDeg / 2, lon: lonMin + cellDeg / 2, latMin, latMax, lonMin, lonMax: lonMin + cellDeg, area });
+      cells.push({
+        id: r * cols + c,
+        lat: latMin + cellDeg / 2,
+        lon: lonMin + cellDeg / 2,
+        latMin,
+        latMax,
+        lonMin,
+        lonMax: lonMin + cellDeg,
+        area,
+      });
     }
   }
   return { cellDeg, rows, cols, cells };
@@ -46,16 +64,26 @@ export function cellsInBox(grid: GlobalGrid, box: LatLonBox): number[] {
  * to area x weight when a weight map (cell id -> relative weight >= 0) is given.
  * Returns one point source per cell at the cell centre; the intensities add up to `intensity`.
  */
-export function regionSources(grid: GlobalGrid, cellIds: readonly number[], intensity: number, weights?: ReadonlyMap<number, number>): ForwardSource[] {
+export function regionSources(
+  grid: GlobalGrid,
+  cellIds: readonly number[],
+  intensity: number,
+  weights?: ReadonlyMap<number, number>,
+): ForwardSource[] {
   if (cellIds.length === 0) throw new RangeError('a region needs at least one grid cell');
   const shares = cellIds.map((id) => {
     const cell = grid.cells[id];
     if (!cell) throw new RangeError(`cell ${id} is not on the ${grid.cellDeg}-degree grid`);
-    const w = weights ? weights.get(id) ?? 0 : 1;
+    const w = weights ? (weights.get(id) ?? 0) : 1;
     if (!(w >= 0)) throw new RangeError(`cell ${id}: weight must be 0 or more, got ${w}`);
     return cell.area * w;
   });
   const total = shares.reduce((a, b) => a + b, 0);
   if (!(total > 0)) throw new RangeError('the region has no cell with a positive weight');
-  return cellIds.map((id, k) => ({ name: `cell ${id}`, lat: grid.cells[id].lat, lon: grid.cells[id].lon, intensity: (intensity * shares[k]) / total }));
+  return cellIds.map((id, k) => ({
+    name: `cell ${id}`,
+    lat: grid.cells[id].lat,
+    lon: grid.cells[id].lon,
+    intensity: (intensity * shares[k]) / total,
+  }));
 }

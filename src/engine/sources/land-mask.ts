@@ -21,7 +21,11 @@ function landPieces(): Piece[] {
       const g = f.geometry;
       const polys = g.type === 'Polygon' ? [g.coordinates] : g.type === 'MultiPolygon' ? g.coordinates : [];
       for (const coordinates of polys) {
-        const shape: GeoJSON.Feature<GeoJSON.Polygon> = { type: 'Feature', properties: {}, geometry: { type: 'Polygon', coordinates } };
+        const shape: GeoJSON.Feature<GeoJSON.Polygon> = {
+          type: 'Feature',
+          properties: {},
+          geometry: { type: 'Polygon', coordinates },
+        };
         const [[lonMin, latMin], [lonMax, latMax]] = geoBounds(shape);
         pieces.push({ box: { latMin, latMax, lonMin, lonMax }, shape });
       }

@@ -32,18 +32,32 @@ const RING = Math.sqrt(2 / 3);
  */
 export function spotNodesInto(centerLat: number, centerLon: number, spreadDeg: number, out: Float64Array): number {
   if (!(spreadDeg > 0)) {
-    out[0] = centerLat; out[1] = centerLon; out[2] = 1;
-    out[3] = 1; out[4] = 0; out[5] = 0; out[6] = 1;
+    out[0] = centerLat;
+    out[1] = centerLon;
+    out[2] = 1;
+    out[3] = 1;
+    out[4] = 0;
+    out[5] = 0;
+    out[6] = 1;
     return 1;
   }
   const r = RING * spreadDeg * DEG;
   const p = centerLat * DEG;
-  const sp = Math.sin(p), cp = Math.cos(p), sr = Math.sin(r), cr = Math.cos(r);
-  out[0] = centerLat; out[1] = centerLon; out[2] = 0.25;
-  out[3] = 1; out[4] = 0; out[5] = 0; out[6] = 1;
+  const sp = Math.sin(p),
+    cp = Math.cos(p),
+    sr = Math.sin(r),
+    cr = Math.cos(r);
+  out[0] = centerLat;
+  out[1] = centerLon;
+  out[2] = 0.25;
+  out[3] = 1;
+  out[4] = 0;
+  out[5] = 0;
+  out[6] = 1;
   for (let k = 0; k < 6; k++) {
     const az = (k * Math.PI) / 3;
-    const ca = Math.cos(az), sa = Math.sin(az);
+    const ca = Math.cos(az),
+      sa = Math.sin(az);
     // destination point (spherical trigonometry, direct problem)
     const sLat = sp * cr + cp * sr * ca;
     const lat = Math.asin(sLat);
@@ -60,8 +74,13 @@ export function spotNodesInto(centerLat: number, centerLon: number, spreadDeg: n
     const dB = -sp * cr - cp * sr * ca; // dA/dp = 0
     const dLon = (-A * dB) / (A * A + B * B);
     const o = (k + 1) * SPOT_STRIDE;
-    out[o] = lat / DEG; out[o + 1] = wrapLon(centerLon + dl / DEG); out[o + 2] = 0.125;
-    out[o + 3] = dLat; out[o + 4] = 0; out[o + 5] = dLon; out[o + 6] = 1;
+    out[o] = lat / DEG;
+    out[o + 1] = wrapLon(centerLon + dl / DEG);
+    out[o + 2] = 0.125;
+    out[o + 3] = dLat;
+    out[o + 4] = 0;
+    out[o + 5] = dLon;
+    out[o + 6] = 1;
   }
   return SPOT_MAX_NODES;
 }
@@ -73,7 +92,15 @@ export function spotNodes(centerLat: number, centerLon: number, spreadDeg: numbe
   const nodes: SpotNode[] = [];
   for (let k = 0; k < count; k++) {
     const o = k * SPOT_STRIDE;
-    nodes.push({ lat: buf[o], lon: buf[o + 1], weight: buf[o + 2], dLatDLat: buf[o + 3], dLatDLon: buf[o + 4], dLonDLat: buf[o + 5], dLonDLon: buf[o + 6] });
+    nodes.push({
+      lat: buf[o],
+      lon: buf[o + 1],
+      weight: buf[o + 2],
+      dLatDLat: buf[o + 3],
+      dLatDLon: buf[o + 4],
+      dLonDLat: buf[o + 5],
+      dLonDLon: buf[o + 6],
+    });
   }
   return nodes;
 }

@@ -24,7 +24,12 @@ export { prepareDegree, type LegendreDegree } from './legendre-degree';
 /** Number of doubles legendreInto writes. */
 export const LEGENDRE_OUT = 12;
 /** Offsets (re at k, im at k+1): X, X', X'', Q, Q', Q''. */
-export const L_X = 0, L_DX = 2, L_D2X = 4, L_Q = 6, L_DQ = 8, L_D2Q = 10;
+export const L_X = 0,
+  L_DX = 2,
+  L_D2X = 4,
+  L_Q = 6,
+  L_DQ = 8,
+  L_D2Q = 10;
 
 /** Evaluates X, X', X'', Q, Q', Q'' at theta (radians, 0 < theta <= pi) into out. */
 export function legendreInto(deg: LegendreDegree, theta: number, out: Float64Array): void {
@@ -38,7 +43,11 @@ export function legendreInto(deg: LegendreDegree, theta: number, out: Float64Arr
 }
 
 /** Convenience: P_nu(-cos theta) and d/dtheta as {re, im} pairs (allocates; not for hot loops). */
-export function legendreAt(nuRe: number, nuIm: number, theta: number): { p: { re: number; im: number }; dp: { re: number; im: number } } {
+export function legendreAt(
+  nuRe: number,
+  nuIm: number,
+  theta: number,
+): { p: { re: number; im: number }; dp: { re: number; im: number } } {
   const out = new Float64Array(LEGENDRE_OUT);
   legendreInto(prepareDegree(nuRe, nuIm), theta, out);
   return { p: { re: out[0], im: out[1] }, dp: { re: out[2], im: out[3] } };

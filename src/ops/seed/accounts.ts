@@ -19,10 +19,38 @@ interface DemoAccount extends DemoSignIn {
 }
 
 const ACCOUNTS: readonly DemoAccount[] = [
-  { role: 'administrator', email: 'admin@cavitas.example', password: 'admin-cavity-2026', name: 'Site Administrator', admin: true, networkRole: null },
-  { role: 'owner', email: 'owner@cavitas.example', password: 'owner-cavity-2026', name: 'Mara Quillon', admin: false, networkRole: 'owner' },
-  { role: 'analyst', email: 'analyst@cavitas.example', password: 'analyst-cavity-2026', name: 'Teodor Rask', admin: false, networkRole: 'analyst' },
-  { role: 'viewer', email: 'viewer@cavitas.example', password: 'viewer-cavity-2026', name: 'Juni Calloway', admin: false, networkRole: 'viewer' },
+  {
+    role: 'administrator',
+    email: 'admin@cavitas.example',
+    password: 'admin-cavity-2026',
+    name: 'Site Administrator',
+    admin: true,
+    networkRole: null,
+  },
+  {
+    role: 'owner',
+    email: 'owner@cavitas.example',
+    password: 'owner-cavity-2026',
+    name: 'Mara Quillon',
+    admin: false,
+    networkRole: 'owner',
+  },
+  {
+    role: 'analyst',
+    email: 'analyst@cavitas.example',
+    password: 'analyst-cavity-2026',
+    name: 'Teodor Rask',
+    admin: false,
+    networkRole: 'analyst',
+  },
+  {
+    role: 'viewer',
+    email: 'viewer@cavitas.example',
+    password: 'viewer-cavity-2026',
+    name: 'Juni Calloway',
+    admin: false,
+    networkRole: 'viewer',
+  },
 ];
 
 export const DEMO_SIGN_INS: readonly DemoSignIn[] = ACCOUNTS.map(({ role, email, password }) => ({ role, email, password }));
@@ -30,10 +58,17 @@ export const DEMO_SIGN_INS: readonly DemoSignIn[] = ACCOUNTS.map(({ role, email,
 async function ensureAccount(a: DemoAccount): Promise<string> {
   const existing = await findUserByEmail(a.email);
   if (!existing) {
-    const u = await insertUser({ id: newUserId(), email: a.email, name: a.name, passwordHash: await hashPassword(a.password), isAdmin: a.admin });
+    const u = await insertUser({
+      id: newUserId(),
+      email: a.email,
+      name: a.name,
+      passwordHash: await hashPassword(a.password),
+      isAdmin: a.admin,
+    });
     return u.id;
   }
-  if (!(await verifyPassword(existing.passwordHash, a.password))) await updateUserPassword(existing.id, await hashPassword(a.password));
+  if (!(await verifyPassword(existing.passwordHash, a.password)))
+    await updateUserPassword(existing.id, await hashPassword(a.password));
   if (existing.isAdmin !== a.admin) await setUserAdmin(existing.id, a.admin);
   return existing.id;
 }

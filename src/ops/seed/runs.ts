@@ -32,28 +32,76 @@ export const DEMO_MODE_RUN = 'Middle belt from fitted modes';
 function demoGrid(): GridInput {
   const cell = 10;
   return {
-    name: DEMO_GRID, notes: 'Demo grid: three moving belts and a fixed patch of land cells (invented scenario).', cellSizeDeg: cell,
+    name: DEMO_GRID,
+    notes: 'Demo grid: three moving belts and a fixed patch of land cells (invented scenario).',
+    cellSizeDeg: cell,
     regions: [
-      { key: 'west-belt', name: 'West belt', colour: '#0072B2', kind: 'moving', centre: { lat: -6, lon: -58 }, bounds: { lat: { min: -25, max: 15 }, lon: { min: -85, max: -35 } }, spreadDeg: 10 },
-      { key: 'middle-belt', name: 'Middle belt', colour: '#E69F00', kind: 'moving', centre: { lat: 2, lon: 22 }, bounds: { lat: { min: -20, max: 20 }, lon: { min: -5, max: 45 } }, spreadDeg: 10 },
-      { key: 'east-belt', name: 'East belt', colour: '#009E73', kind: 'moving', centre: { lat: 4, lon: 112 }, bounds: { lat: { min: -15, max: 25 }, lon: { min: 90, max: 140 } }, spreadDeg: 12 },
-      { key: 'northern-patch', name: 'Northern land patch', colour: '#CC79A7', kind: 'cells',
-        cells: landCellsInBox(makeGlobalGrid(cell), { latMin: 30, latMax: 50, lonMin: 60, lonMax: 100 }) },
+      {
+        key: 'west-belt',
+        name: 'West belt',
+        colour: '#0072B2',
+        kind: 'moving',
+        centre: { lat: -6, lon: -58 },
+        bounds: { lat: { min: -25, max: 15 }, lon: { min: -85, max: -35 } },
+        spreadDeg: 10,
+      },
+      {
+        key: 'middle-belt',
+        name: 'Middle belt',
+        colour: '#E69F00',
+        kind: 'moving',
+        centre: { lat: 2, lon: 22 },
+        bounds: { lat: { min: -20, max: 20 }, lon: { min: -5, max: 45 } },
+        spreadDeg: 10,
+      },
+      {
+        key: 'east-belt',
+        name: 'East belt',
+        colour: '#009E73',
+        kind: 'moving',
+        centre: { lat: 4, lon: 112 },
+        bounds: { lat: { min: -15, max: 25 }, lon: { min: 90, max: 140 } },
+        spreadDeg: 12,
+      },
+      {
+        key: 'northern-patch',
+        name: 'Northern land patch',
+        colour: '#CC79A7',
+        kind: 'cells',
+        cells: landCellsInBox(makeGlobalGrid(cell), { latMin: 30, latMax: 50, lonMin: 60, lonMax: 100 }),
+      },
     ],
   };
 }
 
 export async function seedDemoRuns(networkId: string): Promise<void> {
-  const model = (await findModelByName(networkId, DEMO_MODEL))
-    ?? await saveModel(networkId, null, { name: DEMO_MODEL, notes: 'Demo model: Ishaq & Jones (1977) velocity and attenuation.', config: { model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 } });
+  const model =
+    (await findModelByName(networkId, DEMO_MODEL)) ??
+    (await saveModel(networkId, null, {
+      name: DEMO_MODEL,
+      notes: 'Demo model: Ishaq & Jones (1977) velocity and attenuation.',
+      config: { model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 },
+    }));
   if (!(await findModelByName(networkId, DEMO_LINEAR_MODEL))) {
-    await saveModel(networkId, null, { name: DEMO_LINEAR_MODEL, notes: 'Demo model: the linear propagation parameter.', config: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 } });
+    await saveModel(networkId, null, {
+      name: DEMO_LINEAR_MODEL,
+      notes: 'Demo model: the linear propagation parameter.',
+      config: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 },
+    });
   }
-  const grid = (await findGridByName(networkId, DEMO_GRID)) ?? await saveGrid(networkId, null, demoGrid());
+  const grid = (await findGridByName(networkId, DEMO_GRID)) ?? (await saveGrid(networkId, null, demoGrid()));
   const stations = await listStations(networkId);
   const base: RunConfig = {
-    name: DEMO_RUN, modelId: model.id, gridId: grid.id,
-    data: { stationIds: stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'], from: `${DEMO_DAY}T14:00:00.000Z`, to: `${DEMO_DAY}T16:00:00.000Z`, includeFlagged: false },
+    name: DEMO_RUN,
+    modelId: model.id,
+    gridId: grid.id,
+    data: {
+      stationIds: stations.map((s) => s.id),
+      components: ['Ez', 'Bns', 'Bew'],
+      from: `${DEMO_DAY}T14:00:00.000Z`,
+      to: `${DEMO_DAY}T16:00:00.000Z`,
+      includeFlagged: false,
+    },
     observables: { kind: 'spectrum', minHz: 6, maxHz: 26, every: 5 },
     regions: [
       { region: 'middle-belt', intensity: { min: 1e3, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 0, max: 40 } },
@@ -61,11 +109,14 @@ export async function seedDemoRuns(networkId: string): Promise<void> {
       { region: 'east-belt', intensity: { min: 1e3, max: 1e6 } },
     ],
     damping: { initialLambda: 1e-2, maxIterations: 100, scaleCovariance: true },
-    starts: 4, seed: 1,
+    starts: 4,
+    seed: 1,
   };
   await ensureRun(networkId, base);
   await ensureRun(networkId, {
-    ...base, name: DEMO_MODE_RUN, observables: { kind: 'modes', modes: 3 },
+    ...base,
+    name: DEMO_MODE_RUN,
+    observables: { kind: 'modes', modes: 3 },
     data: { ...base.data, from: `${DEMO_DAY}T15:00:00.000Z`, to: `${DEMO_DAY}T15:10:00.000Z` },
   });
 }
@@ -76,10 +127,18 @@ async function ensureRun(networkId: string, config: RunConfig): Promise<void> {
   let runId = existing?.id;
   if (!runId) {
     const { problems, preview } = await checkLaunch(networkId, config);
-    if (problems.length || !preview) throw new Error(`demo run "${config.name}" cannot start: ${problems.map((p) => `${p.field}: ${p.message}`).join('; ')}`);
+    if (problems.length || !preview)
+      throw new Error(`demo run "${config.name}" cannot start: ${problems.map((p) => `${p.field}: ${p.message}`).join('; ')}`);
     const run = await createRun({
-      networkId, name: config.name, config: config as unknown as Record<string, unknown>, modelId: config.modelId, gridId: config.gridId,
-      engineVersion: engineVersion(), intervalStarts: preview.intervalStarts, startsPerInterval: config.starts, createdBy: null,
+      networkId,
+      name: config.name,
+      config: config as unknown as Record<string, unknown>,
+      modelId: config.modelId,
+      gridId: config.gridId,
+      engineVersion: engineVersion(),
+      intervalStarts: preview.intervalStarts,
+      startsPerInterval: config.starts,
+      createdBy: null,
     });
     runId = run.id;
   }

@@ -23,7 +23,12 @@ export function SignUpForm() {
       <FormField id="email" label="E-mail address" error={f.fieldError('email')}>
         <input name="email" type="email" autoComplete="email" required className={inputClass} />
       </FormField>
-      <FormField id="password" label="Password" hint="At least 10 characters. A few unrelated words work well." error={f.fieldError('password')}>
+      <FormField
+        id="password"
+        label="Password"
+        hint="At least 10 characters. A few unrelated words work well."
+        error={f.fieldError('password')}
+      >
         <input name="password" type="password" autoComplete="new-password" required minLength={10} className={inputClass} />
       </FormField>
       <Button type="submit" busy={f.busy} className="w-full">

@@ -18,7 +18,11 @@ export function useApiForm() {
       try {
         await action(new FormData(e.currentTarget));
       } catch (err) {
-        setError(err instanceof ApiError ? err : new ApiError(0, 'client', 'Something went wrong in the browser. Reload the page and try again.'));
+        setError(
+          err instanceof ApiError
+            ? err
+            : new ApiError(0, 'client', 'Something went wrong in the browser. Reload the page and try again.'),
+        );
       } finally {
         setBusy(false);
       }

@@ -47,7 +47,17 @@ export interface PlotFigureProps {
   prerendered?: string | null;
 }
 
-export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 280, width, className, prerendered }: PlotFigureProps) {
+export function PlotFigure({
+  options,
+  title,
+  xLabel,
+  yLabel,
+  caption,
+  height = 280,
+  width,
+  className,
+  prerendered,
+}: PlotFigureProps) {
   const ref = useRef<HTMLDivElement>(null);
   const lastBoxWidth = useRef<number | null>(null);
   // Markup fixed at mount: React never rewrites it; the effect below replaces it with the live drawing.
@@ -78,25 +88,30 @@ export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 2
       host.dataset.drawn = 'client'; // read by the page benchmark (figures live, tips on hover)
       performance.measure(`figure: ${title}`, { start: t0, end: performance.now() }); // shows in a browser profile's timings
     };
-    loadPlot().then((mod) => {
-      if (gone) return;
-      lib = mod;
-      built = typeof options === 'function' ? options(mod) : options;
-      draw();
-    }, (e: unknown) => {
-      if (gone) return;
-      const p = document.createElement('p');
-      p.className = 'text-sm text-danger';
-      p.textContent = `The figure could not be drawn: the chart code did not load (${(e as Error).message}). Reload the page to try again.`;
-      host.replaceChildren(p);
-    });
-    const ro = width ? null : new ResizeObserver((entries) => {
-      const box = entries.at(-1);
-      if (!box) return;
-      boxWidth = box.contentRect.width;
-      lastBoxWidth.current = boxWidth;
-      draw();
-    });
+    loadPlot().then(
+      (mod) => {
+        if (gone) return;
+        lib = mod;
+        built = typeof options === 'function' ? options(mod) : options;
+        draw();
+      },
+      (e: unknown) => {
+        if (gone) return;
+        const p = document.createElement('p');
+        p.className = 'text-sm text-danger';
+        p.textContent = `The figure could not be drawn: the chart code did not load (${(e as Error).message}). Reload the page to try again.`;
+        host.replaceChildren(p);
+      },
+    );
+    const ro = width
+      ? null
+      : new ResizeObserver((entries) => {
+          const box = entries.at(-1);
+          if (!box) return;
+          boxWidth = box.contentRect.width;
+          lastBoxWidth.current = boxWidth;
+          draw();
+        });
     ro?.observe(host);
     return () => {
       gone = true;
@@ -107,8 +122,13 @@ export function PlotFigure({ options, title, xLabel, yLabel, caption, height = 2
   return (
     <figure className={className}>
       <figcaption className="mb-1 text-sm font-semibold">{title}</figcaption>
-      <div ref={ref} className="w-full text-fg" style={{ minHeight: height }} dangerouslySetInnerHTML={serverMarkup}
-        data-drawn={serverMarkup ? 'server' : undefined} />
+      <div
+        ref={ref}
+        className="w-full text-fg"
+        style={{ minHeight: height }}
+        dangerouslySetInnerHTML={serverMarkup}
+        data-drawn={serverMarkup ? 'server' : undefined}
+      />
       {caption ? <p className="mt-1 text-xs text-muted">{caption}</p> : null}
     </figure>
   );

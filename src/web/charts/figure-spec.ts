@@ -29,7 +29,13 @@ export function plotOptions(
   frame: { title: string; xLabel: string; yLabel: string; height: number; width: number },
 ): Plot.PlotOptions {
   return {
-    style: { background: 'transparent', color: 'currentColor', fontFamily: 'var(--font-sans)', fontSize: '11px', overflow: 'visible' },
+    style: {
+      background: 'transparent',
+      color: 'currentColor',
+      fontFamily: 'var(--font-sans)',
+      fontSize: '11px',
+      overflow: 'visible',
+    },
     marginLeft: 56,
     height: frame.height,
     width: frame.width,

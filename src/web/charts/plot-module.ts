@@ -9,12 +9,15 @@ export type PlotModule = typeof import('./plot-kit');
 let loading: Promise<PlotModule> | null = null;
 
 export function loadPlot(): Promise<PlotModule> {
-  loading ??= import('./plot-kit').then((mod) => {
-    performance.mark('chart code ready'); // shows in a browser profile's timings
-    return mod;
-  }, (e: unknown) => {
-    loading = null; // let a later figure try again (e.g. after a dropped connection)
-    throw e;
-  });
+  loading ??= import('./plot-kit').then(
+    (mod) => {
+      performance.mark('chart code ready'); // shows in a browser profile's timings
+      return mod;
+    },
+    (e: unknown) => {
+      loading = null; // let a later figure try again (e.g. after a dropped connection)
+      throw e;
+    },
+  );
   return loading;
 }

@@ -9,7 +9,10 @@
  */
 const STOP_EVERY = 8;
 
-interface RampContext { fillStyle: string; fillRect(x: number, y: number, w: number, h: number): void }
+interface RampContext {
+  fillStyle: string;
+  fillRect(x: number, y: number, w: number, h: number): void;
+}
 
 export interface RampCanvas {
   width: number;
@@ -34,10 +37,12 @@ export function rampCanvas(): RampCanvas {
       const n = colours.length;
       const at = Array.from({ length: Math.ceil(n / STOP_EVERY) }, (_, k) => k * STOP_EVERY);
       if (n > 1 && at.at(-1) !== n - 1) at.push(n - 1); // the ramp's last colour too
-      const stops = at.filter((i) => colours[i] !== undefined)
+      const stops = at
+        .filter((i) => colours[i] !== undefined)
         .map((i) => `<stop offset="${n > 1 ? (i / (n - 1)).toFixed(4) : 0}" stop-color="${colours[i]}"/>`);
-      const svg = `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${Math.max(1, n)} 1" preserveAspectRatio="none">`
-        + `<linearGradient id="r">${stops.join('')}</linearGradient><rect width="${Math.max(1, n)}" height="1" fill="url(#r)"/></svg>`;
+      const svg =
+        `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${Math.max(1, n)} 1" preserveAspectRatio="none">` +
+        `<linearGradient id="r">${stops.join('')}</linearGradient><rect width="${Math.max(1, n)}" height="1" fill="url(#r)"/></svg>`;
       return `data:image/svg+xml,${encodeURIComponent(svg)}`;
     },
   };

@@ -16,7 +16,8 @@ function serverDocument(): Document {
     const doc = parseHTML('<!doctype html><html><body></body></html>').document as unknown as Document;
     const create = doc.createElement.bind(doc);
     // Continuous colour legends draw their ramp on a canvas (see ramp-canvas.ts).
-    doc.createElement = ((tag: string, options?: ElementCreationOptions) => (tag.toLowerCase() === 'canvas' ? rampCanvas() : create(tag, options))) as Document['createElement'];
+    doc.createElement = ((tag: string, options?: ElementCreationOptions) =>
+      tag.toLowerCase() === 'canvas' ? rampCanvas() : create(tag, options)) as Document['createElement'];
     shared = doc;
   }
   return shared;
@@ -28,7 +29,8 @@ function serverDocument(): Document {
  */
 function compact(markup: string): string {
   return markup.replace(/([\w:-]+)="([^"]*)"/g, (all, name: string, value: string) =>
-    (name.endsWith('href') ? all : `${name}="${value.replace(/\d+\.\d{2,}/g, (x) => Number(x).toFixed(1))}"`));
+    name.endsWith('href') ? all : `${name}="${value.replace(/\d+\.\d{2,}/g, (x) => Number(x).toFixed(1))}"`,
+  );
 }
 
 /**

@@ -27,8 +27,12 @@ export function WorldFrame({ width, height, title, description, children, classN
   const idPrefix = useId();
   const outline = worldOutline(width, height);
   return (
-    <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-labelledby={`${idPrefix}-t${description ? ` ${idPrefix}-d` : ''}`}
-      className={className ?? 'h-auto w-full'}>
+    <svg
+      viewBox={`0 0 ${width} ${height}`}
+      role="img"
+      aria-labelledby={`${idPrefix}-t${description ? ` ${idPrefix}-d` : ''}`}
+      className={className ?? 'h-auto w-full'}
+    >
       <title id={`${idPrefix}-t`}>{title}</title>
       {description ? <desc id={`${idPrefix}-d`}>{description}</desc> : null}
       <path d={outline.sphere} className="fill-sea stroke-line-strong" strokeWidth={1} />

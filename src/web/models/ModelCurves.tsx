@@ -35,11 +35,13 @@ export function ModelCurves({ config }: { config: CavityConfig }) {
   }, [config]);
   const spectra = useMemo(() => {
     if (curves.error) return null;
-    const lonDeg = (distanceMm * 1000 / config.earthRadiusKm) * (180 / Math.PI);
-    if (!(lonDeg > 0 && lonDeg < 180)) return { error: `The distance must lie between 0 and ${(Math.PI * config.earthRadiusKm / 1000).toFixed(1)} Mm.` };
+    const lonDeg = ((distanceMm * 1000) / config.earthRadiusKm) * (180 / Math.PI);
+    if (!(lonDeg > 0 && lonDeg < 180))
+      return { error: `The distance must lie between 0 and ${((Math.PI * config.earthRadiusKm) / 1000).toFixed(1)} Mm.` };
     try {
       const out = predictSpectra({
-        cavity: config, band: { minHz: curves.lo, maxHz: curves.hi, stepHz: 0.25 },
+        cavity: config,
+        band: { minHz: curves.lo, maxHz: curves.hi, stepHz: 0.25 },
         stations: [{ code: 'TEST', lat: 0, lon: 0, components: ['Ez', 'Bns'] }],
         sources: [{ lat: 0, lon: lonDeg, intensity }],
       });
@@ -48,30 +50,108 @@ export function ModelCurves({ config }: { config: CavityConfig }) {
       return { error: (e as Error).message };
     }
   }, [config, curves, distanceMm, intensity]);
-  if (curves.error) return <Notice tone="error" title="This model cannot be evaluated">{curves.error}</Notice>;
-  const line = (y: string, stroke = '#0072B2') => ({ marks: [Plot.line(curves.pts, { x: 'f', y, stroke }), Plot.ruleY([0], { strokeOpacity: 0.3 })] }) as Plot.PlotOptions;
+  if (curves.error)
+    return (
+      <Notice tone="error" title="This model cannot be evaluated">
+        {curves.error}
+      </Notice>
+    );
+  const line = (y: string, stroke = '#0072B2') =>
+    ({ marks: [Plot.line(curves.pts, { x: 'f', y, stroke }), Plot.ruleY([0], { strokeOpacity: 0.3 })] }) as Plot.PlotOptions;
   return (
     <div className="space-y-6">
       <div className="grid gap-6 lg:grid-cols-2">
-        <PlotFigure title="Real part of ν" xLabel="Frequency (Hz)" yLabel="Re ν (dimensionless)" options={line('re')} height={220} />
-        <PlotFigure title="Imaginary part of ν" xLabel="Frequency (Hz)" yLabel="Im ν (dimensionless)" options={line('im', '#D55E00')} height={220} />
-        <PlotFigure title="Phase-velocity ratio" xLabel="Frequency (Hz)" yLabel="c/V (dimensionless)" options={line('cv', '#009E73')} height={220} />
-        <PlotFigure title="Attenuation" xLabel="Frequency (Hz)" yLabel="α (dB/Mm)" options={line('alpha', '#CC79A7')} height={220} />
+        <PlotFigure
+          title="Real part of ν"
+          xLabel="Frequency (Hz)"
+          yLabel="Re ν (dimensionless)"
+          options={line('re')}
+          height={220}
+        />
+        <PlotFigure
+          title="Imaginary part of ν"
+          xLabel="Frequency (Hz)"
+          yLabel="Im ν (dimensionless)"
+          options={line('im', '#D55E00')}
+          height={220}
+        />
+        <PlotFigure
+          title="Phase-velocity ratio"
+          xLabel="Frequency (Hz)"
+          yLabel="c/V (dimensionless)"
+          options={line('cv', '#009E73')}
+          height={220}
+        />
+        <PlotFigure
+          title="Attenuation"
+          xLabel="Frequency (Hz)"
+          yLabel="α (dB/Mm)"
+          options={line('alpha', '#CC79A7')}
+          height={220}
+        />
       </div>
       <div className="space-y-3">
         <div className="flex flex-wrap gap-4">
-          <label className="block text-sm font-medium">Test source distance (Mm)
-            <input type="number" step="0.5" min="0.5" max="19.5" className={inputClass} value={distanceMm} onChange={(e) => setDistanceMm(Number(e.target.value))} /></label>
-          <label className="block text-sm font-medium">Intensity (C² km²/s)
-            <input type="number" step="any" className={inputClass} value={intensity} onChange={(e) => setIntensity(Number(e.target.value))} /></label>
+          <label className="block text-sm font-medium">
+            Test source distance (Mm)
+            <input
+              type="number"
+              step="0.5"
+              min="0.5"
+              max="19.5"
+              className={inputClass}
+              value={distanceMm}
+              onChange={(e) => setDistanceMm(Number(e.target.value))}
+            />
+          </label>
+          <label className="block text-sm font-medium">
+            Intensity (C² km²/s)
+            <input
+              type="number"
+              step="any"
+              className={inputClass}
+              value={intensity}
+              onChange={(e) => setIntensity(Number(e.target.value))}
+            />
+          </label>
         </div>
         {spectra?.error ? <Notice tone="error">{spectra.error}</Notice> : null}
         {spectra && 'ez' in spectra && spectra.ez && spectra.b ? (
           <div className="grid gap-6 lg:grid-cols-2">
-            <PlotFigure title={`Ez of a source ${distanceMm} Mm away`} xLabel="Frequency (Hz)" yLabel="Power ((mV/m)²/Hz)"
-              options={{ y: { type: 'log' }, marks: [Plot.line(spectra.ez.frequencies.map((f, i) => ({ f, p: spectra.ez!.power[i] * 1e6 })), { x: 'f', y: 'p', stroke: '#0072B2' })] } as Plot.PlotOptions} height={240} />
-            <PlotFigure title="Horizontal magnetic field (coil across the path)" xLabel="Frequency (Hz)" yLabel="Power (pT²/Hz)"
-              options={{ y: { type: 'log' }, marks: [Plot.line(spectra.b.frequencies.map((f, i) => ({ f, p: spectra.b!.power[i] * 1e24 })), { x: 'f', y: 'p', stroke: '#E69F00' })] } as Plot.PlotOptions} height={240} />
+            <PlotFigure
+              title={`Ez of a source ${distanceMm} Mm away`}
+              xLabel="Frequency (Hz)"
+              yLabel="Power ((mV/m)²/Hz)"
+              options={
+                {
+                  y: { type: 'log' },
+                  marks: [
+                    Plot.line(
+                      spectra.ez.frequencies.map((f, i) => ({ f, p: spectra.ez!.power[i] * 1e6 })),
+                      { x: 'f', y: 'p', stroke: '#0072B2' },
+                    ),
+                  ],
+                } as Plot.PlotOptions
+              }
+              height={240}
+            />
+            <PlotFigure
+              title="Horizontal magnetic field (coil across the path)"
+              xLabel="Frequency (Hz)"
+              yLabel="Power (pT²/Hz)"
+              options={
+                {
+                  y: { type: 'log' },
+                  marks: [
+                    Plot.line(
+                      spectra.b.frequencies.map((f, i) => ({ f, p: spectra.b!.power[i] * 1e24 })),
+                      { x: 'f', y: 'p', stroke: '#E69F00' },
+                    ),
+                  ],
+                } as Plot.PlotOptions
+              }
+              height={240}
+            />
           </div>
         ) : null}
       </div>

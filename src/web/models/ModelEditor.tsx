@@ -13,7 +13,11 @@ import { modelInputSchema, parseTableText } from '@/src/runs/model-spec';
 import type { CavityConfig } from '@/src/engine/cavity/types';
 import { ModelCurves } from './ModelCurves';
 
-export interface ModelEditorValue { name: string; notes: string; config: CavityConfig }
+export interface ModelEditorValue {
+  name: string;
+  notes: string;
+  config: CavityConfig;
+}
 
 export function ModelEditor({ networkId, initial, baseId }: { networkId: string; initial?: ModelEditorValue; baseId?: string }) {
   const router = useRouter();
@@ -30,8 +34,14 @@ export function ModelEditor({ networkId, initial, baseId }: { networkId: string;
   const parsed = useMemo(() => {
     const table = model === 'table' ? parseTableText(tableText) : null;
     const candidate = {
-      name, notes,
-      config: { model, earthRadiusKm: Number(radius), heightKm: Number(height), ...(table ? { table: { columns, rows: table.rows } } : {}) },
+      name,
+      notes,
+      config: {
+        model,
+        earthRadiusKm: Number(radius),
+        heightKm: Number(height),
+        ...(table ? { table: { columns, rows: table.rows } } : {}),
+      },
     };
     const r = modelInputSchema.safeParse(candidate);
     const problems = [
@@ -40,7 +50,9 @@ export function ModelEditor({ networkId, initial, baseId }: { networkId: string;
     ];
     return { value: r.success ? r.data : null, problems };
   }, [name, notes, model, radius, height, columns, tableText]);
-  const err = (f: string) => parsed.problems.find((p) => p.field === f || p.field.startsWith(`${f}.`))?.message ?? (serverError?.field?.startsWith(f) ? serverError.message : null);
+  const err = (f: string) =>
+    parsed.problems.find((p) => p.field === f || p.field.startsWith(`${f}.`))?.message ??
+    (serverError?.field?.startsWith(f) ? serverError.message : null);
 
   async function save(e: FormEvent) {
     e.preventDefault();
@@ -66,7 +78,9 @@ export function ModelEditor({ networkId, initial, baseId }: { networkId: string;
   return (
     <form onSubmit={save} className="space-y-5" noValidate>
       <div className="grid gap-4 md:grid-cols-2">
-        <FormField id="model-name" label="Name" error={err('name')}><input className={inputClass} value={name} onChange={(e) => setName(e.target.value)} /></FormField>
+        <FormField id="model-name" label="Name" error={err('name')}>
+          <input className={inputClass} value={name} onChange={(e) => setName(e.target.value)} />
+        </FormField>
         <FormField id="model-kind" label="Propagation parameter from">
           <select className={inputClass} value={model} onChange={(e) => setModel(e.target.value as CavityConfig['model'])}>
             <option value="ishaq-jones">Ishaq–Jones (1977) velocity and attenuation</option>
@@ -74,8 +88,12 @@ export function ModelEditor({ networkId, initial, baseId }: { networkId: string;
             <option value="table">A table of my own</option>
           </select>
         </FormField>
-        <FormField id="model-radius" label="Earth radius (km)" error={err('config.earthRadiusKm')}><input type="number" step="any" className={inputClass} value={radius} onChange={(e) => setRadius(e.target.value)} /></FormField>
-        <FormField id="model-height" label="Effective height (km)" error={err('config.heightKm')}><input type="number" step="any" className={inputClass} value={height} onChange={(e) => setHeight(e.target.value)} /></FormField>
+        <FormField id="model-radius" label="Earth radius (km)" error={err('config.earthRadiusKm')}>
+          <input type="number" step="any" className={inputClass} value={radius} onChange={(e) => setRadius(e.target.value)} />
+        </FormField>
+        <FormField id="model-height" label="Effective height (km)" error={err('config.heightKm')}>
+          <input type="number" step="any" className={inputClass} value={height} onChange={(e) => setHeight(e.target.value)} />
+        </FormField>
       </div>
       {model === 'table' ? (
         <div className="space-y-2">
@@ -85,15 +103,35 @@ export function ModelEditor({ networkId, initial, baseId }: { networkId: string;
               <option value="nu">f (Hz), Re ν, Im ν</option>
             </select>
           </FormField>
-          <FormField id="model-table" label="Rows, one per line, frequencies increasing" hint="Comma, semicolon, tab or space separated; lines starting with # are ignored." error={err('config.table')}>
-            <textarea rows={8} className={`${inputClass} font-mono`} value={tableText} onChange={(e) => setTableText(e.target.value)} />
+          <FormField
+            id="model-table"
+            label="Rows, one per line, frequencies increasing"
+            hint="Comma, semicolon, tab or space separated; lines starting with # are ignored."
+            error={err('config.table')}
+          >
+            <textarea
+              rows={8}
+              className={`${inputClass} font-mono`}
+              value={tableText}
+              onChange={(e) => setTableText(e.target.value)}
+            />
           </FormField>
-          <label className="text-sm">Or read a file <input type="file" accept=".csv,.txt,.tsv" onChange={(e) => void upload(e.target.files?.[0])} /></label>
+          <label className="text-sm">
+            Or read a file <input type="file" accept=".csv,.txt,.tsv" onChange={(e) => void upload(e.target.files?.[0])} />
+          </label>
         </div>
       ) : null}
-      <FormField id="model-notes" label="Notes" hint="Where the values come from, what changed in this version."><textarea rows={2} className={inputClass} value={notes} onChange={(e) => setNotes(e.target.value)} /></FormField>
-      {serverError && !serverError.field ? <Notice tone="error" title="Not saved">{serverError.message}</Notice> : null}
-      <Button type="submit" busy={busy} disabled={busy || !!parsed.problems.length}>{baseId ? 'Save as a new version' : 'Save model'}</Button>
+      <FormField id="model-notes" label="Notes" hint="Where the values come from, what changed in this version.">
+        <textarea rows={2} className={inputClass} value={notes} onChange={(e) => setNotes(e.target.value)} />
+      </FormField>
+      {serverError && !serverError.field ? (
+        <Notice tone="error" title="Not saved">
+          {serverError.message}
+        </Notice>
+      ) : null}
+      <Button type="submit" busy={busy} disabled={busy || !!parsed.problems.length}>
+        {baseId ? 'Save as a new version' : 'Save model'}
+      </Button>
       {parsed.value ? <ModelCurves config={parsed.value.config} /> : null}
     </form>
   );

@@ -26,7 +26,11 @@ export function CreateNetworkForm() {
       <Button type="submit" busy={f.busy} className="mb-5">
         Create network
       </Button>
-      {f.formError(['name']) ? <Notice tone="error" className="w-full">{f.formError(['name'])}</Notice> : null}
+      {f.formError(['name']) ? (
+        <Notice tone="error" className="w-full">
+          {f.formError(['name'])}
+        </Notice>
+      ) : null}
     </form>
   );
 }

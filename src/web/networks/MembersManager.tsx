@@ -33,7 +33,17 @@ const ROLE_OPTIONS: { value: Role; label: string }[] = [
   { value: 'owner', label: 'Owner' },
 ];
 
-export function MembersManager({ networkId, canManage, currentUserId, initial }: { networkId: string; canManage: boolean; currentUserId: string; initial: Overview }) {
+export function MembersManager({
+  networkId,
+  canManage,
+  currentUserId,
+  initial,
+}: {
+  networkId: string;
+  canManage: boolean;
+  currentUserId: string;
+  initial: Overview;
+}) {
   const url = `/api/networks/${networkId}/members`;
   const { data, mutate } = useApi<Overview>(url, { fallbackData: initial });
   const [message, setMessage] = useState<{ tone: 'success' | 'error'; text: string; link?: string } | null>(null);
@@ -58,14 +68,22 @@ export function MembersManager({ networkId, canManage, currentUserId, initial }:
 
   const invite = useApiForm();
   const submitInvite = invite.onSubmit(async (d) => {
-    const r = await apiSend<{ invitation: Invitation; link: string; mailSent: boolean }>('POST', `/api/networks/${networkId}/invitations`, {
-      email: d.get('email'),
-      role: d.get('role'),
-    });
+    const r = await apiSend<{ invitation: Invitation; link: string; mailSent: boolean }>(
+      'POST',
+      `/api/networks/${networkId}/invitations`,
+      {
+        email: d.get('email'),
+        role: d.get('role'),
+      },
+    );
     setMessage(
       r.mailSent
         ? { tone: 'success', text: `Invitation sent to ${r.invitation.email}. It expires in 7 days.` }
-        : { tone: 'error', text: `The invitation was saved, but the e-mail could not be sent. Pass this link to ${r.invitation.email} yourself:`, link: r.link },
+        : {
+            tone: 'error',
+            text: `The invitation was saved, but the e-mail could not be sent. Pass this link to ${r.invitation.email} yourself:`,
+            link: r.link,
+          },
     );
     await mutate();
   });
@@ -81,71 +99,87 @@ export function MembersManager({ networkId, canManage, currentUserId, initial }:
 
       <Card title="Members" description={`${members.length} ${members.length === 1 ? 'person' : 'people'} in this network`} flush>
         <div className="relative overflow-x-auto">
-        <table className="w-full min-w-[40rem] text-sm">
-          <caption className="sr-only">Members and their roles</caption>
-          <thead>
-            <tr className="border-b border-line text-left">
-              <th scope="col" className="px-4 py-2 font-semibold">Name</th>
-              <th scope="col" className="px-4 py-2 font-semibold">E-mail</th>
-              <th scope="col" className="px-4 py-2 font-semibold">Role</th>
-              <th scope="col" className="px-4 py-2 font-semibold">Joined</th>
-              {canManage ? <th scope="col" className="px-4 py-2"><span className="sr-only">Actions</span></th> : null}
-            </tr>
-          </thead>
-          <tbody>
-            {members.map((m) => (
-              <tr key={m.userId} className="border-b border-line last:border-0">
-                <td className="px-4 py-2 font-medium">
-                  {m.name}
-                  {m.userId === currentUserId ? <span className="ml-1.5 text-xs text-muted">(you)</span> : null}
-                </td>
-                <td className="px-4 py-2 text-muted">{m.email}</td>
-                <td className="px-4 py-2">
-                  {canManage ? (
-                    <select
-                      aria-label={`Role of ${m.name}`}
-                      value={m.role}
-                      disabled={pending !== null}
-                      onChange={(e) =>
-                        act(
-                          `role-${m.userId}`,
-                          () => apiSend('PATCH', `/api/networks/${networkId}/members/${m.userId}`, { role: e.target.value }),
-                          `${m.name} is now ${e.target.value}.`,
-                        )
-                      }
-                      className={`${inputClass} w-32 py-1`}
-                    >
-                      {ROLE_OPTIONS.map((o) => (
-                        <option key={o.value} value={o.value}>
-                          {o.label}
-                        </option>
-                      ))}
-                    </select>
-                  ) : (
-                    <Badge tone={m.role === 'owner' ? 'accent' : 'neutral'}>{m.role}</Badge>
-                  )}
-                </td>
-                <td className="num px-4 py-2 text-muted">{formatUtc(m.joinedAt).slice(0, 10)}</td>
+          <table className="w-full min-w-[40rem] text-sm">
+            <caption className="sr-only">Members and their roles</caption>
+            <thead>
+              <tr className="border-b border-line text-left">
+                <th scope="col" className="px-4 py-2 font-semibold">
+                  Name
+                </th>
+                <th scope="col" className="px-4 py-2 font-semibold">
+                  E-mail
+                </th>
+                <th scope="col" className="px-4 py-2 font-semibold">
+                  Role
+                </th>
+                <th scope="col" className="px-4 py-2 font-semibold">
+                  Joined
+                </th>
                 {canManage ? (
-                  <td className="px-4 py-2 text-right">
-                    <Button
-                      tone="danger"
-                      size="sm"
-                      busy={pending === `remove-${m.userId}`}
-                      disabled={pending !== null}
-                      onClick={() => {
-                        if (!window.confirm(`Remove ${m.name} from this network?`)) return;
-                        void act(`remove-${m.userId}`, () => apiSend('DELETE', `/api/networks/${networkId}/members/${m.userId}`), `${m.name} was removed.`);
-                      }}
-                    >
-                      Remove
-                    </Button>
-                  </td>
+                  <th scope="col" className="px-4 py-2">
+                    <span className="sr-only">Actions</span>
+                  </th>
                 ) : null}
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {members.map((m) => (
+                <tr key={m.userId} className="border-b border-line last:border-0">
+                  <td className="px-4 py-2 font-medium">
+                    {m.name}
+                    {m.userId === currentUserId ? <span className="ml-1.5 text-xs text-muted">(you)</span> : null}
+                  </td>
+                  <td className="px-4 py-2 text-muted">{m.email}</td>
+                  <td className="px-4 py-2">
+                    {canManage ? (
+                      <select
+                        aria-label={`Role of ${m.name}`}
+                        value={m.role}
+                        disabled={pending !== null}
+                        onChange={(e) =>
+                          act(
+                            `role-${m.userId}`,
+                            () => apiSend('PATCH', `/api/networks/${networkId}/members/${m.userId}`, { role: e.target.value }),
+                            `${m.name} is now ${e.target.value}.`,
+                          )
+                        }
+                        className={`${inputClass} w-32 py-1`}
+                      >
+                        {ROLE_OPTIONS.map((o) => (
+                          <option key={o.value} value={o.value}>
+                            {o.label}
+                          </option>
+                        ))}
+                      </select>
+                    ) : (
+                      <Badge tone={m.role === 'owner' ? 'accent' : 'neutral'}>{m.role}</Badge>
+                    )}
+                  </td>
+                  <td className="num px-4 py-2 text-muted">{formatUtc(m.joinedAt).slice(0, 10)}</td>
+                  {canManage ? (
+                    <td className="px-4 py-2 text-right">
+                      <Button
+                        tone="danger"
+                        size="sm"
+                        busy={pending === `remove-${m.userId}`}
+                        disabled={pending !== null}
+                        onClick={() => {
+                          if (!window.confirm(`Remove ${m.name} from this network?`)) return;
+                          void act(
+                            `remove-${m.userId}`,
+                            () => apiSend('DELETE', `/api/networks/${networkId}/members/${m.userId}`),
+                            `${m.name} was removed.`,
+                          );
+                        }}
+                      >
+                        Remove
+                      </Button>
+                    </td>
+                  ) : null}
+                </tr>
+              ))}
+            </tbody>
+          </table>
         </div>
       </Card>
 
@@ -168,14 +202,20 @@ export function MembersManager({ networkId, canManage, currentUserId, initial }:
               <Button type="submit" busy={invite.busy} className="mt-6">
                 Send invitation
               </Button>
-              {invite.formError(['email', 'role']) ? <Notice tone="error" className="w-full">{invite.formError(['email', 'role'])}</Notice> : null}
+              {invite.formError(['email', 'role']) ? (
+                <Notice tone="error" className="w-full">
+                  {invite.formError(['email', 'role'])}
+                </Notice>
+              ) : null}
             </form>
           </Card>
 
           <Card title="Open invitations" flush>
             {invitations.length === 0 ? (
               <div className="p-4">
-                <EmptyState title="No open invitations">Invite a colleague above; their invitation waits here until they accept it.</EmptyState>
+                <EmptyState title="No open invitations">
+                  Invite a colleague above; their invitation waits here until they accept it.
+                </EmptyState>
               </div>
             ) : (
               <ul className="divide-y divide-line">
@@ -189,7 +229,13 @@ export function MembersManager({ networkId, canManage, currentUserId, initial }:
                       tone="quiet"
                       size="sm"
                       disabled={pending !== null}
-                      onClick={() => act(`revoke-${i.id}`, () => apiSend('DELETE', `/api/networks/${networkId}/invitations/${i.id}`), `The invitation to ${i.email} was withdrawn.`)}
+                      onClick={() =>
+                        act(
+                          `revoke-${i.id}`,
+                          () => apiSend('DELETE', `/api/networks/${networkId}/invitations/${i.id}`),
+                          `The invitation to ${i.email} was withdrawn.`,
+                        )
+                      }
                     >
                       Withdraw
                     </Button>

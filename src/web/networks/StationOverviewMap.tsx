@@ -15,7 +15,12 @@ interface Point {
 export function StationOverviewMap({ stations, networkId }: { stations: Point[]; networkId: string }) {
   return (
     <div className="relative">
-      <WorldMap width={960} height={470} title="Stations of this network" description={`${stations.length} stations; dots mark their positions.`}>
+      <WorldMap
+        width={960}
+        height={470}
+        title="Stations of this network"
+        description={`${stations.length} stations; dots mark their positions.`}
+      >
         {(projection) =>
           stations.map((s) => {
             const xy = projection([s.lon, s.lat]);
@@ -35,7 +40,14 @@ export function StationOverviewMap({ stations, networkId }: { stations: Point[];
       {stations.length === 0 ? (
         <div className="absolute inset-x-6 bottom-6">
           <div className="bg-surface/95">
-            <EmptyState title="No stations yet" action={<ButtonLink href={`/n/${networkId}/stations`} tone="primary" size="sm">Add a station</ButtonLink>}>
+            <EmptyState
+              title="No stations yet"
+              action={
+                <ButtonLink href={`/n/${networkId}/stations`} tone="primary" size="sm">
+                  Add a station
+                </ButtonLink>
+              }
+            >
               Add your first ELF station with its position and components; it appears here on the map.
             </EmptyState>
           </div>

@@ -16,12 +16,23 @@ function bestRows(v: RunView) {
 export function CompareView({ a, b }: { a: RunView; b: RunView }) {
   const runs = [a, b];
   const options = useMemo(() => {
-    const pts = runs.flatMap((v, k) => bestRows(v).flatMap((r) => r.sources.map((s) => ({
-      t: new Date(r.t), I: s.intensity, series: `${k === 0 ? 'A' : 'B'} · ${s.name}`,
-    }))));
+    const pts = runs.flatMap((v, k) =>
+      bestRows(v).flatMap((r) =>
+        r.sources.map((s) => ({
+          t: new Date(r.t),
+          I: s.intensity,
+          series: `${k === 0 ? 'A' : 'B'} · ${s.name}`,
+        })),
+      ),
+    );
     return {
-      x: { type: 'utc', tickFormat: '%H:%M' }, y: { type: 'log' }, color: { legend: true },
-      marks: [Plot.line(pts, { x: 't', y: 'I', stroke: 'series' }), Plot.dot(pts, { x: 't', y: 'I', fill: 'series', r: 2.5, tip: true })],
+      x: { type: 'utc', tickFormat: '%H:%M' },
+      y: { type: 'log' },
+      color: { legend: true },
+      marks: [
+        Plot.line(pts, { x: 't', y: 'I', stroke: 'series' }),
+        Plot.dot(pts, { x: 't', y: 'I', fill: 'series', r: 2.5, tip: true }),
+      ],
     } as unknown as Plot.PlotOptions;
   }, [a, b]); // eslint-disable-line react-hooks/exhaustive-deps
   return (
@@ -29,17 +40,31 @@ export function CompareView({ a, b }: { a: RunView; b: RunView }) {
       <div className="grid gap-6 lg:grid-cols-2">
         {runs.map((v, k) => (
           <section key={v.run.id} className="rounded border border-line p-4 text-sm" aria-label={`Run ${k === 0 ? 'A' : 'B'}`}>
-            <h3 className="font-semibold">{k === 0 ? 'A' : 'B'}: {v.run.name}</h3>
-            <p className="text-muted">{v.model.name} v{v.model.version} · {v.grid.name} v{v.grid.version} · {v.config.starts} starts, seed {v.config.seed} · {v.run.state}</p>
+            <h3 className="font-semibold">
+              {k === 0 ? 'A' : 'B'}: {v.run.name}
+            </h3>
+            <p className="text-muted">
+              {v.model.name} v{v.model.version} · {v.grid.name} v{v.grid.version} · {v.config.starts} starts, seed {v.config.seed}{' '}
+              · {v.run.state}
+            </p>
             <table className="mt-3 w-full tabular-nums">
-              <thead className="text-left text-muted"><tr><th>Interval (UT)</th><th className="text-right">χ²</th><th className="text-right">Reduced χ²</th><th className="text-right">Intensities (C² km²/s)</th></tr></thead>
+              <thead className="text-left text-muted">
+                <tr>
+                  <th>Interval (UT)</th>
+                  <th className="text-right">χ²</th>
+                  <th className="text-right">Reduced χ²</th>
+                  <th className="text-right">Intensities (C² km²/s)</th>
+                </tr>
+              </thead>
               <tbody>
                 {bestRows(v).map((r) => (
                   <tr key={r.t} className="border-t border-line/60">
                     <td>{r.t.slice(0, 16).replace('T', ' ')}</td>
                     <td className="text-right">{fmt(r.misfit, 5)}</td>
                     <td className="text-right">{fmt(r.reduced)}</td>
-                    <td className="text-right">{r.sources.map((s) => `${s.name} ${fmt(s.intensity)} ± ${fmt(r.errors[s.name]?.intensity, 2)}`).join('; ')}</td>
+                    <td className="text-right">
+                      {r.sources.map((s) => `${s.name} ${fmt(s.intensity)} ± ${fmt(r.errors[s.name]?.intensity, 2)}`).join('; ')}
+                    </td>
                   </tr>
                 ))}
               </tbody>
@@ -47,7 +72,13 @@ export function CompareView({ a, b }: { a: RunView; b: RunView }) {
           </section>
         ))}
       </div>
-      <PlotFigure title="Best-minimum intensities of both runs" xLabel="Time (UT)" yLabel="Intensity (C² km²/s)" options={options} height={300} />
+      <PlotFigure
+        title="Best-minimum intensities of both runs"
+        xLabel="Time (UT)"
+        yLabel="Intensity (C² km²/s)"
+        options={options}
+        height={300}
+      />
     </div>
   );
 }

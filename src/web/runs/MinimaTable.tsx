@@ -5,7 +5,15 @@ import { fmt, type InversionResult } from './types';
 
 type Key = 'rank' | 'misfit' | 'reduced' | 'count';
 
-export function MinimaTable({ result, selected, onSelect }: { result: InversionResult; selected: number; onSelect: (i: number) => void }) {
+export function MinimaTable({
+  result,
+  selected,
+  onSelect,
+}: {
+  result: InversionResult;
+  selected: number;
+  onSelect: (i: number) => void;
+}) {
   const [sort, setSort] = useState<{ key: Key; desc: boolean }>({ key: 'rank', desc: false });
   const names = result.paramNames;
   const rows = useMemo(() => {
@@ -14,9 +22,18 @@ export function MinimaTable({ result, selected, onSelect }: { result: InversionR
     return r;
   }, [result, sort]);
   const head = (key: Key, label: string) => (
-    <th scope="col" className="px-2 py-1.5 text-right font-medium" aria-sort={sort.key === key ? (sort.desc ? 'descending' : 'ascending') : 'none'}>
-      <button type="button" className="hover:text-accent" onClick={() => setSort((s) => ({ key, desc: s.key === key ? !s.desc : false }))}>
-        {label}{sort.key === key ? (sort.desc ? ' ▾' : ' ▴') : ''}
+    <th
+      scope="col"
+      className="px-2 py-1.5 text-right font-medium"
+      aria-sort={sort.key === key ? (sort.desc ? 'descending' : 'ascending') : 'none'}
+    >
+      <button
+        type="button"
+        className="hover:text-accent"
+        onClick={() => setSort((s) => ({ key, desc: s.key === key ? !s.desc : false }))}
+      >
+        {label}
+        {sort.key === key ? (sort.desc ? ' ▾' : ' ▴') : ''}
       </button>
     </th>
   );
@@ -39,22 +56,38 @@ export function MinimaTable({ result, selected, onSelect }: { result: InversionR
             {head('count', 'Starts')}
             {names.map((n) => (
               <th key={n} scope="col" className="px-2 py-1.5 text-right font-medium">
-                {n}{n.endsWith('.intensity') ? ' (C² km²/s)' : ' (°)'}
+                {n}
+                {n.endsWith('.intensity') ? ' (C² km²/s)' : ' (°)'}
               </th>
             ))}
           </tr>
         </thead>
         <tbody>
           {rows.map((r) => (
-            <tr key={r.i} onClick={() => onSelect(r.i)} aria-selected={r.i === selected}
-              className={`cursor-pointer border-b border-line/60 ${r.i === selected ? 'bg-accent-soft' : 'hover:bg-surface-2'}`}>
+            <tr
+              key={r.i}
+              onClick={() => onSelect(r.i)}
+              aria-selected={r.i === selected}
+              className={`cursor-pointer border-b border-line/60 ${r.i === selected ? 'bg-accent-soft' : 'hover:bg-surface-2'}`}
+            >
               <td className="px-2 py-1 text-right">
-                <button type="button" className="underline-offset-2 hover:underline" onClick={() => onSelect(r.i)} aria-label={`Select minimum ${r.rank}`}>{r.rank}</button>
+                <button
+                  type="button"
+                  className="underline-offset-2 hover:underline"
+                  onClick={() => onSelect(r.i)}
+                  aria-label={`Select minimum ${r.rank}`}
+                >
+                  {r.rank}
+                </button>
               </td>
               <td className="px-2 py-1 text-right">{fmt(r.misfit, 5)}</td>
               <td className="px-2 py-1 text-right">{fmt(r.reduced)}</td>
               <td className="px-2 py-1 text-right">{r.count}</td>
-              {names.map((n) => <td key={n} className="px-2 py-1 text-right">{value(r.m, n)}</td>)}
+              {names.map((n) => (
+                <td key={n} className="px-2 py-1 text-right">
+                  {value(r.m, n)}
+                </td>
+              ))}
             </tr>
           ))}
         </tbody>

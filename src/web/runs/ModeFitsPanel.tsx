@@ -14,7 +14,9 @@ import type { ModeFit } from '@/src/runs/fits';
 import { fmt } from './types';
 
 const UNIT: Record<ModeFit['component'], { k: number; unit: string }> = {
-  Ez: { k: 1e6, unit: '(mV/m)²/Hz' }, Bns: { k: 1e24, unit: 'pT²/Hz' }, Bew: { k: 1e24, unit: 'pT²/Hz' },
+  Ez: { k: 1e6, unit: '(mV/m)²/Hz' },
+  Bns: { k: 1e24, unit: 'pT²/Hz' },
+  Bew: { k: 1e24, unit: 'pT²/Hz' },
 };
 const OBSERVED = 'var(--c-accent)';
 const PREDICTED = '#CC79A7'; // Okabe & Ito (2008) reddish purple: apart from teal, and not the activity amber
@@ -22,40 +24,61 @@ const PREDICTED = '#CC79A7'; // Okabe & Ito (2008) reddish purple: apart from te
 type Row = { key: string; station: string; component: string; mode: number; rf: number; ri: number; rg: number; chi2: number };
 type SortKey = keyof Omit<Row, 'key'>;
 
-interface Point { mode: number; obs: number; lo: number; hi: number; pred: number; what: string }
+interface Point {
+  mode: number;
+  obs: number;
+  lo: number;
+  hi: number;
+  pred: number;
+  what: string;
+}
 
 function points(list: ModeFit[], pick: 'frequency' | 'intensity' | 'halfWidth', k: number): Point[] {
   return list.map((m) => {
     const obs = m.observed[pick] * k;
     const pred = m.predicted[pick] * k;
     // the intensity's sigma is that of ln(intensity): a factor exp(±σ) around the observed value
-    const [lo, hi] = pick === 'intensity'
-      ? [obs * Math.exp(-m.sigma.logIntensity), obs * Math.exp(m.sigma.logIntensity)]
-      : [obs - m.sigma[pick], obs + m.sigma[pick]];
-    return { mode: m.mode, obs, lo, hi, pred, what: `mode ${m.mode}: observed ${fmt(obs, 4)} (${fmt(lo, 3)} to ${fmt(hi, 3)}), predicted ${fmt(pred, 4)}` };
+    const [lo, hi] =
+      pick === 'intensity'
+        ? [obs * Math.exp(-m.sigma.logIntensity), obs * Math.exp(m.sigma.logIntensity)]
+        : [obs - m.sigma[pick], obs + m.sigma[pick]];
+    return {
+      mode: m.mode,
+      obs,
+      lo,
+      hi,
+      pred,
+      what: `mode ${m.mode}: observed ${fmt(obs, 4)} (${fmt(lo, 3)} to ${fmt(hi, 3)}), predicted ${fmt(pred, 4)}`,
+    };
   });
 }
 
 function figure(pts: Point[], log: boolean) {
-  return (P: PlotModule) => ({
-    x: { domain: pts.map((p) => p.mode), type: 'point', padding: 0.6, tickFormat: (d: number) => `${d}` },
-    y: log ? { type: 'log', tickFormat: '~e' } : { nice: true },
-    color: { legend: true, domain: ['observed ±1σ', 'predicted'], range: [OBSERVED, PREDICTED] },
-    marks: [
-      // observed a little left of the mode's position, predicted a little right, so neither hides the other
-      P.ruleX(pts, { x: 'mode', y1: 'lo', y2: 'hi', dx: -5, stroke: OBSERVED, strokeWidth: 2 }),
-      P.dot(pts, { x: 'mode', y: 'obs', dx: -5, r: 3.5, fill: () => 'observed ±1σ', title: 'what', tip: true }),
-      P.dot(pts, { x: 'mode', y: 'pred', dx: 5, r: 4.5, symbol: 'diamond', fill: () => 'predicted', title: 'what' }),
-    ],
-  }) as unknown as Plot.PlotOptions;
+  return (P: PlotModule) =>
+    ({
+      x: { domain: pts.map((p) => p.mode), type: 'point', padding: 0.6, tickFormat: (d: number) => `${d}` },
+      y: log ? { type: 'log', tickFormat: '~e' } : { nice: true },
+      color: { legend: true, domain: ['observed ±1σ', 'predicted'], range: [OBSERVED, PREDICTED] },
+      marks: [
+        // observed a little left of the mode's position, predicted a little right, so neither hides the other
+        P.ruleX(pts, { x: 'mode', y1: 'lo', y2: 'hi', dx: -5, stroke: OBSERVED, strokeWidth: 2 }),
+        P.dot(pts, { x: 'mode', y: 'obs', dx: -5, r: 3.5, fill: () => 'observed ±1σ', title: 'what', tip: true }),
+        P.dot(pts, { x: 'mode', y: 'pred', dx: 5, r: 4.5, symbol: 'diamond', fill: () => 'predicted', title: 'what' }),
+      ],
+    }) as unknown as Plot.PlotOptions;
 }
 
 function ResidualTable({ modes }: { modes: ModeFit[] }) {
   const [sort, setSort] = useState<{ key: SortKey; desc: boolean }>({ key: 'chi2', desc: true });
   const rows = useMemo(() => {
     const r: Row[] = modes.map((m) => ({
-      key: `${m.station}/${m.component}/${m.mode}`, station: m.station, component: m.component, mode: m.mode,
-      rf: m.residual.frequency, ri: m.residual.logIntensity, rg: m.residual.halfWidth,
+      key: `${m.station}/${m.component}/${m.mode}`,
+      station: m.station,
+      component: m.component,
+      mode: m.mode,
+      rf: m.residual.frequency,
+      ri: m.residual.logIntensity,
+      rg: m.residual.halfWidth,
       chi2: m.residual.frequency ** 2 + m.residual.logIntensity ** 2 + m.residual.halfWidth ** 2,
     }));
     const sign = sort.desc ? -1 : 1;
@@ -66,19 +89,31 @@ function ResidualTable({ modes }: { modes: ModeFit[] }) {
     });
   }, [modes, sort]);
   const head = (key: SortKey, label: string, left = false) => (
-    <th scope="col" className={`px-2 py-1.5 font-medium ${left ? 'text-left' : 'text-right'}`}
-      aria-sort={sort.key === key ? (sort.desc ? 'descending' : 'ascending') : 'none'}>
-      <button type="button" className="hover:text-accent" onClick={() => setSort((s) => ({ key, desc: s.key === key ? !s.desc : false }))}>
-        {label}{sort.key === key ? (sort.desc ? ' ▾' : ' ▴') : ''}
+    <th
+      scope="col"
+      className={`px-2 py-1.5 font-medium ${left ? 'text-left' : 'text-right'}`}
+      aria-sort={sort.key === key ? (sort.desc ? 'descending' : 'ascending') : 'none'}
+    >
+      <button
+        type="button"
+        className="hover:text-accent"
+        onClick={() => setSort((s) => ({ key, desc: s.key === key ? !s.desc : false }))}
+      >
+        {label}
+        {sort.key === key ? (sort.desc ? ' ▾' : ' ▴') : ''}
       </button>
     </th>
   );
   // |r| above 2 means more than two standard deviations off (common practice)
-  const cell = (v: number) => <td className={`px-2 py-1 text-right ${Math.abs(v) > 2 ? 'font-semibold text-danger' : ''}`}>{fmt(v)}</td>;
+  const cell = (v: number) => (
+    <td className={`px-2 py-1 text-right ${Math.abs(v) > 2 ? 'font-semibold text-danger' : ''}`}>{fmt(v)}</td>
+  );
   return (
     <div className="max-h-96 overflow-auto">
       <table className="w-full text-sm tabular-nums" data-testid="mode-residuals">
-        <caption className="mb-1 text-left text-sm font-semibold">Weighted residuals (predicted − observed) / σ, every station, component and mode</caption>
+        <caption className="mb-1 text-left text-sm font-semibold">
+          Weighted residuals (predicted − observed) / σ, every station, component and mode
+        </caption>
         <thead className="sticky top-0 border-b border-line bg-surface text-muted">
           <tr>
             {head('station', 'Station', true)}
@@ -104,12 +139,20 @@ function ResidualTable({ modes }: { modes: ModeFit[] }) {
           ))}
         </tbody>
       </table>
-      <p className="mt-1 text-xs text-muted">Residuals beyond ±2σ are marked. Sort on any column; the misfit χ² of the minimum is the sum of the last column.</p>
+      <p className="mt-1 text-xs text-muted">
+        Residuals beyond ±2σ are marked. Sort on any column; the misfit χ² of the minimum is the sum of the last column.
+      </p>
     </div>
   );
 }
 
-export function ModeFitsPanel({ fits, error }: { fits: { series: unknown[]; modes?: ModeFit[]; assumedExclusions?: string[] } | undefined; error?: Error }) {
+export function ModeFitsPanel({
+  fits,
+  error,
+}: {
+  fits: { series: unknown[]; modes?: ModeFit[]; assumedExclusions?: string[] } | undefined;
+  error?: Error;
+}) {
   const pairs = useMemo(() => {
     const seen = new Map<string, { station: string; component: ModeFit['component'] }>();
     for (const m of fits?.modes ?? []) seen.set(`${m.station} ${m.component}`, { station: m.station, component: m.component });
@@ -129,30 +172,76 @@ export function ModeFitsPanel({ fits, error }: { fits: { series: unknown[]; mode
       halfWidth: figure(points(list, 'halfWidth', 1), false),
     };
   }, [chosen, fits]);
-  if (error) return <Notice tone="error" title="The mode fits could not be loaded">{error.message}</Notice>;
+  if (error)
+    return (
+      <Notice tone="error" title="The mode fits could not be loaded">
+        {error.message}
+      </Notice>
+    );
   if (!fits) return <p className="text-sm text-muted">Loading mode fits…</p>;
-  if (!fits.modes) return <p className="text-sm text-muted">The server sent no mode comparison for this minimum. Reload the page once the service has been updated.</p>;
-  if (!chosen || !figs) return <p className="text-sm text-muted">No observed modes in this interval: the stations' mode fits for it may have been removed. Fit the interval's spectra again, then run again.</p>;
+  if (!fits.modes)
+    return (
+      <p className="text-sm text-muted">
+        The server sent no mode comparison for this minimum. Reload the page once the service has been updated.
+      </p>
+    );
+  if (!chosen || !figs)
+    return (
+      <p className="text-sm text-muted">
+        No observed modes in this interval: the stations' mode fits for it may have been removed. Fit the interval's spectra
+        again, then run again.
+      </p>
+    );
   const [label, { station, component }] = chosen;
   return (
     <div className="space-y-4" data-testid="mode-fits">
       {pairs.length > 1 ? (
-        <label className="text-sm">Station and component{' '}
-          <select className="ml-2 rounded border border-line-strong bg-surface px-2 py-1" value={Math.min(pick, pairs.length - 1)} onChange={(e) => setPick(Number(e.target.value))}>
-            {pairs.map(([l], i) => <option key={l} value={i}>{l}</option>)}
+        <label className="text-sm">
+          Station and component{' '}
+          <select
+            className="ml-2 rounded border border-line-strong bg-surface px-2 py-1"
+            value={Math.min(pick, pairs.length - 1)}
+            onChange={(e) => setPick(Number(e.target.value))}
+          >
+            {pairs.map(([l], i) => (
+              <option key={l} value={i}>
+                {l}
+              </option>
+            ))}
           </select>
         </label>
-      ) : <p className="text-sm">{label}</p>}
+      ) : (
+        <p className="text-sm">{label}</p>
+      )}
       <div className="grid gap-4 lg:grid-cols-3">
-        <PlotFigure title={`Mode frequency, ${station} ${component}`} xLabel="Mode number" yLabel="Frequency (Hz)" options={figs.frequency} height={220} />
-        <PlotFigure title={`Peak intensity, ${station} ${component}`} xLabel="Mode number" yLabel={`Peak power density (${figs.unit})`} options={figs.intensity} height={220} />
-        <PlotFigure title={`Half-width, ${station} ${component}`} xLabel="Mode number" yLabel="Half-width at half maximum (Hz)" options={figs.halfWidth} height={220} />
+        <PlotFigure
+          title={`Mode frequency, ${station} ${component}`}
+          xLabel="Mode number"
+          yLabel="Frequency (Hz)"
+          options={figs.frequency}
+          height={220}
+        />
+        <PlotFigure
+          title={`Peak intensity, ${station} ${component}`}
+          xLabel="Mode number"
+          yLabel={`Peak power density (${figs.unit})`}
+          options={figs.intensity}
+          height={220}
+        />
+        <PlotFigure
+          title={`Half-width, ${station} ${component}`}
+          xLabel="Mode number"
+          yLabel="Half-width at half maximum (Hz)"
+          options={figs.halfWidth}
+          height={220}
+        />
       </div>
       {fits.assumedExclusions?.length ? (
         <Notice tone="storm" title="Left-out lines assumed">
-          The stored mode fits of {fits.assumedExclusions.join(', ')} were made before fits recorded the frequency ranges they left out.
-          Their predicted modes were fitted without the station&apos;s mains and listed interference lines as the station is set up now;
-          if the observed fit kept those bins, the comparison is off. Fit the interval&apos;s spectra again to record them.
+          The stored mode fits of {fits.assumedExclusions.join(', ')} were made before fits recorded the frequency ranges they
+          left out. Their predicted modes were fitted without the station&apos;s mains and listed interference lines as the
+          station is set up now; if the observed fit kept those bins, the comparison is off. Fit the interval&apos;s spectra again
+          to record them.
         </Notice>
       ) : null}
       <ResidualTable modes={fits.modes} />

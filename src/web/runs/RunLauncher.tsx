@@ -20,14 +20,48 @@ export interface LauncherOptions {
   range: { first: string | null; last: string | null };
 }
 
-type RegionRow = { region: string; use: boolean; iMin: number; iMax: number; moving: boolean; latMin: number; latMax: number; lonMin: number; lonMax: number };
-type FormValues = {
-  name: string; modelId: string; gridId: string; stationIds: string[]; components: string[];
-  from: string; to: string; includeFlagged: boolean;
-  kind: 'spectrum' | 'modes'; minHz: number; maxHz: number; every: number; modes: number;
-  regions: RegionRow[]; initialLambda: number; maxIterations: number; scaleCovariance: boolean; starts: number; seed: number;
+type RegionRow = {
+  region: string;
+  use: boolean;
+  iMin: number;
+  iMax: number;
+  moving: boolean;
+  latMin: number;
+  latMax: number;
+  lonMin: number;
+  lonMax: number;
 };
-type Preview = { nData: number; nParams: number; starts: number; intervals: number; series: number; estimateSeconds: number; firstInterval?: string; lastInterval?: string };
+type FormValues = {
+  name: string;
+  modelId: string;
+  gridId: string;
+  stationIds: string[];
+  components: string[];
+  from: string;
+  to: string;
+  includeFlagged: boolean;
+  kind: 'spectrum' | 'modes';
+  minHz: number;
+  maxHz: number;
+  every: number;
+  modes: number;
+  regions: RegionRow[];
+  initialLambda: number;
+  maxIterations: number;
+  scaleCovariance: boolean;
+  starts: number;
+  seed: number;
+};
+type Preview = {
+  nData: number;
+  nParams: number;
+  starts: number;
+  intervals: number;
+  series: number;
+  estimateSeconds: number;
+  firstInterval?: string;
+  lastInterval?: string;
+};
 type Problem = { field: string; message: string };
 
 const local = (iso: string | null) => (iso ? iso.slice(0, 16) : '');
@@ -37,22 +71,48 @@ const list = (x: unknown): string[] => (Array.isArray(x) ? x : typeof x === 'str
 
 export function toConfig(v: FormValues): unknown {
   return {
-    name: v.name, modelId: v.modelId, gridId: v.gridId,
-    data: { stationIds: list(v.stationIds), components: list(v.components), from: utc(v.from), to: utc(v.to), includeFlagged: v.includeFlagged },
-    observables: v.kind === 'spectrum' ? { kind: 'spectrum', minHz: Number(v.minHz), maxHz: Number(v.maxHz), every: Number(v.every) } : { kind: 'modes', modes: Number(v.modes) },
-    regions: (v.regions ?? []).filter((r) => r.use).map((r) => ({
-      region: r.region, intensity: { min: Number(r.iMin), max: Number(r.iMax) },
-      ...(r.moving ? { lat: { min: Number(r.latMin), max: Number(r.latMax) }, lon: { min: Number(r.lonMin), max: Number(r.lonMax) } } : {}),
-    })),
-    damping: { initialLambda: Number(v.initialLambda), maxIterations: Number(v.maxIterations), scaleCovariance: v.scaleCovariance },
-    starts: Number(v.starts), seed: Number(v.seed),
+    name: v.name,
+    modelId: v.modelId,
+    gridId: v.gridId,
+    data: {
+      stationIds: list(v.stationIds),
+      components: list(v.components),
+      from: utc(v.from),
+      to: utc(v.to),
+      includeFlagged: v.includeFlagged,
+    },
+    observables:
+      v.kind === 'spectrum'
+        ? { kind: 'spectrum', minHz: Number(v.minHz), maxHz: Number(v.maxHz), every: Number(v.every) }
+        : { kind: 'modes', modes: Number(v.modes) },
+    regions: (v.regions ?? [])
+      .filter((r) => r.use)
+      .map((r) => ({
+        region: r.region,
+        intensity: { min: Number(r.iMin), max: Number(r.iMax) },
+        ...(r.moving
+          ? { lat: { min: Number(r.latMin), max: Number(r.latMax) }, lon: { min: Number(r.lonMin), max: Number(r.lonMax) } }
+          : {}),
+      })),
+    damping: {
+      initialLambda: Number(v.initialLambda),
+      maxIterations: Number(v.maxIterations),
+      scaleCovariance: v.scaleCovariance,
+    },
+    starts: Number(v.starts),
+    seed: Number(v.seed),
   };
 }
 
 /** Form paths for config paths, so an error lands beside its control. */
 function formPath(configPath: string): string {
-  return configPath.replace(/^data\./, '').replace(/^observables\./, '').replace(/^damping\./, '').replace(/^regions\.(\d+)\.intensity.*/, 'regions.$1.iMin')
-    .replace(/^regions\.(\d+)\.(lat|lon).*/, 'regions.$1.$2Min').replace(/\.\d+$/, '');
+  return configPath
+    .replace(/^data\./, '')
+    .replace(/^observables\./, '')
+    .replace(/^damping\./, '')
+    .replace(/^regions\.(\d+)\.intensity.*/, 'regions.$1.iMin')
+    .replace(/^regions\.(\d+)\.(lat|lon).*/, 'regions.$1.$2Min')
+    .replace(/\.\d+$/, '');
 }
 
 const resolver: Resolver<FormValues> = async (values) => {
@@ -68,9 +128,15 @@ const resolver: Resolver<FormValues> = async (values) => {
 
 function regionRows(regions: Region[]): RegionRow[] {
   return regions.map((r) => ({
-    region: r.key, use: true, iMin: 100, iMax: 1e6, moving: r.kind === 'moving',
-    latMin: r.kind === 'moving' ? r.bounds.lat.min : 0, latMax: r.kind === 'moving' ? r.bounds.lat.max : 0,
-    lonMin: r.kind === 'moving' ? r.bounds.lon.min : 0, lonMax: r.kind === 'moving' ? r.bounds.lon.max : 0,
+    region: r.key,
+    use: true,
+    iMin: 100,
+    iMax: 1e6,
+    moving: r.kind === 'moving',
+    latMin: r.kind === 'moving' ? r.bounds.lat.min : 0,
+    latMax: r.kind === 'moving' ? r.bounds.lat.max : 0,
+    lonMin: r.kind === 'moving' ? r.bounds.lon.min : 0,
+    lonMax: r.kind === 'moving' ? r.bounds.lon.max : 0,
   }));
 }
 
@@ -78,19 +144,42 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
   const router = useRouter();
   const firstGrid = options.grids[0];
   const form = useForm<FormValues>({
-    resolver, mode: 'onChange',
+    resolver,
+    mode: 'onChange',
     defaultValues: {
-      name: `Run ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UT`, modelId: options.models[0]?.id ?? '', gridId: firstGrid?.id ?? '',
-      stationIds: options.stations.map((s) => s.id), components: ['Ez', 'Bns', 'Bew'],
-      from: local(options.range.first), to: local(options.range.first), includeFlagged: false,
-      kind: 'spectrum', minHz: 6, maxHz: 30, every: 1, modes: 4,
-      regions: firstGrid ? regionRows(firstGrid.regions) : [], initialLambda: 0.01, maxIterations: 200, scaleCovariance: true, starts: 16, seed: 1,
+      name: `Run ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UT`,
+      modelId: options.models[0]?.id ?? '',
+      gridId: firstGrid?.id ?? '',
+      stationIds: options.stations.map((s) => s.id),
+      components: ['Ez', 'Bns', 'Bew'],
+      from: local(options.range.first),
+      to: local(options.range.first),
+      includeFlagged: false,
+      kind: 'spectrum',
+      minHz: 6,
+      maxHz: 30,
+      every: 1,
+      modes: 4,
+      regions: firstGrid ? regionRows(firstGrid.regions) : [],
+      initialLambda: 0.01,
+      maxIterations: 200,
+      scaleCovariance: true,
+      starts: 16,
+      seed: 1,
     },
   });
-  const { register, handleSubmit, formState: { errors }, setValue, control } = form;
+  const {
+    register,
+    handleSubmit,
+    formState: { errors },
+    setValue,
+    control,
+  } = form;
   const values = useWatch({ control }) as FormValues;
   const grid = useMemo(() => options.grids.find((g) => g.id === values.gridId), [options.grids, values.gridId]);
-  useEffect(() => { if (grid) setValue('regions', regionRows(grid.regions)); }, [grid, setValue]);
+  useEffect(() => {
+    if (grid) setValue('regions', regionRows(grid.regions));
+  }, [grid, setValue]);
   const [preview, setPreview] = useState<Preview | null>(null);
   const [problems, setProblems] = useState<Problem[]>([]);
   const [serverError, setServerError] = useState<string | null>(null);
@@ -99,7 +188,11 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
   async function check(v: FormValues) {
     setServerError(null);
     try {
-      const r = await apiSend<{ problems: Problem[]; preview: Preview | null }>('POST', `/api/networks/${networkId}/runs/check`, toConfig(v));
+      const r = await apiSend<{ problems: Problem[]; preview: Preview | null }>(
+        'POST',
+        `/api/networks/${networkId}/runs/check`,
+        toConfig(v),
+      );
       setProblems(r.problems);
       setPreview(r.preview);
       return r.problems.length === 0;
@@ -120,113 +213,293 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
       setBusy(false);
     }
   }
-  const err = (k: string) => (errors as Record<string, { message?: string }>)[k]?.message ?? problems.find((p) => formPath(p.field) === k)?.message;
+  const err = (k: string) =>
+    (errors as Record<string, { message?: string }>)[k]?.message ?? problems.find((p) => formPath(p.field) === k)?.message;
   const E = ({ k }: { k: string }) => (err(k) ? <p className="text-xs font-medium text-danger">{err(k)}</p> : null);
   const section = 'rounded-[var(--radius-card,0.5rem)] border border-line p-4 space-y-3';
 
   return (
     <form onSubmit={handleSubmit(launch)} className="space-y-5" noValidate>
       <div className={section}>
-        <label className="block text-sm font-medium">Run name<input className={inputClass} {...register('name')} /></label><E k="name" />
+        <label className="block text-sm font-medium">
+          Run name
+          <input className={inputClass} {...register('name')} />
+        </label>
+        <E k="name" />
         <div className="grid gap-3 md:grid-cols-2">
-          <label className="block text-sm font-medium">Cavity model
-            <select className={inputClass} {...register('modelId')}>{options.models.map((m) => <option key={m.id} value={m.id}>{m.name} v{m.version}</option>)}</select>
+          <label className="block text-sm font-medium">
+            Cavity model
+            <select className={inputClass} {...register('modelId')}>
+              {options.models.map((m) => (
+                <option key={m.id} value={m.id}>
+                  {m.name} v{m.version}
+                </option>
+              ))}
+            </select>
           </label>
-          <label className="block text-sm font-medium">Source grid
-            <select className={inputClass} {...register('gridId')}>{options.grids.map((g) => <option key={g.id} value={g.id}>{g.name} v{g.version}</option>)}</select>
+          <label className="block text-sm font-medium">
+            Source grid
+            <select className={inputClass} {...register('gridId')}>
+              {options.grids.map((g) => (
+                <option key={g.id} value={g.id}>
+                  {g.name} v{g.version}
+                </option>
+              ))}
+            </select>
           </label>
         </div>
-        <E k="modelId" /><E k="gridId" />
+        <E k="modelId" />
+        <E k="gridId" />
       </div>
 
       <fieldset className={section}>
         <legend className="px-1 text-sm font-semibold">Data</legend>
         <div className="flex flex-wrap gap-3 text-sm">
-          {options.stations.map((s) => <label key={s.id} className="flex items-center gap-1"><input type="checkbox" value={s.id} {...register('stationIds')} />{s.code} <span className="text-muted">{s.name}</span></label>)}
-        </div><E k="stationIds" />
-        <div className="flex gap-4 text-sm">
-          {['Ez', 'Bns', 'Bew'].map((c) => <label key={c} className="flex items-center gap-1"><input type="checkbox" value={c} {...register('components')} />{c}</label>)}
-        </div><E k="components" />
-        <div className="grid gap-3 md:grid-cols-3">
-          <label className="block text-sm font-medium">First interval start (UT)<input type="datetime-local" step={600} className={inputClass} {...register('from')} /></label>
-          <label className="block text-sm font-medium">Last interval start (UT)<input type="datetime-local" step={600} className={inputClass} {...register('to')} /></label>
-          <label className="mt-6 flex items-center gap-2 text-sm"><input type="checkbox" {...register('includeFlagged')} />Include flagged intervals</label>
+          {options.stations.map((s) => (
+            <label key={s.id} className="flex items-center gap-1">
+              <input type="checkbox" value={s.id} {...register('stationIds')} />
+              {s.code} <span className="text-muted">{s.name}</span>
+            </label>
+          ))}
         </div>
-        <E k="from" /><E k="to" />
-        <p className="text-xs text-muted">Stored data: {options.range.first ? `${options.range.first.slice(0, 16).replace('T', ' ')} to ${options.range.last?.slice(0, 16).replace('T', ' ')} UT` : 'none yet'}. Same start and end: one interval.</p>
+        <E k="stationIds" />
+        <div className="flex gap-4 text-sm">
+          {['Ez', 'Bns', 'Bew'].map((c) => (
+            <label key={c} className="flex items-center gap-1">
+              <input type="checkbox" value={c} {...register('components')} />
+              {c}
+            </label>
+          ))}
+        </div>
+        <E k="components" />
+        <div className="grid gap-3 md:grid-cols-3">
+          <label className="block text-sm font-medium">
+            First interval start (UT)
+            <input type="datetime-local" step={600} className={inputClass} {...register('from')} />
+          </label>
+          <label className="block text-sm font-medium">
+            Last interval start (UT)
+            <input type="datetime-local" step={600} className={inputClass} {...register('to')} />
+          </label>
+          <label className="mt-6 flex items-center gap-2 text-sm">
+            <input type="checkbox" {...register('includeFlagged')} />
+            Include flagged intervals
+          </label>
+        </div>
+        <E k="from" />
+        <E k="to" />
+        <p className="text-xs text-muted">
+          Stored data:{' '}
+          {options.range.first
+            ? `${options.range.first.slice(0, 16).replace('T', ' ')} to ${options.range.last?.slice(0, 16).replace('T', ' ')} UT`
+            : 'none yet'}
+          . Same start and end: one interval.
+        </p>
       </fieldset>
 
       <fieldset className={section}>
         <legend className="px-1 text-sm font-semibold">Observables</legend>
         <div className="flex gap-4 text-sm">
-          <label className="flex items-center gap-1"><input type="radio" value="spectrum" {...register('kind')} />Spectrum bins in a band</label>
-          <label className="flex items-center gap-1"><input type="radio" value="modes" {...register('kind')} />Mode parameters (fitted peaks)</label>
+          <label className="flex items-center gap-1">
+            <input type="radio" value="spectrum" {...register('kind')} />
+            Spectrum bins in a band
+          </label>
+          <label className="flex items-center gap-1">
+            <input type="radio" value="modes" {...register('kind')} />
+            Mode parameters (fitted peaks)
+          </label>
         </div>
         {values.kind === 'spectrum' ? (
           <div className="grid gap-3 md:grid-cols-3">
-            <label className="block text-sm font-medium">Lowest frequency (Hz)<input type="number" step="any" className={inputClass} {...register('minHz', { valueAsNumber: true })} /></label>
-            <label className="block text-sm font-medium">Highest frequency (Hz)<input type="number" step="any" className={inputClass} {...register('maxHz', { valueAsNumber: true })} /></label>
-            <label className="block text-sm font-medium">Use every k-th bin<input type="number" className={inputClass} {...register('every', { valueAsNumber: true })} /></label>
+            <label className="block text-sm font-medium">
+              Lowest frequency (Hz)
+              <input type="number" step="any" className={inputClass} {...register('minHz', { valueAsNumber: true })} />
+            </label>
+            <label className="block text-sm font-medium">
+              Highest frequency (Hz)
+              <input type="number" step="any" className={inputClass} {...register('maxHz', { valueAsNumber: true })} />
+            </label>
+            <label className="block text-sm font-medium">
+              Use every k-th bin
+              <input type="number" className={inputClass} {...register('every', { valueAsNumber: true })} />
+            </label>
           </div>
         ) : (
-          <label className="block text-sm font-medium">Modes<input type="number" className={inputClass} {...register('modes', { valueAsNumber: true })} /></label>
+          <label className="block text-sm font-medium">
+            Modes
+            <input type="number" className={inputClass} {...register('modes', { valueAsNumber: true })} />
+          </label>
         )}
-        <E k="minHz" /><E k="maxHz" /><E k="observables" />
+        <E k="minHz" />
+        <E k="maxHz" />
+        <E k="observables" />
       </fieldset>
 
       <fieldset className={section}>
         <legend className="px-1 text-sm font-semibold">Regions and bounds</legend>
         {grid && values.regions?.length ? (
           <table className="w-full text-sm tabular-nums">
-            <thead className="text-left text-muted"><tr><th>Use</th><th>Region</th><th>Intensity min–max (C² km²/s)</th><th>Centre latitude (°)</th><th>Centre longitude (°)</th></tr></thead>
+            <thead className="text-left text-muted">
+              <tr>
+                <th>Use</th>
+                <th>Region</th>
+                <th>Intensity min–max (C² km²/s)</th>
+                <th>Centre latitude (°)</th>
+                <th>Centre longitude (°)</th>
+              </tr>
+            </thead>
             <tbody>
               {values.regions.map((r, i) => {
                 const reg = grid.regions.find((x) => x.key === r.region);
                 const num = 'w-24 rounded border border-line-strong bg-surface px-1.5 py-1';
                 return (
                   <tr key={r.region} className="border-t border-line/60 align-top">
-                    <td><input type="checkbox" aria-label={`Use ${reg?.name}`} {...register(`regions.${i}.use`)} /></td>
-                    <td><span className="mr-1 inline-block size-2.5 rounded-sm" style={{ background: reg?.colour }} />{reg?.name} <span className="text-xs text-muted">{reg?.kind === 'cells' ? 'fixed cells' : 'moving'}</span></td>
-                    <td><input aria-label={`${reg?.name} lowest intensity`} className={num} type="number" step="any" {...register(`regions.${i}.iMin`, { valueAsNumber: true })} /> – <input aria-label={`${reg?.name} highest intensity`} className={num} type="number" step="any" {...register(`regions.${i}.iMax`, { valueAsNumber: true })} /><E k={`regions.${i}.iMin`} /></td>
-                    <td>{r.moving ? <><input aria-label={`${reg?.name} lowest latitude`} className={num} type="number" step="any" {...register(`regions.${i}.latMin`, { valueAsNumber: true })} /> – <input aria-label={`${reg?.name} highest latitude`} className={num} type="number" step="any" {...register(`regions.${i}.latMax`, { valueAsNumber: true })} /><E k={`regions.${i}.latMin`} /></> : 'fixed'}</td>
-                    <td>{r.moving ? <><input aria-label={`${reg?.name} lowest longitude`} className={num} type="number" step="any" {...register(`regions.${i}.lonMin`, { valueAsNumber: true })} /> – <input aria-label={`${reg?.name} highest longitude`} className={num} type="number" step="any" {...register(`regions.${i}.lonMax`, { valueAsNumber: true })} /><E k={`regions.${i}.lonMin`} /></> : 'fixed'}</td>
+                    <td>
+                      <input type="checkbox" aria-label={`Use ${reg?.name}`} {...register(`regions.${i}.use`)} />
+                    </td>
+                    <td>
+                      <span className="mr-1 inline-block size-2.5 rounded-sm" style={{ background: reg?.colour }} />
+                      {reg?.name} <span className="text-xs text-muted">{reg?.kind === 'cells' ? 'fixed cells' : 'moving'}</span>
+                    </td>
+                    <td>
+                      <input
+                        aria-label={`${reg?.name} lowest intensity`}
+                        className={num}
+                        type="number"
+                        step="any"
+                        {...register(`regions.${i}.iMin`, { valueAsNumber: true })}
+                      />{' '}
+                      –{' '}
+                      <input
+                        aria-label={`${reg?.name} highest intensity`}
+                        className={num}
+                        type="number"
+                        step="any"
+                        {...register(`regions.${i}.iMax`, { valueAsNumber: true })}
+                      />
+                      <E k={`regions.${i}.iMin`} />
+                    </td>
+                    <td>
+                      {r.moving ? (
+                        <>
+                          <input
+                            aria-label={`${reg?.name} lowest latitude`}
+                            className={num}
+                            type="number"
+                            step="any"
+                            {...register(`regions.${i}.latMin`, { valueAsNumber: true })}
+                          />{' '}
+                          –{' '}
+                          <input
+                            aria-label={`${reg?.name} highest latitude`}
+                            className={num}
+                            type="number"
+                            step="any"
+                            {...register(`regions.${i}.latMax`, { valueAsNumber: true })}
+                          />
+                          <E k={`regions.${i}.latMin`} />
+                        </>
+                      ) : (
+                        'fixed'
+                      )}
+                    </td>
+                    <td>
+                      {r.moving ? (
+                        <>
+                          <input
+                            aria-label={`${reg?.name} lowest longitude`}
+                            className={num}
+                            type="number"
+                            step="any"
+                            {...register(`regions.${i}.lonMin`, { valueAsNumber: true })}
+                          />{' '}
+                          –{' '}
+                          <input
+                            aria-label={`${reg?.name} highest longitude`}
+                            className={num}
+                            type="number"
+                            step="any"
+                            {...register(`regions.${i}.lonMax`, { valueAsNumber: true })}
+                          />
+                          <E k={`regions.${i}.lonMin`} />
+                        </>
+                      ) : (
+                        'fixed'
+                      )}
+                    </td>
                   </tr>
                 );
               })}
             </tbody>
           </table>
-        ) : <p className="text-sm text-muted">The chosen grid has no regions yet: draw some on the grid page first.</p>}
+        ) : (
+          <p className="text-sm text-muted">The chosen grid has no regions yet: draw some on the grid page first.</p>
+        )}
         <E k="regions" />
       </fieldset>
 
       <fieldset className={section}>
         <legend className="px-1 text-sm font-semibold">Minimisation</legend>
         <div className="grid gap-3 md:grid-cols-4">
-          <label className="block text-sm font-medium">Starts<input type="number" className={inputClass} {...register('starts', { valueAsNumber: true })} /></label>
-          <label className="block text-sm font-medium">Seed<input type="number" className={inputClass} {...register('seed', { valueAsNumber: true })} /></label>
-          <label className="block text-sm font-medium">Initial damping λ<input type="number" step="any" className={inputClass} {...register('initialLambda', { valueAsNumber: true })} /></label>
-          <label className="block text-sm font-medium">Iterations per start (max)<input type="number" className={inputClass} {...register('maxIterations', { valueAsNumber: true })} /></label>
+          <label className="block text-sm font-medium">
+            Starts
+            <input type="number" className={inputClass} {...register('starts', { valueAsNumber: true })} />
+          </label>
+          <label className="block text-sm font-medium">
+            Seed
+            <input type="number" className={inputClass} {...register('seed', { valueAsNumber: true })} />
+          </label>
+          <label className="block text-sm font-medium">
+            Initial damping λ
+            <input type="number" step="any" className={inputClass} {...register('initialLambda', { valueAsNumber: true })} />
+          </label>
+          <label className="block text-sm font-medium">
+            Iterations per start (max)
+            <input type="number" className={inputClass} {...register('maxIterations', { valueAsNumber: true })} />
+          </label>
         </div>
-        <label className="flex items-center gap-2 text-sm"><input type="checkbox" {...register('scaleCovariance')} />Scale standard errors by the reduced chi-square</label>
-        <E k="starts" /><E k="seed" /><E k="initialLambda" /><E k="maxIterations" />
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" {...register('scaleCovariance')} />
+          Scale standard errors by the reduced chi-square
+        </label>
+        <E k="starts" />
+        <E k="seed" />
+        <E k="initialLambda" />
+        <E k="maxIterations" />
       </fieldset>
 
       <div className={section} aria-live="polite">
         <div className="flex flex-wrap items-center gap-3">
-          <Button type="button" tone="secondary" onClick={handleSubmit((v) => check(v).then(() => undefined))}>Check and preview</Button>
-          <Button type="submit" busy={busy} disabled={busy}>Launch run</Button>
+          <Button type="button" tone="secondary" onClick={handleSubmit((v) => check(v).then(() => undefined))}>
+            Check and preview
+          </Button>
+          <Button type="submit" busy={busy} disabled={busy}>
+            Launch run
+          </Button>
         </div>
         {preview ? (
           <p className="text-sm tabular-nums" data-testid="run-preview">
-            {preview.intervals} interval{preview.intervals === 1 ? '' : 's'} · {preview.series} series · {preview.nData} data per interval · {preview.nParams} free parameters · {preview.starts} starts · about {formatDuration(Math.max(1, preview.estimateSeconds))} (rough)
+            {preview.intervals} interval{preview.intervals === 1 ? '' : 's'} · {preview.series} series · {preview.nData} data per
+            interval · {preview.nParams} free parameters · {preview.starts} starts · about{' '}
+            {formatDuration(Math.max(1, preview.estimateSeconds))} (rough)
           </p>
         ) : null}
         {problems.length ? (
           <Notice tone="error" title="This run cannot start yet">
-            <ul className="list-disc pl-5">{problems.map((p, i) => <li key={i}>{p.message} <span className="text-xs text-muted">({p.field})</span></li>)}</ul>
+            <ul className="list-disc pl-5">
+              {problems.map((p, i) => (
+                <li key={i}>
+                  {p.message} <span className="text-xs text-muted">({p.field})</span>
+                </li>
+              ))}
+            </ul>
           </Notice>
         ) : null}
-        {serverError ? <Notice tone="error" title="Not launched">{serverError}</Notice> : null}
+        {serverError ? (
+          <Notice tone="error" title="Not launched">
+            {serverError}
+          </Notice>
+        ) : null}
         {errors.root ? <Notice tone="error">{(errors.root as { message?: string }).message}</Notice> : null}
       </div>
       <Caution topic="research" />

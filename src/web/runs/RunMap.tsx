@@ -18,9 +18,19 @@ import type { Region } from '@/src/runs/grid-spec';
 import { covarianceEllipse } from '@/src/runs/ellipse';
 import { centreCovariance, fmt, type Minimum } from './types';
 
-export interface StationMark { station: string; lat: number; lon: number; chi2PerBin: number }
+export interface StationMark {
+  station: string;
+  lat: number;
+  lon: number;
+  chi2PerBin: number;
+}
 
-export interface RunMapState { regions: Region[]; cellSizeDeg: number; minimum: Minimum | null; stations: StationMark[] }
+export interface RunMapState {
+  regions: Region[];
+  cellSizeDeg: number;
+  minimum: Minimum | null;
+  stations: StationMark[];
+}
 
 const Selection = createContext<RunMapState | null>(null);
 
@@ -44,8 +54,8 @@ export function RunMap({ frame, regions, cellSizeDeg, minimum, stations }: RunMa
     <div>
       <Selection.Provider value={state}>{frame}</Selection.Provider>
       <p className="mt-1 text-xs text-muted">
-        Shading: intensity on a logarithmic inferno scale from {fmt(10 ** lo)} to {fmt(10 ** hi)} C² km²/s.
-        Ellipses: 1σ (solid fill) and 2σ (dashed) of the centre. Squares: stations, teal when chi-square per bin ≤ 2, red otherwise.
+        Shading: intensity on a logarithmic inferno scale from {fmt(10 ** lo)} to {fmt(10 ** hi)} C² km²/s. Ellipses: 1σ (solid
+        fill) and 2σ (dashed) of the centre. Squares: stations, teal when chi-square per bin ≤ 2, red otherwise.
       </p>
     </div>
   );
@@ -67,10 +77,30 @@ export function RunMapLayer({ width, height }: { width: number; height: number }
         if (r.kind === 'cells') {
           return r.cells.map((c) => {
             const b = cellBox(cellSizeDeg, c);
-            const d = path({ type: 'Polygon', coordinates: [[[b.west, b.south], [b.west, b.north], [b.east, b.north], [b.east, b.south], [b.west, b.south]]] });
-            return <path key={`${r.key}-${c}`} d={d ?? ''} fill={s ? shade(t(s.intensity)) : 'none'} fillOpacity={0.85} stroke={r.colour} strokeWidth={0.6}>
-              <title>{`${r.name}: ${s ? fmt(s.intensity) + ' C² km²/s' : 'not estimated'}`}</title>
-            </path>;
+            const d = path({
+              type: 'Polygon',
+              coordinates: [
+                [
+                  [b.west, b.south],
+                  [b.west, b.north],
+                  [b.east, b.north],
+                  [b.east, b.south],
+                  [b.west, b.south],
+                ],
+              ],
+            });
+            return (
+              <path
+                key={`${r.key}-${c}`}
+                d={d ?? ''}
+                fill={s ? shade(t(s.intensity)) : 'none'}
+                fillOpacity={0.85}
+                stroke={r.colour}
+                strokeWidth={0.6}
+              >
+                <title>{`${r.name}: ${s ? fmt(s.intensity) + ' C² km²/s' : 'not estimated'}`}</title>
+              </path>
+            );
           });
         }
         if (!s) return null;
@@ -78,10 +108,21 @@ export function RunMapLayer({ width, height }: { width: number; height: number }
         const [x, y] = projection([s.lon, s.lat]) ?? [0, 0];
         return (
           <g key={r.key}>
-            {cov ? [2, 1].map((k) => (
-              <path key={k} d={path({ type: 'Polygon', coordinates: [covarianceEllipse(s, cov.sLat, cov.sLon, cov.rho, k).reverse()] }) ?? ''}
-                fill={shade(t(s.intensity))} fillOpacity={k === 1 ? 0.45 : 0.2} stroke={r.colour} strokeDasharray={k === 2 ? '3 2' : undefined} />
-            )) : null}
+            {cov
+              ? [2, 1].map((k) => (
+                  <path
+                    key={k}
+                    d={
+                      path({ type: 'Polygon', coordinates: [covarianceEllipse(s, cov.sLat, cov.sLon, cov.rho, k).reverse()] }) ??
+                      ''
+                    }
+                    fill={shade(t(s.intensity))}
+                    fillOpacity={k === 1 ? 0.45 : 0.2}
+                    stroke={r.colour}
+                    strokeDasharray={k === 2 ? '3 2' : undefined}
+                  />
+                ))
+              : null}
             <circle cx={x} cy={y} r={5} fill={shade(t(s.intensity))} stroke={r.colour} strokeWidth={2}>
               <title>{`${r.name}: ${fmt(s.intensity)} C² km²/s at ${s.lat.toFixed(2)}°, ${s.lon.toFixed(2)}°`}</title>
             </circle>
@@ -93,8 +134,18 @@ export function RunMapLayer({ width, height }: { width: number; height: number }
         const good = st.chi2PerBin <= 2;
         return (
           <g key={st.station} transform={`translate(${x},${y})`}>
-            <rect x={-5} y={-5} width={10} height={10} className={good ? 'fill-accent' : 'fill-danger'} stroke="white" strokeWidth={1} />
-            <text x={8} y={4} fontSize={11} className="fill-fg">{st.station}</text>
+            <rect
+              x={-5}
+              y={-5}
+              width={10}
+              height={10}
+              className={good ? 'fill-accent' : 'fill-danger'}
+              stroke="white"
+              strokeWidth={1}
+            />
+            <text x={8} y={4} fontSize={11} className="fill-fg">
+              {st.station}
+            </text>
             <title>{`${st.station}: chi-square per bin ${fmt(st.chi2PerBin)}`}</title>
           </g>
         );

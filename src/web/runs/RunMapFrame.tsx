@@ -11,8 +11,12 @@ const HEIGHT = 460;
 
 export function RunMapFrame() {
   return (
-    <WorldFrame width={WIDTH} height={HEIGHT} title="Source regions of the selected minimum"
-      description="Regions shaded by estimated intensity; moving centres with 1- and 2-sigma ellipses; stations coloured by fit quality.">
+    <WorldFrame
+      width={WIDTH}
+      height={HEIGHT}
+      title="Source regions of the selected minimum"
+      description="Regions shaded by estimated intensity; moving centres with 1- and 2-sigma ellipses; stations coloured by fit quality."
+    >
       <RunMapLayer width={WIDTH} height={HEIGHT} />
     </WorldFrame>
   );

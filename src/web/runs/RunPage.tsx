@@ -34,41 +34,73 @@ import { openingInterval, regionColours, solvedIntervals } from '@/src/runs/view
 import type { RunFits } from '@/src/runs/fits';
 
 /** What the server drew and computed for the first view. */
-export interface FirstView { figures: FirstFigures; fits: { url: string; data: RunFits } | null }
+export interface FirstView {
+  figures: FirstFigures;
+  fits: { url: string; data: RunFits } | null;
+}
 
 /** Fits of a mode-parameter run: its own chunk, fetched only on a mode run's page. */
 const ModeFitsPanel = dynamic(() => import('./ModeFitsPanel').then((m) => m.ModeFitsPanel), {
-  ssr: false, loading: () => <p className="text-sm text-muted">Loading mode fits…</p>,
+  ssr: false,
+  loading: () => <p className="text-sm text-muted">Loading mode fits…</p>,
 });
 
 const LIVE = new Set(['queued', 'running']);
 const STATE_WORDS: Record<string, string> = {
-  queued: 'Waiting for a worker', running: 'Computing', finished: 'Finished', failed: 'Stopped by an error', cancelled: 'Cancelled',
+  queued: 'Waiting for a worker',
+  running: 'Computing',
+  finished: 'Finished',
+  failed: 'Stopped by an error',
+  cancelled: 'Cancelled',
 };
 
 /** An export download: a plain link, so nothing fetches the file before it is asked for. */
 function Download({ href, children }: { href: string; children: ReactNode }) {
-  return <a href={href} download className={buttonClass('secondary', 'md', 'no-underline')}>{children}</a>;
+  return (
+    <a href={href} download className={buttonClass('secondary', 'md', 'no-underline')}>
+      {children}
+    </a>
+  );
 }
 
 export function RunPage({ first, ...props }: RunPageProps & { first?: FirstView | null }) {
   const fallback = useMemo(() => (first?.fits ? { [first.fits.url]: first.fits.data } : {}), [first]);
-  return <SWRConfig value={{ fallback }}><RunPageBody {...props} first={first ?? null} /></SWRConfig>;
+  return (
+    <SWRConfig value={{ fallback }}>
+      <RunPageBody {...props} first={first ?? null} />
+    </SWRConfig>
+  );
 }
 
 interface RunPageProps {
-  networkId: string; initial: RunJson; canCancel: boolean; canLaunch: boolean; canDelete: boolean;
+  networkId: string;
+  initial: RunJson;
+  canCancel: boolean;
+  canLaunch: boolean;
+  canDelete: boolean;
   /** The server-drawn map frame (`RunMapFrame`) the selected minimum is drawn into. */
   map: ReactNode;
 }
 
-function RunPageBody({ networkId, initial, map, canCancel, canLaunch, canDelete, first }: RunPageProps & { first: FirstView | null }) {
+function RunPageBody({
+  networkId,
+  initial,
+  map,
+  canCancel,
+  canLaunch,
+  canDelete,
+  first,
+}: RunPageProps & { first: FirstView | null }) {
   const router = useRouter();
   const base = runApi(networkId, initial.run.id);
   // Poll while the run is queued or running (a fixed interval switched by the last answer:
   // SWR's function form sees no data until the first fetch).
   const [live, setLive] = useState(LIVE.has(initial.run.state));
-  const { data, mutate, error: viewError } = useApi<RunJson>(base, {
+  const {
+    data,
+    mutate,
+    error: viewError,
+  } = useApi<RunJson>(base, {
     fallbackData: initial,
     // A finished run's first view comes from the server; the full view (every interval's
     // minima) is fetched only when another interval is chosen, or while the run is live.
@@ -83,7 +115,7 @@ function RunPageBody({ networkId, initial, map, canCancel, canLaunch, canDelete,
   const interval = solved.find((i) => i.startsAt === intervalPick) ?? solved.at(-1) ?? null;
   const [minimum, setMinimum] = useState(0);
   const pending = interval?.brief === true; // chosen, full result not here yet
-  const result = pending ? null : interval?.result ?? null;
+  const result = pending ? null : (interval?.result ?? null);
   const m = result?.minima[Math.min(minimum, result.minima.length - 1)] ?? null;
   const fits = useFits(base, interval?.startsAt ?? null, Math.min(minimum, (result?.minima.length ?? 1) - 1));
   function pickInterval(startsAt: string) {
@@ -98,7 +130,9 @@ function RunPageBody({ networkId, initial, map, canCancel, canLaunch, canDelete,
   const colours = useMemo(() => regionColours(view.grid.regions), [view.grid.regions]);
 
   const p = run.progress;
-  const fraction = p.intervalsTotal ? (p.intervalsDone + (run.state === 'running' && p.startsTotal ? p.startsDone / p.startsTotal : 0)) / p.intervalsTotal : null;
+  const fraction = p.intervalsTotal
+    ? (p.intervalsDone + (run.state === 'running' && p.startsTotal ? p.startsDone / p.startsTotal : 0)) / p.intervalsTotal
+    : null;
 
   async function act(path: string, method: 'POST' | 'DELETE' = 'POST') {
     setActionError(null);
@@ -116,66 +150,148 @@ function RunPageBody({ networkId, initial, map, canCancel, canLaunch, canDelete,
 
   return (
     <div className="space-y-6">
-      <Panel heading="How it went" actions={
-        <>
-          {LIVE.has(run.state) && canCancel ? <Button type="button" onClick={() => act(`${base}/cancel`)} disabled={run.cancelRequested}>{run.cancelRequested ? 'Stopping…' : 'Cancel run'}</Button> : null}
-          {(run.state === 'failed' || run.state === 'cancelled') && canLaunch ? <Button type="button" tone="primary" onClick={() => act(`${base}/rerun`)}>Run the rest again</Button> : null}
-          {!LIVE.has(run.state) && canDelete ? <Button type="button" onClick={() => { if (confirm('Delete this run and its results?')) void act(base, 'DELETE'); }}>Delete</Button> : null}
-        </>
-      }>
-        <p className="mb-2 text-sm"><span className="font-semibold" data-testid="run-state">{STATE_WORDS[run.state]}</span> · {p.intervalsDone} of {p.intervalsTotal} intervals · attempt {run.attempts || 0}</p>
-        <ProgressBar value={run.state === 'finished' ? 1 : fraction} label={p.phase} remainingSeconds={LIVE.has(run.state) ? p.etaSeconds : null} />
-        {run.state === 'failed' ? <Notice tone="error" className="mt-3" title="The run stopped">{run.error} Finished intervals are kept; fix the cause and run the rest again.</Notice> : null}
-        {actionError ? <Notice tone="error" className="mt-3" title="That did not work">{actionError}</Notice> : null}
+      <Panel
+        heading="How it went"
+        actions={
+          <>
+            {LIVE.has(run.state) && canCancel ? (
+              <Button type="button" onClick={() => act(`${base}/cancel`)} disabled={run.cancelRequested}>
+                {run.cancelRequested ? 'Stopping…' : 'Cancel run'}
+              </Button>
+            ) : null}
+            {(run.state === 'failed' || run.state === 'cancelled') && canLaunch ? (
+              <Button type="button" tone="primary" onClick={() => act(`${base}/rerun`)}>
+                Run the rest again
+              </Button>
+            ) : null}
+            {!LIVE.has(run.state) && canDelete ? (
+              <Button
+                type="button"
+                onClick={() => {
+                  if (confirm('Delete this run and its results?')) void act(base, 'DELETE');
+                }}
+              >
+                Delete
+              </Button>
+            ) : null}
+          </>
+        }
+      >
+        <p className="mb-2 text-sm">
+          <span className="font-semibold" data-testid="run-state">
+            {STATE_WORDS[run.state]}
+          </span>{' '}
+          · {p.intervalsDone} of {p.intervalsTotal} intervals · attempt {run.attempts || 0}
+        </p>
+        <ProgressBar
+          value={run.state === 'finished' ? 1 : fraction}
+          label={p.phase}
+          remainingSeconds={LIVE.has(run.state) ? p.etaSeconds : null}
+        />
+        {run.state === 'failed' ? (
+          <Notice tone="error" className="mt-3" title="The run stopped">
+            {run.error} Finished intervals are kept; fix the cause and run the rest again.
+          </Notice>
+        ) : null}
+        {actionError ? (
+          <Notice tone="error" className="mt-3" title="That did not work">
+            {actionError}
+          </Notice>
+        ) : null}
       </Panel>
 
       {result && m && interval ? (
         <>
-          <Panel heading="What came out" description="The selected minimum of the selected interval. Select another minimum in the table to update every figure."
+          <Panel
+            heading="What came out"
+            description="The selected minimum of the selected interval. Select another minimum in the table to update every figure."
             actions={
               <>
                 <Download href={`${base}/export?format=csv&what=minima`}>Minima (CSV)</Download>
                 <Download href={`${base}/export?format=json&what=minima`}>Minima (JSON)</Download>
                 {solved.length > 1 ? <Download href={`${base}/export?format=csv&what=series`}>Series (CSV)</Download> : null}
               </>
-            }>
+            }
+          >
             {solved.length > 1 ? (
-              <label className="mb-3 block text-sm">Interval (UT){' '}
-                <select className="ml-2 rounded border border-line-strong bg-surface px-2 py-1" value={interval.startsAt}
-                  onChange={(e) => pickInterval(e.target.value)}>
-                  {solved.map((i) => <option key={i.startsAt} value={i.startsAt}>{i.startsAt.slice(0, 16).replace('T', ' ')}</option>)}
+              <label className="mb-3 block text-sm">
+                Interval (UT){' '}
+                <select
+                  className="ml-2 rounded border border-line-strong bg-surface px-2 py-1"
+                  value={interval.startsAt}
+                  onChange={(e) => pickInterval(e.target.value)}
+                >
+                  {solved.map((i) => (
+                    <option key={i.startsAt} value={i.startsAt}>
+                      {i.startsAt.slice(0, 16).replace('T', ' ')}
+                    </option>
+                  ))}
                 </select>
               </label>
             ) : null}
-            <RunMap frame={map} regions={view.grid.regions} cellSizeDeg={view.grid.cellSizeDeg} minimum={m} stations={fits.data?.stations ?? []} />
+            <RunMap
+              frame={map}
+              regions={view.grid.regions}
+              cellSizeDeg={view.grid.cellSizeDeg}
+              minimum={m}
+              stations={fits.data?.stations ?? []}
+            />
             <h3 className="mt-4 mb-1 text-sm font-semibold">Minima</h3>
             <MinimaTable result={result} selected={minimum} onSelect={setMinimum} />
             <Caution topic="research" className="mt-4" />
           </Panel>
-          <Panel heading="How good it is" description={view.config.observables.kind === 'modes'
-            ? 'Observed and predicted mode frequencies, peak intensities and half-widths at each station and component, with weighted residuals.'
-            : 'Observed and predicted spectra at each station and component, with weighted residuals.'}>
-            {view.config.observables.kind === 'modes'
-              ? <ModeFitsPanel fits={fits.data} error={fits.error} />
-              : <FitsPanel fits={fits.data} error={fits.error} prerendered={drawn} />}
+          <Panel
+            heading="How good it is"
+            description={
+              view.config.observables.kind === 'modes'
+                ? 'Observed and predicted mode frequencies, peak intensities and half-widths at each station and component, with weighted residuals.'
+                : 'Observed and predicted spectra at each station and component, with weighted residuals.'
+            }
+          >
+            {view.config.observables.kind === 'modes' ? (
+              <ModeFitsPanel fits={fits.data} error={fits.error} />
+            ) : (
+              <FitsPanel fits={fits.data} error={fits.error} prerendered={drawn} />
+            )}
           </Panel>
-          <Panel heading="How sure we are" description="Trade-offs between parameters, the misfit around the minimum, and where the starts ended.">
+          <Panel
+            heading="How sure we are"
+            description="Trade-offs between parameters, the misfit around the minimum, and where the starts ended."
+          >
             <div className="grid gap-6 lg:grid-cols-2">
               <CorrelationHeatmap minimum={m} prerendered={drawn?.correlation} />
               <StartsPicture result={result} selected={minimum} prerendered={drawn?.starts} />
             </div>
             <h3 className="mt-6 mb-2 text-sm font-semibold">Misfit surface</h3>
-            <SurfacePanel base={base} interval={interval.startsAt} minimum={minimum} paramNames={result.paramNames} canRequest={canLaunch} />
+            <SurfacePanel
+              base={base}
+              interval={interval.startsAt}
+              minimum={minimum}
+              paramNames={result.paramNames}
+              canRequest={canLaunch}
+            />
           </Panel>
           {solved.length > 1 ? (
             <Panel heading="Through the day">
-              <SeriesCurves intervals={view.intervals} colours={colours} prerendered={view === initial ? first?.figures.series : null} />
+              <SeriesCurves
+                intervals={view.intervals}
+                colours={colours}
+                prerendered={view === initial ? first?.figures.series : null}
+              />
             </Panel>
           ) : null}
         </>
       ) : (
         <Panel heading="What came out">
-          <p className="text-sm text-muted">{pending ? (viewError ? `The chosen interval could not be loaded: ${viewError.message}` : 'Loading the chosen interval…') : LIVE.has(run.state) ? 'Results appear here as soon as the first interval is finished.' : 'This run has no finished interval with data.'}</p>
+          <p className="text-sm text-muted">
+            {pending
+              ? viewError
+                ? `The chosen interval could not be loaded: ${viewError.message}`
+                : 'Loading the chosen interval…'
+              : LIVE.has(run.state)
+                ? 'Results appear here as soon as the first interval is finished.'
+                : 'This run has no finished interval with data.'}
+          </p>
         </Panel>
       )}
     </div>

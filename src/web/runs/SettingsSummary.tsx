@@ -17,11 +17,31 @@ export function SettingsSummary({ view, stationCodes, networkId }: { view: RunVi
   const m = model.config as { model: string; earthRadiusKm: number; heightKm: number; table?: { rows: unknown[] } };
   return (
     <dl className="divide-y divide-line/60">
-      <Row label="Stations">{stationCodes.join(', ')} · {config.data.components.join(', ')}</Row>
-      <Row label="Intervals (UT)">{config.data.from.slice(0, 16).replace('T', ' ')} – {config.data.to.slice(0, 16).replace('T', ' ')} · {run.intervalStarts.length} with data · {config.data.includeFlagged ? 'flagged included' : 'unflagged only'}</Row>
-      <Row label="Observables">{o.kind === 'spectrum' ? `log power, ${o.minHz}–${o.maxHz} Hz${o.every > 1 ? `, every ${o.every}th bin` : ''}` : `peak power of the first ${o.modes} fitted modes`}</Row>
-      <Row label="Cavity model"><a className="text-accent underline-offset-2 hover:underline" href={`/n/${networkId}/models/${model.id}`}>{model.name} v{model.version}</a> · {m.model}{m.table ? ` (${m.table.rows.length} rows)` : ''}, a = {m.earthRadiusKm} km, h = {m.heightKm} km</Row>
-      <Row label="Source grid"><a className="text-accent underline-offset-2 hover:underline" href={`/n/${networkId}/grids/${grid.id}`}>{grid.name} v{grid.version}</a> · {grid.cellSizeDeg}° cells</Row>
+      <Row label="Stations">
+        {stationCodes.join(', ')} · {config.data.components.join(', ')}
+      </Row>
+      <Row label="Intervals (UT)">
+        {config.data.from.slice(0, 16).replace('T', ' ')} – {config.data.to.slice(0, 16).replace('T', ' ')} ·{' '}
+        {run.intervalStarts.length} with data · {config.data.includeFlagged ? 'flagged included' : 'unflagged only'}
+      </Row>
+      <Row label="Observables">
+        {o.kind === 'spectrum'
+          ? `log power, ${o.minHz}–${o.maxHz} Hz${o.every > 1 ? `, every ${o.every}th bin` : ''}`
+          : `peak power of the first ${o.modes} fitted modes`}
+      </Row>
+      <Row label="Cavity model">
+        <a className="text-accent underline-offset-2 hover:underline" href={`/n/${networkId}/models/${model.id}`}>
+          {model.name} v{model.version}
+        </a>{' '}
+        · {m.model}
+        {m.table ? ` (${m.table.rows.length} rows)` : ''}, a = {m.earthRadiusKm} km, h = {m.heightKm} km
+      </Row>
+      <Row label="Source grid">
+        <a className="text-accent underline-offset-2 hover:underline" href={`/n/${networkId}/grids/${grid.id}`}>
+          {grid.name} v{grid.version}
+        </a>{' '}
+        · {grid.cellSizeDeg}° cells
+      </Row>
       <Row label="Free parameters">
         <ul>
           {config.regions.map((u) => {
@@ -30,15 +50,21 @@ export function SettingsSummary({ view, stationCodes, networkId }: { view: RunVi
               <li key={u.region}>
                 <span className="mr-1 inline-block size-2.5 rounded-sm align-middle" style={{ background: r?.colour }} />
                 {r?.name ?? u.region}: intensity {fmt(u.intensity.min)}–{fmt(u.intensity.max)} C² km²/s
-                {u.lat ? `, lat ${u.lat.min}…${u.lat.max}°` : ''}{u.lon ? `, lon ${u.lon.min}…${u.lon.max}°` : ''}
+                {u.lat ? `, lat ${u.lat.min}…${u.lat.max}°` : ''}
+                {u.lon ? `, lon ${u.lon.min}…${u.lon.max}°` : ''}
                 {r?.kind === 'cells' ? ` (${r.cells.length} fixed cells)` : ''}
               </li>
             );
           })}
         </ul>
       </Row>
-      <Row label="Damping">initial λ {config.damping.initialLambda}, at most {config.damping.maxIterations} iterations, errors {config.damping.scaleCovariance ? 'scaled by reduced χ²' : 'from the stated σ'}</Row>
-      <Row label="Starts / seed">{config.starts} / {config.seed}</Row>
+      <Row label="Damping">
+        initial λ {config.damping.initialLambda}, at most {config.damping.maxIterations} iterations, errors{' '}
+        {config.damping.scaleCovariance ? 'scaled by reduced χ²' : 'from the stated σ'}
+      </Row>
+      <Row label="Starts / seed">
+        {config.starts} / {config.seed}
+      </Row>
       <Row label="Engine">{run.engineVersion}</Row>
       <Row label="Launched (UT)">{run.createdAt.slice(0, 19).replace('T', ' ')}</Row>
     </dl>

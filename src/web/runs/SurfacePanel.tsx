@@ -9,13 +9,34 @@ import { Button } from '@/src/web/ui/Button';
 import { Notice } from '@/src/web/ui/Notice';
 import { apiSend, useApi } from '@/src/web/swr';
 
-type Surface = { id: string; state: 'queued' | 'running' | 'ready' | 'failed'; error: string | null;
-  result: { xName: string; yName: string; x: number[]; y: number[]; misfit: number[][]; centre: { x: number; y: number; misfit: number } } | null };
+type Surface = {
+  id: string;
+  state: 'queued' | 'running' | 'ready' | 'failed';
+  error: string | null;
+  result: {
+    xName: string;
+    yName: string;
+    x: number[];
+    y: number[];
+    misfit: number[][];
+    centre: { x: number; y: number; misfit: number };
+  } | null;
+};
 
 const unit = (n: string) => (n.endsWith('.intensity') ? `${n} (C² km²/s)` : `${n} (°)`);
 
-export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }: {
-  base: string; interval: string; minimum: number; paramNames: string[]; canRequest: boolean;
+export function SurfacePanel({
+  base,
+  interval,
+  minimum,
+  paramNames,
+  canRequest,
+}: {
+  base: string;
+  interval: string;
+  minimum: number;
+  paramNames: string[];
+  canRequest: boolean;
 }) {
   const [x, setX] = useState(paramNames[0] ?? '');
   const [y, setY] = useState(paramNames[1] ?? paramNames[0] ?? '');
@@ -35,21 +56,32 @@ export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }
     const edges = (v: number[], log: boolean) => {
       const mid = (a: number, b: number) => (log ? Math.sqrt(a * b) : (a + b) / 2);
       return v.map((x, i) => [
-        i > 0 ? mid(v[i - 1], x) : (log ? x / Math.sqrt(v[1] / x) : x - (v[1] - x) / 2),
-        i < v.length - 1 ? mid(x, v[i + 1]) : (log ? x * Math.sqrt(x / v[i - 1]) : x + (x - v[i - 1]) / 2),
+        i > 0 ? mid(v[i - 1], x) : log ? x / Math.sqrt(v[1] / x) : x - (v[1] - x) / 2,
+        i < v.length - 1 ? mid(x, v[i + 1]) : log ? x * Math.sqrt(x / v[i - 1]) : x + (x - v[i - 1]) / 2,
       ]);
     };
     const ex = edges(r.x, logX);
     const ey = edges(r.y, logY);
-    const cells = r.y.flatMap((yv, j) => r.x.map((xv, i) => ({ x1: ex[i][0], x2: ex[i][1], y1: ey[j][0], y2: ey[j][1], m: r.misfit[j][i] })));
-    return (Plot: PlotModule) => ({
-      x: logX ? { type: 'log' } : {}, y: logY ? { type: 'log' } : {},
-      color: { type: 'log', scheme: SEQUENTIAL_MISFIT, legend: true, label: 'misfit χ² (dimensionless)' },
-      marks: [
-        Plot.rect(cells, { x1: 'x1', x2: 'x2', y1: 'y1', y2: 'y2', fill: 'm', title: (d: { m: number }) => `χ² = ${d.m.toPrecision(5)}` }),
-        Plot.dot([r.centre], { x: 'x', y: 'y', r: 5, stroke: 'white', strokeWidth: 2, symbol: 'cross' }),
-      ],
-    }) as unknown as Plot.PlotOptions;
+    const cells = r.y.flatMap((yv, j) =>
+      r.x.map((xv, i) => ({ x1: ex[i][0], x2: ex[i][1], y1: ey[j][0], y2: ey[j][1], m: r.misfit[j][i] })),
+    );
+    return (Plot: PlotModule) =>
+      ({
+        x: logX ? { type: 'log' } : {},
+        y: logY ? { type: 'log' } : {},
+        color: { type: 'log', scheme: SEQUENTIAL_MISFIT, legend: true, label: 'misfit χ² (dimensionless)' },
+        marks: [
+          Plot.rect(cells, {
+            x1: 'x1',
+            x2: 'x2',
+            y1: 'y1',
+            y2: 'y2',
+            fill: 'm',
+            title: (d: { m: number }) => `χ² = ${d.m.toPrecision(5)}`,
+          }),
+          Plot.dot([r.centre], { x: 'x', y: 'y', r: 5, stroke: 'white', strokeWidth: 2, symbol: 'cross' }),
+        ],
+      }) as unknown as Plot.PlotOptions;
   }, [s]);
   async function ask() {
     setErr(null);
@@ -64,21 +96,73 @@ export function SurfacePanel({ base, interval, minimum, paramNames, canRequest }
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-3 text-sm">
-        <label>Horizontal <select aria-label="Horizontal parameter" className="ml-1 rounded border border-line-strong bg-surface px-2 py-1" value={x} onChange={(e) => setX(e.target.value)}>
-          {paramNames.map((n) => <option key={n}>{n}</option>)}</select></label>
-        <label>Vertical <select aria-label="Vertical parameter" className="ml-1 rounded border border-line-strong bg-surface px-2 py-1" value={y} onChange={(e) => setY(e.target.value)}>
-          {paramNames.map((n) => <option key={n}>{n}</option>)}</select></label>
-        <label>Others <select aria-label="Other parameters" className="ml-1 rounded border border-line-strong bg-surface px-2 py-1" value={mode} onChange={(e) => setMode(e.target.value as 'fixed' | 'profile')}>
-          <option value="fixed">held at the minimum</option><option value="profile">re-minimised (profile)</option></select></label>
-        <Button type="button" onClick={ask} disabled={!canRequest || x === y}>Map the misfit</Button>
+        <label>
+          Horizontal{' '}
+          <select
+            aria-label="Horizontal parameter"
+            className="ml-1 rounded border border-line-strong bg-surface px-2 py-1"
+            value={x}
+            onChange={(e) => setX(e.target.value)}
+          >
+            {paramNames.map((n) => (
+              <option key={n}>{n}</option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Vertical{' '}
+          <select
+            aria-label="Vertical parameter"
+            className="ml-1 rounded border border-line-strong bg-surface px-2 py-1"
+            value={y}
+            onChange={(e) => setY(e.target.value)}
+          >
+            {paramNames.map((n) => (
+              <option key={n}>{n}</option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Others{' '}
+          <select
+            aria-label="Other parameters"
+            className="ml-1 rounded border border-line-strong bg-surface px-2 py-1"
+            value={mode}
+            onChange={(e) => setMode(e.target.value as 'fixed' | 'profile')}
+          >
+            <option value="fixed">held at the minimum</option>
+            <option value="profile">re-minimised (profile)</option>
+          </select>
+        </label>
+        <Button type="button" onClick={ask} disabled={!canRequest || x === y}>
+          Map the misfit
+        </Button>
         {!canRequest ? <span className="text-muted">Analysts and owners can ask for a surface.</span> : null}
       </div>
-      {err ? <Notice tone="error" title="The surface was not requested">{err}</Notice> : null}
-      {s && s.state !== 'ready' && s.state !== 'failed' ? <p role="status" className="text-sm text-muted">The worker is computing the surface ({s.state})…</p> : null}
-      {s?.state === 'failed' ? <Notice tone="error" title="The surface failed">{s.error}. Ask again to retry.</Notice> : null}
+      {err ? (
+        <Notice tone="error" title="The surface was not requested">
+          {err}
+        </Notice>
+      ) : null}
+      {s && s.state !== 'ready' && s.state !== 'failed' ? (
+        <p role="status" className="text-sm text-muted">
+          The worker is computing the surface ({s.state})…
+        </p>
+      ) : null}
+      {s?.state === 'failed' ? (
+        <Notice tone="error" title="The surface failed">
+          {s.error}. Ask again to retry.
+        </Notice>
+      ) : null}
       {options && s?.result ? (
-        <PlotFigure title={`Misfit over ${s.result.xName} and ${s.result.yName}`} xLabel={unit(s.result.xName)} yLabel={unit(s.result.yName)}
-          caption={`${s.result && (s.result as { mode?: string }).mode === 'profile' ? 'Other parameters re-minimised at each point' : 'Other parameters held at the minimum'}; the cross marks the minimum; ±3 standard errors around it.`} options={options} height={340} />
+        <PlotFigure
+          title={`Misfit over ${s.result.xName} and ${s.result.yName}`}
+          xLabel={unit(s.result.xName)}
+          yLabel={unit(s.result.yName)}
+          caption={`${s.result && (s.result as { mode?: string }).mode === 'profile' ? 'Other parameters re-minimised at each point' : 'Other parameters held at the minimum'}; the cross marks the minimum; ±3 standard errors around it.`}
+          options={options}
+          height={340}
+        />
       ) : null}
     </div>
   );

@@ -6,7 +6,19 @@
 import { useEffect, useRef, type ReactNode } from 'react';
 import { cx } from '@/src/web/ui/cx';
 
-export function Menu({ label, summary, children, align = 'left', className }: { label: string; summary: ReactNode; children: ReactNode; align?: 'left' | 'right'; className?: string }) {
+export function Menu({
+  label,
+  summary,
+  children,
+  align = 'left',
+  className,
+}: {
+  label: string;
+  summary: ReactNode;
+  children: ReactNode;
+  align?: 'left' | 'right';
+  className?: string;
+}) {
   const ref = useRef<HTMLDetailsElement>(null);
   useEffect(() => {
     const el = ref.current;
@@ -55,7 +67,10 @@ export function MenuLink({ href, children, current }: { href: string; children: 
     <a
       href={href}
       aria-current={current ? 'page' : undefined}
-      className={cx('block rounded-md px-2.5 py-1.5 text-sm no-underline hover:bg-raised', current && 'bg-accent-soft font-medium')}
+      className={cx(
+        'block rounded-md px-2.5 py-1.5 text-sm no-underline hover:bg-raised',
+        current && 'bg-accent-soft font-medium',
+      )}
     >
       {children}
     </a>

@@ -27,7 +27,14 @@ export function ThemeToggle() {
       <div className="flex gap-1">
         {(['system', 'light', 'dark'] as const).map((c) => (
           <label key={c} className="cursor-pointer">
-            <input type="radio" name="cavitas-theme" value={c} checked={choice === c} onChange={() => apply(c)} className="peer sr-only" />
+            <input
+              type="radio"
+              name="cavitas-theme"
+              value={c}
+              checked={choice === c}
+              onChange={() => apply(c)}
+              className="peer sr-only"
+            />
             <span className="block rounded-md border border-line px-2 py-1 text-xs capitalize peer-checked:border-accent peer-checked:bg-accent-soft peer-focus-visible:outline-2 peer-focus-visible:outline-focus">
               {c}
             </span>

@@ -25,7 +25,9 @@ export function DeleteStation({ networkId, stationId, code }: { networkId: strin
         <input className={inputClass} value={typed} onChange={(e) => setTyped(e.target.value)} />
       </FormField>
       {error ? <Notice tone="error">{error}</Notice> : null}
-      <Button tone="danger" disabled={typed !== code} onClick={remove}>Remove station</Button>
+      <Button tone="danger" disabled={typed !== code} onClick={remove}>
+        Remove station
+      </Button>
     </div>
   );
 }

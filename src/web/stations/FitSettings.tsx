@@ -24,8 +24,10 @@ export function fitSettingsText(fit: FitSettingsInput): { band: string; averages
   return {
     band: fit.band ? `${hz(fit.band.minHz)}–${hz(fit.band.maxHz)} Hz` : NOT_RECORDED,
     averages: fit.averages !== undefined ? formatNumber(fit.averages, 1) : NOT_RECORDED,
-    excluded: !fit.excluded ? NOT_RECORDED
-      : fit.excluded.length === 0 ? 'nothing left out'
+    excluded: !fit.excluded
+      ? NOT_RECORDED
+      : fit.excluded.length === 0
+        ? 'nothing left out'
         : fit.excluded.map((r) => (r.minHz === r.maxHz ? `${hz(r.minHz)} Hz` : `${hz(r.minHz)}–${hz(r.maxHz)} Hz`)).join(', '),
   };
 }
@@ -41,7 +43,9 @@ export function FitSettings({ fit }: { fit: FitSettingsInput }) {
     <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm" aria-label="How this fit was made">
       {rows.map(([label, value, hint]) => (
         <div key={label} className="contents">
-          <dt className="text-muted" title={hint}>{label}</dt>
+          <dt className="text-muted" title={hint}>
+            {label}
+          </dt>
           <dd className={value === NOT_RECORDED ? 'italic text-muted' : ''}>{value}</dd>
         </div>
       ))}

@@ -10,37 +10,70 @@ import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
 import { api, ApiFailure } from './api';
 
 type Comp = 'Ez' | 'Bns' | 'Bew';
-type Cal = { kind: 'gain'; gain: number } | { kind: 'response'; points: { frequencyHz: number; amplitude: number; phaseDeg: number }[] };
+type Cal =
+  { kind: 'gain'; gain: number } | { kind: 'response'; points: { frequencyHz: number; amplitude: number; phaseDeg: number }[] };
 
 export interface StationFormValue {
-  code: string; name: string; latitude: number; longitude: number; elevationM: number | null;
-  mainsHz: 50 | 60; sampleRateHz: number; notes: string; status: 'operating' | 'paused' | 'retired';
+  code: string;
+  name: string;
+  latitude: number;
+  longitude: number;
+  elevationM: number | null;
+  mainsHz: 50 | 60;
+  sampleRateHz: number;
+  notes: string;
+  status: 'operating' | 'paused' | 'retired';
   interferenceLines: { frequencyHz: number; label: string }[];
   components: { component: Comp; calibration: Cal }[];
 }
 
-const COMP_LABEL: Record<Comp, string> = { Ez: 'Ez (vertical electric)', Bns: 'Bns (north–south coil)', Bew: 'Bew (east–west coil)' };
+const COMP_LABEL: Record<Comp, string> = {
+  Ez: 'Ez (vertical electric)',
+  Bns: 'Bns (north–south coil)',
+  Bew: 'Bew (east–west coil)',
+};
 
 function calText(c: Cal | undefined): { kind: 'gain' | 'response'; gain: string; table: string } {
   if (!c) return { kind: 'gain', gain: '1', table: '' };
   if (c.kind === 'gain') return { kind: 'gain', gain: String(c.gain), table: '' };
-  return { kind: 'response', gain: '1', table: c.points.map((p) => `${p.frequencyHz}, ${p.amplitude}, ${p.phaseDeg}`).join('\n') };
+  return {
+    kind: 'response',
+    gain: '1',
+    table: c.points.map((p) => `${p.frequencyHz}, ${p.amplitude}, ${p.phaseDeg}`).join('\n'),
+  };
 }
 
-export function StationForm({ networkId, initial, stationId }: { networkId: string; initial?: StationFormValue; stationId?: string }) {
+export function StationForm({
+  networkId,
+  initial,
+  stationId,
+}: {
+  networkId: string;
+  initial?: StationFormValue;
+  stationId?: string;
+}) {
   const router = useRouter();
   const [f, setF] = useState({
-    code: initial?.code ?? '', name: initial?.name ?? '',
-    latitude: String(initial?.latitude ?? ''), longitude: String(initial?.longitude ?? ''),
+    code: initial?.code ?? '',
+    name: initial?.name ?? '',
+    latitude: String(initial?.latitude ?? ''),
+    longitude: String(initial?.longitude ?? ''),
     elevationM: initial?.elevationM == null ? '' : String(initial.elevationM),
-    mainsHz: String(initial?.mainsHz ?? 50), sampleRateHz: String(initial?.sampleRateHz ?? 200),
-    notes: initial?.notes ?? '', status: initial?.status ?? 'operating',
+    mainsHz: String(initial?.mainsHz ?? 50),
+    sampleRateHz: String(initial?.sampleRateHz ?? 200),
+    notes: initial?.notes ?? '',
+    status: initial?.status ?? 'operating',
     lines: (initial?.interferenceLines ?? []).map((l) => `${l.frequencyHz} ${l.label}`).join('\n'),
   });
-  const [comps, setComps] = useState(() => Object.fromEntries((['Ez', 'Bns', 'Bew'] as Comp[]).map((c) => {
-    const have = initial?.components.find((x) => x.component === c);
-    return [c, { on: initial ? !!have : true, ...calText(have?.calibration) }];
-  })) as Record<Comp, { on: boolean; kind: 'gain' | 'response'; gain: string; table: string }>);
+  const [comps, setComps] = useState(
+    () =>
+      Object.fromEntries(
+        (['Ez', 'Bns', 'Bew'] as Comp[]).map((c) => {
+          const have = initial?.components.find((x) => x.component === c);
+          return [c, { on: initial ? !!have : true, ...calText(have?.calibration) }];
+        }),
+      ) as Record<Comp, { on: boolean; kind: 'gain' | 'response'; gain: string; table: string }>,
+  );
   const [error, setError] = useState<{ message: string; field?: string } | null>(null);
   const [busy, setBusy] = useState(false);
   const set = (k: keyof typeof f) => (e: { target: { value: string } }) => setF({ ...f, [k]: e.target.value });
@@ -50,23 +83,45 @@ export function StationForm({ networkId, initial, stationId }: { networkId: stri
     e.preventDefault();
     setError(null);
     const num = (s: string) => (s.trim() === '' ? NaN : Number(s));
-    const lines = f.lines.split('\n').map((l) => l.trim()).filter(Boolean).map((l) => {
-      const m = /^([0-9.]+)\s*(?:Hz)?\s*(.*)$/i.exec(l);
-      return { frequencyHz: m ? Number(m[1]) : NaN, label: m?.[2]?.trim() || 'interference line' };
-    });
-    const components = (Object.entries(comps) as [Comp, (typeof comps)[Comp]][]).filter(([, v]) => v.on).map(([component, v]) => ({
-      component,
-      calibration: v.kind === 'gain'
-        ? { kind: 'gain' as const, gain: num(v.gain) }
-        : { kind: 'response' as const, points: v.table.split('\n').map((l) => l.trim()).filter(Boolean).map((l) => {
-          const [a, b, c] = l.split(/[,;\s]+/).map(Number);
-          return { frequencyHz: a, amplitude: b, phaseDeg: c ?? 0 };
-        }) },
-    }));
+    const lines = f.lines
+      .split('\n')
+      .map((l) => l.trim())
+      .filter(Boolean)
+      .map((l) => {
+        const m = /^([0-9.]+)\s*(?:Hz)?\s*(.*)$/i.exec(l);
+        return { frequencyHz: m ? Number(m[1]) : NaN, label: m?.[2]?.trim() || 'interference line' };
+      });
+    const components = (Object.entries(comps) as [Comp, (typeof comps)[Comp]][])
+      .filter(([, v]) => v.on)
+      .map(([component, v]) => ({
+        component,
+        calibration:
+          v.kind === 'gain'
+            ? { kind: 'gain' as const, gain: num(v.gain) }
+            : {
+                kind: 'response' as const,
+                points: v.table
+                  .split('\n')
+                  .map((l) => l.trim())
+                  .filter(Boolean)
+                  .map((l) => {
+                    const [a, b, c] = l.split(/[,;\s]+/).map(Number);
+                    return { frequencyHz: a, amplitude: b, phaseDeg: c ?? 0 };
+                  }),
+              },
+      }));
     const body = {
-      code: f.code.trim().toUpperCase(), name: f.name, latitude: num(f.latitude), longitude: num(f.longitude),
-      elevationM: f.elevationM.trim() === '' ? null : num(f.elevationM), mainsHz: Number(f.mainsHz),
-      sampleRateHz: num(f.sampleRateHz), notes: f.notes, status: f.status, interferenceLines: lines, components,
+      code: f.code.trim().toUpperCase(),
+      name: f.name,
+      latitude: num(f.latitude),
+      longitude: num(f.longitude),
+      elevationM: f.elevationM.trim() === '' ? null : num(f.elevationM),
+      mainsHz: Number(f.mainsHz),
+      sampleRateHz: num(f.sampleRateHz),
+      notes: f.notes,
+      status: f.status,
+      interferenceLines: lines,
+      components,
     };
     setBusy(true);
     try {
@@ -83,8 +138,16 @@ export function StationForm({ networkId, initial, stationId }: { networkId: stri
 
   return (
     <form onSubmit={submit} className="space-y-4" noValidate>
-      {error && !error.field ? <Notice tone="error" title="Not saved">{error.message}</Notice> : null}
-      {error?.field ? <Notice tone="error" title="Not saved">Check the field marked below: {error.message}</Notice> : null}
+      {error && !error.field ? (
+        <Notice tone="error" title="Not saved">
+          {error.message}
+        </Notice>
+      ) : null}
+      {error?.field ? (
+        <Notice tone="error" title="Not saved">
+          Check the field marked below: {error.message}
+        </Notice>
+      ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
         <FormField id="st-code" label="Code" hint="2–12 capitals or digits, unique in this network" error={err('code')}>
           <input className={inputClass} value={f.code} onChange={set('code')} required />
@@ -106,16 +169,24 @@ export function StationForm({ networkId, initial, stationId }: { networkId: stri
         </FormField>
         <FormField id="st-mains" label="Mains frequency" error={err('mainsHz')}>
           <select className={inputClass} value={f.mainsHz} onChange={set('mainsHz')}>
-            <option value="50">50 Hz</option><option value="60">60 Hz</option>
+            <option value="50">50 Hz</option>
+            <option value="60">60 Hz</option>
           </select>
         </FormField>
         <FormField id="st-status" label="Status" error={err('status')}>
           <select className={inputClass} value={f.status} onChange={set('status')}>
-            <option value="operating">Operating</option><option value="paused">Paused</option><option value="retired">Retired</option>
+            <option value="operating">Operating</option>
+            <option value="paused">Paused</option>
+            <option value="retired">Retired</option>
           </select>
         </FormField>
       </div>
-      <FormField id="st-lines" label="Other interference lines" hint='One per line: frequency in Hz, then a label, e.g. "16.7 railway supply"' error={err('interferenceLines')}>
+      <FormField
+        id="st-lines"
+        label="Other interference lines"
+        hint='One per line: frequency in Hz, then a label, e.g. "16.7 railway supply"'
+        error={err('interferenceLines')}
+      >
         <textarea className={inputClass} rows={3} value={f.lines} onChange={set('lines')} />
       </FormField>
       <fieldset className="space-y-3 rounded-[var(--radius-card)] border border-line p-3">
@@ -132,17 +203,36 @@ export function StationForm({ networkId, initial, stationId }: { networkId: stri
               {v.on ? (
                 <div className="grid gap-3 pl-6 sm:grid-cols-[12rem_1fr]">
                   <FormField id={`cal-kind-${c}`} label="Calibration">
-                    <select className={inputClass} value={v.kind} onChange={(e) => upd({ kind: e.target.value as 'gain' | 'response' })}>
-                      <option value="gain">Flat gain</option><option value="response">Response table</option>
+                    <select
+                      className={inputClass}
+                      value={v.kind}
+                      onChange={(e) => upd({ kind: e.target.value as 'gain' | 'response' })}
+                    >
+                      <option value="gain">Flat gain</option>
+                      <option value="response">Response table</option>
                     </select>
                   </FormField>
                   {v.kind === 'gain' ? (
                     <FormField id={`cal-gain-${c}`} label={`Gain (recorded units per ${c === 'Ez' ? 'V/m' : 'T'})`}>
-                      <input className={inputClass} inputMode="decimal" value={v.gain} onChange={(e) => upd({ gain: e.target.value })} />
+                      <input
+                        className={inputClass}
+                        inputMode="decimal"
+                        value={v.gain}
+                        onChange={(e) => upd({ gain: e.target.value })}
+                      />
                     </FormField>
                   ) : (
-                    <FormField id={`cal-table-${c}`} label="Response table" hint="One row per line: frequency (Hz), amplitude, phase (°)">
-                      <textarea className={`${inputClass} font-mono`} rows={4} value={v.table} onChange={(e) => upd({ table: e.target.value })} />
+                    <FormField
+                      id={`cal-table-${c}`}
+                      label="Response table"
+                      hint="One row per line: frequency (Hz), amplitude, phase (°)"
+                    >
+                      <textarea
+                        className={`${inputClass} font-mono`}
+                        rows={4}
+                        value={v.table}
+                        onChange={(e) => upd({ table: e.target.value })}
+                      />
                     </FormField>
                   )}
                 </div>
@@ -154,7 +244,9 @@ export function StationForm({ networkId, initial, stationId }: { networkId: stri
       <FormField id="st-notes" label="Notes" error={err('notes')}>
         <textarea className={inputClass} rows={3} value={f.notes} onChange={set('notes')} />
       </FormField>
-      <Button type="submit" busy={busy}>{stationId ? 'Save station' : 'Add station'}</Button>
+      <Button type="submit" busy={busy}>
+        {stationId ? 'Save station' : 'Add station'}
+      </Button>
     </form>
   );
 }

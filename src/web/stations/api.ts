@@ -3,7 +3,14 @@
  * and field from `{ error: { code, message, field } }`.
  */
 export class ApiFailure extends Error {
-  constructor(readonly status: number, readonly code: string, message: string, readonly field?: string) { super(message); }
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly field?: string,
+  ) {
+    super(message);
+  }
 }
 
 export async function api<T>(url: string, init?: RequestInit & { jsonBody?: unknown }): Promise<T> {
@@ -15,7 +22,11 @@ export async function api<T>(url: string, init?: RequestInit & { jsonBody?: unkn
   });
   const text = await res.text();
   let data: unknown = null;
-  try { data = text ? JSON.parse(text) : null; } catch { /* not JSON */ }
+  try {
+    data = text ? JSON.parse(text) : null;
+  } catch {
+    /* not JSON */
+  }
   if (!res.ok) {
     const e = (data as { error?: { code?: string; message?: string; field?: string } } | null)?.error;
     throw new ApiFailure(res.status, e?.code ?? 'http_error', e?.message ?? `The server answered ${res.status}.`, e?.field);
@@ -24,7 +35,7 @@ export async function api<T>(url: string, init?: RequestInit & { jsonBody?: unkn
 }
 
 /** SWR fetcher with the same error surface. */
-export const fetcher = <T,>(url: string) => api<T>(url);
+export const fetcher = <T>(url: string) => api<T>(url);
 
 /** SI power to the display units of a component: (mV/m)^2/Hz for Ez, pT^2/Hz for Bns/Bew. */
 export function toDisplayPower(component: string, p: number): number {

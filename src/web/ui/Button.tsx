@@ -41,7 +41,9 @@ export function Button({ tone = 'primary', size = 'md', busy, className, childre
       aria-busy={busy || undefined}
       {...rest}
     >
-      {busy ? <span aria-hidden className="size-3 animate-spin rounded-full border-2 border-current border-t-transparent" /> : null}
+      {busy ? (
+        <span aria-hidden className="size-3 animate-spin rounded-full border-2 border-current border-t-transparent" />
+      ) : null}
       {children}
     </button>
   );

@@ -15,7 +15,9 @@ interface CardProps {
 /** A bordered surface with an optional title row. */
 export function Card({ title, description, actions, children, className, flush }: CardProps) {
   return (
-    <div className={cx('rounded-[var(--radius-card)] border border-line bg-surface shadow-[0_1px_2px_rgb(8_12_29/0.06)]', className)}>
+    <div
+      className={cx('rounded-[var(--radius-card)] border border-line bg-surface shadow-[0_1px_2px_rgb(8_12_29/0.06)]', className)}
+    >
       {title || actions ? (
         <div className="flex flex-wrap items-start justify-between gap-3 border-b border-line px-4 py-3">
           <div className="min-w-0">

@@ -70,7 +70,16 @@ function display(col: DataColumn, v: unknown): ReactNode {
   return String(v);
 }
 
-export function DataTable({ caption, captionHidden, columns, rows, rowKey = 'id', empty, initialSort, className }: DataTableProps) {
+export function DataTable({
+  caption,
+  captionHidden,
+  columns,
+  rows,
+  rowKey = 'id',
+  empty,
+  initialSort,
+  className,
+}: DataTableProps) {
   const defs = useMemo(
     () =>
       columns.map((c) => ({

@@ -20,7 +20,10 @@ interface NoticeProps {
 /** An inline message. Errors are announced to screen readers (role=alert). */
 export function Notice({ tone = 'info', title, children, className }: NoticeProps) {
   return (
-    <div role={tone === 'error' ? 'alert' : 'status'} className={cx('rounded-[var(--radius-control)] border px-3.5 py-2.5 text-sm', tones[tone], className)}>
+    <div
+      role={tone === 'error' ? 'alert' : 'status'}
+      className={cx('rounded-[var(--radius-control)] border px-3.5 py-2.5 text-sm', tones[tone], className)}
+    >
       {title ? <p className="font-semibold">{title}</p> : null}
       {children ? <div className={title ? 'mt-0.5' : ''}>{children}</div> : null}
     </div>
@@ -50,7 +53,13 @@ const CAUTION_TEXT: Record<CautionTopic, { title: string; body: string }> = {
 export function Caution({ topic, className }: { topic: CautionTopic; className?: string }) {
   const { title, body } = CAUTION_TEXT[topic];
   return (
-    <aside aria-label={title} className={cx('flex gap-3 rounded-[var(--radius-control)] border border-storm/50 bg-storm-soft px-3.5 py-2.5 text-sm', className)}>
+    <aside
+      aria-label={title}
+      className={cx(
+        'flex gap-3 rounded-[var(--radius-control)] border border-storm/50 bg-storm-soft px-3.5 py-2.5 text-sm',
+        className,
+      )}
+    >
       <svg aria-hidden viewBox="0 0 20 20" className="mt-0.5 size-4 shrink-0 text-storm">
         <path d="M11 1 4 11h5l-1 8 7-10h-5z" fill="currentColor" />
       </svg>

@@ -40,7 +40,11 @@ export function ProgressBar({ value, label, remainingSeconds, tone = 'accent', c
         className="h-2 overflow-hidden rounded-full bg-raised"
       >
         <div
-          className={cx('h-full rounded-full transition-[width] duration-500', tone === 'storm' ? 'bg-storm' : 'bg-accent', pct == null && 'w-1/3 animate-pulse')}
+          className={cx(
+            'h-full rounded-full transition-[width] duration-500',
+            tone === 'storm' ? 'bg-storm' : 'bg-accent',
+            pct == null && 'w-1/3 animate-pulse',
+          )}
           style={pct == null ? undefined : { width: `${pct}%` }}
         />
       </div>

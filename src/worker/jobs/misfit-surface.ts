@@ -13,5 +13,9 @@ export const job: JobDefinition<{ surfaceId: string }> = {
     for (const j of jobs) out.push(await computeSurface(j.data.surfaceId));
     return out;
   },
-  queueOptions: { retryLimit: SURFACE_JOB_OPTIONS.retryLimit, retryDelay: SURFACE_JOB_OPTIONS.retryDelay, expireInSeconds: SURFACE_JOB_OPTIONS.expireInSeconds },
+  queueOptions: {
+    retryLimit: SURFACE_JOB_OPTIONS.retryLimit,
+    retryDelay: SURFACE_JOB_OPTIONS.retryDelay,
+    expireInSeconds: SURFACE_JOB_OPTIONS.expireInSeconds,
+  },
 };

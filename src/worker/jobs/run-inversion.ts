@@ -36,8 +36,12 @@ export const job: JobDefinition<{ runId: string }> = {
     const out: string[] = [];
     for (const j of jobs) {
       const outcome = await executeRun(j.data.runId, {
-        solve: engineSolver, workerId: `${hostname()}:${process.pid}:${j.id}`, budgetMs: sliceMs(), leaseSeconds: runLeaseSeconds(),
-        yieldNow: () => handingOver, writeEveryMs: runWriteMs(),
+        solve: engineSolver,
+        workerId: `${hostname()}:${process.pid}:${j.id}`,
+        budgetMs: sliceMs(),
+        leaseSeconds: runLeaseSeconds(),
+        yieldNow: () => handingOver,
+        writeEveryMs: runWriteMs(),
       });
       if (outcome === 'yielded') await enqueue(RUN_QUEUE, { runId: j.data.runId }, RUN_JOB_OPTIONS);
       if (outcome === 'not-runnable' && (await getRunById(j.data.runId))?.state === 'running') {
@@ -49,5 +53,9 @@ export const job: JobDefinition<{ runId: string }> = {
     }
     return out;
   },
-  queueOptions: { retryLimit: RUN_JOB_OPTIONS.retryLimit, retryDelay: RUN_JOB_OPTIONS.retryDelay, expireInSeconds: RUN_JOB_OPTIONS.expireInSeconds },
+  queueOptions: {
+    retryLimit: RUN_JOB_OPTIONS.retryLimit,
+    retryDelay: RUN_JOB_OPTIONS.retryDelay,
+    expireInSeconds: RUN_JOB_OPTIONS.expireInSeconds,
+  },
 };

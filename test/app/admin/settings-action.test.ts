@@ -43,9 +43,9 @@ describe('saveSettingsAction', () => {
     const tooLong = await runWithRequest(buildRequest(admin), () => saveSettingsAction(null, form(true, 'x'.repeat(501))));
     expect(tooLong).toMatchObject({ ok: false, field: 'signInNotice' });
     // Outside the Next runtime the final revalidatePath() throws; the save before it has happened.
-    await expect(runWithRequest(buildRequest(admin), () => saveSettingsAction(null, form(false, 'Quiet hours tonight.')))).rejects.toThrow(
-      /static generation store/,
-    );
+    await expect(
+      runWithRequest(buildRequest(admin), () => saveSettingsAction(null, form(false, 'Quiet hours tonight.'))),
+    ).rejects.toThrow(/static generation store/);
     expect(await getInstanceSettings()).toEqual({ openSignUp: false, signInNotice: 'Quiet hours tonight.' });
   });
 });

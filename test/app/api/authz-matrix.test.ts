@@ -8,7 +8,16 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { resetDatabase, closeDatabase } from '@/test/helpers/db';
-import { CALLERS, call, cookiePair, errorOf, makeUser, setupCallers, type AuthzWorld, type CallerName } from '@/test/helpers/authz';
+import {
+  CALLERS,
+  call,
+  cookiePair,
+  errorOf,
+  makeUser,
+  setupCallers,
+  type AuthzWorld,
+  type CallerName,
+} from '@/test/helpers/authz';
 import { upsertMembership, createInvitation, getMembership } from '@/db/repo/networks';
 import { hashToken, newToken } from '@/src/auth/tokens';
 import * as networksRoute from '@/app/api/networks/route';
@@ -71,7 +80,11 @@ async function freshInvitation(): Promise<string> {
 }
 
 const rows: Row[] = [
-  { name: 'GET /api/networks', expect: [401, 200, 200, 200, 200], run: (c) => call(networksRoute.GET, w.callers[c], { path: '/api/networks' }) },
+  {
+    name: 'GET /api/networks',
+    expect: [401, 200, 200, 200, 200],
+    run: (c) => call(networksRoute.GET, w.callers[c], { path: '/api/networks' }),
+  },
   {
     name: 'POST /api/networks',
     expect: [401, 201, 201, 201, 201],
@@ -85,7 +98,12 @@ const rows: Row[] = [
   {
     name: 'PATCH /api/networks/:id',
     expect: [401, 403, 403, 200, 404],
-    run: (c) => call(networkRoute.PATCH, w.callers[c], { method: 'PATCH', body: { name: 'Test network matrix' }, params: { networkId: w.networkId } }),
+    run: (c) =>
+      call(networkRoute.PATCH, w.callers[c], {
+        method: 'PATCH',
+        body: { name: 'Test network matrix' },
+        params: { networkId: w.networkId },
+      }),
   },
   {
     name: 'GET /api/networks/:id/members',
@@ -96,12 +114,20 @@ const rows: Row[] = [
     name: 'PATCH /api/networks/:id/members/:userId',
     expect: [401, 403, 403, 200, 404],
     run: async (c) =>
-      call(memberRoute.PATCH, w.callers[c], { method: 'PATCH', body: { role: 'analyst' }, params: { networkId: w.networkId, userId: await freshMember() } }),
+      call(memberRoute.PATCH, w.callers[c], {
+        method: 'PATCH',
+        body: { role: 'analyst' },
+        params: { networkId: w.networkId, userId: await freshMember() },
+      }),
   },
   {
     name: 'DELETE /api/networks/:id/members/:userId',
     expect: [401, 403, 403, 200, 404],
-    run: async (c) => call(memberRoute.DELETE, w.callers[c], { method: 'DELETE', params: { networkId: w.networkId, userId: await freshMember() } }),
+    run: async (c) =>
+      call(memberRoute.DELETE, w.callers[c], {
+        method: 'DELETE',
+        params: { networkId: w.networkId, userId: await freshMember() },
+      }),
   },
   {
     name: 'GET /api/networks/:id/invitations',
@@ -121,18 +147,27 @@ const rows: Row[] = [
   {
     name: 'DELETE /api/networks/:id/invitations/:invitationId',
     expect: [401, 403, 403, 200, 404],
-    run: async (c) => call(invitationRoute.DELETE, w.callers[c], { method: 'DELETE', params: { networkId: w.networkId, invitationId: await freshInvitation() } }),
+    run: async (c) =>
+      call(invitationRoute.DELETE, w.callers[c], {
+        method: 'DELETE',
+        params: { networkId: w.networkId, invitationId: await freshInvitation() },
+      }),
   },
   { name: 'GET /api/auth/session', expect: [200, 200, 200, 200, 200], run: (c) => call(sessionRoute.GET, w.callers[c]) },
   {
     name: 'POST /api/auth/sign-up',
     expect: [201, 201, 201, 201, 201],
-    run: (c) => call(signUpRoute.POST, w.callers[c], { method: 'POST', body: { email: `signup.${uniq()}@example.org`, name: 'New Person', password: 'long-enough-pass' } }),
+    run: (c) =>
+      call(signUpRoute.POST, w.callers[c], {
+        method: 'POST',
+        body: { email: `signup.${uniq()}@example.org`, name: 'New Person', password: 'long-enough-pass' },
+      }),
   },
   {
     name: 'POST /api/auth/sign-in (right password)',
     expect: [200, 200, 200, 200, 200],
-    run: (c) => call(signInRoute.POST, w.callers[c], { method: 'POST', body: { email: w.callers.owner.email, password: w.password } }),
+    run: (c) =>
+      call(signInRoute.POST, w.callers[c], { method: 'POST', body: { email: w.callers.owner.email, password: w.password } }),
   },
   {
     name: 'POST /api/auth/password-reset',
@@ -174,7 +209,11 @@ const rows: Row[] = [
   {
     name: 'POST /api/auth/password-reset/confirm (unknown token)',
     expect: [404, 404, 404, 404, 404],
-    run: (c) => call(resetConfirmRoute.POST, w.callers[c], { method: 'POST', body: { token: 'unknown-token-value', password: 'long-enough-pass' } }),
+    run: (c) =>
+      call(resetConfirmRoute.POST, w.callers[c], {
+        method: 'POST',
+        body: { token: 'unknown-token-value', password: 'long-enough-pass' },
+      }),
   },
   {
     name: 'POST /api/auth/sign-out (on a second session of the caller)',
@@ -210,7 +249,11 @@ describe('authorization matrix', () => {
   it('a denied role change leaves the membership as it was', async () => {
     const target = await freshMember();
     for (const c of ['viewer', 'analyst', 'otherOwner'] as const) {
-      await call(memberRoute.PATCH, w.callers[c], { method: 'PATCH', body: { role: 'owner' }, params: { networkId: w.networkId, userId: target } });
+      await call(memberRoute.PATCH, w.callers[c], {
+        method: 'PATCH',
+        body: { role: 'owner' },
+        params: { networkId: w.networkId, userId: target },
+      });
       await call(memberRoute.DELETE, w.callers[c], { method: 'DELETE', params: { networkId: w.networkId, userId: target } });
     }
     expect((await getMembership(w.networkId, target))?.role).toBe('viewer');
@@ -218,7 +261,9 @@ describe('authorization matrix', () => {
 
   it('the other network’s owner gets the same 404 for a real and a made-up network id', async () => {
     const real = await call(networkRoute.GET, w.callers.otherOwner, { params: { networkId: w.networkId } });
-    const fake = await call(networkRoute.GET, w.callers.otherOwner, { params: { networkId: '00000000-0000-4000-8000-000000000000' } });
+    const fake = await call(networkRoute.GET, w.callers.otherOwner, {
+      params: { networkId: '00000000-0000-4000-8000-000000000000' },
+    });
     expect([real.status, fake.status]).toEqual([404, 404]);
     expect(await errorOf(real)).toEqual(await errorOf(fake));
   });

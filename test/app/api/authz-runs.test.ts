@@ -48,34 +48,83 @@ beforeAll(async () => {
   await resetDatabase();
   w = await setupCallers('runs');
   const st = await createStation(w.networkId, {
-    code: 'AZ1', name: 'Authz hut', latitude: 40, longitude: -20, elevationM: null, mainsHz: 50, interferenceLines: [],
-    sampleRateHz: 200, notes: '', status: 'operating', components: [{ component: 'Ez', calibration: { kind: 'gain', gain: 1 } }, { component: 'Bns', calibration: { kind: 'gain', gain: 1 } }],
+    code: 'AZ1',
+    name: 'Authz hut',
+    latitude: 40,
+    longitude: -20,
+    elevationM: null,
+    mainsHz: 50,
+    interferenceLines: [],
+    sampleRateHz: 200,
+    notes: '',
+    status: 'operating',
+    components: [
+      { component: 'Ez', calibration: { kind: 'gain', gain: 1 } },
+      { component: 'Bns', calibration: { kind: 'gain', gain: 1 } },
+    ],
   });
-  const [ez, bns] = predictSpectra({ cavity: CAVITY, band: BAND, stations: [{ code: 'AZ1', lat: 40, lon: -20, components: ['Ez', 'Bns'] }], sources: [TRUTH] });
+  const [ez, bns] = predictSpectra({
+    cavity: CAVITY,
+    band: BAND,
+    stations: [{ code: 'AZ1', lat: 40, lon: -20, components: ['Ez', 'Bns'] }],
+    sources: [TRUTH],
+  });
   interval = '2031-05-12T06:00:00.000Z';
-  await saveIntervals([ez, bns].map((s) => ({
-    networkId: w.networkId, stationId: st.id, component: s.component, startsAt: new Date(interval), durationS: 600, origin: 'synthetic' as const,
-    uploadId: null, rejectedShare: 0, qualityFlags: [], spectrum: { frequencies: s.frequencies, power: s.power, segments: 100 }, fit: null,
-  })));
+  await saveIntervals(
+    [ez, bns].map((s) => ({
+      networkId: w.networkId,
+      stationId: st.id,
+      component: s.component,
+      startsAt: new Date(interval),
+      durationS: 600,
+      origin: 'synthetic' as const,
+      uploadId: null,
+      rejectedShare: 0,
+      qualityFlags: [],
+      spectrum: { frequencies: s.frequencies, power: s.power, segments: 100 },
+      fit: null,
+    })),
+  );
   modelId = (await saveModel(w.networkId, w.callers.owner.userId, MODEL)).id;
   gridId = (await saveGrid(w.networkId, w.callers.owner.userId, GRID)).id;
   config = {
-    name: 'Authz run', modelId, gridId,
+    name: 'Authz run',
+    modelId,
+    gridId,
     data: { stationIds: [st.id], components: ['Ez', 'Bns'], from: interval, to: interval, includeFlagged: false },
     observables: { kind: 'spectrum', minHz: 6, maxHz: 30, every: 1 },
     regions: [{ region: 'east-basin', intensity: { min: 1e2, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 5, max: 35 } }],
-    damping: { initialLambda: 0.01, maxIterations: 100, scaleCovariance: false }, starts: 2, seed: 3,
+    damping: { initialLambda: 0.01, maxIterations: 100, scaleCovariance: false },
+    starts: 2,
+    seed: 3,
   };
   runId = (await freshRun()).id;
   await executeRun(runId, { solve: makeEngineSolver(1), workerId: 'authz' });
   expect(await listRunIntervals(runId)).toHaveLength(1);
-  const res = await call(surfacesRoute.POST, w.callers.owner, { method: 'POST', params: R(), body: { interval, x: 'East basin.lat', y: 'East basin.lon', points: 5 } });
+  const res = await call(surfacesRoute.POST, w.callers.owner, {
+    method: 'POST',
+    params: R(),
+    body: { interval, x: 'East basin.lat', y: 'East basin.lon', points: 5 },
+  });
   surfaceId = ((await res.json()) as { surface: { id: string } }).surface.id;
 });
-afterAll(async () => { await stopBoss(5000); await closeDatabase(); });
+afterAll(async () => {
+  await stopBoss(5000);
+  await closeDatabase();
+});
 
 function freshRun() {
-  return createRun({ networkId: w.networkId, name: 'fresh', config: config as never, modelId, gridId, engineVersion: 'test', intervalStarts: [interval], startsPerInterval: 2, createdBy: null });
+  return createRun({
+    networkId: w.networkId,
+    name: 'fresh',
+    config: config as never,
+    modelId,
+    gridId,
+    engineVersion: 'test',
+    intervalStarts: [interval],
+    startsPerInterval: 2,
+    createdBy: null,
+  });
 }
 async function endedRun(state: 'finished' | 'cancelled') {
   const r = await freshRun();
@@ -92,24 +141,81 @@ const EDIT = (ok: number): Row['expect'] => [401, 403, ok, ok, 404];
 
 const rows: Row[] = [
   { name: 'GET models', expect: READ, run: (c) => call(modelsRoute.GET, w.callers[c], { params: P() }) },
-  { name: 'POST models', expect: EDIT(201), run: (c) => call(modelsRoute.POST, w.callers[c], { method: 'POST', params: P(), body: MODEL }) },
+  {
+    name: 'POST models',
+    expect: EDIT(201),
+    run: (c) => call(modelsRoute.POST, w.callers[c], { method: 'POST', params: P(), body: MODEL }),
+  },
   { name: 'GET model', expect: READ, run: (c) => call(modelRoute.GET, w.callers[c], { params: { ...P(), modelId } }) },
-  { name: 'POST model version', expect: EDIT(201), run: (c) => call(modelRoute.POST, w.callers[c], { method: 'POST', params: { ...P(), modelId }, body: MODEL }) },
+  {
+    name: 'POST model version',
+    expect: EDIT(201),
+    run: (c) => call(modelRoute.POST, w.callers[c], { method: 'POST', params: { ...P(), modelId }, body: MODEL }),
+  },
   { name: 'GET grids', expect: READ, run: (c) => call(gridsRoute.GET, w.callers[c], { params: P() }) },
-  { name: 'POST grids', expect: EDIT(201), run: (c) => call(gridsRoute.POST, w.callers[c], { method: 'POST', params: P(), body: GRID }) },
+  {
+    name: 'POST grids',
+    expect: EDIT(201),
+    run: (c) => call(gridsRoute.POST, w.callers[c], { method: 'POST', params: P(), body: GRID }),
+  },
   { name: 'GET grid', expect: READ, run: (c) => call(gridRoute.GET, w.callers[c], { params: { ...P(), gridId } }) },
-  { name: 'POST grid version', expect: EDIT(201), run: (c) => call(gridRoute.POST, w.callers[c], { method: 'POST', params: { ...P(), gridId }, body: GRID }) },
+  {
+    name: 'POST grid version',
+    expect: EDIT(201),
+    run: (c) => call(gridRoute.POST, w.callers[c], { method: 'POST', params: { ...P(), gridId }, body: GRID }),
+  },
   { name: 'GET runs', expect: READ, run: (c) => call(runsRoute.GET, w.callers[c], { params: P() }) },
-  { name: 'POST runs (launch)', expect: EDIT(202), run: (c) => call(runsRoute.POST, w.callers[c], { method: 'POST', params: P(), body: config }) },
-  { name: 'POST runs/check', expect: EDIT(200), run: (c) => call(checkRoute.POST, w.callers[c], { method: 'POST', params: P(), body: config }) },
+  {
+    name: 'POST runs (launch)',
+    expect: EDIT(202),
+    run: (c) => call(runsRoute.POST, w.callers[c], { method: 'POST', params: P(), body: config }),
+  },
+  {
+    name: 'POST runs/check',
+    expect: EDIT(200),
+    run: (c) => call(checkRoute.POST, w.callers[c], { method: 'POST', params: P(), body: config }),
+  },
   { name: 'GET run', expect: READ, run: (c) => call(runRoute.GET, w.callers[c], { params: R() }) },
-  { name: 'DELETE run', expect: [401, 403, 403, 200, 404], run: async (c) => call(runRoute.DELETE, w.callers[c], { method: 'DELETE', params: R(await endedRun('finished')) }) },
-  { name: 'POST cancel', expect: EDIT(200), run: async (c) => call(cancelRoute.POST, w.callers[c], { method: 'POST', params: R((await freshRun()).id) }) },
-  { name: 'POST rerun', expect: EDIT(202), run: async (c) => call(rerunRoute.POST, w.callers[c], { method: 'POST', params: R(await endedRun('cancelled')) }) },
-  { name: 'GET export csv', expect: READ, run: (c) => call(exportRoute.GET, w.callers[c], { params: R(), path: '/x?format=csv&what=series' }) },
-  { name: 'GET export json', expect: READ, run: (c) => call(exportRoute.GET, w.callers[c], { params: R(), path: '/x?format=json' }) },
-  { name: 'GET fits', expect: READ, run: (c) => call(fitsRoute.GET, w.callers[c], { params: R(), path: `/x?interval=${interval}&minimum=0` }) },
-  { name: 'POST surfaces', expect: EDIT(202), run: (c) => call(surfacesRoute.POST, w.callers[c], { method: 'POST', params: R(), body: { interval, x: 'East basin.intensity', y: 'East basin.lat', points: 5 } }) },
+  {
+    name: 'DELETE run',
+    expect: [401, 403, 403, 200, 404],
+    run: async (c) => call(runRoute.DELETE, w.callers[c], { method: 'DELETE', params: R(await endedRun('finished')) }),
+  },
+  {
+    name: 'POST cancel',
+    expect: EDIT(200),
+    run: async (c) => call(cancelRoute.POST, w.callers[c], { method: 'POST', params: R((await freshRun()).id) }),
+  },
+  {
+    name: 'POST rerun',
+    expect: EDIT(202),
+    run: async (c) => call(rerunRoute.POST, w.callers[c], { method: 'POST', params: R(await endedRun('cancelled')) }),
+  },
+  {
+    name: 'GET export csv',
+    expect: READ,
+    run: (c) => call(exportRoute.GET, w.callers[c], { params: R(), path: '/x?format=csv&what=series' }),
+  },
+  {
+    name: 'GET export json',
+    expect: READ,
+    run: (c) => call(exportRoute.GET, w.callers[c], { params: R(), path: '/x?format=json' }),
+  },
+  {
+    name: 'GET fits',
+    expect: READ,
+    run: (c) => call(fitsRoute.GET, w.callers[c], { params: R(), path: `/x?interval=${interval}&minimum=0` }),
+  },
+  {
+    name: 'POST surfaces',
+    expect: EDIT(202),
+    run: (c) =>
+      call(surfacesRoute.POST, w.callers[c], {
+        method: 'POST',
+        params: R(),
+        body: { interval, x: 'East basin.intensity', y: 'East basin.lat', points: 5 },
+      }),
+  },
   { name: 'GET surface', expect: READ, run: (c) => call(surfaceRoute.GET, w.callers[c], { params: { ...R(), surfaceId } }) },
 ];
 
@@ -125,7 +231,25 @@ describe('runs API authorization', () => {
 
 describe('runs API refuses bad input with the error shape', () => {
   it('a table model whose frequencies do not increase', async () => {
-    const res = await call(modelsRoute.POST, w.callers.analyst, { method: 'POST', params: P(), body: { name: 'T', config: { model: 'table', earthRadiusKm: 6371, heightKm: 60, table: { columns: 'nu', rows: [[8, 1, -0.1], [7, 1.2, -0.2]] } } } });
+    const res = await call(modelsRoute.POST, w.callers.analyst, {
+      method: 'POST',
+      params: P(),
+      body: {
+        name: 'T',
+        config: {
+          model: 'table',
+          earthRadiusKm: 6371,
+          heightKm: 60,
+          table: {
+            columns: 'nu',
+            rows: [
+              [8, 1, -0.1],
+              [7, 1.2, -0.2],
+            ],
+          },
+        },
+      },
+    });
     expect(res.status).toBe(400);
     const e = await errorOf(res);
     expect(e.field).toBe('config.table.rows.1.0');
@@ -133,25 +257,41 @@ describe('runs API refuses bad input with the error shape', () => {
   });
 
   it('a grid with a region without cells', async () => {
-    const res = await call(gridsRoute.POST, w.callers.analyst, { method: 'POST', params: P(), body: { ...GRID, regions: [{ ...GRID.regions[1], cells: [] }] } });
+    const res = await call(gridsRoute.POST, w.callers.analyst, {
+      method: 'POST',
+      params: P(),
+      body: { ...GRID, regions: [{ ...GRID.regions[1], cells: [] }] },
+    });
     expect(res.status).toBe(400);
     expect((await errorOf(res)).field).toBe('regions.0.cells');
   });
 
   it('a launch whose bounds leave the grid region', async () => {
-    const res = await call(runsRoute.POST, w.callers.analyst, { method: 'POST', params: P(), body: { ...config, regions: [{ ...config.regions[0], lat: { min: -40, max: 0 } }] } });
+    const res = await call(runsRoute.POST, w.callers.analyst, {
+      method: 'POST',
+      params: P(),
+      body: { ...config, regions: [{ ...config.regions[0], lat: { min: -40, max: 0 } }] },
+    });
     expect(res.status).toBe(400);
     expect((await errorOf(res)).field).toBe('regions.0.lat');
   });
 
   it('a launch with more free parameters than data', async () => {
-    const res = await call(runsRoute.POST, w.callers.analyst, { method: 'POST', params: P(), body: { ...config, data: { ...config.data, components: ['Ez'] }, observables: { kind: 'spectrum', minHz: 6, maxHz: 6.5 } } });
+    const res = await call(runsRoute.POST, w.callers.analyst, {
+      method: 'POST',
+      params: P(),
+      body: { ...config, data: { ...config.data, components: ['Ez'] }, observables: { kind: 'spectrum', minHz: 6, maxHz: 6.5 } },
+    });
     expect(res.status).toBe(400);
     expect((await errorOf(res)).message).toMatch(/too many free parameters/);
   });
 
   it('a launch over a range without data, and malformed JSON', async () => {
-    const res = await call(runsRoute.POST, w.callers.analyst, { method: 'POST', params: P(), body: { ...config, data: { ...config.data, from: '2030-01-01T00:00:00Z', to: '2030-01-01T01:00:00Z' } } });
+    const res = await call(runsRoute.POST, w.callers.analyst, {
+      method: 'POST',
+      params: P(),
+      body: { ...config, data: { ...config.data, from: '2030-01-01T00:00:00Z', to: '2030-01-01T01:00:00Z' } },
+    });
     expect(res.status).toBe(400);
     expect((await errorOf(res)).field).toBe('data.from');
     const bad = await call(runsRoute.POST, w.callers.analyst, { method: 'POST', params: P(), rawBody: '{"name":' });

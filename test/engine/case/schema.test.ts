@@ -42,11 +42,18 @@ describe('case file schema', () => {
 
   it('names the field at fault when a region is placed wrongly', () => {
     const cells = { cellSizeDeg: 10, ids: [1, 2] };
-    expect(firstIssue({ ...good, unknowns: [{ name: 'R1', intensity: { min: 1, max: 2 }, lat: 3 }] })).toEqual({ path: 'unknowns.0.lon', message: 'lon is required (or give cells)' });
+    expect(firstIssue({ ...good, unknowns: [{ name: 'R1', intensity: { min: 1, max: 2 }, lat: 3 }] })).toEqual({
+      path: 'unknowns.0.lon',
+      message: 'lon is required (or give cells)',
+    });
     expect(firstIssue({ ...good, unknowns: [{ ...good.unknowns[0], cells }] }).path).toBe('unknowns.0.cells');
-    expect(firstIssue({ ...good, sources: [{ intensity: 1, cells: { cellSizeDeg: 10, ids: [700] } }] }))
-      .toEqual({ path: 'sources.0.cells.ids', message: 'cell 700 is not in a 10-degree grid (ids 0 to 647)' });
-    expect(firstIssue({ ...good, sources: [{ intensity: 1, cells: { cellSizeDeg: 7, ids: [1] } }] }).path).toBe('sources.0.cells.cellSizeDeg');
+    expect(firstIssue({ ...good, sources: [{ intensity: 1, cells: { cellSizeDeg: 10, ids: [700] } }] })).toEqual({
+      path: 'sources.0.cells.ids',
+      message: 'cell 700 is not in a 10-degree grid (ids 0 to 647)',
+    });
+    expect(firstIssue({ ...good, sources: [{ intensity: 1, cells: { cellSizeDeg: 7, ids: [1] } }] }).path).toBe(
+      'sources.0.cells.cellSizeDeg',
+    );
   });
 
   it('names the field at fault', () => {
@@ -54,17 +61,38 @@ describe('case file schema', () => {
     expect(firstIssue({ ...good, cavity: { ...good.cavity, model: 'flat' } }).path).toBe('cavity.model');
     expect(firstIssue({ ...good, band: { minHz: 10, maxHz: 5, stepHz: 1 } }).path).toBe('band.maxHz');
     expect(firstIssue({ ...good, observed: [{ ...good.observed[0], power: [1] }] }).path).toBe('observed.0.power');
-    expect(firstIssue({ ...good, observed: [{ ...good.observed[0], station: 'ZZZ' }] })).toEqual({ path: 'observed.0.station', message: 'no station with code "ZZZ"' });
-    expect(firstIssue({ ...good, unknowns: [{ ...good.unknowns[0], intensity: { min: 5, max: 1 } }] }).path).toBe('unknowns.0.intensity.max');
+    expect(firstIssue({ ...good, observed: [{ ...good.observed[0], station: 'ZZZ' }] })).toEqual({
+      path: 'observed.0.station',
+      message: 'no station with code "ZZZ"',
+    });
+    expect(firstIssue({ ...good, unknowns: [{ ...good.unknowns[0], intensity: { min: 5, max: 1 } }] }).path).toBe(
+      'unknowns.0.intensity.max',
+    );
     expect(firstIssue({ ...good, stations: [good.stations[0], good.stations[0]] }).path).toBe('stations.1.code');
     expect(firstIssue({ ...good, sources: [] }, forwardCaseSchema).path).toBe('sources');
     expect(firstIssue({ ...good, unknowns: undefined }, invertCaseSchema).path).toBe('unknowns');
   });
 
   it('checks a propagation table row by row and that the band lies inside it', () => {
-    const table = { columns: 'speed-attenuation', rows: [[2, 1.5, 0.1], [20, 1.3, -0.3]] };
-    expect(firstIssue({ ...good, cavity: { model: 'table', earthRadiusKm: 6371, heightKm: 60, table } }).path).toBe('cavity.table.rows.1.2');
-    const ok = { columns: 'nu', rows: [[2, 0, -0.03], [20, 3, -0.3]] };
-    expect(firstIssue({ ...good, cavity: { model: 'table', earthRadiusKm: 6371, heightKm: 60, table: ok } }).message).toMatch(/outside the propagation table/);
+    const table = {
+      columns: 'speed-attenuation',
+      rows: [
+        [2, 1.5, 0.1],
+        [20, 1.3, -0.3],
+      ],
+    };
+    expect(firstIssue({ ...good, cavity: { model: 'table', earthRadiusKm: 6371, heightKm: 60, table } }).path).toBe(
+      'cavity.table.rows.1.2',
+    );
+    const ok = {
+      columns: 'nu',
+      rows: [
+        [2, 0, -0.03],
+        [20, 3, -0.3],
+      ],
+    };
+    expect(firstIssue({ ...good, cavity: { model: 'table', earthRadiusKm: 6371, heightKm: 60, table: ok } }).message).toMatch(
+      /outside the propagation table/,
+    );
   });
 });

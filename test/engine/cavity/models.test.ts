@@ -59,7 +59,11 @@ describe('propagation-parameter models', () => {
 });
 
 describe('user propagation tables', () => {
-  const rows: [number, number, number][] = [[2, 1.5, 0.1], [10, 1.3, 0.3], [50, 1.2, 0.8]];
+  const rows: [number, number, number][] = [
+    [2, 1.5, 0.1],
+    [10, 1.3, 0.3],
+    [50, 1.2, 0.8],
+  ];
 
   it('interpolates c/V and attenuation linearly and reproduces the rows at their frequencies', () => {
     const cav = resolveCavity({ model: 'table', ...base, table: { columns: 'speed-attenuation', rows } });
@@ -74,19 +78,53 @@ describe('user propagation tables', () => {
   });
 
   it('accepts Re/Im nu columns', () => {
-    const cav = resolveCavity({ model: 'table', ...base, table: { columns: 'nu', rows: [[4, 0.3, -0.05], [8, 1, -0.15]] } });
+    const cav = resolveCavity({
+      model: 'table',
+      ...base,
+      table: {
+        columns: 'nu',
+        rows: [
+          [4, 0.3, -0.05],
+          [8, 1, -0.15],
+        ],
+      },
+    });
     const nu = cav.nu(6);
     expect(nu.re).toBeCloseTo(0.65, 14);
     expect(nu.im).toBeCloseTo(-0.1, 14);
   });
 
   it('names the row at fault: frequencies strictly increasing, c/V > 0, attenuation >= 0, Im nu < 0', () => {
-    const bad = tableProblems({ columns: 'speed-attenuation', rows: [[2, 1.5, 0.1], [2, 1.3, 0.3], [5, -1, 0.2], [6, 1.1, -0.5]] });
+    const bad = tableProblems({
+      columns: 'speed-attenuation',
+      rows: [
+        [2, 1.5, 0.1],
+        [2, 1.3, 0.3],
+        [5, -1, 0.2],
+        [6, 1.1, -0.5],
+      ],
+    });
     expect(bad.map((p) => p.path.join('.'))).toEqual(['rows.1.0', 'rows.2.1', 'rows.3.2']);
     expect(bad[0].message).toMatch(/row 1.*strictly increasing/);
-    const nuBad = tableProblems({ columns: 'nu', rows: [[2, 0.1, -0.1], [3, 0.2, 0.1]] });
+    const nuBad = tableProblems({
+      columns: 'nu',
+      rows: [
+        [2, 0.1, -0.1],
+        [3, 0.2, 0.1],
+      ],
+    });
     expect(nuBad[0].message).toMatch(/row 1: Im nu must be below 0/);
-    const parsed = cavityConfigSchema.safeParse({ model: 'table', ...base, table: { columns: 'speed-attenuation', rows: [[2, 1.5, 0.1], [1, 1.3, 0.3]] } });
+    const parsed = cavityConfigSchema.safeParse({
+      model: 'table',
+      ...base,
+      table: {
+        columns: 'speed-attenuation',
+        rows: [
+          [2, 1.5, 0.1],
+          [1, 1.3, 0.3],
+        ],
+      },
+    });
     expect(parsed.success).toBe(false);
     expect(parsed.error?.issues[0].path).toEqual(['table', 'rows', 1, 0]);
     expect(() => resolveCavity({ model: 'table', ...base })).toThrow(/cavity.table is required/);

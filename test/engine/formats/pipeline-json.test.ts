@@ -9,10 +9,18 @@ describe('pipeline JSON documents', () => {
   });
 
   it('names the wrong field', () => {
-    expect(() => parseSeriesJson({ sampleRateHz: -1, samples: [1, 2], segmentSeconds: 1 }, 's.json')).toThrow(/s\.json, field "sampleRateHz"/);
-    expect(() => parseSeriesJson({ sampleRateHz: 10, samples: [1, 'x', 3], segmentSeconds: 0.2 }, 's.json')).toThrow(/field "samples\[1\]"/);
-    expect(() => parseSeriesJson({ sampleRateHz: 10, samples: [1, 2, 3], segmentSeconds: 0.25 }, 's.json')).toThrow(/field "segmentSeconds": 0.25 s at 10 Hz/);
-    expect(() => parseSeriesJson({ sampleRateHz: 10, samples: [1, 2, 3], segmentSeconds: 1 }, 's.json')).toThrow(/field "samples": 3 samples are fewer/);
+    expect(() => parseSeriesJson({ sampleRateHz: -1, samples: [1, 2], segmentSeconds: 1 }, 's.json')).toThrow(
+      /s\.json, field "sampleRateHz"/,
+    );
+    expect(() => parseSeriesJson({ sampleRateHz: 10, samples: [1, 'x', 3], segmentSeconds: 0.2 }, 's.json')).toThrow(
+      /field "samples\[1\]"/,
+    );
+    expect(() => parseSeriesJson({ sampleRateHz: 10, samples: [1, 2, 3], segmentSeconds: 0.25 }, 's.json')).toThrow(
+      /field "segmentSeconds": 0.25 s at 10 Hz/,
+    );
+    expect(() => parseSeriesJson({ sampleRateHz: 10, samples: [1, 2, 3], segmentSeconds: 1 }, 's.json')).toThrow(
+      /field "samples": 3 samples are fewer/,
+    );
     expect(() => parseSeriesJson({ samples: [1, 2, 3], segmentSeconds: 1 }, 's.json')).toThrow(/field "sampleRateHz"/);
     expect(() => parseSpectrumJson({ frequencies: [1, 2, 3], power: [1, 2] }, 'p.json')).toThrow(/field "power": has 2 values/);
     expect(() => parseSpectrumJson({ frequencies: [1, 3, 2], power: [1, 2, 3] }, 'p.json')).toThrow(/field "frequencies\[2\]"/);

@@ -17,7 +17,7 @@ function d3Bearing(stLat: number, stLon: number, lat: number, lon: number): numb
 
 function seeded(seed: number): () => number {
   let s = seed >>> 0;
-  return () => ((s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32);
+  return () => (s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32;
 }
 
 describe('great circle distance and bearing', () => {

@@ -20,13 +20,23 @@ const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 const freqs = Float64Array.from({ length: 49 }, (_, i) => 6 + 0.5 * i);
 // Invented sites for a check, not real stations.
 const stations = [
-  { code: 'FP1', lat: 47, lon: 8 }, { code: 'FP2', lat: -25, lon: 133 }, { code: 'FP3', lat: 40, lon: -105 }, { code: 'FP4', lat: 64, lon: -150 },
+  { code: 'FP1', lat: 47, lon: 8 },
+  { code: 'FP2', lat: -25, lon: 133 },
+  { code: 'FP3', lat: 40, lon: -105 },
+  { code: 'FP4', lat: 64, lon: -150 },
 ];
 const belt = [300, 301, 302, 303, 304, 305]; // 10-degree cells 10 S-0, 55 W-5 W: a belt 60 degrees long
 const BELT_I = 2.5e4;
 const moving = { lat: 5, lon: 105, intensity: 1.2e4 };
 // Noise-free data with a nominal sigma of ln(power) of 0.05.
-const observed = syntheticObserved(cavity, stations, [...regionSources(makeGlobalGrid(10), belt, BELT_I), moving], freqs, 0, 1).map((o) => ({ ...o, sigmaLog: 0.05 }));
+const observed = syntheticObserved(
+  cavity,
+  stations,
+  [...regionSources(makeGlobalGrid(10), belt, BELT_I), moving],
+  freqs,
+  0,
+  1,
+).map((o) => ({ ...o, sigmaLog: 0.05 }));
 const region = cellRegion(10, belt);
 const unknowns: RegionUnknown[] = [
   { name: 'Belt', intensity: { min: 1e2, max: 1e6 }, lat: region.lat, lon: region.lon, footprint: region.nodes },
@@ -65,16 +75,22 @@ describe('regions with a fixed footprint', () => {
     const J = new Float64Array(problem.nResiduals * problem.nParams);
     for (const q of [p, Float64Array.from([Math.log(3e4), Math.log(1.5e4), -7, 95])]) {
       problem.jacobian(q, J);
-      expect(maxColumnRelativeError(J, centralDifferenceJacobian(problem, q), problem.nResiduals, problem.nParams)).toBeLessThan(1e-5);
+      expect(maxColumnRelativeError(J, centralDifferenceJacobian(problem, q), problem.nResiduals, problem.nParams)).toBeLessThan(
+        1e-5,
+      );
     }
   });
 
   it('refuses a footprint that could move, has a spread, or whose weights do not add up to 1', () => {
     const base = unknowns[0];
     const prep = (u: RegionUnknown) => () => prepareSpectrum({ cavity, stations, observed, unknowns: [u] });
-    expect(prep({ ...base, lat: { min: -10, max: 0 } })).toThrow('unknowns[0] (Belt): a region with a fixed footprint cannot move (lat and lon must be numbers)');
+    expect(prep({ ...base, lat: { min: -10, max: 0 } })).toThrow(
+      'unknowns[0] (Belt): a region with a fixed footprint cannot move (lat and lon must be numbers)',
+    );
     expect(prep({ ...base, spread: 3 })).toThrow('a region with a fixed footprint has no spread');
-    expect(prep({ ...base, footprint: base.footprint!.map((q) => ({ ...q, weight: 0.5 })) })).toThrow('unknowns[0] (Belt).footprint weights add up to 3, not 1');
+    expect(prep({ ...base, footprint: base.footprint!.map((q) => ({ ...q, weight: 0.5 })) })).toThrow(
+      'unknowns[0] (Belt).footprint weights add up to 3, not 1',
+    );
   });
 });
 
@@ -83,7 +99,8 @@ describe('case files with regions given by grid cells', () => {
     const { invertCaseSchema } = await import('@/src/engine/case');
     const { inputFromCase } = await import('@/src/engine/inverse/from-case');
     const c = invertCaseSchema.parse({
-      cavity, band: { minHz: 6, maxHz: 30, stepHz: 0.5 },
+      cavity,
+      band: { minHz: 6, maxHz: 30, stepHz: 0.5 },
       stations: stations.map((s) => ({ ...s, components: ['Ez', 'Bns', 'Bew'] })),
       observed: observed.map((o) => ({ ...o, frequencies: Array.from(o.frequencies), power: Array.from(o.power) })),
       unknowns: [

@@ -31,7 +31,13 @@ describe('inverter prediction', () => {
       observed: ref.map((s) => ({ station: s.station, component: s.component, frequencies: freqs, power: s.power, sigmaLog: 1 })),
       unknowns: [
         { name: 'R1', intensity: { min: 1, max: 1e6 }, lat: { min: -10, max: 10 }, lon: { min: 0, max: 40 } },
-        { name: 'R2', intensity: { min: 1, max: 1e6 }, lat: { min: -10, max: 10 }, lon: { min: -80, max: -30 }, spread: { min: 0, max: 10 } },
+        {
+          name: 'R2',
+          intensity: { min: 1, max: 1e6 },
+          lat: { min: -10, max: 10 },
+          lon: { min: -80, max: -30 },
+          spread: { min: 0, max: 10 },
+        },
       ],
     });
     const x = Float64Array.from([Math.log(3.5e4), 4, 21, Math.log(2e4), -6, -55, 6]);

@@ -61,7 +61,13 @@ import type { ObservedSeries, StationSite } from '@/src/engine/inverse/types';
 export const LINEAR_CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 
 /** Spectra from the engine's kernel tables for point sources in the linear cavity, with seeded log-normal noise sigma. */
-export function syntheticObserved(stations: StationSite[], sources: SyntheticSource[], freqs: Float64Array, sigma: number, seed: number): ObservedSeries[] {
+export function syntheticObserved(
+  stations: StationSite[],
+  sources: SyntheticSource[],
+  freqs: Float64Array,
+  sigma: number,
+  seed: number,
+): ObservedSeries[] {
   return observedFor(LINEAR_CAVITY, stations, sources, freqs, sigma, seed);
 }
 
@@ -72,7 +78,12 @@ export function syntheticObserved(stations: StationSite[], sources: SyntheticSou
 export function modeTestWorld(prefix: string) {
   const band = { minHz: 3, maxHz: 36, stepHz: 0.1 };
   return {
-    stations: [[40, -5], [-40, 95], [5, 75], [60, 40]].map(([lat, lon], i) => ({ code: `${prefix}${i + 1}`, lat, lon })),
+    stations: [
+      [40, -5],
+      [-40, 95],
+      [5, 75],
+      [60, 40],
+    ].map(([lat, lon], i) => ({ code: `${prefix}${i + 1}`, lat, lon })),
     band,
     freqs: Float64Array.from({ length: 331 }, (_, i) => band.minHz + band.stepHz * i),
     truth: { lat: 6, lon: 24, intensity: 3e4 },

@@ -28,7 +28,11 @@ const intervals: SpectrumInversionInput[] = [0, 1, 2, 3].map((i) => ({
 describe('interval series', () => {
   it('tracks a drifting source and resumes to identical results', async () => {
     const seen: number[] = [];
-    const full = await invertSeries(intervals, { starts: 16, seed: 4, threads: 1 }, { onInterval: (r) => void seen.push(r.index) });
+    const full = await invertSeries(
+      intervals,
+      { starts: 16, seed: 4, threads: 1 },
+      { onInterval: (r) => void seen.push(r.index) },
+    );
     expect(full.cancelled).toBe(false);
     expect(seen).toEqual([0, 1, 2, 3]);
     full.results.forEach(({ index, result }) => {
@@ -40,7 +44,13 @@ describe('interval series', () => {
       expect(Math.abs(best.sources[0].intensity - t.intensity)).toBeLessThan(3 * e.intensity!);
       expect(result.minima.reduce((s, m) => s + m.count, 0)).toBe(16);
     });
-    const resumed = await invertSeries(intervals, { starts: 16, seed: 4, threads: 1, fromIndex: 2, previous: full.results[1].result });
+    const resumed = await invertSeries(intervals, {
+      starts: 16,
+      seed: 4,
+      threads: 1,
+      fromIndex: 2,
+      previous: full.results[1].result,
+    });
     expect(resumed.results.map((r) => r.index)).toEqual([2, 3]);
     for (const r of resumed.results) {
       const ref = full.results[r.index].result;
@@ -51,10 +61,14 @@ describe('interval series', () => {
 
   it('stops between intervals when cancelled and reports only finished ones', async () => {
     let finished = 0;
-    const out = await invertSeries(intervals, { starts: 4, seed: 1, threads: 1 }, {
-      onInterval: () => void finished++,
-      shouldCancel: () => finished >= 1,
-    });
+    const out = await invertSeries(
+      intervals,
+      { starts: 4, seed: 1, threads: 1 },
+      {
+        onInterval: () => void finished++,
+        shouldCancel: () => finished >= 1,
+      },
+    );
     expect(out.cancelled).toBe(true);
     expect(out.results.map((r) => r.index)).toEqual([0]);
   });

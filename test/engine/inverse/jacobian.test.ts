@@ -51,7 +51,13 @@ describe('spectrum misfit Jacobian', () => {
 
   it('matches central differences for spot regions (free spread, fixed spread) with the engine kernel', () => {
     const spotUnknowns = [
-      { name: 'R1', intensity: { min: 10, max: 1e6 }, lat: { min: -30, max: 30 }, lon: { min: -100, max: -30 }, spread: { min: 0.5, max: 10 } },
+      {
+        name: 'R1',
+        intensity: { min: 10, max: 1e6 },
+        lat: { min: -30, max: 30 },
+        lon: { min: -100, max: -30 },
+        spread: { min: 0.5, max: 10 },
+      },
       { name: 'R2', intensity: { min: 10, max: 1e6 }, lat: { min: -20, max: 20 }, lon: { min: 150, max: -160 }, spread: 4 },
     ];
     const spar = buildParameterisation(spotUnknowns);
@@ -64,4 +70,3 @@ describe('spectrum misfit Jacobian', () => {
     expect(maxColumnRelativeError(analytic, numeric, prob.nResiduals, prob.nParams)).toBeLessThan(1e-6);
   });
 });
-

@@ -61,7 +61,10 @@ function observe(intensities: number[], seed: number): ObservedSeries[] {
       station: st.code,
       component: c,
       frequencies: freqs,
-      power: Array.from(freqs, (_, k) => cols[si * 3 + ci].reduce((s, col, r) => s + intensities[r] * col[k], 0) * Math.exp(sigma * gauss())),
+      power: Array.from(
+        freqs,
+        (_, k) => cols[si * 3 + ci].reduce((s, col, r) => s + intensities[r] * col[k], 0) * Math.exp(sigma * gauss()),
+      ),
       sigmaLog: sigma,
     })),
   );
@@ -118,16 +121,23 @@ describe('fixed centres: intensities against linear least squares', () => {
   });
 
   it('refineStart sets the intensities of a start to the same least-squares solution, and to the bound when active', () => {
-    for (const [truthI, seed, min] of [[[3e4, 5e4, 2e4], 11, 1], [[3e4, 5e4, 0], 12, 2000]] as const) {
+    for (const [truthI, seed, min] of [
+      [[3e4, 5e4, 2e4], 11, 1],
+      [[3e4, 5e4, 0], 12, 2000],
+    ] as const) {
       const observed = observe([...truthI], seed);
       const { A, b } = design(observed);
-      const par = buildParameterisation(centres.map((c) => ({ name: c.name, lat: c.lat, lon: c.lon, intensity: { min, max: 1e7 } })));
+      const par = buildParameterisation(
+        centres.map((c) => ({ name: c.name, lat: c.lat, lon: c.lon, intensity: { min, max: 1e7 } })),
+      );
       const prob = spectrumProblem(buildDataLayout(stations, observed), kernel, par, 'log');
       const start = Float64Array.from([Math.log(5), Math.log(5e6), Math.log(77)]);
       prob.refineStart(start);
       const got = Array.from(start, Math.exp);
       if (truthI[2] > 0) {
-        solve(A, b).to1DArray().forEach((v, r) => expect(Math.abs(got[r] - v) / v).toBeLessThan(1e-9));
+        solve(A, b)
+          .to1DArray()
+          .forEach((v, r) => expect(Math.abs(got[r] - v) / v).toBeLessThan(1e-9));
       } else {
         const ls = solve(A.subMatrix(0, A.rows - 1, 0, 1), b.clone().sub(A.getColumnVector(2).mul(min))).to1DArray();
         expect(got[2]).toBeCloseTo(min, 6);
@@ -136,4 +146,3 @@ describe('fixed centres: intensities against linear least squares', () => {
     }
   });
 });
-

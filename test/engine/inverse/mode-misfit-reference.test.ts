@@ -11,8 +11,16 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { evaluateCase, referenceCases } from '@/fixtures/modes/generate-misfit-reference';
 
-interface Stored { name: string; nParams: number; values: { p: number[]; misfit: number; residuals: number[]; jacobian: number[] }[] }
-const stored = (JSON.parse(readFileSync(new URL('../../../fixtures/modes/misfit-reference.json', import.meta.url), 'utf8')) as { cases: Stored[] }).cases;
+interface Stored {
+  name: string;
+  nParams: number;
+  values: { p: number[]; misfit: number; residuals: number[]; jacobian: number[] }[];
+}
+const stored = (
+  JSON.parse(readFileSync(new URL('../../../fixtures/modes/misfit-reference.json', import.meta.url), 'utf8')) as {
+    cases: Stored[];
+  }
+).cases;
 
 function worst(a: ArrayLike<number>, b: ArrayLike<number>): number {
   let w = 0;

@@ -28,7 +28,9 @@ const SIGMA = 1 / Math.sqrt(100);
 const input = (modes: ObservedModes[]) => ({ cavity: LINEAR_CAVITY, band, stations, modes, unknowns });
 
 function fittedModes(seed: number): ObservedModes[] {
-  return syntheticObserved(stations, [truth], freqs, SIGMA, seed).map((s) => observedModesOf(s, { modes: 3 })).filter((m) => m.modes.length > 0);
+  return syntheticObserved(stations, [truth], freqs, SIGMA, seed)
+    .map((s) => observedModesOf(s, { modes: 3 }))
+    .filter((m) => m.modes.length > 0);
 }
 
 describe('chi-square of fitted modes at the true source', () => {

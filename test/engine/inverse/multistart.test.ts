@@ -15,9 +15,15 @@ import type { ProblemRecipe } from '@/src/engine/inverse/recipes';
 import { haltonPoint, haltonShift, radicalInverse } from '@/src/engine/inverse/starts';
 
 const box = JSON.parse(readFileSync('fixtures/nist/boxbod.json', 'utf8')) as {
-  x: number[]; y: number[]; certified: number[]; residualSumOfSquares: number;
+  x: number[];
+  y: number[];
+  certified: number[];
+  residualSumOfSquares: number;
 };
-const recipe: ProblemRecipe = { kind: 'curve', curve: { model: 'exp-rise', x: box.x, y: box.y, lower: [1, 0.01], upper: [1000, 5] } };
+const recipe: ProblemRecipe = {
+  kind: 'curve',
+  curve: { model: 'exp-rise', x: box.x, y: box.y, lower: [1, 0.01], upper: [1000, 5] },
+};
 
 afterAll(() => closeInversionPool());
 
@@ -41,7 +47,11 @@ describe('multi-start on BoxBOD', () => {
 
   it('finds the certified minimum as the best one, in-process and on 2 pool workers alike', async () => {
     const one = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 1 }));
-    const two = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 2, callerWorks: false }));
+    const two = await multiStart(
+      recipe,
+      problem,
+      resolveMultiStartOptions({ starts: 24, seed: 3, threads: 2, callerWorks: false }),
+    );
     expect(two.map((o) => o.index)).toEqual(one.map((o) => o.index));
     for (let i = 0; i < one.length; i++) {
       expect(Array.from(two[i].params)).toEqual(Array.from(one[i].params));
@@ -77,7 +87,11 @@ describe('multi-start on 2 threads', () => {
       shouldCancel: () => ++calls > 50,
     });
     // and all on the pool, without the caller computing
-    const pooled = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2, callerWorks: false }));
+    const pooled = await multiStart(
+      recipe,
+      problem,
+      resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2, callerWorks: false }),
+    );
     expect(pooled.map((o) => o.index)).toEqual(Array.from({ length: 40 }, (_, i) => i));
     expect(out.map((o) => o.index)).toEqual(Array.from({ length: 40 }, (_, i) => i));
     expect(seen).toEqual(Array.from({ length: 40 }, (_, i) => i + 1));
@@ -86,9 +100,14 @@ describe('multi-start on 2 threads', () => {
 
   it('passes a cancellation on to the pool workers when the caller computes no starts itself', async () => {
     const problem = curveProblem(recipe.kind === 'curve' ? recipe.curve : (undefined as never));
-    const out = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 12, seed: 9, threads: 2, callerWorks: false }), {
-      shouldCancel: () => true,
-    });
+    const out = await multiStart(
+      recipe,
+      problem,
+      resolveMultiStartOptions({ starts: 12, seed: 9, threads: 2, callerWorks: false }),
+      {
+        shouldCancel: () => true,
+      },
+    );
     expect(out.map((o) => o.index)).toEqual(Array.from({ length: 12 }, (_, i) => i));
     expect(out.every((o) => o.stopReason === 'cancelled')).toBe(true);
   });

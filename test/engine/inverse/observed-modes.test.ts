@@ -27,10 +27,20 @@ describe('propagated errors of fitted modes', () => {
   for (const s of clean.filter((x) => x.component !== 'Bew')) {
     it(`match a Monte Carlo of the fit (${s.component})`, () => {
       const fit = fitModes(freqs, s.power, { modes: 3, averages: 1 / SIGMA ** 2 });
-      const peakOf = (f: typeof fit, k: number) => f.modes[k].amplitude + f.background.b0 + f.background.b1 * f.modes[k].frequency;
+      const peakOf = (f: typeof fit, k: number) =>
+        f.modes[k].amplitude + f.background.b0 + f.background.b1 * f.modes[k].frequency;
       const om: ObservedModes = {
-        station: 'OM1', component: s.component, fit: { modes: 3, ...fit.band },
-        modes: fit.modes.map((m, k) => ({ frequency: m.frequency, intensity: peakOf(fit, k), halfWidth: m.halfWidth, sigmaFrequency: 1, sigmaLogIntensity: 1, sigmaHalfWidth: 1 })),
+        station: 'OM1',
+        component: s.component,
+        fit: { modes: 3, ...fit.band },
+        modes: fit.modes.map((m, k) => ({
+          frequency: m.frequency,
+          intensity: peakOf(fit, k),
+          halfWidth: m.halfWidth,
+          sigmaFrequency: 1,
+          sigmaLogIntensity: 1,
+          sigmaHalfWidth: 1,
+        })),
       };
       const prop = propagatedModeErrors(om, freqs, s.power, { averages: 1 / SIGMA ** 2 });
       const rnd = mulberry32(4242);

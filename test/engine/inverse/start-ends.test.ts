@@ -27,7 +27,12 @@ const input = inputFromCase(c);
 /** chi-square of the case's observations for one internal vector [ln I, lat, lon] of R1, by the direct forward model. */
 function directMisfit(x: Float64Array): number {
   const [lnI, lat, lon] = x;
-  const spectra = predictSpectraDirect({ cavity: c.cavity, band: c.band, stations: c.stations, sources: [{ name: 'R1', lat, lon, intensity: Math.exp(lnI) }] });
+  const spectra = predictSpectraDirect({
+    cavity: c.cavity,
+    band: c.band,
+    stations: c.stations,
+    sources: [{ name: 'R1', lat, lon, intensity: Math.exp(lnI) }],
+  });
   let chi2 = 0;
   for (const o of c.observed ?? []) {
     const s = spectra.find((p) => p.station === o.station && p.component === o.component)!;
@@ -57,7 +62,10 @@ function checkBookkeeping(res: InversionResult) {
 }
 
 describe('each start keeps its own end', () => {
-  for (const [label, lm] of [['converged starts', {}], ['starts cut short at 3 iterations', { maxIterations: 3 }]] as const) {
+  for (const [label, lm] of [
+    ['converged starts', {}],
+    ['starts cut short at 3 iterations', { maxIterations: 3 }],
+  ] as const) {
     it(`final misfits are the misfit at each start's final parameters (${label})`, async () => {
       const options = { starts: 10, seed: 4, threads: 1, lm };
       const res = await invertSpectra(input, options);
@@ -65,7 +73,11 @@ describe('each start keeps its own end', () => {
       // The same starts again (start i depends only on seed and i), for their final parameters.
       const o = resolveMultiStartOptions(options);
       const { problem } = prepareSpectrum(input);
-      const again = runStarts(problem, Array.from({ length: 10 }, (_, i) => i), { seed: o.seed, warm: o.warm, lm: o.lm });
+      const again = runStarts(
+        problem,
+        Array.from({ length: 10 }, (_, i) => i),
+        { seed: o.seed, warm: o.warm, lm: o.lm },
+      );
       for (const a of again) {
         const own = res.startEnds!.misfit[a.index]!;
         const direct = directMisfit(a.params);
@@ -77,12 +89,16 @@ describe('each start keeps its own end', () => {
       if (label !== 'converged starts') expect(res.unconverged).toBeGreaterThan(0);
     });
   }
-
 });
 
 describe('grouping of starts that did not converge', () => {
   const bounds = { lower: Float64Array.from([0]), upper: Float64Array.from([10]) };
-  const start = (index: number, x: number, chi2: number, converged: boolean): FinishedStart => ({ index, params: Float64Array.from([x]), chi2, converged });
+  const start = (index: number, x: number, chi2: number, converged: boolean): FinishedStart => ({
+    index,
+    params: Float64Array.from([x]),
+    chi2,
+    converged,
+  });
 
   it('joins the nearest minimum when it ended at or above its misfit', () => {
     const g = groupMinima([start(0, 2, 10, true), start(1, 2.5, 12, false), start(2, 8, 20, true)], bounds);

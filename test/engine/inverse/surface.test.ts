@@ -36,8 +36,16 @@ describe('misfit surfaces', () => {
     const d = [0.5 * cov.stdErrors[ix], -0.5 * cov.stdErrors[iy]];
     const x = [at[ix], at[ix] + d[0]];
     const y = [at[iy], at[iy] + d[1]];
-    const a = new Matrix([[lm.jtj[ix * n + ix], lm.jtj[ix * n + iy]], [lm.jtj[iy * n + ix], lm.jtj[iy * n + iy]]]);
-    const cInv = inverse(new Matrix([[cov.covariance[ix * n + ix], cov.covariance[ix * n + iy]], [cov.covariance[iy * n + ix], cov.covariance[iy * n + iy]]]));
+    const a = new Matrix([
+      [lm.jtj[ix * n + ix], lm.jtj[ix * n + iy]],
+      [lm.jtj[iy * n + ix], lm.jtj[iy * n + iy]],
+    ]);
+    const cInv = inverse(
+      new Matrix([
+        [cov.covariance[ix * n + ix], cov.covariance[ix * n + iy]],
+        [cov.covariance[iy * n + ix], cov.covariance[iy * n + iy]],
+      ]),
+    );
     const quad = (m: Matrix) => Matrix.rowVector(d).mmul(m).mmul(Matrix.columnVector(d)).get(0, 0);
     for (const mode of ['fixed', 'profile'] as const) {
       const s = misfitSurface(problem, par, { xName: 'R1.lat', yName: 'R2.lon', x, y, mode, at });
@@ -55,9 +63,9 @@ describe('misfit surfaces', () => {
   it('names a parameter that is not free', () => {
     const input = inputFromCase(invertCaseSchema.parse(JSON.parse(readFileSync('fixtures/cases/recovery.json', 'utf8'))));
     const { problem, par } = prepareSpectrum(input);
-    expect(() => misfitSurface(problem, par, { xName: 'R9.lat', yName: 'R1.lon', x: [0], y: [0], mode: 'fixed', at: new Array(6).fill(0) })).toThrow(
-      /"R9.lat" is not a free parameter/,
-    );
+    expect(() =>
+      misfitSurface(problem, par, { xName: 'R9.lat', yName: 'R1.lon', x: [0], y: [0], mode: 'fixed', at: new Array(6).fill(0) }),
+    ).toThrow(/"R9.lat" is not a free parameter/);
   });
 });
 
@@ -74,19 +82,38 @@ describe('misfit surfaces of a mode-parameter inversion', () => {
   // Lorentzian mode fits of forward-model spectra with Welch-like scatter 1/sqrt(K) per bin
   // (Welch 1967, IEEE Trans. Audio Electroacoust. 15, 70), read as a run reads stored fits: with the
   // band each was fitted over, so that the predicted modes come from the same estimator.
-  const modes: ObservedModes[] = syntheticObserved(stations, [{ lat: 6, lon: 24, intensity: 3e4 }], freqs, 1 / Math.sqrt(segments), 5).map((s) => {
-    const fit = fitModes(s.frequencies, s.power, { modes: 3, minHz: 4, maxHz: 30, averages: segments });
-    return {
-      station: s.station, component: s.component, fit: { modes: 3, ...fit.band },
-      modes: fit.modes.flatMap((m) => {
-        const peak = m.amplitude + fit.background.b0 + fit.background.b1 * m.frequency;
-        const e = m.errors;
-        if (!(peak > 0) || !(e.frequency > 0) || !(e.amplitude > 0) || !(e.halfWidth > 0)) return [];
-        if (m.frequency - m.halfWidth < band.minHz || m.frequency + m.halfWidth > band.maxHz) return [];
-        return [{ frequency: m.frequency, intensity: peak, halfWidth: m.halfWidth, sigmaFrequency: e.frequency, sigmaLogIntensity: e.amplitude / peak, sigmaHalfWidth: e.halfWidth }];
-      }),
-    };
-  }).filter((m) => m.modes.length > 0);
+  const modes: ObservedModes[] = syntheticObserved(
+    stations,
+    [{ lat: 6, lon: 24, intensity: 3e4 }],
+    freqs,
+    1 / Math.sqrt(segments),
+    5,
+  )
+    .map((s) => {
+      const fit = fitModes(s.frequencies, s.power, { modes: 3, minHz: 4, maxHz: 30, averages: segments });
+      return {
+        station: s.station,
+        component: s.component,
+        fit: { modes: 3, ...fit.band },
+        modes: fit.modes.flatMap((m) => {
+          const peak = m.amplitude + fit.background.b0 + fit.background.b1 * m.frequency;
+          const e = m.errors;
+          if (!(peak > 0) || !(e.frequency > 0) || !(e.amplitude > 0) || !(e.halfWidth > 0)) return [];
+          if (m.frequency - m.halfWidth < band.minHz || m.frequency + m.halfWidth > band.maxHz) return [];
+          return [
+            {
+              frequency: m.frequency,
+              intensity: peak,
+              halfWidth: m.halfWidth,
+              sigmaFrequency: e.frequency,
+              sigmaLogIntensity: e.amplitude / peak,
+              sigmaHalfWidth: e.halfWidth,
+            },
+          ];
+        }),
+      };
+    })
+    .filter((m) => m.modes.length > 0);
   const input = { cavity: LINEAR_CAVITY, band, stations, modes, unknowns };
 
   it('passes through the minimum it is drawn around, which is its lowest point', () => {
@@ -104,7 +131,10 @@ describe('misfit surfaces of a mode-parameter inversion', () => {
     const ix = par.names.indexOf('R1.lat');
     const iy = par.names.indexOf('R1.lon');
     // fixed on 5 x 5 points, profile (an LM fit per point) on 3 x 3
-    for (const [mode, steps] of [['fixed', [-1, -0.5, 0, 0.5, 1]], ['profile', [-1, 0, 1]]] as const) {
+    for (const [mode, steps] of [
+      ['fixed', [-1, -0.5, 0, 0.5, 1]],
+      ['profile', [-1, 0, 1]],
+    ] as const) {
       const grid = (j: number) => steps.map((k) => at[j] + k * cov.stdErrors[j]);
       const c = (steps.length - 1) / 2;
       const s = misfitSurface(problem, par, { xName: 'R1.lat', yName: 'R1.lon', x: grid(ix), y: grid(iy), mode, at });

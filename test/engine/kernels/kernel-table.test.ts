@@ -11,12 +11,24 @@ const base = { earthRadiusKm: 6371, heightKm: 60 };
 const configs: CavityConfig[] = [
   { model: 'linear', ...base },
   { model: 'ishaq-jones', ...base },
-  { model: 'table', earthRadiusKm: 6000, heightKm: 75, table: { columns: 'speed-attenuation', rows: [[4, 1.4, 0.15], [15, 1.25, 0.3], [45, 1.15, 0.8]] } },
+  {
+    model: 'table',
+    earthRadiusKm: 6000,
+    heightKm: 75,
+    table: {
+      columns: 'speed-attenuation',
+      rows: [
+        [4, 1.4, 0.15],
+        [15, 1.25, 0.3],
+        [45, 1.15, 0.8],
+      ],
+    },
+  },
 ];
 
 function seeded(seed: number): () => number {
   let s = seed >>> 0;
-  return () => ((s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32);
+  return () => (s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32;
 }
 
 describe('kernel tables against direct (table-free) evaluation', () => {
@@ -38,7 +50,11 @@ describe('kernel tables against direct (table-free) evaluation', () => {
           const d = directKernel(cavity, freqs[j], th);
           worst = Math.max(worst, Math.abs(s.ez[j] / d.ez - 1), Math.abs(s.bh[j] / d.bh - 1));
           // derivatives: relative to |derivative| + power per radian
-          worstD = Math.max(worstD, Math.abs(s.dEz[j] - d.dEz) / (Math.abs(d.dEz) + d.ez), Math.abs(s.dBh[j] - d.dBh) / (Math.abs(d.dBh) + d.bh));
+          worstD = Math.max(
+            worstD,
+            Math.abs(s.dEz[j] - d.dEz) / (Math.abs(d.dEz) + d.ez),
+            Math.abs(s.dBh[j] - d.dBh) / (Math.abs(d.dBh) + d.bh),
+          );
         }
       }
       expect(worst).toBeLessThan(KERNEL_INTERP_REL_TOL);
@@ -61,7 +77,9 @@ describe('kernel tables against direct (table-free) evaluation', () => {
   it('derivatives agree with finite differences of the interpolant itself (consistent Jacobians)', () => {
     const cavity = resolveCavity(configs[1]);
     const table = getKernelTable(cavity, freqs);
-    const a = createKernelSample(freqs.length), b = createKernelSample(freqs.length), c = createKernelSample(freqs.length);
+    const a = createKernelSample(freqs.length),
+      b = createKernelSample(freqs.length),
+      c = createKernelSample(freqs.length);
     for (const thDeg of [1.234, 47.77, 91.3, 151.05]) {
       const th = thDeg * DEG;
       const h = 1e-6;
@@ -77,7 +95,8 @@ describe('kernel tables against direct (table-free) evaluation', () => {
 
   it('samplePower gives the same powers as sample', () => {
     const table = getKernelTable(resolveCavity(configs[2]), freqs);
-    const a = createKernelSample(freqs.length), b = createKernelSample(freqs.length);
+    const a = createKernelSample(freqs.length),
+      b = createKernelSample(freqs.length);
     for (const thDeg of [0.01, 0.7, 33.3, 120.5, 180]) {
       table.sample(thDeg * DEG, a);
       table.samplePower(thDeg * DEG, b);
@@ -121,7 +140,8 @@ describe('resonance structure of the cavity (facts of the trade)', () => {
   it('first mode: Q = f / (full half-power width) of the linear model is about 4–6 as observed (Sentman 1995, from memory); Ishaq–Jones puts it at about 7.8 Hz', () => {
     const { ez } = spectrum(179);
     const i = ez.findIndex((p, k) => k > 0 && fs[k] > 6 && p > ez[k - 1] && p >= ez[k + 1]);
-    let lo = i, hi = i;
+    let lo = i,
+      hi = i;
     while (ez[lo] > ez[i] / 2) lo--;
     while (ez[hi] > ez[i] / 2) hi++;
     const q = fs[i] / (fs[hi] - fs[lo]);
@@ -142,7 +162,17 @@ describe('resonance structure of the cavity (facts of the trade)', () => {
 
 describe('degenerate cavities', () => {
   it('a lossless table whose nu hits an integer is refused with the frequency named (fields unbounded at resonance)', () => {
-    const cavity = resolveCavity({ model: 'table', ...base, table: { columns: 'nu', rows: [[5, -0.5, -1e-300], [9, 0.5, -1e-300]] } });
+    const cavity = resolveCavity({
+      model: 'table',
+      ...base,
+      table: {
+        columns: 'nu',
+        rows: [
+          [5, -0.5, -1e-300],
+          [9, 0.5, -1e-300],
+        ],
+      },
+    });
     // nu = 0 - 1e-300 i at 7 Hz: |sin(pi nu)|^2 underflows to 0
     expect(() => buildKernelTable(cavity, new Float64Array([6, 7, 8]))).toThrow(/at 7 Hz/);
   });

@@ -49,7 +49,8 @@ describe('Welch bin scatter', () => {
   it('propagates through G as the dense G V G^T does, bins left out of the grid included', () => {
     const rnd = mulberry32(11);
     const index = [0, 1, 2, 4, 5, 6, 9, 10, 11, 12];
-    const nb = index.length, nq = 3;
+    const nb = index.length,
+      nq = 3;
     const y = Array.from({ length: nb }, () => 0.5 + rnd());
     const g = Float64Array.from({ length: nq * nb }, () => rnd() - 0.5);
     const scatter = { averages: 37, lagCorrelation: [0.4, 0.1] };

@@ -17,7 +17,9 @@ interface CurveFitCase {
   stdErrorsAbsolute: number[];
   stdErrorsScaled: number[];
 }
-const fixture = JSON.parse(readFileSync(new URL('../../../fixtures/modes/curve-fit-cases.json', import.meta.url), 'utf8')) as { cases: CurveFitCase[] };
+const fixture = JSON.parse(readFileSync(new URL('../../../fixtures/modes/curve-fit-cases.json', import.meta.url), 'utf8')) as {
+  cases: CurveFitCase[];
+};
 
 describe('weighted Lorentzian fit against scipy.optimize.curve_fit', () => {
   // Reference: scipy.optimize.curve_fit (trf, bounds) — fixtures/modes/generate.py.

@@ -18,7 +18,11 @@ const power = Float64Array.from(freqs, (f) => lorentzSum(FIVE_MODES, Math.max(f,
 
 describe('excluded ranges of a mode fit', () => {
   it('are the runs of left-out bins inside the band', () => {
-    const lines = listedLines([{ frequencyHz: 16.65, halfWidthHz: 0.3 }, { frequencyHz: 50, halfWidthHz: 0.5 }, { frequencyHz: 1.05, halfWidthHz: 0.3 }]);
+    const lines = listedLines([
+      { frequencyHz: 16.65, halfWidthHz: 0.3 },
+      { frequencyHz: 50, halfWidthHz: 0.5 },
+      { frequencyHz: 1.05, halfWidthHz: 0.3 },
+    ]);
     const { suppressed } = suppressLines(freqs, power, lines);
     const r = excludedRanges(freqs, suppressed, 3, 52);
     // the 1.05 Hz line lies below the band and is not reported
@@ -45,11 +49,26 @@ describe('excluded ranges of a mode fit', () => {
     expect(fitModes(freqs, power, { modes: 5 }).excluded).toEqual([]);
   });
 
-  it('make the predicted modes\' fit use the observed fit\'s bins', () => {
+  it("make the predicted modes' fit use the observed fit's bins", () => {
     const { suppressed } = suppressLines(freqs, power, listedLines([{ frequencyHz: 16.65, halfWidthHz: 0.3 }]));
     const fit = fitModes(freqs, power, { modes: 5, exclude: suppressed });
-    const observed = { station: 'XR1', component: 'Ez' as const, modes: [{ frequency: fit.modes[0].frequency, intensity: 1, halfWidth: 1, sigmaFrequency: 1, sigmaLogIntensity: 1, sigmaHalfWidth: 1 }] };
-    const used = Array.from(freqs.keys()).filter((i) => freqs[i] >= fit.band.minHz && freqs[i] <= fit.band.maxHz && !suppressed[i]);
+    const observed = {
+      station: 'XR1',
+      component: 'Ez' as const,
+      modes: [
+        {
+          frequency: fit.modes[0].frequency,
+          intensity: 1,
+          halfWidth: 1,
+          sigmaFrequency: 1,
+          sigmaLogIntensity: 1,
+          sigmaHalfWidth: 1,
+        },
+      ],
+    };
+    const used = Array.from(freqs.keys()).filter(
+      (i) => freqs[i] >= fit.band.minHz && freqs[i] <= fit.band.maxHz && !suppressed[i],
+    );
     const setup = modeSeriesSetup({ ...observed, fit: { modes: 5, ...fit.band, excludeRanges: fit.excluded } }, freqs, 'XR1 Ez');
     expect(Array.from(setup.bins)).toEqual(used);
     // nothing recorded as left out: every bin of the band

@@ -30,7 +30,12 @@ import { FIVE_MODES, lorentzSum, noisySpectrum, seriesWithPsd } from './syntheti
 
 const QUANTITIES = ['frequency', 'amplitude', 'halfWidth'] as const;
 
-interface Tally { values: number[][][]; sigmas: number[][][]; covered: number; total: number }
+interface Tally {
+  values: number[][][];
+  sigmas: number[][][];
+  covered: number;
+  total: number;
+}
 
 function tally(fits: ModeFit[], target: ModeFit): Tally {
   const modes = target.modes.length;
@@ -40,12 +45,14 @@ function tally(fits: ModeFit[], target: ModeFit): Tally {
     t.sigmas.push(QUANTITIES.map(() => []));
   }
   for (const fit of fits) {
-    fit.modes.forEach((m, n) => QUANTITIES.forEach((q, j) => {
-      t.values[n][j].push(m[q]);
-      t.sigmas[n][j].push(m.errors[q]);
-      if (Math.abs(m[q] - target.modes[n][q]) < m.errors[q]) t.covered++;
-      t.total++;
-    }));
+    fit.modes.forEach((m, n) =>
+      QUANTITIES.forEach((q, j) => {
+        t.values[n][j].push(m[q]);
+        t.sigmas[n][j].push(m.errors[q]);
+        if (Math.abs(m[q] - target.modes[n][q]) < m.errors[q]) t.covered++;
+        t.total++;
+      }),
+    );
   }
   return t;
 }
@@ -79,7 +86,11 @@ describe('mode-fit errors against a Monte Carlo of the fit', () => {
   ])('chi-square bins, K = $k, $modes modes', ({ k, modes, draws }) => {
     const fits: ModeFit[] = [];
     const grid = noisySpectrum(FIVE_MODES, k, 1).frequencies;
-    const target = fitModes(grid, grid.map((f) => lorentzSum(FIVE_MODES, f)), { modes });
+    const target = fitModes(
+      grid,
+      grid.map((f) => lorentzSum(FIVE_MODES, f)),
+      { modes },
+    );
     for (let d = 0; d < draws; d++) {
       const { frequencies, power } = noisySpectrum(FIVE_MODES, k, 9000 + d);
       const fit = fitModes(frequencies, power, { modes, averages: k });
@@ -101,7 +112,11 @@ describe('mode-fit errors against a Monte Carlo of the fit', () => {
     // K_eff = 119 / (1 + 2 (118/119) (1/6)^2) (Welch 1967; Harris 1978 Table 1 for the overlap correlation)
     expect(fits[0].averages).toBeCloseTo(119 / (1 + (2 * 118) / 119 / 36), 9);
     const grid = Array.from({ length: 451 }, (_, i) => 3 + 0.1 * i);
-    const target = fitModes(grid, grid.map((f) => lorentzSum(FIVE_MODES, f)), { modes: 5 });
+    const target = fitModes(
+      grid,
+      grid.map((f) => lorentzSum(FIVE_MODES, f)),
+      { modes: 5 },
+    );
     target.modes.forEach((m, n) => expect(m.frequency).toBeCloseTo(FIVE_MODES.f[n], 6));
     expectHonest(tally(fits, target), 5);
   });

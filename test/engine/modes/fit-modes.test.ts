@@ -79,7 +79,15 @@ describe('mode fit', () => {
     const data = Float64Array.from(idx, (i) => power[i]);
     const sigma = new Float64Array(data.length).fill(1);
     const guess = initialGuess(freqs, data, [7.8, 14.1, 20.3, 26.4, 32.5]);
-    const ours = weightedLorentzianFit({ modes: 5, freqs, data, sigma, start: guess.start, lower: guess.lower, upper: guess.upper });
+    const ours = weightedLorentzianFit({
+      modes: 5,
+      freqs,
+      data,
+      sigma,
+      start: guess.start,
+      lower: guess.lower,
+      upper: guess.upper,
+    });
     const np = ours.params.length;
     const theirs = mlLevenbergMarquardt(
       { x: Array.from(freqs), y: Array.from(data) },
@@ -115,7 +123,11 @@ describe('mode fit', () => {
     const bad = frequencies.map((f) => (f > 10 && f < 10.2 ? -1 : 1));
     expect(() => fitModes(frequencies, bad, { modes: 5 })).toThrow(/power\[101\]/);
     const flat = frequencies.map((f) => 0.2 + 1e-3 * f);
-    const fit = fitModes(flat.map((_, i) => frequencies[i]), flat, { modes: 5 });
+    const fit = fitModes(
+      flat.map((_, i) => frequencies[i]),
+      flat,
+      { modes: 5 },
+    );
     expect(fit.flags).toContain('implausible-modes');
   });
 

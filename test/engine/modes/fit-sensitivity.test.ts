@@ -38,7 +38,16 @@ function spectrum(p: number[]): { y: Float64Array; dy: Float64Array } {
 function fitAt(p: number[]) {
   const { y, dy } = spectrum(p);
   const g = initialGuess(freqs, y, USUAL_MODE_FREQUENCIES_HZ.slice(0, MODES));
-  const fit = twoStageLorentzianFit({ modes: MODES, freqs, data: y, rel: 1, start: g.start, lower: g.lower, upper: g.upper, lm: LM });
+  const fit = twoStageLorentzianFit({
+    modes: MODES,
+    freqs,
+    data: y,
+    rel: 1,
+    start: g.start,
+    lower: g.lower,
+    upper: g.upper,
+    lm: LM,
+  });
   return { y, dy, g, fit };
 }
 
@@ -46,19 +55,40 @@ describe('implicit derivative of the two-stage mode fit', () => {
   const p0 = [0.05, 0.02];
   const { y, dy, g, fit } = fitAt(p0);
   const np = paramCount(MODES);
-  const analytic = fitSensitivity({ modes: MODES, freqs, data: y, first: fit.first.params, final: fit.final.params, firstModel: fit.firstModel, lower: g.lower, upper: g.upper }, dy, 2);
+  const analytic = fitSensitivity(
+    {
+      modes: MODES,
+      freqs,
+      data: y,
+      first: fit.first.params,
+      final: fit.final.params,
+      firstModel: fit.firstModel,
+      lower: g.lower,
+      upper: g.upper,
+    },
+    dy,
+    2,
+  );
   const h = 1e-4; // truncation error ~h^2 and the fits' convergence noise ~1e-10/h both stay below 1e-4 here
   const numeric = new Float64Array(np * 2);
   for (let j = 0; j < 2; j++) {
-    const up = [...p0], dn = [...p0];
+    const up = [...p0],
+      dn = [...p0];
     up[j] += h;
     dn[j] -= h;
-    const a = fitAt(up).fit.final.params, b = fitAt(dn).fit.final.params;
+    const a = fitAt(up).fit.final.params,
+      b = fitAt(dn).fit.final.params;
     for (let q = 0; q < np; q++) numeric[q * 2 + j] = (a[q] - b[q]) / (2 * h);
   }
   const worst = (d: Float64Array) => {
     let w = 0;
-    for (let q = 0; q < np; q++) for (let j = 0; j < 2; j++) w = Math.max(w, Math.abs(d[q * 2 + j] - numeric[q * 2 + j]) / (Math.abs(numeric[q * 2 + j]) + 1e-3 * (Math.abs(fit.final.params[q]) + 1e-3)));
+    for (let q = 0; q < np; q++)
+      for (let j = 0; j < 2; j++)
+        w = Math.max(
+          w,
+          Math.abs(d[q * 2 + j] - numeric[q * 2 + j]) /
+            (Math.abs(numeric[q * 2 + j]) + 1e-3 * (Math.abs(fit.final.params[q]) + 1e-3)),
+        );
     return w;
   };
 

@@ -19,7 +19,10 @@ const tones = (j: number) => 6 * Math.sin(2 * Math.PI * 50.03 * (j / fs) + 1) + 
 describe('line suppression before a mode fit', () => {
   it('removes 50 Hz mains and a 16.7 Hz line added to a model spectrum without moving modes by 0.01 Hz', () => {
     // The lines enter as Welch sees them: the Hann-windowed estimate of the two tones alone.
-    const lineShape = welch(Float64Array.from({ length: fs * 120 }, (_, j) => tones(j)), { sampleRateHz: fs, segmentLength: 10 * fs });
+    const lineShape = welch(
+      Float64Array.from({ length: fs * 120 }, (_, j) => tones(j)),
+      { sampleRateHz: fs, segmentLength: 10 * fs },
+    );
     const f = lineShape.frequencies;
     const clean = Float64Array.from(f, (v) => lorentzSum(SEVEN, v));
     const dirty = clean.map((v, k) => v + lineShape.power[k]);

@@ -13,7 +13,13 @@ function jtjOf(rows: number[][]): Float64Array {
 
 describe('covarianceFromJtJ', () => {
   it('equals (J^T J)^-1 times the scale, with unit-diagonal correlation and identity resolution', () => {
-    const rows = [[1, 0.3, 2], [0.5, -1, 0.1], [2, 2, -0.7], [0.1, 0.4, 1.3], [-1, 0.2, 0.6]];
+    const rows = [
+      [1, 0.3, 2],
+      [0.5, -1, 0.1],
+      [2, 2, -0.7],
+      [0.1, 0.4, 1.3],
+      [-1, 0.2, 0.6],
+    ];
     const jtj = jtjOf(rows);
     const ref = inverse(new Matrix([...Array(3)].map((_, a) => [...Array(3)].map((_, b) => jtj[a * 3 + b]))));
     const out = covarianceFromJtJ(jtj, 3, { scale: 2.5 });
@@ -33,7 +39,12 @@ describe('covarianceFromJtJ', () => {
   it('flags two parameters that only enter as their sum as singular (rank deficient), resolution 1/2 each', () => {
     // Columns 0 and 1 are identical: only p0 + p1 is resolved; the resolution matrix is then
     // the projector onto (1, 1)/sqrt(2) in that block (Menke, Geophysical Data Analysis §4.4).
-    const rows = [[1, 1, 0], [2, 2, 1], [3, 3, -1], [0.5, 0.5, 2]];
+    const rows = [
+      [1, 1, 0],
+      [2, 2, 1],
+      [3, 3, -1],
+      [0.5, 0.5, 2],
+    ];
     const out = covarianceFromJtJ(jtjOf(rows), 3);
     expect(out.singular).toBe(true);
     expect(out.rank).toBe(2);
@@ -43,7 +54,14 @@ describe('covarianceFromJtJ', () => {
   });
 
   it('treats a parameter with no influence (zero column) as unresolved with an infinite error', () => {
-    const out = covarianceFromJtJ(jtjOf([[1, 0], [2, 0], [0.5, 0]]), 2);
+    const out = covarianceFromJtJ(
+      jtjOf([
+        [1, 0],
+        [2, 0],
+        [0.5, 0],
+      ]),
+      2,
+    );
     expect(out.singular).toBe(true);
     expect(out.stdErrors[1]).toBe(Infinity);
     expect(out.stdErrors[0]).toBeCloseTo(1 / Math.sqrt(5.25), 12);

@@ -24,7 +24,10 @@ interface NistCase {
   degreesOfFreedom: number;
 }
 
-type Model = { f: (b: Float64Array, x: number) => number; grad: (b: Float64Array, x: number, out: Float64Array, row: number) => void };
+type Model = {
+  f: (b: Float64Array, x: number) => number;
+  grad: (b: Float64Array, x: number, out: Float64Array, row: number) => void;
+};
 
 const models: Record<string, Model> = {
   // y = b1 (1 - exp(-b2 x))
@@ -117,7 +120,11 @@ describe('bounds and plateaus', () => {
 
   it('Misra1a with b1 capped below its optimum matches scipy least_squares (trf) with the same bound', () => {
     // Reference from fixtures/nist/bounded_misra1a.py (scipy.optimize.least_squares, method "trf").
-    const ref = JSON.parse(readFileSync('fixtures/nist/bounded-misra1a.json', 'utf8')) as { upper: number[]; params: number[]; rss: number };
+    const ref = JSON.parse(readFileSync('fixtures/nist/bounded-misra1a.json', 'utf8')) as {
+      upper: number[];
+      params: number[];
+      rss: number;
+    };
     const m = JSON.parse(readFileSync('fixtures/nist/misra1a.json', 'utf8')) as NistCase;
     const prob = { ...problemFor(m, models.exp2), lower: Float64Array.from([0, 0]), upper: Float64Array.from(ref.upper) };
     const res = levenbergMarquardt(prob, Float64Array.from(m.starts[1]));
@@ -140,6 +147,8 @@ describe('bounds and plateaus', () => {
     const res = levenbergMarquardt(problemFor(m, models.exp2), Float64Array.from(m.starts[0]), {}, { shouldStop: () => true });
     expect(res.stopReason).toBe('cancelled');
     const badBounds = { ...problemFor(m, models.exp2), lower: Float64Array.from([10, 0]), upper: Float64Array.from([5, 1]) };
-    expect(() => levenbergMarquardt(badBounds, Float64Array.from([7, 1e-3]))).toThrow(/parameter 0: lower bound 10 exceeds upper bound 5/);
+    expect(() => levenbergMarquardt(badBounds, Float64Array.from([7, 1e-3]))).toThrow(
+      /parameter 0: lower bound 10 exceeds upper bound 5/,
+    );
   });
 });

@@ -8,19 +8,26 @@ function byDefinition(jac: Float64Array, r: Float64Array, m: number, n: number) 
   const jtr = new Float64Array(n);
   for (let a = 0; a < n; a++) {
     for (let i = 0; i < m; i++) if (jac[i * n + a] !== 0) jtr[a] += jac[i * n + a] * r[i];
-    for (let b = 0; b < n; b++) for (let i = 0; i < m; i++) if (jac[i * n + a] !== 0 && jac[i * n + b] !== 0) jtj[a * n + b] += jac[i * n + a] * jac[i * n + b];
+    for (let b = 0; b < n; b++)
+      for (let i = 0; i < m; i++)
+        if (jac[i * n + a] !== 0 && jac[i * n + b] !== 0) jtj[a * n + b] += jac[i * n + a] * jac[i * n + b];
   }
   return { jtj, jtr };
 }
 
 function seeded(seed: number) {
   let s = seed >>> 0;
-  return () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  return () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
 }
 
 describe('accumulateNormalEquations', () => {
   it('matches the row-ordered definition bit for bit, zeros included', () => {
-    for (const [m, n] of [[1, 1], [7, 3], [50, 9], [33, 5]]) {
+    for (const [m, n] of [
+      [1, 1],
+      [7, 3],
+      [50, 9],
+      [33, 5],
+    ]) {
       const rnd = seeded(m * 31 + n);
       const jac = Float64Array.from({ length: m * n }, () => (rnd() < 0.2 ? 0 : (rnd() - 0.5) * 10 ** (6 * rnd() - 3)));
       const r = Float64Array.from({ length: m }, () => rnd() - 0.5);

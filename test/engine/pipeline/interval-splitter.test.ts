@@ -10,11 +10,18 @@ const startMs = Date.UTC(2026, 2, 14, 0, 7, 30); // 00:07:30, mid-interval
 function blocks(total: number, size: number, skip?: [number, number]) {
   const out: { firstSample: number; length: number; columns: Float64Array[] }[] = [];
   for (let s = 0; s < total; s += size) {
-    const idx = Array.from({ length: Math.min(size, total - s) }, (_, j) => s + j).filter((i) => !skip || i < skip[0] || i >= skip[1]);
+    const idx = Array.from({ length: Math.min(size, total - s) }, (_, j) => s + j).filter(
+      (i) => !skip || i < skip[0] || i >= skip[1],
+    );
     // split at the skipped range so that blocks stay contiguous
     let run: number[] = [];
     const flush = () => {
-      if (run.length) out.push({ firstSample: run[0], length: run.length, columns: [Float64Array.from(run), Float64Array.from(run, (i) => -i)] });
+      if (run.length)
+        out.push({
+          firstSample: run[0],
+          length: run.length,
+          columns: [Float64Array.from(run), Float64Array.from(run, (i) => -i)],
+        });
       run = [];
     };
     for (const i of idx) {
@@ -34,7 +41,10 @@ describe('interval splitter', () => {
     for (const b of blocks(total, 777, [9000, 9050])) got.push(...splitter.push(b));
     got.push(...splitter.finish());
     expect(got.map((i) => new Date(i.startMs).toISOString())).toEqual([
-      '2026-03-14T00:00:00.000Z', '2026-03-14T00:10:00.000Z', '2026-03-14T00:20:00.000Z', '2026-03-14T00:30:00.000Z',
+      '2026-03-14T00:00:00.000Z',
+      '2026-03-14T00:10:00.000Z',
+      '2026-03-14T00:20:00.000Z',
+      '2026-03-14T00:30:00.000Z',
     ]);
     expect(got.map((i) => i.missing)).toEqual([4500, 0, 50, 6000 - 1500]);
     // sample i sits at 00:07:30 + i/fs: sample 1500 starts the 00:10 interval, sample 0 is at offset 4500 of the first
@@ -71,12 +81,20 @@ describe('interval splitter', () => {
 
   it('runs a station file through splitting and processing', async () => {
     const name = 'example-series-gap.csv';
-    const reader = await openSeriesCsv(createReadStream(new URL(`../../../fixtures/series/${name}`, import.meta.url).pathname), name);
+    const reader = await openSeriesCsv(
+      createReadStream(new URL(`../../../fixtures/series/${name}`, import.meta.url).pathname),
+      name,
+    );
     const out = [];
-    for await (const p of processSeries(reader, () => ({ segmentSeconds: 1, modes: 0, mainsHz: 50 }), { intervalSeconds: 10 })) out.push(p);
+    for await (const p of processSeries(reader, () => ({ segmentSeconds: 1, modes: 0, mainsHz: 50 }), { intervalSeconds: 10 }))
+      out.push(p);
     expect(out.map((p) => [new Date(p.startMs).toISOString().slice(11, 19), p.component, p.missing])).toEqual([
-      ['00:00:00', 'Ez', 400], ['00:00:00', 'Bns', 400], ['00:00:00', 'Bew', 400],
-      ['00:00:10', 'Ez', 0], ['00:00:10', 'Bns', 0], ['00:00:10', 'Bew', 0],
+      ['00:00:00', 'Ez', 400],
+      ['00:00:00', 'Bns', 400],
+      ['00:00:00', 'Bew', 400],
+      ['00:00:10', 'Ez', 0],
+      ['00:00:10', 'Bns', 0],
+      ['00:00:10', 'Bew', 0],
     ]);
     expect(out[0].result.flags).toContain('gaps');
     expect(out[3].result.flags).toEqual([]);

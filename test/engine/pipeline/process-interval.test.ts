@@ -25,26 +25,34 @@ function rawInterval(seed: number): Float64Array {
 }
 
 describe('per-interval processing', () => {
-  const config = { sampleRateHz: fs, mainsHz: 50, interferenceLines: [{ frequencyHz: 50 / 3 }], calibration: { kind: 'gain' as const, gain: 2 } };
+  const config = {
+    sampleRateHz: fs,
+    mainsHz: 50,
+    interferenceLines: [{ frequencyHz: 50 / 3 }],
+    calibration: { kind: 'gain' as const, gain: 2 },
+  };
 
-  it.each([101, 202])('recovers the modes of a synthetic interval through rejection, calibration and line suppression (seed %i)', (seed) => {
-    const r = processInterval(rawInterval(seed), config);
-    expect(r.flags).toEqual([]);
-    // 119 segments (Welch layout with step 1000); the burst at 150 s touches segments 29 and 30
-    expect(r.segments).toBe(117);
-    expect(r.rejectedShare).toBeCloseTo(2 / 119, 12);
-    expect(r.spectrum!.frequencies[0]).toBeCloseTo(3, 12);
-    expect(r.spectrum!.frequencies.at(-1)).toBeCloseTo(48, 12);
-    // calibrated power follows the model again at the suppressed 16.7 Hz line (Timmer & König synthesis)
-    const k = r.spectrum!.frequencies.findIndex((f) => Math.abs(f - 16.7) < 0.05);
-    expect(Math.abs(Math.log(r.spectrum!.power[k] / lorentzSum(TRUE, 16.7)))).toBeLessThan(0.3);
-    const fit = r.fit!;
-    fit.modes.forEach((m, n) => {
-      expect(Math.abs(m.frequency - TRUE.f[n])).toBeLessThan(4 * m.errors.frequency);
-      expect(Math.abs(m.halfWidth - TRUE.g[n])).toBeLessThan(4 * m.errors.halfWidth);
-      expect(Math.abs(m.amplitude - TRUE.a[n])).toBeLessThan(4 * m.errors.amplitude);
-    });
-  });
+  it.each([101, 202])(
+    'recovers the modes of a synthetic interval through rejection, calibration and line suppression (seed %i)',
+    (seed) => {
+      const r = processInterval(rawInterval(seed), config);
+      expect(r.flags).toEqual([]);
+      // 119 segments (Welch layout with step 1000); the burst at 150 s touches segments 29 and 30
+      expect(r.segments).toBe(117);
+      expect(r.rejectedShare).toBeCloseTo(2 / 119, 12);
+      expect(r.spectrum!.frequencies[0]).toBeCloseTo(3, 12);
+      expect(r.spectrum!.frequencies.at(-1)).toBeCloseTo(48, 12);
+      // calibrated power follows the model again at the suppressed 16.7 Hz line (Timmer & König synthesis)
+      const k = r.spectrum!.frequencies.findIndex((f) => Math.abs(f - 16.7) < 0.05);
+      expect(Math.abs(Math.log(r.spectrum!.power[k] / lorentzSum(TRUE, 16.7)))).toBeLessThan(0.3);
+      const fit = r.fit!;
+      fit.modes.forEach((m, n) => {
+        expect(Math.abs(m.frequency - TRUE.f[n])).toBeLessThan(4 * m.errors.frequency);
+        expect(Math.abs(m.halfWidth - TRUE.g[n])).toBeLessThan(4 * m.errors.halfWidth);
+        expect(Math.abs(m.amplitude - TRUE.a[n])).toBeLessThan(4 * m.errors.amplitude);
+      });
+    },
+  );
 
   it('flags gaps, clipping and intervals that are mostly rejected', () => {
     const gappy = rawInterval(5);
@@ -62,7 +70,13 @@ describe('per-interval processing', () => {
   });
 
   it('flags a band outside the response table and a failed fit', () => {
-    const table = { kind: 'response' as const, points: [{ frequencyHz: 5, amplitude: 2, phaseDeg: 0 }, { frequencyHz: 40, amplitude: 2, phaseDeg: 0 }] };
+    const table = {
+      kind: 'response' as const,
+      points: [
+        { frequencyHz: 5, amplitude: 2, phaseDeg: 0 },
+        { frequencyHz: 40, amplitude: 2, phaseDeg: 0 },
+      ],
+    };
     expect(processInterval(rawInterval(7), { ...config, calibration: table }).flags).toEqual(['calibration-range']);
     const silent = processInterval(new Float64Array(600 * fs), { sampleRateHz: fs });
     expect(silent.flags).toContain('fit-failed');
@@ -74,7 +88,9 @@ describe('per-interval processing', () => {
     expect(() => processInterval(x, { sampleRateHz: fs, modes: 9 })).toThrow(/modes/);
     expect(() => processInterval(x, { sampleRateHz: fs, band: { minHz: 3, maxHz: 150 } })).toThrow(/Nyquist/);
     expect(() => processInterval(x, { sampleRateHz: fs, calibration: { kind: 'gain', gain: 0 } })).toThrow(/gain/);
-    expect(() => processInterval(x, { sampleRateHz: fs, interferenceLines: [{ frequencyHz: 16.7 }, { frequencyHz: -3 }] })).toThrow(/interference line 2/);
+    expect(() =>
+      processInterval(x, { sampleRateHz: fs, interferenceLines: [{ frequencyHz: 16.7 }, { frequencyHz: -3 }] }),
+    ).toThrow(/interference line 2/);
   });
 });
 

@@ -23,7 +23,13 @@ describe('calibration', () => {
   });
 
   it('interpolates phase across the +-180 degree wrap', () => {
-    const cal: Calibration = { kind: 'response', points: [{ frequencyHz: 1, amplitude: 1, phaseDeg: 170 }, { frequencyHz: 2, amplitude: 3, phaseDeg: -170 }] };
+    const cal: Calibration = {
+      kind: 'response',
+      points: [
+        { frequencyHz: 1, amplitude: 1, phaseDeg: 170 },
+        { frequencyHz: 2, amplitude: 3, phaseDeg: -170 },
+      ],
+    };
     const [mid] = responseAt(cal, [1.5]);
     expect(mid.phaseDeg).toBeCloseTo(180, 10);
     expect(mid.amplitude).toBeCloseTo(2, 12);
@@ -54,7 +60,23 @@ describe('calibration', () => {
 
   it('names the bad entry of a response table', () => {
     expect(() => checkCalibration({ kind: 'gain', gain: 0 })).toThrow(/gain/);
-    expect(() => checkCalibration({ kind: 'response', points: [{ frequencyHz: 1, amplitude: 1, phaseDeg: 0 }, { frequencyHz: 1, amplitude: 1, phaseDeg: 0 }] })).toThrow(/row 2/);
-    expect(() => checkCalibration({ kind: 'response', points: [{ frequencyHz: 1, amplitude: -1, phaseDeg: 0 }, { frequencyHz: 2, amplitude: 1, phaseDeg: 0 }] })).toThrow(/row 1: amplitude/);
+    expect(() =>
+      checkCalibration({
+        kind: 'response',
+        points: [
+          { frequencyHz: 1, amplitude: 1, phaseDeg: 0 },
+          { frequencyHz: 1, amplitude: 1, phaseDeg: 0 },
+        ],
+      }),
+    ).toThrow(/row 2/);
+    expect(() =>
+      checkCalibration({
+        kind: 'response',
+        points: [
+          { frequencyHz: 1, amplitude: -1, phaseDeg: 0 },
+          { frequencyHz: 2, amplitude: 1, phaseDeg: 0 },
+        ],
+      }),
+    ).toThrow(/row 1: amplitude/);
   });
 });

@@ -16,7 +16,12 @@ describe('line suppression', () => {
     const rand = mulberry32(5);
     const x = Float64Array.from({ length: fs * 300 }, (_, j) => {
       const t = j / fs;
-      return gaussian(rand) + 5 * Math.sin(2 * Math.PI * 50.02 * t) + 1 * Math.sin(2 * Math.PI * 100.04 * t) + 2 * Math.sin(2 * Math.PI * (50 / 3) * t);
+      return (
+        gaussian(rand) +
+        5 * Math.sin(2 * Math.PI * 50.02 * t) +
+        1 * Math.sin(2 * Math.PI * 100.04 * t) +
+        2 * Math.sin(2 * Math.PI * (50 / 3) * t)
+      );
     });
     const est = welch(x, { sampleRateHz: fs, segmentLength: fs * 10 });
     const lines = [...mainsLines(50, fs / 2), ...listedLines([{ frequencyHz: 50 / 3 }])];

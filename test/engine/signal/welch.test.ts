@@ -14,7 +14,9 @@ interface WelchCase {
   frequencies: number[];
   power: number[];
 }
-const fixture = JSON.parse(readFileSync(new URL('../../../fixtures/welch/welch-cases.json', import.meta.url), 'utf8')) as { cases: WelchCase[] };
+const fixture = JSON.parse(readFileSync(new URL('../../../fixtures/welch/welch-cases.json', import.meta.url), 'utf8')) as {
+  cases: WelchCase[];
+};
 
 describe('DFT of any length', () => {
   // Reference: the DFT definition X_k = sum_j x_j exp(-2 pi i jk/m), summed directly.
@@ -26,7 +28,8 @@ describe('DFT of any length', () => {
     let worst = 0;
     let scale = 0;
     for (let k = 0; k < m; k++) {
-      let re = 0, im = 0;
+      let re = 0,
+        im = 0;
       for (let j = 0; j < m; j++) {
         const a = (-2 * Math.PI * ((j * k) % m)) / m;
         re += input[2 * j] * Math.cos(a) - input[2 * j + 1] * Math.sin(a);
@@ -98,7 +101,11 @@ describe('Welch PSD', () => {
     const fs = 200;
     const n = 2000;
     const df = fs / n;
-    for (const [amp, f0] of [[3, 16.7], [0.25, 50], [1.2, 7.83]]) {
+    for (const [amp, f0] of [
+      [3, 16.7],
+      [0.25, 50],
+      [1.2, 7.83],
+    ]) {
       const x = Float64Array.from({ length: fs * 120 }, (_, j) => amp * Math.sin(2 * Math.PI * f0 * (j / fs) + 0.4));
       const est = welch(x, { sampleRateHz: fs, segmentLength: n });
       let peak = 0;
@@ -122,6 +129,8 @@ describe('Welch PSD', () => {
   });
 
   it('rejects a selection of the wrong length', () => {
-    expect(() => welch(new Float64Array(1000), { sampleRateHz: 100, segmentLength: 200, keep: new Uint8Array(3) })).toThrow(/9 segments/);
+    expect(() => welch(new Float64Array(1000), { sampleRateHz: 100, segmentLength: 200, keep: new Uint8Array(3) })).toThrow(
+      /9 segments/,
+    );
   });
 });

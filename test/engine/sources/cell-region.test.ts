@@ -10,11 +10,17 @@ import { cellRegion } from '@/src/engine/sources/cell-region';
 import { makeGlobalGrid } from '@/src/engine/sources/grid';
 
 const D = Math.PI / 180;
-const idsWhere = (deg: number, keep: (c: { lat: number; lon: number }) => boolean) => makeGlobalGrid(deg).cells.filter(keep).map((c) => c.id);
+const idsWhere = (deg: number, keep: (c: { lat: number; lon: number }) => boolean) =>
+  makeGlobalGrid(deg)
+    .cells.filter(keep)
+    .map((c) => c.id);
 
 describe('cell regions as fixed footprints', () => {
   it('the northernmost row of 10-degree cells is the polar cap of radius 10 degrees, in 36 equal shares', () => {
-    const r = cellRegion(10, idsWhere(10, (c) => c.lat > 80));
+    const r = cellRegion(
+      10,
+      idsWhere(10, (c) => c.lat > 80),
+    );
     expect(r.lat).toBeCloseTo(90, 9);
     expect(r.areaSr).toBeCloseTo(2 * Math.PI * (1 - Math.cos(10 * D)), 12);
     expect(r.nodes).toHaveLength(36);
@@ -25,22 +31,34 @@ describe('cell regions as fixed footprints', () => {
   });
 
   it('the southern hemisphere of 5-degree cells has area 2 pi and its place at the south pole', () => {
-    const r = cellRegion(5, idsWhere(5, (c) => c.lat < 0));
+    const r = cellRegion(
+      5,
+      idsWhere(5, (c) => c.lat < 0),
+    );
     expect(r.lat).toBeCloseTo(-90, 9);
     expect(r.areaSr).toBeCloseTo(2 * Math.PI, 12);
     expect(r.nodes.reduce((a, q) => a + q.weight, 0)).toBeCloseTo(1, 12);
   });
 
   it('weights cells by area: sin(north) - sin(south) of their rows', () => {
-    const r = cellRegion(10, [...idsWhere(10, (c) => c.lat === 5 && c.lon === 65), ...idsWhere(10, (c) => c.lat === 45 && c.lon === 65)]);
+    const r = cellRegion(10, [
+      ...idsWhere(10, (c) => c.lat === 5 && c.lon === 65),
+      ...idsWhere(10, (c) => c.lat === 45 && c.lon === 65),
+    ]);
     expect(r.nodes[0].weight / r.nodes[1].weight).toBeCloseTo(Math.sin(10 * D) / (Math.sin(50 * D) - Math.sin(40 * D)), 12);
     expect(r.lon).toBeCloseTo(65, 12);
   });
 
   it('two cells either side of the antimeridian have their place on it; one cell sits at its own centre with weight 1', () => {
-    const pair = cellRegion(10, idsWhere(10, (c) => c.lat === 25 && Math.abs(c.lon) === 175));
+    const pair = cellRegion(
+      10,
+      idsWhere(10, (c) => c.lat === 25 && Math.abs(c.lon) === 175),
+    );
     expect(Math.abs(pair.lon)).toBeCloseTo(180, 9);
-    const one = cellRegion(10, idsWhere(10, (c) => c.lat === -35 && c.lon === 65));
+    const one = cellRegion(
+      10,
+      idsWhere(10, (c) => c.lat === -35 && c.lon === 65),
+    );
     expect([one.lat, one.lon]).toEqual([-35, 65].map((x) => expect.closeTo(x, 12)));
     expect(one.nodes).toEqual([{ lat: -35, lon: 65, weight: 1 }]);
   });

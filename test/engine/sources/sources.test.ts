@@ -31,12 +31,19 @@ describe('spot regions (Radon 7-point rule for the disc; Stroud 1971, S2:5-1)', 
     const b = spotNodes(62, -130, 7);
     for (let i = 0; i < a.length; i++)
       for (let j = i + 1; j < a.length; j++)
-        expect(greatCircle(b[i].lat, b[i].lon, b[j].lat, b[j].lon).theta).toBeCloseTo(greatCircle(a[i].lat, a[i].lon, a[j].lat, a[j].lon).theta, 12);
+        expect(greatCircle(b[i].lat, b[i].lon, b[j].lat, b[j].lon).theta).toBeCloseTo(
+          greatCircle(a[i].lat, a[i].lon, a[j].lat, a[j].lon).theta,
+          12,
+        );
   });
 
   it('node derivatives with respect to the centre match central finite differences', () => {
     const h = 1e-6;
-    for (const [lat, lon] of [[10, 20], [-55, 170], [70, -5]]) {
+    for (const [lat, lon] of [
+      [10, 20],
+      [-55, 170],
+      [70, -5],
+    ]) {
       const n0 = spotNodes(lat, lon, 4);
       const up = spotNodes(lat + h, lon, 4);
       const dn = spotNodes(lat - h, lon, 4);
@@ -84,8 +91,19 @@ describe('global grid and regions', () => {
     expect(even.reduce((a, s) => a + s.intensity, 0)).toBeCloseTo(1000, 9);
     const eq = even.find((s) => s.lat === 5)!;
     const hi = even.find((s) => s.lat === 55)!;
-    expect(hi.intensity / eq.intensity).toBeCloseTo((Math.sin(60 * DEG) - Math.sin(50 * DEG)) / (Math.sin(10 * DEG) - Math.sin(0)), 12);
-    const weighted = regionSources(g, ids, 1000, new Map([[ids[0], 3], [ids[1], 1]]));
+    expect(hi.intensity / eq.intensity).toBeCloseTo(
+      (Math.sin(60 * DEG) - Math.sin(50 * DEG)) / (Math.sin(10 * DEG) - Math.sin(0)),
+      12,
+    );
+    const weighted = regionSources(
+      g,
+      ids,
+      1000,
+      new Map([
+        [ids[0], 3],
+        [ids[1], 1],
+      ]),
+    );
     expect(weighted.filter((s) => s.intensity > 0).length).toBe(2);
     expect(() => regionSources(g, [], 1)).toThrow(/at least one grid cell/);
   });

@@ -17,7 +17,12 @@ describe('complex digamma', () => {
   });
 
   it('obeys psi(z + 1) = psi(z) + 1/z (A&S 6.3.5) including across the reflection', () => {
-    for (const [x, y] of [[-2.3, 0.7], [0.2, -0.15], [3.1, 5], [-0.9, -0.01]]) {
+    for (const [x, y] of [
+      [-2.3, 0.7],
+      [0.2, -0.15],
+      [3.1, 5],
+      [-0.9, -0.01],
+    ]) {
       const a = digamma(x, y);
       const b = digamma(x + 1, y);
       const d = x * x + y * y;

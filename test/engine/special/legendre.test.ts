@@ -29,8 +29,17 @@ describe('P_nu(-cos theta) against mpmath (legenp type 2 and its derivative; fix
   });
 
   it('the cavity models reproduce the fixture propagation parameters (same formulas, evaluated by mpmath)', () => {
-    const cfg = (model: CavityConfig['model']): CavityConfig => ({ model, earthRadiusKm: fixture.earthRadiusKm, heightKm: 60, table: fixture.table });
-    const cavities = { linear: resolveCavity(cfg('linear')), 'ishaq-jones': resolveCavity(cfg('ishaq-jones')), table: resolveCavity(cfg('table')) };
+    const cfg = (model: CavityConfig['model']): CavityConfig => ({
+      model,
+      earthRadiusKm: fixture.earthRadiusKm,
+      heightKm: 60,
+      table: fixture.table,
+    });
+    const cavities = {
+      linear: resolveCavity(cfg('linear')),
+      'ishaq-jones': resolveCavity(cfg('ishaq-jones')),
+      table: resolveCavity(cfg('table')),
+    };
     for (const pt of fixture.points) {
       const nu = cavities[pt.model as keyof typeof cavities].nu(pt.f);
       expect(rel(nu, pt.nu)).toBeLessThan(1e-12);
@@ -39,14 +48,22 @@ describe('P_nu(-cos theta) against mpmath (legenp type 2 and its derivative; fix
 });
 
 /** Legendre polynomials P_n(x) and P_n'(x) by the three-term recurrence (A&S 8.5.3, 22.7.10). */
-function zonalSums(nuRe: number, nuIm: number, theta: number, N: number): { s: { re: number; im: number }; ds: { re: number; im: number } } {
+function zonalSums(
+  nuRe: number,
+  nuIm: number,
+  theta: number,
+  N: number,
+): { s: { re: number; im: number }; ds: { re: number; im: number } } {
   const x = Math.cos(theta);
   const sx = Math.sin(theta);
   const lamRe = nuRe * (nuRe + 1) - nuIm * nuIm;
   const lamIm = nuIm * (2 * nuRe + 1);
   let pPrev = 0;
   let p = 1;
-  let sRe = 0, sIm = 0, dRe = 0, dIm = 0;
+  let sRe = 0,
+    sIm = 0,
+    dRe = 0,
+    dIm = 0;
   for (let n = 0; n <= N; n++) {
     // smooth taper: 1 up to N/2, cos^2 down to 0 at N (summation of an oscillating series)
     const u = n / N;
@@ -59,8 +76,10 @@ function zonalSums(nuRe: number, nuIm: number, theta: number, N: number): { s: {
     const den = aRe * aRe + aIm * aIm;
     const cRe = ((2 * n + 1) * aRe) / den;
     const cIm = (-(2 * n + 1) * aIm) / den;
-    sRe += wgt * cRe * p; sIm += wgt * cIm * p;
-    dRe += wgt * cRe * dth; dIm += wgt * cIm * dth;
+    sRe += wgt * cRe * p;
+    sIm += wgt * cIm * p;
+    dRe += wgt * cRe * dth;
+    dIm += wgt * cIm * dth;
     const next = ((2 * n + 1) * x * p - n * pPrev) / (n + 1);
     pPrev = p;
     p = next;
@@ -70,7 +89,12 @@ function zonalSums(nuRe: number, nuIm: number, theta: number, N: number): { s: {
 
 describe('zonal harmonic series identity sum (2n+1) P_n(cos th)/(n(n+1) - nu(nu+1)) = -pi P_nu(-cos th)/sin(pi nu)', () => {
   // Eigenfunction expansion of the cavity Green's function (Nickolaenko & Hayakawa 2002; Morse & Feshbach 1953).
-  const cases: [number, number][] = [[1.026, -0.165], [2.3, -0.3], [4.5, -0.45], [0.4, -0.05]];
+  const cases: [number, number][] = [
+    [1.026, -0.165],
+    [2.3, -0.3],
+    [4.5, -0.45],
+    [0.4, -0.05],
+  ];
   for (const [nr, ni] of cases)
     for (const thDeg of [35, 75, 110, 150])
       it(`nu = ${nr}${ni}i, theta = ${thDeg} deg: P and dP/dtheta`, () => {
@@ -113,7 +137,12 @@ describe('special cases and the Legendre equation', () => {
   });
 
   it('P_nu(1) = 1 (theta = 180 deg) for complex degrees (A&S 8.1.2: 2F1(a, b; c; 0) = 1)', () => {
-    for (const [nr, ni] of [[1.026, -0.165], [5.5, -0.6], [9.7, -0.86], [0.05, -0.02]]) {
+    for (const [nr, ni] of [
+      [1.026, -0.165],
+      [5.5, -0.6],
+      [9.7, -0.86],
+      [0.05, -0.02],
+    ]) {
       expect(rel(legendreAt(nr, ni, Math.PI).p, [1, 0])).toBeLessThan(1e-15);
       expect(rel(legendreAt(nr, ni, Math.PI - 1e-6).p, [1, 0])).toBeLessThan(1e-10);
     }
@@ -121,7 +150,11 @@ describe('special cases and the Legendre equation', () => {
 
   it('satisfies y" + cot(theta) y\' + nu(nu+1) y = 0 (Legendre equation, A&S 8.1.1) by central differences', () => {
     const out = new Float64Array(LEGENDRE_OUT);
-    for (const [nr, ni] of [[1.026, -0.165], [3.7, -0.4], [8.1, -0.7]]) {
+    for (const [nr, ni] of [
+      [1.026, -0.165],
+      [3.7, -0.4],
+      [8.1, -0.7],
+    ]) {
       const deg = prepareDegree(nr, ni);
       for (const thDeg of [2, 30, 89.9, 90.1, 130, 175]) {
         const th = thDeg * DEG;

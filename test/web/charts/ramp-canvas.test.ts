@@ -14,15 +14,25 @@ function paint(interpolator: (t: number) => string) {
   }
   const svg = decodeURIComponent(canvas.toDataURL().replace(/^data:image\/svg\+xml,/, ''));
   const { document } = parseHTML(`<html><body>${svg}</body></html>`);
-  const stops = Array.from(document.querySelectorAll('stop')).map((s) => ({ offset: Number(s.getAttribute('offset')), colour: s.getAttribute('stop-color')! }));
+  const stops = Array.from(document.querySelectorAll('stop')).map((s) => ({
+    offset: Number(s.getAttribute('offset')),
+    colour: s.getAttribute('stop-color')!,
+  }));
   return { svg, stops };
 }
 
-const rgb = (c: string) => { const x = color(c)!.rgb(); return [x.r, x.g, x.b]; };
+const rgb = (c: string) => {
+  const x = color(c)!.rgb();
+  return [x.r, x.g, x.b];
+};
 
 // Reference: d3-scale-chromatic's interpolators (the schemes Plot's legends use), evaluated directly.
 describe('rampCanvas', () => {
-  for (const [name, interpolator] of [['PuOr', interpolatePuOr], ['viridis', interpolateViridis], ['YlOrBr', interpolateYlOrBr]] as const) {
+  for (const [name, interpolator] of [
+    ['PuOr', interpolatePuOr],
+    ['viridis', interpolateViridis],
+    ['YlOrBr', interpolateYlOrBr],
+  ] as const) {
     it(`hands back the ${name} ramp as gradient stops at the interpolator's own colours, ends included`, () => {
       const { stops } = paint(interpolator);
       expect(stops[0]).toEqual({ offset: 0, colour: interpolator(0) });

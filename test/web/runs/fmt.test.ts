@@ -4,8 +4,30 @@ import { fmt } from '@/src/web/runs/types';
 // Reference: the ECMA-402 number formatter (Intl.NumberFormat, en-GB) that fmt stands in for
 // inside [1e-3, 1e5), and Number.prototype.toExponential outside it.
 describe('fmt', () => {
-  const values: number[] = [0, 1, -1, 0.5, 0.001, 0.0012345, 0.099999, 1.23456, 9.99951, 12.5, 99.995, 999.95, 1000, 1234.5,
-    12345.678, 99994.9, 99999.4, 29770.942455289398, -4321.987, 0.3, 0.1 + 0.2, 314.159265];
+  const values: number[] = [
+    0,
+    1,
+    -1,
+    0.5,
+    0.001,
+    0.0012345,
+    0.099999,
+    1.23456,
+    9.99951,
+    12.5,
+    99.995,
+    999.95,
+    1000,
+    1234.5,
+    12345.678,
+    99994.9,
+    99999.4,
+    29770.942455289398,
+    -4321.987,
+    0.3,
+    0.1 + 0.2,
+    314.159265,
+  ];
   for (let k = 0; k < 400; k++) values.push((k % 2 ? -1 : 1) * Math.exp(-6.9 + (18.4 * k) / 400)); // 1e-3 .. 1e5, both signs
 
   for (const digits of [2, 3, 5]) {

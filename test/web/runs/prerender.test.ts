@@ -16,31 +16,71 @@ import { fitFigures } from '@/src/web/runs/figures/fits';
 // An invented two-station world with one source region; the result is the engine's own inversion of it.
 const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 const freqs = bandFrequencies({ minHz: 6, maxHz: 30, stepHz: 0.5 });
-const stations = [{ code: 'PA1', lat: 40, lon: 10 }, { code: 'PA2', lat: -30, lon: 140 }];
+const stations = [
+  { code: 'PA1', lat: 40, lon: 10 },
+  { code: 'PA2', lat: -30, lon: 140 },
+];
 const observed = syntheticObserved(cavity, stations, [{ lat: 0, lon: 20, intensity: 3e4 }], freqs, 0.1, 7);
 let result: InversionResult;
 
 beforeAll(async () => {
-  result = await invertSpectra({ cavity, stations, observed, unknowns: [{ name: 'Belt', intensity: { min: 1e2, max: 1e6 }, lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } }] }, { starts: 4, seed: 3, threads: 1 });
+  result = await invertSpectra(
+    {
+      cavity,
+      stations,
+      observed,
+      unknowns: [{ name: 'Belt', intensity: { min: 1e2, max: 1e6 }, lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } }],
+    },
+    { starts: 4, seed: 3, threads: 1 },
+  );
 });
 afterAll(() => closeInversionPool());
 
 function view(intervals: number): RunView {
   return {
-    grid: { id: 'g', name: 'Grid', version: 1, cellSizeDeg: 10, regions: [{ key: 'belt', name: 'Belt', colour: '#E69F00', kind: 'moving', centre: { lat: 0, lon: 20 }, bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } }, spreadDeg: 0 }] },
-    intervals: Array.from({ length: intervals }, (_, i) => ({ startsAt: new Date(Date.UTC(2031, 6, 2) + i * 600_000).toISOString(), nData: result.nData, seconds: 0.1, result })),
+    grid: {
+      id: 'g',
+      name: 'Grid',
+      version: 1,
+      cellSizeDeg: 10,
+      regions: [
+        {
+          key: 'belt',
+          name: 'Belt',
+          colour: '#E69F00',
+          kind: 'moving',
+          centre: { lat: 0, lon: 20 },
+          bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
+          spreadDeg: 0,
+        },
+      ],
+    },
+    intervals: Array.from({ length: intervals }, (_, i) => ({
+      startsAt: new Date(Date.UTC(2031, 6, 2) + i * 600_000).toISOString(),
+      nData: result.nData,
+      seconds: 0.1,
+      result,
+    })),
   } as unknown as RunView;
 }
 
 const fits: RunFits = {
   series: observed.map((o) => ({
-    station: o.station, component: o.component, frequencies: Array.from(o.frequencies), observed: Array.from(o.power),
-    predicted: Array.from(o.power, (p) => p * 1.05), residual: Array.from(o.power, () => 0.5), chi2PerBin: 0.25,
+    station: o.station,
+    component: o.component,
+    frequencies: Array.from(o.frequencies),
+    observed: Array.from(o.power),
+    predicted: Array.from(o.power, (p) => p * 1.05),
+    residual: Array.from(o.power, () => 0.5),
+    chi2PerBin: 0.25,
   })),
   stations: [],
 };
 
-const label = (markup: string | null) => (markup ? parseHTML(`<html><body>${markup}</body></html>`).document.querySelector('svg[aria-label]')?.getAttribute('aria-label') : null);
+const label = (markup: string | null) =>
+  markup
+    ? parseHTML(`<html><body>${markup}</body></html>`).document.querySelector('svg[aria-label]')?.getAttribute('aria-label')
+    : null;
 
 describe('firstFigures', () => {
   it('draws every figure of the first view under the title the browser draws it with', () => {

@@ -9,7 +9,14 @@ import { FitSettings, fitSettingsText, NOT_RECORDED } from '@/src/web/stations/F
 
 describe('fit settings text', () => {
   it('writes the band, the averages and each range left out', () => {
-    const t = fitSettingsText({ band: { minHz: 3, maxHz: 36.5 }, averages: 112.74, excluded: [{ minHz: 16.400000000000002, maxHz: 16.9 }, { minHz: 49.5, maxHz: 49.5 }] });
+    const t = fitSettingsText({
+      band: { minHz: 3, maxHz: 36.5 },
+      averages: 112.74,
+      excluded: [
+        { minHz: 16.400000000000002, maxHz: 16.9 },
+        { minHz: 49.5, maxHz: 49.5 },
+      ],
+    });
     expect(t).toEqual({ band: '3–36.5 Hz', averages: '112.7', excluded: '16.4–16.9 Hz, 49.5 Hz' });
   });
 

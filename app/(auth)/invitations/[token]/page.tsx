@@ -39,7 +39,9 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
         <p className="mt-2 text-sm text-muted">
           as <span className="font-medium text-fg">{ROLE_LABEL[inv.role].toLowerCase()}</span>: {ROLE_SUMMARY[inv.role]}
         </p>
-        <p className="mt-1 text-xs text-muted">For {inv.email} · valid until {formatUtc(inv.expiresAt)}</p>
+        <p className="mt-1 text-xs text-muted">
+          For {inv.email} · valid until {formatUtc(inv.expiresAt)}
+        </p>
       </div>
       {mismatch ? (
         <Notice tone="error" title="Signed in with another address">

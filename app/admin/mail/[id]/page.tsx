@@ -27,7 +27,10 @@ export default async function MailMessagePage({ params }: { params: Promise<{ id
           <dt className="text-muted">Received</dt>
           <dd className="num">{formatUtc(m.receivedAt, true)}</dd>
         </dl>
-        <pre className="overflow-x-auto rounded-md bg-raised p-4 font-mono text-[0.8125rem] leading-relaxed whitespace-pre-wrap" data-testid="mail-body">
+        <pre
+          className="overflow-x-auto rounded-md bg-raised p-4 font-mono text-[0.8125rem] leading-relaxed whitespace-pre-wrap"
+          data-testid="mail-body"
+        >
           {linkified.map((part, i) =>
             /^https?:\/\//.test(part) ? (
               <a key={i} href={part} className="text-accent underline break-all">

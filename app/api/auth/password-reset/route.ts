@@ -5,5 +5,8 @@ import { requestPasswordReset, resetRequestSchema } from '@/src/auth/accounts';
 export const POST = route(async (req) => {
   const { email } = await parseJson(req, resetRequestSchema);
   await requestPasswordReset(email, requestOrigin(req));
-  return json({ ok: true, message: 'If this address has an account, a reset link is on its way. It works once, for one hour.' }, 202);
+  return json(
+    { ok: true, message: 'If this address has an account, a reset link is on its way. It works once, for one hour.' },
+    202,
+  );
 });

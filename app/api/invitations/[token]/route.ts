@@ -9,5 +9,13 @@ type P = { token: string };
  */
 export const GET = route<P>(async (_req, { params }) => {
   const inv = await viewInvitation(params.token);
-  return json({ invitation: { networkName: inv.networkName, email: inv.email, role: inv.role, expiresAt: inv.expiresAt, hasAccount: inv.hasAccount } });
+  return json({
+    invitation: {
+      networkName: inv.networkName,
+      email: inv.email,
+      role: inv.role,
+      expiresAt: inv.expiresAt,
+      hasAccount: inv.hasAccount,
+    },
+  });
 });

@@ -12,22 +12,58 @@ export default async function StationsPage({ params }: { params: Promise<{ netwo
   const stations = await listStations(networkId);
   const manage = can(membership.role, 'stations.manage');
   const rows = stations.map((s) => ({
-    id: s.id, code: s.code, name: s.name, url: `/n/${networkId}/stations/${s.id}`,
-    latitude: s.latitude, longitude: s.longitude, components: s.components.map((c) => c.component).join(' '),
-    mainsHz: s.mainsHz, status: s.status, intervalCount: s.intervalCount,
+    id: s.id,
+    code: s.code,
+    name: s.name,
+    url: `/n/${networkId}/stations/${s.id}`,
+    latitude: s.latitude,
+    longitude: s.longitude,
+    components: s.components.map((c) => c.component).join(' '),
+    mainsHz: s.mainsHz,
+    status: s.status,
+    intervalCount: s.intervalCount,
     lastIntervalAt: s.lastIntervalAt?.toISOString() ?? null,
   }));
   return (
     <div className="space-y-6">
-      <Panel heading="Stations" description="Where this network records the Earth–ionosphere cavity, and how much processed data each station holds."
-        actions={manage ? <ButtonLink href={`/n/${networkId}/stations/new`} tone="primary">Add a station</ButtonLink> : null}>
+      <Panel
+        heading="Stations"
+        description="Where this network records the Earth–ionosphere cavity, and how much processed data each station holds."
+        actions={
+          manage ? (
+            <ButtonLink href={`/n/${networkId}/stations/new`} tone="primary">
+              Add a station
+            </ButtonLink>
+          ) : null
+        }
+      >
         {stations.length ? (
-          <StationMap title="Stations of this network" stations={stations.map(({ id, code, name, latitude, longitude }) => ({ id, code, name, latitude, longitude }))} />
+          <StationMap
+            title="Stations of this network"
+            stations={stations.map(({ id, code, name, latitude, longitude }) => ({ id, code, name, latitude, longitude }))}
+          />
         ) : null}
-        <DataTable caption="Station list" captionHidden rows={rows} initialSort={{ key: 'code' }}
-          empty={<EmptyState title="No stations yet" action={manage ? <ButtonLink href={`/n/${networkId}/stations/new`} tone="primary">Add a station</ButtonLink> : null}>
-            {manage ? 'Add the first station with its position, components and calibration; then upload its files.' : 'An owner of this network adds stations.'}
-          </EmptyState>}
+        <DataTable
+          caption="Station list"
+          captionHidden
+          rows={rows}
+          initialSort={{ key: 'code' }}
+          empty={
+            <EmptyState
+              title="No stations yet"
+              action={
+                manage ? (
+                  <ButtonLink href={`/n/${networkId}/stations/new`} tone="primary">
+                    Add a station
+                  </ButtonLink>
+                ) : null
+              }
+            >
+              {manage
+                ? 'Add the first station with its position, components and calibration; then upload its files.'
+                : 'An owner of this network adds stations.'}
+            </EmptyState>
+          }
           columns={[
             { key: 'code', header: 'Code', hrefKey: 'url' },
             { key: 'name', header: 'Name' },
@@ -38,7 +74,8 @@ export default async function StationsPage({ params }: { params: Promise<{ netwo
             { key: 'status', header: 'Status' },
             { key: 'intervalCount', header: 'Intervals', numeric: true, digits: 0 },
             { key: 'lastIntervalAt', header: 'Newest interval', time: true },
-          ]} />
+          ]}
+        />
       </Panel>
       <Caution topic="field" />
     </div>

@@ -30,7 +30,10 @@ export function firstFigures(view: RunView, fits: RunFits | null): FirstFigures 
   const first = fits?.series[0];
   const fit = first ? fitFigures(first) : null;
   return {
-    series: solved.length > 1 ? renderFigureSvg(seriesFigure(view.intervals, regionColours(view.grid.regions)), SERVER_WIDTH.full) : null,
+    series:
+      solved.length > 1
+        ? renderFigureSvg(seriesFigure(view.intervals, regionColours(view.grid.regions)), SERVER_WIDTH.full)
+        : null,
     correlation: best ? renderFigureSvg(correlationFigure(best), SERVER_WIDTH.half) : null,
     starts: open?.result && best ? renderFigureSvg(startsFigure(open.result, 0), SERVER_WIDTH.half) : null,
     power: fit ? renderFigureSvg(fit.power, SERVER_WIDTH.full) : null,

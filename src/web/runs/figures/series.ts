@@ -14,17 +14,28 @@ export function seriesFigure(intervals: IntervalView[], colours: Record<string, 
   });
   const names = [...new Set(pts.map((p) => p.region))];
   return {
-    title: 'Regional intensity through the day', xLabel: 'Time (UT)', yLabel: 'Intensity (C² km²/s)', height: 280,
+    title: 'Regional intensity through the day',
+    xLabel: 'Time (UT)',
+    yLabel: 'Intensity (C² km²/s)',
+    height: 280,
     caption: 'Best minimum of each interval; the band is ±1 standard error.',
-    build: (P) => ({
-      y: { type: 'log' },
-      x: { type: 'utc', tickFormat: '%H:%M' },
-      color: { legend: true, domain: names, range: names.map((n) => colours[n] ?? '#0072B2') },
-      marks: [
-        P.areaY(pts, { x: 't', y1: 'lo', y2: 'hi', fill: 'region', fillOpacity: 0.2 }),
-        P.line(pts, { x: 't', y: 'I', stroke: 'region', strokeWidth: 1.5 }),
-        P.dot(pts, { x: 't', y: 'I', fill: 'region', r: 2, title: (d: { region: string; I: number; t: Date }) => `${d.region} ${d.t.toISOString().slice(11, 16)} UT: ${d.I.toPrecision(3)} C² km²/s` }),
-      ],
-    }) as unknown as Plot.PlotOptions,
+    build: (P) =>
+      ({
+        y: { type: 'log' },
+        x: { type: 'utc', tickFormat: '%H:%M' },
+        color: { legend: true, domain: names, range: names.map((n) => colours[n] ?? '#0072B2') },
+        marks: [
+          P.areaY(pts, { x: 't', y1: 'lo', y2: 'hi', fill: 'region', fillOpacity: 0.2 }),
+          P.line(pts, { x: 't', y: 'I', stroke: 'region', strokeWidth: 1.5 }),
+          P.dot(pts, {
+            x: 't',
+            y: 'I',
+            fill: 'region',
+            r: 2,
+            title: (d: { region: string; I: number; t: Date }) =>
+              `${d.region} ${d.t.toISOString().slice(11, 16)} UT: ${d.I.toPrecision(3)} C² km²/s`,
+          }),
+        ],
+      }) as unknown as Plot.PlotOptions,
   };
 }

@@ -27,7 +27,14 @@ export const STOP_WORDS: Record<StopReason, string> = {
 export const REACHED = 'var(--c-accent)';
 export const STOPPED_SHORT = '#D55E00'; // Okabe & Ito (2008) vermillion, apart from teal for every colour vision
 
-interface Dot { x: number; misfit: number; start: number; minimum: number; text: string; reached: boolean | null }
+interface Dot {
+  x: number;
+  misfit: number;
+  start: number;
+  minimum: number;
+  text: string;
+  reached: boolean | null;
+}
 
 /** x of the k-th of `count` starts in a minimum's column: centred, at most 9 side by side. */
 function spread(rank: number, k: number, count: number): number {
@@ -43,8 +50,14 @@ function dotsOf(result: InversionResult): { dots: Dot[]; notDrawn: number } {
     m.startIndexes.forEach((s, k) => {
       const at = ends ? ends.index.indexOf(s) : -1;
       if (!ends || at < 0) {
-        dots.push({ x: spread(rank, k, m.startIndexes.length), misfit: m.misfit, start: s, minimum: rank, reached: null,
-          text: `Start ${s + 1} of ${result.starts}\nminimum #${rank + 1}, misfit ${m.misfit.toPrecision(6)}\n(own misfit not stored)` });
+        dots.push({
+          x: spread(rank, k, m.startIndexes.length),
+          misfit: m.misfit,
+          start: s,
+          minimum: rank,
+          reached: null,
+          text: `Start ${s + 1} of ${result.starts}\nminimum #${rank + 1}, misfit ${m.misfit.toPrecision(6)}\n(own misfit not stored)`,
+        });
         return;
       }
       const misfit = ends.misfit[at];
@@ -55,7 +68,11 @@ function dotsOf(result: InversionResult): { dots: Dot[]; notDrawn: number } {
       }
       const reached = CONVERGED_REASONS.includes(reason);
       dots.push({
-        x: spread(rank, k, m.startIndexes.length), misfit, start: s, minimum: rank, reached,
+        x: spread(rank, k, m.startIndexes.length),
+        misfit,
+        start: s,
+        minimum: rank,
+        reached,
         text: `Start ${s + 1} of ${result.starts}\nmisfit χ² ${misfit.toPrecision(6)}\n${ends.iterations[at]} iterations\nstopped: ${STOP_WORDS[reason] ?? reason}${reached ? '' : ' (not converged)'}\ncounted in minimum #${rank + 1}`,
       });
     });
@@ -76,23 +93,31 @@ export function startsFigure(result: InversionResult, selected: number): FigureS
   const n = result.minima.length;
   const logScale = dots.length > 0 && dots.every((d) => d.misfit > 0);
   return {
-    title: `Where the ${result.starts} starts ended`, xLabel: 'Minimum (rank, best first)', yLabel: 'Final misfit χ² (dimensionless)',
-    caption: captionOf(result, notDrawn), height: 240,
-    build: (P) => ({
-      x: { domain: [0.4, n + 0.6], ticks: result.minima.map((_, i) => i + 1), tickFormat: (d: number) => `#${d}` },
-      y: logScale ? { type: 'log', insetTop: 10 } : { nice: true, insetTop: 10 },
-      symbol: { domain: ['reached', 'short', 'unknown'], range: ['circle', 'triangle', 'circle'] },
-      marks: [
-        // the selected minimum's column
-        P.rectX([selected], { x1: (i: number) => i + 0.55, x2: (i: number) => i + 1.45, fill: 'var(--c-accent-soft)' }),
-        P.dot(dots, {
-          x: 'x', y: 'misfit', r: 3.5, strokeWidth: 1.2,
-          symbol: (d: Dot) => (d.reached === null ? 'unknown' : d.reached ? 'reached' : 'short'),
-          fill: (d: Dot) => (d.reached === false ? STOPPED_SHORT : d.reached === null ? 'var(--c-muted)' : REACHED),
-          stroke: 'var(--c-surface)',
-          title: 'text', tip: true,
-        }),
-      ],
-    }) as unknown as Plot.PlotOptions,
+    title: `Where the ${result.starts} starts ended`,
+    xLabel: 'Minimum (rank, best first)',
+    yLabel: 'Final misfit χ² (dimensionless)',
+    caption: captionOf(result, notDrawn),
+    height: 240,
+    build: (P) =>
+      ({
+        x: { domain: [0.4, n + 0.6], ticks: result.minima.map((_, i) => i + 1), tickFormat: (d: number) => `#${d}` },
+        y: logScale ? { type: 'log', insetTop: 10 } : { nice: true, insetTop: 10 },
+        symbol: { domain: ['reached', 'short', 'unknown'], range: ['circle', 'triangle', 'circle'] },
+        marks: [
+          // the selected minimum's column
+          P.rectX([selected], { x1: (i: number) => i + 0.55, x2: (i: number) => i + 1.45, fill: 'var(--c-accent-soft)' }),
+          P.dot(dots, {
+            x: 'x',
+            y: 'misfit',
+            r: 3.5,
+            strokeWidth: 1.2,
+            symbol: (d: Dot) => (d.reached === null ? 'unknown' : d.reached ? 'reached' : 'short'),
+            fill: (d: Dot) => (d.reached === false ? STOPPED_SHORT : d.reached === null ? 'var(--c-muted)' : REACHED),
+            stroke: 'var(--c-surface)',
+            title: 'text',
+            tip: true,
+          }),
+        ],
+      }) as unknown as Plot.PlotOptions,
   };
 }

@@ -20,11 +20,18 @@ export const GET = route<P>(async (req, { params }) => {
  */
 export const POST = route<P>(async (req, { params }) => {
   const { user } = await requireNetworkAction(params.networkId, 'data.upload');
-  const q = parseQuery(req, z.object({ station: z.uuid({ message: 'choose the station the file belongs to' }), name: z.string().min(1).max(200) }));
+  const q = parseQuery(
+    req,
+    z.object({ station: z.uuid({ message: 'choose the station the file belongs to' }), name: z.string().min(1).max(200) }),
+  );
   const station = await requireStation(params.networkId, q.station);
   const length = req.headers.get('content-length');
   const out = await receiveUpload({
-    station, userId: user.id, fileName: q.name, body: req.body, contentLength: length ? Number(length) : null,
+    station,
+    userId: user.id,
+    fileName: q.name,
+    body: req.body,
+    contentLength: length ? Number(length) : null,
   });
   return json(out, out.duplicate ? 200 : 201);
 });

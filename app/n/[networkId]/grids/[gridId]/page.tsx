@@ -17,13 +17,29 @@ export default async function GridPage({ params }: { params: Promise<{ networkId
   if (!grid) notFound();
   return (
     <div className="space-y-6">
-      <Panel heading={`${grid.name} · version ${grid.version}`} description={`${grid.cellSizeDeg}° cells, ${grid.regions.length} regions.${grid.notes ? ` ${grid.notes}` : ''}`}
-        actions={can(membership.role, 'grids.edit') ? <ButtonLink href={`/n/${networkId}/grids/${grid.id}/edit`} tone="primary">Edit as a new version</ButtonLink> : null}>
+      <Panel
+        heading={`${grid.name} · version ${grid.version}`}
+        description={`${grid.cellSizeDeg}° cells, ${grid.regions.length} regions.${grid.notes ? ` ${grid.notes}` : ''}`}
+        actions={
+          can(membership.role, 'grids.edit') ? (
+            <ButtonLink href={`/n/${networkId}/grids/${grid.id}/edit`} tone="primary">
+              Edit as a new version
+            </ButtonLink>
+          ) : null
+        }
+      >
         <GridPreview cellSizeDeg={grid.cellSizeDeg} regions={grid.regions.map((r) => regionSchema.parse(r))} />
       </Panel>
       <Panel heading="Versions">
         <ul className="text-sm">
-          {versions.map((v) => <li key={v.id}><a className="text-accent hover:underline" href={`/n/${networkId}/grids/${v.id}`}>v{v.version}</a> · saved {v.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UT{v.id === grid.id ? ' (shown)' : ''}</li>)}
+          {versions.map((v) => (
+            <li key={v.id}>
+              <a className="text-accent hover:underline" href={`/n/${networkId}/grids/${v.id}`}>
+                v{v.version}
+              </a>{' '}
+              · saved {v.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UT{v.id === grid.id ? ' (shown)' : ''}
+            </li>
+          ))}
         </ul>
       </Panel>
     </div>

@@ -20,16 +20,29 @@ export default async function ModelPage({ params }: { params: Promise<{ networkI
   const config = model.config as unknown as CavityConfig;
   return (
     <div className="space-y-6">
-      <Panel heading={`${model.name} · version ${model.version}`}
+      <Panel
+        heading={`${model.name} · version ${model.version}`}
         description={`ν from ${config.model}${config.table ? ` (${config.table.rows.length} rows, ${config.table.columns})` : ''}; Earth radius ${config.earthRadiusKm} km; effective height ${config.heightKm} km.`}
-        actions={can(membership.role, 'models.edit') ? <ButtonLink href={`/n/${networkId}/models/${model.id}/edit`} tone="primary">Edit as a new version</ButtonLink> : null}>
+        actions={
+          can(membership.role, 'models.edit') ? (
+            <ButtonLink href={`/n/${networkId}/models/${model.id}/edit`} tone="primary">
+              Edit as a new version
+            </ButtonLink>
+          ) : null
+        }
+      >
         {model.notes ? <p className="mb-4 max-w-prose text-sm">{model.notes}</p> : null}
         <ModelCurves config={config} />
       </Panel>
       <Panel heading="Versions">
         <ul className="text-sm">
           {versions.map((v) => (
-            <li key={v.id}><a className="text-accent hover:underline" href={`/n/${networkId}/models/${v.id}`}>v{v.version}</a> · saved {v.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UT{v.id === model.id ? ' (shown)' : ''}</li>
+            <li key={v.id}>
+              <a className="text-accent hover:underline" href={`/n/${networkId}/models/${v.id}`}>
+                v{v.version}
+              </a>{' '}
+              · saved {v.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UT{v.id === model.id ? ' (shown)' : ''}
+            </li>
           ))}
         </ul>
       </Panel>

@@ -18,26 +18,46 @@ export const metadata = { title: 'Run · Cavitas' };
 export default async function RunDetailPage({ params }: { params: Promise<{ networkId: string; runId: string }> }) {
   const { networkId, runId } = await params;
   const { membership } = await pageNetworkAction(networkId, 'network.read');
-  const view = await getRunView(networkId, /^[0-9a-f-]{36}$/i.test(runId) ? runId : '00000000-0000-0000-0000-000000000000').catch((e) => {
-    if (e instanceof AppError && e.status === 404) notFound();
-    throw e;
-  });
+  const view = await getRunView(networkId, /^[0-9a-f-]{36}$/i.test(runId) ? runId : '00000000-0000-0000-0000-000000000000').catch(
+    (e) => {
+      if (e instanceof AppError && e.status === 404) notFound();
+      throw e;
+    },
+  );
   // The view the page opens on comes computed and drawn: its fits and figures are in the HTML.
   const open = openingInterval(view.intervals);
   const [stations, fits] = await Promise.all([
     listStations(networkId),
     // As the fits API answers it (JSON); on failure the browser asks the API, which says why.
-    open ? fitsAt(networkId, view.run.id, open.startsAt, 0).then((f) => JSON.parse(JSON.stringify(f)) as typeof f, () => null) : null,
+    open
+      ? fitsAt(networkId, view.run.id, open.startsAt, 0).then(
+          (f) => JSON.parse(JSON.stringify(f)) as typeof f,
+          () => null,
+        )
+      : null,
   ]);
-  const first = { figures: firstFigures(view, fits), fits: open && fits ? { url: fitsUrl(runApi(networkId, view.run.id), open.startsAt, 0), data: fits } : null };
+  const first = {
+    figures: firstFigures(view, fits),
+    fits: open && fits ? { url: fitsUrl(runApi(networkId, view.run.id), open.startsAt, 0), data: fits } : null,
+  };
   const codes = view.config.data.stationIds.map((id) => stations.find((s) => s.id === id)?.code ?? 'removed station');
   return (
     <div className="space-y-6">
-      <Panel heading={view.run.name} description="What was asked: the settings this run used, one click from the model and grid versions it pinned.">
+      <Panel
+        heading={view.run.name}
+        description="What was asked: the settings this run used, one click from the model and grid versions it pinned."
+      >
         <SettingsSummary view={view} stationCodes={codes} networkId={networkId} />
       </Panel>
-      <RunPage networkId={networkId} first={first} initial={JSON.parse(JSON.stringify(firstView(view)))} map={<RunMapFrame />}
-        canCancel={can(membership.role, 'runs.cancel')} canLaunch={can(membership.role, 'runs.launch')} canDelete={can(membership.role, 'runs.delete')} />
+      <RunPage
+        networkId={networkId}
+        first={first}
+        initial={JSON.parse(JSON.stringify(firstView(view)))}
+        map={<RunMapFrame />}
+        canCancel={can(membership.role, 'runs.cancel')}
+        canLaunch={can(membership.role, 'runs.launch')}
+        canDelete={can(membership.role, 'runs.delete')}
+      />
     </div>
   );
 }

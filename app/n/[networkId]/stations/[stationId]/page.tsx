@@ -22,42 +22,104 @@ export default async function StationPage({ params }: { params: Promise<{ networ
   const exportBase = `/api/networks/${networkId}/intervals/export?station=${station.id}&flagged=include`;
   const pushUrl = `${process.env.APP_URL ?? ''}/api/v1/push/intervals`;
   const facts: [string, string][] = [
-    ['Position', `${formatNumber(station.latitude, 3)}°, ${formatNumber(station.longitude, 3)}°${station.elevationM != null ? `, ${formatNumber(station.elevationM, 0)} m` : ''}`],
-    ['Components', station.components.map((c) => `${c.component} (${c.calibration.kind === 'gain' ? `gain ${formatNumber(c.calibration.gain, 3)} per ${c.component === 'Ez' ? 'V/m' : 'T'}` : `response table, ${c.calibration.points.length} rows`})`).join('; ')],
+    [
+      'Position',
+      `${formatNumber(station.latitude, 3)}°, ${formatNumber(station.longitude, 3)}°${station.elevationM != null ? `, ${formatNumber(station.elevationM, 0)} m` : ''}`,
+    ],
+    [
+      'Components',
+      station.components
+        .map(
+          (c) =>
+            `${c.component} (${c.calibration.kind === 'gain' ? `gain ${formatNumber(c.calibration.gain, 3)} per ${c.component === 'Ez' ? 'V/m' : 'T'}` : `response table, ${c.calibration.points.length} rows`})`,
+        )
+        .join('; '),
+    ],
     ['Sampling rate', `${station.sampleRateHz} Hz`],
     ['Mains', `${station.mainsHz} Hz and harmonics`],
     ['Other lines', station.interferenceLines.map((l) => `${l.frequencyHz} Hz ${l.label}`).join('; ') || 'none listed'],
     ['Status', station.status],
   ];
   const tabs = [
-    { id: 'day', label: 'Day view', content: (
-      <DayView networkId={networkId} stationId={station.id} components={station.components.map((c) => c.component)}
-        days={days} canFlag={can(role, 'data.flag')} />) },
-    { id: 'files', label: 'Files', content: (
-      <UploadPanel networkId={networkId} stationId={station.id} stationCode={station.code}
-        canUpload={can(role, 'data.upload')} maxBytesLabel={formatBytes(maxUploadBytes())} />) },
-    ...(can(role, 'tokens.manage') ? [{ id: 'tokens', label: 'Push tokens', content: (
-      <TokenPanel networkId={networkId} stationId={station.id} pushUrl={pushUrl} />) }] : []),
+    {
+      id: 'day',
+      label: 'Day view',
+      content: (
+        <DayView
+          networkId={networkId}
+          stationId={station.id}
+          components={station.components.map((c) => c.component)}
+          days={days}
+          canFlag={can(role, 'data.flag')}
+        />
+      ),
+    },
+    {
+      id: 'files',
+      label: 'Files',
+      content: (
+        <UploadPanel
+          networkId={networkId}
+          stationId={station.id}
+          stationCode={station.code}
+          canUpload={can(role, 'data.upload')}
+          maxBytesLabel={formatBytes(maxUploadBytes())}
+        />
+      ),
+    },
+    ...(can(role, 'tokens.manage')
+      ? [
+          {
+            id: 'tokens',
+            label: 'Push tokens',
+            content: <TokenPanel networkId={networkId} stationId={station.id} pushUrl={pushUrl} />,
+          },
+        ]
+      : []),
   ];
   return (
     <div className="space-y-6">
-      <Panel heading={`${station.code} — ${station.name}`} description="Station details, its processed intervals by UTC day, and its files."
-        actions={<>
-          <a href={`${exportBase}&format=csv`} download className={buttonClass('secondary', 'sm')}>Export CSV</a>
-          <a href={`${exportBase}&format=json`} download className={buttonClass('secondary', 'sm')}>Export JSON</a>
-          {can(role, 'stations.manage') ? <ButtonLink href={`/n/${networkId}/stations/${station.id}/edit`} size="sm">Edit</ButtonLink> : null}
-        </>}>
+      <Panel
+        heading={`${station.code} — ${station.name}`}
+        description="Station details, its processed intervals by UTC day, and its files."
+        actions={
+          <>
+            <a href={`${exportBase}&format=csv`} download className={buttonClass('secondary', 'sm')}>
+              Export CSV
+            </a>
+            <a href={`${exportBase}&format=json`} download className={buttonClass('secondary', 'sm')}>
+              Export JSON
+            </a>
+            {can(role, 'stations.manage') ? (
+              <ButtonLink href={`/n/${networkId}/stations/${station.id}/edit`} size="sm">
+                Edit
+              </ButtonLink>
+            ) : null}
+          </>
+        }
+      >
         <div className="grid gap-4 lg:grid-cols-[1fr_22rem]">
           <Card flush>
-            <StationMap title={`Position of ${station.code}`} current={station.id}
-              stations={all.map(({ id, code, name, latitude, longitude }) => ({ id, code, name, latitude, longitude }))} />
+            <StationMap
+              title={`Position of ${station.code}`}
+              current={station.id}
+              stations={all.map(({ id, code, name, latitude, longitude }) => ({ id, code, name, latitude, longitude }))}
+            />
           </Card>
           <Card title="Station">
             <dl className="space-y-2 text-sm">
               {facts.map(([k, v]) => (
-                <div key={k}><dt className="text-muted">{k}</dt><dd className="num">{v}</dd></div>
+                <div key={k}>
+                  <dt className="text-muted">{k}</dt>
+                  <dd className="num">{v}</dd>
+                </div>
               ))}
-              {station.notes ? <div><dt className="text-muted">Notes</dt><dd className="whitespace-pre-wrap">{station.notes}</dd></div> : null}
+              {station.notes ? (
+                <div>
+                  <dt className="text-muted">Notes</dt>
+                  <dd className="whitespace-pre-wrap">{station.notes}</dd>
+                </div>
+              ) : null}
             </dl>
           </Card>
         </div>

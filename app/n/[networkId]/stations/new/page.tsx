@@ -9,7 +9,10 @@ export default async function NewStationPage({ params }: { params: Promise<{ net
   await pageNetworkAction(networkId, 'stations.manage');
   return (
     <div className="max-w-3xl space-y-6">
-      <Panel heading="Add a station" description="Position, installed components with their calibration, and the lines to suppress at this site.">
+      <Panel
+        heading="Add a station"
+        description="Position, installed components with their calibration, and the lines to suppress at this site."
+      >
         <StationForm networkId={networkId} />
       </Panel>
       <Caution topic="field" />

@@ -10,5 +10,13 @@ export const POST = route<P>(async (req, { params }) => {
   await requireNetworkAction(params.networkId, 'runs.launch');
   const config = await parseJson(req, runConfigSchema);
   const { problems, preview } = await checkLaunch(params.networkId, config);
-  return json({ problems, preview: preview && { ...preview, intervalStarts: undefined, firstInterval: preview.intervalStarts[0], lastInterval: preview.intervalStarts.at(-1) } });
+  return json({
+    problems,
+    preview: preview && {
+      ...preview,
+      intervalStarts: undefined,
+      firstInterval: preview.intervalStarts[0],
+      lastInterval: preview.intervalStarts.at(-1),
+    },
+  });
 });

@@ -13,9 +13,20 @@ export default async function EditGridPage({ params }: { params: Promise<{ netwo
   const grid = /^[0-9a-f-]{36}$/i.test(gridId) ? await getGrid(networkId, gridId) : null;
   if (!grid) notFound();
   return (
-    <Panel heading={`Edit ${grid.name}`} description={`Saving adds version ${grid.version + 1}; version ${grid.version} stays as it is for the runs that used it.`}>
-      <GridEditor networkId={networkId} baseId={grid.id}
-        initial={{ name: grid.name, notes: grid.notes, cellSizeDeg: grid.cellSizeDeg, regions: grid.regions.map((r) => regionSchema.parse(r)) }} />
+    <Panel
+      heading={`Edit ${grid.name}`}
+      description={`Saving adds version ${grid.version + 1}; version ${grid.version} stays as it is for the runs that used it.`}
+    >
+      <GridEditor
+        networkId={networkId}
+        baseId={grid.id}
+        initial={{
+          name: grid.name,
+          notes: grid.notes,
+          cellSizeDeg: grid.cellSizeDeg,
+          regions: grid.regions.map((r) => regionSchema.parse(r)),
+        }}
+      />
     </Panel>
   );
 }

@@ -13,8 +13,15 @@ export default async function EditModelPage({ params }: { params: Promise<{ netw
   const model = /^[0-9a-f-]{36}$/i.test(modelId) ? await getModel(networkId, modelId) : null;
   if (!model) notFound();
   return (
-    <Panel heading={`Edit ${model.name}`} description={`Saving adds version ${model.version + 1}; version ${model.version} stays as it is for the runs that used it.`}>
-      <ModelEditor networkId={networkId} baseId={model.id} initial={{ name: model.name, notes: model.notes, config: model.config as unknown as CavityConfig }} />
+    <Panel
+      heading={`Edit ${model.name}`}
+      description={`Saving adds version ${model.version + 1}; version ${model.version} stays as it is for the runs that used it.`}
+    >
+      <ModelEditor
+        networkId={networkId}
+        baseId={model.id}
+        initial={{ name: model.name, notes: model.notes, config: model.config as unknown as CavityConfig }}
+      />
     </Panel>
   );
 }

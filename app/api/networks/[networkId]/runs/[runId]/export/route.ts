@@ -16,9 +16,18 @@ export const GET = route<P>(async (req, { params }) => {
   const rows = q.what === 'minima' ? minimaRows(view) : seriesRows(view);
   const file = `cavitas-run-${view.run.id.slice(0, 8)}-${q.what}.${q.format}`;
   const disposition = { 'content-disposition': `attachment; filename="${file}"` };
-  if (q.format === 'csv') return new Response(toCsv(rows), { headers: { 'content-type': 'text/csv; charset=utf-8', ...disposition } });
-  return json({
-    run: view.run, config: view.config, model: view.model, grid: { id: view.grid.id, name: view.grid.name, version: view.grid.version },
-    note: 'Research estimates of regional thunderstorm activity; not a lightning warning.', rows,
-  }, 200, disposition);
+  if (q.format === 'csv')
+    return new Response(toCsv(rows), { headers: { 'content-type': 'text/csv; charset=utf-8', ...disposition } });
+  return json(
+    {
+      run: view.run,
+      config: view.config,
+      model: view.model,
+      grid: { id: view.grid.id, name: view.grid.name, version: view.grid.version },
+      note: 'Research estimates of regional thunderstorm activity; not a lightning warning.',
+      rows,
+    },
+    200,
+    disposition,
+  );
 });
