@@ -254,6 +254,44 @@ export async function listRunIntervals(runId: string): Promise<RunIntervalRow[]>
   return getDb().select().from(runIntervals).where(eq(runIntervals.runId, runId)).orderBy(asc(runIntervals.startsAt));
 }
 
+/** A finished interval without the bulk of its result: the best minimum and the counts. */
+export interface RunIntervalSummaryRow {
+  startsAt: Date;
+  nData: number;
+  seconds: number;
+  skipped: string | null;
+  /** The best minimum without its start list, internal vector and matrices (null when none). */
+  best: Record<string, unknown> | null;
+  minimaCount: number;
+  starts: number | null;
+  unconverged: number | null;
+}
+
+/**
+ * Every finished interval of a run, cut down inside PostgreSQL (jsonb operators) so the bulk of
+ * each result (every minimum's matrices, every start's end) never leaves the database.
+ */
+export async function listRunIntervalSummaries(runId: string): Promise<RunIntervalSummaryRow[]> {
+  const r = runIntervals.result;
+  return getDb()
+    .select({
+      startsAt: runIntervals.startsAt,
+      nData: runIntervals.nData,
+      seconds: runIntervals.seconds,
+      skipped: sql<string | null>`${r} ->> 'skipped'`,
+      best: sql<Record<
+        string,
+        unknown
+      > | null>`(${r} -> 'minima' -> 0) - 'startIndexes' - 'internal' - 'correlation' - 'resolution'`,
+      minimaCount: sql<number>`coalesce(jsonb_array_length(case when jsonb_typeof(${r} -> 'minima') = 'array' then ${r} -> 'minima' end), 0)::int`,
+      starts: sql<number | null>`(${r} ->> 'starts')::int`,
+      unconverged: sql<number | null>`(${r} ->> 'unconverged')::int`,
+    })
+    .from(runIntervals)
+    .where(eq(runIntervals.runId, runId))
+    .orderBy(asc(runIntervals.startsAt));
+}
+
 /** One stored interval of a run, or null. */
 export async function getRunInterval(runId: string, startsAt: Date): Promise<RunIntervalRow | null> {
   const rows = await getDb()

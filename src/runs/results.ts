@@ -5,12 +5,11 @@
  */
 import { getGrid } from '@/db/repo/grids';
 import { getModel } from '@/db/repo/models';
-import { getRun, listRunIntervals, type RunRow } from '@/db/repo/runs';
+import { getRun, getRunInterval, listRunIntervals, listRunIntervalSummaries, type RunRow } from '@/db/repo/runs';
 import { notFound } from '@/src/server/errors';
 import type { InversionResult, Minimum } from '@/src/engine/inverse/types';
 import { runConfigSchema, type RunConfig } from './config';
 import { regionSchema, type Region } from './grid-spec';
-import { openingInterval } from './view-select';
 
 export interface IntervalView {
   startsAt: string;
@@ -20,10 +19,12 @@ export interface IntervalView {
   result: InversionResult | null;
   skipped?: string;
   /**
-   * Set by `firstView`: `result` holds only the best minimum's source names and intensities (to
-   * `BRIEF_DIGITS` significant digits) and their intensity standard errors — what the daily curves draw.
+   * Set in a run summary (`getRunSummary`): `result` holds only the best minimum, without its start
+   * list, internal vector and matrices, and the result's counts; `counts` says how many minima there are.
+   * The whole interval comes from `getIntervalView` (the API's `?interval=`).
    */
   brief?: true;
+  counts?: { minima: number; starts: number | null; unconverged: number | null };
 }
 
 export interface RunView {
@@ -41,86 +42,101 @@ export interface RunView {
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
-export async function getRunView(networkId: string, runId: string): Promise<RunView> {
+async function runHead(networkId: string, runId: string): Promise<{ row: RunRow; head: Omit<RunView, 'intervals'> }> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
-  const [model, grid, rows] = await Promise.all([
-    getModel(networkId, run.modelId),
-    getGrid(networkId, run.gridId),
-    listRunIntervals(run.id),
-  ]);
+  const [model, grid] = await Promise.all([getModel(networkId, run.modelId), getGrid(networkId, run.gridId)]);
   if (!model || !grid) throw notFound('The model or grid of this run is gone.');
   return {
-    run: {
-      id: run.id,
-      name: run.name,
-      state: run.state,
-      progress: run.progress,
-      error: run.error,
-      engineVersion: run.engineVersion,
-      attempts: run.attempts,
-      cancelRequested: run.cancelRequested,
-      createdAt: run.createdAt.toISOString(),
-      startedAt: iso(run.startedAt),
-      finishedAt: iso(run.finishedAt),
-      intervalStarts: run.intervalStarts,
+    row: run,
+    head: {
+      run: {
+        id: run.id,
+        name: run.name,
+        state: run.state,
+        progress: run.progress,
+        error: run.error,
+        engineVersion: run.engineVersion,
+        attempts: run.attempts,
+        cancelRequested: run.cancelRequested,
+        createdAt: run.createdAt.toISOString(),
+        startedAt: iso(run.startedAt),
+        finishedAt: iso(run.finishedAt),
+        intervalStarts: run.intervalStarts,
+      },
+      config: runConfigSchema.parse(run.config),
+      model: { id: model.id, name: model.name, version: model.version, config: model.config },
+      grid: {
+        id: grid.id,
+        name: grid.name,
+        version: grid.version,
+        cellSizeDeg: grid.cellSizeDeg,
+        regions: grid.regions.map((r) => regionSchema.parse(r)),
+      },
     },
-    config: runConfigSchema.parse(run.config),
-    model: { id: model.id, name: model.name, version: model.version, config: model.config },
-    grid: {
-      id: grid.id,
-      name: grid.name,
-      version: grid.version,
-      cellSizeDeg: grid.cellSizeDeg,
-      regions: grid.regions.map((r) => regionSchema.parse(r)),
-    },
-    intervals: rows.map((r) => {
-      const res = r.result as unknown as InversionResult & { skipped?: string };
+  };
+}
+
+function intervalOf(r: { startsAt: Date; nData: number; seconds: number; result: Record<string, unknown> }): IntervalView {
+  const res = r.result as unknown as InversionResult & { skipped?: string };
+  return {
+    startsAt: r.startsAt.toISOString(),
+    nData: r.nData,
+    seconds: r.seconds,
+    result: res.skipped ? null : res,
+    ...(res.skipped ? { skipped: res.skipped } : {}),
+  };
+}
+
+/** The whole run: every interval's full result (exports, surfaces; the API's `?detail=full`). */
+export async function getRunView(networkId: string, runId: string): Promise<RunView> {
+  const [{ head }, rows] = await Promise.all([runHead(networkId, runId), listRunIntervals(runId)]);
+  return { ...head, intervals: rows.map(intervalOf) };
+}
+
+/**
+ * What the run page and the run API send first: every interval's best minimum (without its
+ * matrices and start list) and counts, cut down in the database, and the whole result of the
+ * interval the page opens on (the last solved one). Other intervals come from `getIntervalView`.
+ */
+export async function getRunSummary(networkId: string, runId: string): Promise<RunView> {
+  const [{ row, head }, rows] = await Promise.all([runHead(networkId, runId), listRunIntervalSummaries(runId)]);
+  const open = rows.filter((r) => !r.skipped && r.minimaCount > 0).at(-1);
+  const full = open ? await getRunInterval(row.id, open.startsAt) : null;
+  return {
+    ...head,
+    intervals: rows.map((r): IntervalView => {
+      if (full && r.startsAt.getTime() === full.startsAt.getTime()) return intervalOf(full);
+      const base = { startsAt: r.startsAt.toISOString(), nData: r.nData, seconds: r.seconds };
+      if (r.skipped) return { ...base, result: null, skipped: r.skipped };
+      const result = {
+        minima: r.best ? [r.best] : [],
+        starts: r.starts,
+        unconverged: r.unconverged,
+      } as unknown as InversionResult;
       return {
-        startsAt: r.startsAt.toISOString(),
-        nData: r.nData,
-        seconds: r.seconds,
-        result: res.skipped ? null : res,
-        ...(res.skipped ? { skipped: res.skipped } : {}),
+        ...base,
+        result,
+        brief: true,
+        counts: { minima: r.minimaCount, starts: r.starts, unconverged: r.unconverged },
       };
     }),
   };
 }
 
-/** Significant digits of the intensities in a brief interval: far below the curves' pixel and error scale. */
-export const BRIEF_DIGITS = 5;
+/** One finished interval of a run, whole; null when the run has none at that time. */
+export async function findIntervalView(networkId: string, runId: string, startsAt: Date): Promise<IntervalView | null> {
+  const run = await getRun(networkId, runId);
+  if (!run) throw notFound('That run is not in this network.');
+  const row = await getRunInterval(run.id, startsAt);
+  return row ? intervalOf(row) : null;
+}
 
-const rounded = (x: number) => Number(x.toPrecision(BRIEF_DIGITS));
-
-/**
- * What the run page shows first: the full result of the last solved interval
- * (the one it opens on) and, for every other interval, only the best minimum's
- * source intensities and their errors (the daily curves). The page fetches the
- * full view when another interval is chosen.
- */
-export function firstView(view: RunView): RunView {
-  const open = openingInterval(view.intervals)?.startsAt;
-  return {
-    ...view,
-    intervals: view.intervals.map((iv) => {
-      if (!iv.result || iv.startsAt === open) return iv;
-      const best = iv.result.minima[0];
-      const brief = best
-        ? [
-            {
-              sources: best.sources.map((x) => ({ name: x.name, intensity: rounded(x.intensity) })),
-              stdErrors: Object.fromEntries(
-                Object.entries(best.stdErrors).map(([k, e]) => [
-                  k,
-                  { intensity: e.intensity === undefined ? undefined : rounded(e.intensity) },
-                ]),
-              ),
-            } as unknown as Minimum,
-          ]
-        : [];
-      return { ...iv, result: { minima: brief } as unknown as InversionResult, brief: true as const };
-    }),
-  };
+/** One finished interval of a run, whole; 404 when the run has none at that time. */
+export async function getIntervalView(networkId: string, runId: string, startsAt: Date): Promise<IntervalView> {
+  const iv = await findIntervalView(networkId, runId, startsAt);
+  if (!iv) throw notFound(`The run has no finished interval starting at ${startsAt.toISOString()}.`);
+  return iv;
 }
 
 /** One row per interval and minimum, flat, for CSV/JSON export. */

@@ -8,7 +8,7 @@ import { z } from 'zod';
 import { getRun, getOrCreateSurface, getSurface, resetSurface, type SurfaceRow } from '@/db/repo/runs';
 import { enqueue } from '@/db/jobs';
 import { badRequest, notFound } from '@/src/server/errors';
-import { getRunView } from './results';
+import { findIntervalView } from './results';
 import { SURFACE_JOB_OPTIONS, SURFACE_QUEUE } from './queues';
 
 export const surfaceSpecSchema = z
@@ -28,8 +28,7 @@ export function surfaceKey(s: SurfaceSpec): string {
 }
 
 export async function requestSurface(networkId: string, runId: string, spec: SurfaceSpec): Promise<SurfaceRow> {
-  const view = await getRunView(networkId, runId);
-  const iv = view.intervals.find((i) => i.startsAt === new Date(spec.interval).toISOString());
+  const iv = await findIntervalView(networkId, runId, new Date(spec.interval));
   if (!iv || !iv.result) throw badRequest('that interval has no result in this run', 'interval');
   if (!iv.result.minima[spec.minimum]) throw badRequest(`this interval has ${iv.result.minima.length} minima`, 'minimum');
   for (const k of ['x', 'y'] as const) {

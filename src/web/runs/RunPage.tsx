@@ -28,7 +28,7 @@ import { CorrelationHeatmap } from './CorrelationHeatmap';
 import { SurfacePanel } from './SurfacePanel';
 import { StartsPicture } from './StartsPicture';
 import { SeriesCurves } from './SeriesCurves';
-import { runApi, type RunJson } from './types';
+import { intervalUrl, runApi, type IntervalView, type RunJson } from './types';
 import type { FirstFigures } from './figures/prerender';
 import { openingInterval, regionColours, solvedIntervals } from '@/src/runs/view-select';
 import type { RunFits } from '@/src/runs/fits';
@@ -102,8 +102,8 @@ function RunPageBody({
     error: viewError,
   } = useApi<RunJson>(base, {
     fallbackData: initial,
-    // A finished run's first view comes from the server; the full view (every interval's
-    // minima) is fetched only when another interval is chosen, or while the run is live.
+    // The API and the server send a summary (every interval's best minimum, the last solved one
+    // whole); a finished run's is here already, a live run's is fetched again while it runs.
     revalidateOnMount: live,
     refreshInterval: live ? 1500 : 0,
     onSuccess: (d) => setLive(LIVE.has(d.run.state)),
@@ -114,14 +114,16 @@ function RunPageBody({
   const [intervalPick, setIntervalPick] = useState<string | null>(null);
   const interval = solved.find((i) => i.startsAt === intervalPick) ?? solved.at(-1) ?? null;
   const [minimum, setMinimum] = useState(0);
-  const pending = interval?.brief === true; // chosen, full result not here yet
-  const result = pending ? null : (interval?.result ?? null);
+  // A chosen interval that came in brief is fetched whole on its own.
+  const chosen = useApi<{ interval: IntervalView }>(interval?.brief ? intervalUrl(base, interval.startsAt) : null);
+  const whole = interval?.brief ? (chosen.data?.interval ?? null) : interval;
+  const pending = interval !== null && whole === null; // chosen, whole result not here yet
+  const result = whole?.result ?? null;
   const m = result?.minima[Math.min(minimum, result.minima.length - 1)] ?? null;
   const fits = useFits(base, interval?.startsAt ?? null, Math.min(minimum, (result?.minima.length ?? 1) - 1));
   function pickInterval(startsAt: string) {
     setIntervalPick(startsAt);
     setMinimum(0);
-    if (view.intervals.find((i) => i.startsAt === startsAt)?.brief) void mutate();
   }
   const [actionError, setActionError] = useState<string | null>(null);
   // The server's drawings stand only for the selection they were drawn for.
@@ -285,8 +287,8 @@ function RunPageBody({
         <Panel heading="What came out">
           <p className="text-sm text-muted">
             {pending
-              ? viewError
-                ? `The chosen interval could not be loaded: ${viewError.message}`
+              ? (chosen.error ?? viewError)
+                ? `The chosen interval could not be loaded: ${(chosen.error ?? viewError)!.message}`
                 : 'Loading the chosen interval…'
               : LIVE.has(run.state)
                 ? 'Results appear here as soon as the first interval is finished.'

@@ -1,12 +1,17 @@
 /** Client-side shapes of the run API (JSON of src/runs/results.ts RunView). */
-import type { RunView } from '@/src/runs/results';
+import type { IntervalView, RunView } from '@/src/runs/results';
 import type { Minimum, InversionResult } from '@/src/engine/inverse/types';
 
-export type { RunView, Minimum, InversionResult };
+export type { IntervalView, RunView, Minimum, InversionResult };
 export type RunJson = RunView;
 
 export function runApi(networkId: string, runId: string): string {
   return `/api/networks/${networkId}/runs/${runId}`;
+}
+
+/** One interval of a run whole (`GET …/runs/:id?interval=`); the run itself comes as a summary. */
+export function intervalUrl(base: string, interval: string): string {
+  return `${base}?interval=${encodeURIComponent(interval)}`;
 }
 
 /** The per-station fits of one minimum of one interval (`GET …/runs/:id/fits`). */

@@ -1,6 +1,6 @@
 import { pageNetworkAction } from '@/src/auth/pages';
 import { listRuns } from '@/db/repo/runs';
-import { getRunView, type RunView } from '@/src/runs/results';
+import { getRunSummary, type RunView } from '@/src/runs/results';
 import { Button, Caution, EmptyState, Notice, Panel, inputClass } from '@/src/web/ui';
 import { CompareView } from '@/src/web/runs/CompareView';
 
@@ -20,7 +20,7 @@ export default async function ComparePage({
   await pageNetworkAction(networkId, 'network.read');
   const runs = await listRuns(networkId);
   const load = async (id?: string): Promise<RunView | null> =>
-    id && UUID.test(id) ? getRunView(networkId, id).catch(() => null) : null;
+    id && UUID.test(id) ? getRunSummary(networkId, id).catch(() => null) : null;
   const [va, vb] = await Promise.all([load(a), load(b)]);
   return (
     <div className="space-y-6">

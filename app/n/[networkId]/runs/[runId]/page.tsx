@@ -1,8 +1,8 @@
 import { notFound } from 'next/navigation';
 import { pageNetworkAction } from '@/src/auth/pages';
 import { can } from '@/src/auth/permissions';
-import { listStations } from '@/db/repo/stations';
-import { firstView, getRunView } from '@/src/runs/results';
+import { listStations } from '@/src/data/stations';
+import { getRunSummary } from '@/src/runs/results';
 import { AppError } from '@/src/server/errors';
 import { Panel } from '@/src/web/ui/Card';
 import { RunPage } from '@/src/web/runs/RunPage';
@@ -18,12 +18,13 @@ export const metadata = { title: 'Run · Cavitas' };
 export default async function RunDetailPage({ params }: { params: Promise<{ networkId: string; runId: string }> }) {
   const { networkId, runId } = await params;
   const { membership } = await pageNetworkAction(networkId, 'network.read');
-  const view = await getRunView(networkId, /^[0-9a-f-]{36}$/i.test(runId) ? runId : '00000000-0000-0000-0000-000000000000').catch(
-    (e) => {
-      if (e instanceof AppError && e.status === 404) notFound();
-      throw e;
-    },
-  );
+  const view = await getRunSummary(
+    networkId,
+    /^[0-9a-f-]{36}$/i.test(runId) ? runId : '00000000-0000-0000-0000-000000000000',
+  ).catch((e) => {
+    if (e instanceof AppError && e.status === 404) notFound();
+    throw e;
+  });
   // The view the page opens on comes computed and drawn: its fits and figures are in the HTML.
   const open = openingInterval(view.intervals);
   const [stations, fits] = await Promise.all([
@@ -52,7 +53,7 @@ export default async function RunDetailPage({ params }: { params: Promise<{ netw
       <RunPage
         networkId={networkId}
         first={first}
-        initial={JSON.parse(JSON.stringify(firstView(view)))}
+        initial={JSON.parse(JSON.stringify(view))}
         map={<RunMapFrame />}
         canCancel={can(membership.role, 'runs.cancel')}
         canLaunch={can(membership.role, 'runs.launch')}
