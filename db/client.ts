@@ -5,24 +5,17 @@
 import postgres from 'postgres';
 import { drizzle, type PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import * as schema from './schema';
+import { databaseUrl, settings } from '@/src/settings';
 
 export type Db = PostgresJsDatabase<typeof schema>;
 
 let sql: postgres.Sql | null = null;
 let db: Db | null = null;
 
-/** The connection string: DATABASE_URL, set by `npm start`, `npm test` or the operator. */
-export function databaseUrl(): string {
-  const url = process.env.DATABASE_URL;
-  if (!url)
-    throw new Error('DATABASE_URL is not set: start Cavitas with `npm start`, or point DATABASE_URL at a PostgreSQL server');
-  return url;
-}
-
 /** Lazily opened drizzle handle over a small postgres.js pool. */
 export function getDb(): Db {
   if (!db) {
-    sql = postgres(databaseUrl(), { max: Number(process.env.DATABASE_POOL ?? 10), onnotice: () => {} });
+    sql = postgres(databaseUrl(), { max: settings().DATABASE_POOL, onnotice: () => {} });
     db = drizzle(sql, { schema });
   }
   return db;

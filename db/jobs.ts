@@ -11,6 +11,7 @@
  * `work` handlers receive an ARRAY of jobs.
  */
 import PgBoss from 'pg-boss';
+import { settings } from '@/src/settings';
 
 export type { PgBoss };
 export type Job<T = object> = PgBoss.Job<T>;
@@ -41,7 +42,7 @@ export interface BossOptions {
 /** The started pg-boss instance of this process (created on first call). */
 export function getBoss(options: BossOptions = {}): Promise<PgBoss> {
   if (!state.boss) {
-    const connectionString = process.env.DATABASE_URL;
+    const connectionString = settings().DATABASE_URL;
     if (!connectionString) return Promise.reject(new Error('DATABASE_URL is not set: cannot reach the job queue'));
     const boss = new PgBoss({
       connectionString,

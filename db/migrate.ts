@@ -11,6 +11,7 @@ import { fileURLToPath } from 'node:url';
 import postgres from 'postgres';
 import { drizzle } from 'drizzle-orm/postgres-js';
 import { migrate as drizzleMigrate } from 'drizzle-orm/postgres-js/migrator';
+import { settings } from '@/src/settings';
 
 export const migrationsFolder = fileURLToPath(new URL('../migrations', import.meta.url));
 
@@ -18,7 +19,7 @@ export const migrationsFolder = fileURLToPath(new URL('../migrations', import.me
 const MIGRATE_LOCK_KEY = 7_245_110_331;
 
 /** Returns the number of migrations in the journal (0 when none have been generated yet). */
-export async function migrate(url: string | undefined = process.env.DATABASE_URL): Promise<number> {
+export async function migrate(url: string | undefined = settings().DATABASE_URL): Promise<number> {
   if (!url) throw new Error('DATABASE_URL is not set: cannot apply migrations');
   const journal = path.join(migrationsFolder, 'meta', '_journal.json');
   if (!fs.existsSync(journal)) return 0;

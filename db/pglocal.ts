@@ -15,6 +15,7 @@ import fs from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
+import { childEnv } from '@/src/settings';
 
 export interface LocalPgOptions {
   /** Cluster folder; created and initialised when missing. */
@@ -63,7 +64,7 @@ export function requirePgBin(installIfMissing = true, log: (l: string) => void =
   if (bin) return bin;
   if (installIfMissing && isRoot()) {
     log('PostgreSQL server not found: installing Debian package "postgresql" (apt-get)…');
-    const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+    const env = childEnv({ DEBIAN_FRONTEND: 'noninteractive' });
     for (const args of [['update'], ['install', '-y', '--no-install-recommends', 'postgresql']]) {
       const r = spawnSync('apt-get', args, { stdio: 'inherit', env });
       if (r.status !== 0) throw new Error(`apt-get ${args.join(' ')} failed (exit ${r.status})`);

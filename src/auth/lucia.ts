@@ -5,14 +5,9 @@
  */
 import { Lucia, TimeSpan } from 'lucia';
 import { sessionAdapter } from '@/db/repo/users';
+import { cookieSecure } from '@/src/settings';
 
 export const SESSION_COOKIE = 'cavitas_session';
-
-export function cookieSecure(env: NodeJS.ProcessEnv = process.env): boolean {
-  if (env.COOKIE_SECURE === 'false') return false;
-  if (env.COOKIE_SECURE === 'true') return true;
-  return env.NODE_ENV === 'production';
-}
 
 function createLucia() {
   return new Lucia(sessionAdapter(), {

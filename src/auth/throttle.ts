@@ -6,6 +6,7 @@
  */
 import { clearThrottleRows, getThrottleRows, saveThrottleRow, type ThrottleRow } from '@/db/repo/users';
 import { tooManyRequests } from '@/src/server/errors';
+import { settings } from '@/src/settings';
 
 export const THROTTLE = {
   allowance: 5,
@@ -73,7 +74,7 @@ export async function clearAccountThrottle(email: string): Promise<void> {
  * be forged by the client, and all direct callers share the key "local".
  */
 export function clientAddress(req: Request): string {
-  if (process.env.TRUST_PROXY !== 'true') return 'local';
+  if (!settings().TRUST_PROXY) return 'local';
   const fwd = req.headers.get('x-forwarded-for');
   if (fwd) return fwd.split(',')[0].trim();
   return req.headers.get('x-real-ip')?.trim() || 'local';

@@ -65,18 +65,18 @@ import { nextBin, projectRoot } from '@/src/ops/paths';
 import { waitForHttp } from '@/src/ops/supervisor';
 import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { launchBrowser } from '@/src/ops/browser';
+import { childEnv, setEnv, settings } from '@/src/settings';
 
-const envCount = (name: string, fallback: number) =>
-  Number.isInteger(Number(process.env[name])) && Number(process.env[name]) > 0 ? Number(process.env[name]) : fallback;
-const INTERVALS = envCount('BENCH_RUN_INTERVALS', 144);
-const STARTS = envCount('BENCH_RUN_STARTS', 16); // the launch form's default
-const DAY_INTERVALS = envCount('BENCH_RUN_DAY_INTERVALS', 144);
-const DAY_STARTS = envCount('BENCH_RUN_DAY_STARTS', 16);
-const DAY_ROUNDS = envCount('BENCH_RUN_DAY_ROUNDS', 3);
+const BENCH = settings();
+const INTERVALS = BENCH.BENCH_RUN_INTERVALS;
+const STARTS = BENCH.BENCH_RUN_STARTS; // the launch form's default
+const DAY_INTERVALS = BENCH.BENCH_RUN_DAY_INTERVALS;
+const DAY_STARTS = BENCH.BENCH_RUN_DAY_STARTS;
+const DAY_ROUNDS = BENCH.BENCH_RUN_DAY_ROUNDS;
 /** The inverter's target for a day of 144 intervals x 16 starts (src/bench/inverse.ts), and the share allowed for storing. */
 const DAY_TARGET_S = 60;
 const STORING_SHARE = 0.1;
-const PROBE = process.env.BENCH_RUN_PROBE === '1';
+const PROBE = BENCH.BENCH_RUN_PROBE;
 const CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 const BAND = { minHz: 6, maxHz: 30, stepHz: 0.5 };
 // An invented scenario: three huts and three source regions, not real sites.
@@ -224,7 +224,7 @@ async function measureLaunch(networkId: string, userId: string, config: RunConfi
 /** CPU seconds (user + system) of the database server: the postmaster, its reaped and its live backends. */
 function pgCpuSeconds(): number | null {
   try {
-    const port = new URL(process.env.DATABASE_URL ?? '').port;
+    const port = new URL(settings().DATABASE_URL ?? '').port;
     const tick = 100; // USER_HZ on Linux
     const stat = (pid: string) => {
       const line = readFileSync(`/proc/${pid}/stat`, 'utf8');
@@ -656,18 +656,19 @@ async function measurePage(
   const release = await holdSharedBuildLock(); // no build replaces .next while we serve it
   stop.push(release);
   const port = await freePort();
-  const { NODE_ENV: _n, ...inherited } = process.env;
   const web: ChildProcess = spawn(process.execPath, [nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: projectRoot,
     stdio: ['ignore', 'ignore', 'pipe'],
-    env: {
-      ...inherited,
-      DATABASE_URL: databaseUrl,
-      PORT: String(port),
-      APP_URL: `http://127.0.0.1:${port}`,
-      COOKIE_SECURE: 'false',
-      NEXT_TELEMETRY_DISABLED: '1',
-    } as unknown as NodeJS.ProcessEnv,
+    env: childEnv(
+      {
+        DATABASE_URL: databaseUrl,
+        PORT: String(port),
+        APP_URL: `http://127.0.0.1:${port}`,
+        COOKIE_SECURE: 'false',
+        NEXT_TELEMETRY_DISABLED: '1',
+      },
+      { dropNodeEnv: true },
+    ),
   });
   stop.push(
     () =>
@@ -753,10 +754,10 @@ async function measurePage(
 export default async function main(): Promise<void> {
   const stop: Array<() => Promise<void> | void> = [];
   let pg: ThrowawayPg | null = null;
-  const previousUrl = process.env.DATABASE_URL;
+  const previousUrl = settings().DATABASE_URL;
   try {
     pg = await startThrowawayPostgres();
-    process.env.DATABASE_URL = pg.url;
+    setEnv('DATABASE_URL', pg.url);
     await migrate(pg.url);
     const t0 = performance.now();
     const { userId, networkId, config } = await seed();
@@ -765,10 +766,10 @@ export default async function main(): Promise<void> {
     );
     await measureLaunch(networkId, userId, config);
     const runId = await solveAndStore(networkId, userId, config);
-    if (process.env.BENCH_RUN_DAY === '0') console.log("(c2) the inverter's day through the driver: skipped (BENCH_RUN_DAY=0)");
+    if (!BENCH.BENCH_RUN_DAY) console.log("(c2) the inverter's day through the driver: skipped (BENCH_RUN_DAY=0)");
     else await solveDay(userId);
     await measureView(networkId, runId);
-    if (process.env.BENCH_RUN_PAGE === '0') console.log('(b) page load: skipped (BENCH_RUN_PAGE=0)');
+    if (!BENCH.BENCH_RUN_PAGE) console.log('(b) page load: skipped (BENCH_RUN_PAGE=0)');
     else await measurePage(pg.url, networkId, userId, runId, stop);
   } finally {
     for (const s of stop.reverse())
@@ -778,7 +779,6 @@ export default async function main(): Promise<void> {
     await stopBoss(5_000).catch(() => {});
     await closeDatabase().catch(() => {});
     await pg?.stop().catch(() => {});
-    if (previousUrl === undefined) delete process.env.DATABASE_URL;
-    else process.env.DATABASE_URL = previousUrl;
+    setEnv('DATABASE_URL', previousUrl);
   }
 }

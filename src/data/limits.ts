@@ -1,9 +1,9 @@
 /** Upload limits, configurable through the environment. */
+import { settings } from '@/src/settings';
 
 /** Largest accepted upload in bytes: UPLOAD_MAX_MB (default 200 MB). */
 export function maxUploadBytes(): number {
-  const mb = Number(process.env.UPLOAD_MAX_MB ?? 200);
-  return Math.round((Number.isFinite(mb) && mb > 0 ? mb : 200) * 1024 * 1024);
+  return Math.round(settings().UPLOAD_MAX_MB * 1024 * 1024);
 }
 
 export function formatBytes(n: number): string {

@@ -5,11 +5,11 @@
 import { createHash, randomBytes } from 'node:crypto';
 import * as repo from '@/db/repo/push-tokens';
 import { AppError, notFound, tooManyRequests } from '@/src/server/errors';
+import { settings } from '@/src/settings';
 
 /** Requests one token may make per window, and the window length (env PUSH_RATE_PER_MINUTE). */
 export function pushRateLimit(): { max: number; windowSeconds: number } {
-  const max = Number(process.env.PUSH_RATE_PER_MINUTE ?? 120);
-  return { max: Number.isFinite(max) && max > 0 ? max : 120, windowSeconds: 60 };
+  return { max: settings().PUSH_RATE_PER_MINUTE, windowSeconds: 60 };
 }
 
 const PREFIX = 'cvs_';

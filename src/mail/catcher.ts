@@ -8,6 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser } from 'mailparser';
 import { storeMail } from '@/db/repo/mail';
+import { settings } from '@/src/settings';
 
 /** Largest message accepted (bytes); larger ones are refused with SMTP 552. */
 export const MAX_MESSAGE_BYTES = 10 * 1024 * 1024;
@@ -74,7 +75,7 @@ export function startCatcher(options: { port?: number; host?: string; log?: (l: 
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
-  const port = Number(process.env.SMTP_PORT ?? 2525);
+  const port = settings().SMTP_PORT;
   startCatcher({ port, log: (l) => console.log(l) })
     .then((c) => {
       console.log(`[mail] catcher listening on 127.0.0.1:${c.port}`);

@@ -10,6 +10,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { NEXT_LOCK, nextBin, projectRoot } from './paths';
+import { childEnv } from '@/src/settings';
 
 /** Everything a production build depends on. */
 export const BUILD_INPUTS = [
@@ -71,7 +72,7 @@ function buildNowIfStale(env: NodeJS.ProcessEnv, log: (l: string) => void): void
 }
 
 /** Builds if stale, holding the machine-wide build lock. */
-export function buildIfStale(env: NodeJS.ProcessEnv = process.env, log: (l: string) => void = console.log): void {
+export function buildIfStale(env: NodeJS.ProcessEnv = childEnv(), log: (l: string) => void = console.log): void {
   if (!buildStaleness().stale) return;
   log(`[build] waiting for the build lock ${NEXT_LOCK}…`);
   const r = spawnSync('flock', [NEXT_LOCK, process.execPath, '--import', 'tsx', fileURLToPath(import.meta.url), '--locked'], {
@@ -105,8 +106,8 @@ export function holdSharedBuildLock(lockFile = NEXT_LOCK): Promise<() => void> {
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
   try {
-    if (process.argv.includes('--locked')) buildNowIfStale(process.env, console.log);
-    else buildIfStale(process.env, console.log);
+    if (process.argv.includes('--locked')) buildNowIfStale(childEnv(), console.log);
+    else buildIfStale(childEnv(), console.log);
   } catch (err) {
     console.error((err as Error).message);
     process.exit(1);

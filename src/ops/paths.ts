@@ -8,13 +8,3 @@ export const nextBin = path.join(projectRoot, 'node_modules', 'next', 'dist', 'b
 export const vitestBin = path.join(projectRoot, 'node_modules', 'vitest', 'vitest.mjs');
 /** Serialises `next build` between everyone sharing this machine. */
 export const NEXT_LOCK = '/tmp/cavitas-next.lock';
-
-/** Loads `.env` from the project root into process.env (existing variables win). */
-export function loadDotEnv(): void {
-  const file = path.join(projectRoot, '.env');
-  try {
-    process.loadEnvFile(file);
-  } catch (err) {
-    if ((err as NodeJS.ErrnoException).code !== 'ENOENT') throw err;
-  }
-}

@@ -7,6 +7,7 @@ import path from 'node:path';
 import { Supervisor, waitForHttp } from './supervisor';
 import { nextBin, projectRoot } from './paths';
 import { portInUse } from '@/db/pglocal';
+import { childEnv, mailRelay, settings } from '@/src/settings';
 
 export interface StackOptions {
   mode: 'production' | 'dev';
@@ -50,7 +51,8 @@ function waitForTcp(port: number, timeoutMs: number): Promise<void> {
 export async function startStack(o: StackOptions): Promise<Stack> {
   const log = o.log ?? ((l: string) => console.log(l));
   // A real relay in SMTP_HOST replaces the local catcher.
-  const relay = !!process.env.SMTP_HOST && !['127.0.0.1', 'localhost', '::1'].includes(process.env.SMTP_HOST);
+  const s = settings();
+  const relay = mailRelay();
   const ports: Array<[string, number, string]> = [['web server', o.port, 'PORT']];
   if (!relay) ports.push(['mail catcher', o.smtpPort, 'SMTP_PORT']);
   for (const [what, port, variable] of ports) {
@@ -58,18 +60,19 @@ export async function startStack(o: StackOptions): Promise<Stack> {
       throw new Error(`port ${port} on 127.0.0.1 (${what}) is already in use; choose another with ${variable}=<port>`);
   }
   const appUrl = o.appUrl ?? `http://127.0.0.1:${o.port}`;
-  const { NODE_ENV: _nodeEnv, ...inherited } = process.env; // next sets NODE_ENV per command
-  const env = {
-    ...inherited,
-    ...o.env,
-    DATABASE_URL: o.databaseUrl,
-    SMTP_HOST: relay ? process.env.SMTP_HOST : '127.0.0.1',
-    SMTP_PORT: relay ? process.env.SMTP_PORT : String(o.smtpPort),
-    APP_URL: appUrl,
-    COOKIE_SECURE: process.env.COOKIE_SECURE ?? 'false',
-    PORT: String(o.port),
-    NEXT_TELEMETRY_DISABLED: '1',
-  } as NodeJS.ProcessEnv;
+  const env = childEnv(
+    {
+      ...o.env,
+      DATABASE_URL: o.databaseUrl,
+      SMTP_HOST: relay ? s.SMTP_HOST : '127.0.0.1',
+      SMTP_PORT: relay ? String(s.SMTP_PORT) : String(o.smtpPort),
+      APP_URL: appUrl,
+      COOKIE_SECURE: String(s.COOKIE_SECURE ?? false),
+      PORT: String(o.port),
+      NEXT_TELEMETRY_DISABLED: '1',
+    },
+    { dropNodeEnv: true }, // next sets NODE_ENV per command
+  );
   const sup = new Supervisor(log, o.onUnexpectedExit);
   const tsx = (file: string) => ['--import', 'tsx', path.join(projectRoot, file)];
   try {

@@ -14,32 +14,26 @@ import { closeDatabase } from '@/db/lifecycle';
 import { runSeeds, demoSignIns } from './seed';
 import { buildIfStale } from './build';
 import { startStack, type Stack } from './stack';
-import { dataRoot, loadDotEnv } from './paths';
+import { dataRoot, projectRoot } from './paths';
+import { childEnv, loadEnvFile, setEnv, settings } from '@/src/settings';
 
 const log = (l: string) => console.log(l);
 
-function intEnv(name: string, fallback: number): number {
-  const raw = process.env[name];
-  if (raw === undefined || raw === '') return fallback;
-  const n = Number(raw);
-  if (!Number.isInteger(n) || n < 1 || n > 65535) throw new Error(`${name}="${raw}" is not a TCP port (1–65535)`);
-  return n;
-}
-
 async function main(): Promise<void> {
-  loadDotEnv();
+  loadEnvFile(path.join(projectRoot, '.env'));
   const dev = process.argv.includes('--dev');
-  const port = intEnv('PORT', 3000);
-  const smtpPort = intEnv('SMTP_PORT', 2525);
+  const s = settings(); // validates every variable before anything starts
+  const port = s.PORT;
+  const smtpPort = s.SMTP_PORT;
 
   let pg: LocalPg | null = null;
-  let databaseUrl = process.env.DATABASE_URL;
+  let databaseUrl = s.DATABASE_URL;
   if (databaseUrl) {
     log('[start] using DATABASE_URL');
   } else {
-    pg = await startLocalPostgres({ dataDir: path.join(dataRoot, 'pg'), port: intEnv('PGPORT_CAVITAS', 54329), log });
+    pg = await startLocalPostgres({ dataDir: path.join(dataRoot, 'pg'), port: s.PGPORT_CAVITAS, log });
     databaseUrl = pg.url;
-    process.env.DATABASE_URL = databaseUrl;
+    setEnv('DATABASE_URL', databaseUrl);
   }
 
   let stack: Stack | null = null;
@@ -69,13 +63,13 @@ async function main(): Promise<void> {
     log(`[start] database schema up to date (${n} migrations)`);
     await runSeeds(log);
     await closeDatabase();
-    if (!dev) buildIfStale({ ...process.env, DATABASE_URL: databaseUrl }, log);
+    if (!dev) buildIfStale(childEnv({ DATABASE_URL: databaseUrl }), log);
     stack = await startStack({
       mode: dev ? 'dev' : 'production',
       databaseUrl,
       port,
       smtpPort,
-      appUrl: process.env.APP_URL || undefined,
+      appUrl: s.APP_URL,
       log,
       onUnexpectedExit: (name) => {
         console.error(`[start] ${name} stopped unexpectedly; shutting everything down`);

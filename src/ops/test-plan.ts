@@ -1,8 +1,10 @@
 /** Decisions of `npm test` that do not need a database (kept apart so they can be tested). */
+import { settings } from '@/src/settings';
+
 export const CHROMIUM = '/usr/bin/chromium';
 
 /** Browser tests: run with chromium; without it, fail under CI (CI=true or 1), else skip loudly. */
-export function browserPlan(env: { CI?: string }, chromiumExists: boolean): 'run' | 'skip' | 'fail' {
+export function browserPlan(env: Record<string, string | undefined>, chromiumExists: boolean): 'run' | 'skip' | 'fail' {
   if (chromiumExists) return 'run';
-  return env.CI === 'true' || env.CI === '1' ? 'fail' : 'skip';
+  return settings(env).CI ? 'fail' : 'skip';
 }

@@ -11,6 +11,7 @@ import { startThrowawayPostgres } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
 import { projectRoot, vitestBin } from './paths';
 import { CHROMIUM, browserPlan } from './test-plan';
+import { childEnv } from '@/src/settings';
 
 type Counts = { passed: number; failed: number; skipped: number };
 const totals: Counts = { passed: 0, failed: 0, skipped: 0 };
@@ -54,10 +55,10 @@ async function main(): Promise<number> {
   let failed = false;
   try {
     await migrate(pg.url);
-    const env = { ...process.env, DATABASE_URL: pg.url, NEXT_TELEMETRY_DISABLED: '1' };
+    const env = childEnv({ DATABASE_URL: pg.url, NEXT_TELEMETRY_DISABLED: '1' });
     if (vitest('test/vitest.config.ts', extra, env) !== 0) failed = true;
 
-    const plan = browserPlan({ CI: process.env.CI }, fs.existsSync(CHROMIUM));
+    const plan = browserPlan(env, fs.existsSync(CHROMIUM));
     if (plan === 'run') {
       if (vitest('test/e2e/vitest.config.ts', extra, env) !== 0) failed = true;
     } else if (plan === 'fail') {

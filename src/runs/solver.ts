@@ -5,13 +5,13 @@
  */
 import { invertModes, invertSpectra } from '@/src/engine/inverse/invert';
 import type { InversionResult } from '@/src/engine/inverse/types';
+import { settings } from '@/src/settings';
 import type { IntervalSolver } from './types';
 import { buildUnknowns } from './unknowns';
 import { MODE_BAND } from './observations';
 
 export function runThreads(): number | undefined {
-  const t = Number(process.env.CAVITAS_RUN_THREADS);
-  return Number.isInteger(t) && t >= 1 ? t : undefined;
+  return settings().CAVITAS_RUN_THREADS;
 }
 
 /** The solver with a fixed thread count (1 = in the calling thread, no pool). */

@@ -4,6 +4,7 @@
  * administrators' mailbox instead of delivering it. Point SMTP_* at a real relay to deliver.
  */
 import nodemailer, { type Transporter } from 'nodemailer';
+import { settings } from '@/src/settings';
 
 export interface OutgoingMail {
   to: string | string[];
@@ -16,18 +17,17 @@ let transport: Transporter | null = null;
 let transportKey = '';
 
 function getTransport(): Transporter {
-  const host = process.env.SMTP_HOST || '127.0.0.1';
-  const port = Number(process.env.SMTP_PORT || 2525);
-  const user = process.env.SMTP_USER;
-  const key = `${host}:${port}:${user ?? ''}`;
+  const s = settings();
+  const { SMTP_HOST: host, SMTP_PORT: port, SMTP_USER: user } = s;
+  const key = `${host}:${port}:${user ?? ''}:${s.SMTP_SECURE}`;
   if (!transport || key !== transportKey) {
     transport = nodemailer.createTransport({
       host,
       port,
-      secure: process.env.SMTP_SECURE === 'true',
+      secure: s.SMTP_SECURE,
       // The loopback catcher speaks plain SMTP; a real relay negotiates STARTTLS itself.
       ignoreTLS: host === '127.0.0.1' || host === 'localhost',
-      auth: user ? { user, pass: process.env.SMTP_PASSWORD ?? '' } : undefined,
+      auth: user ? { user, pass: s.SMTP_PASSWORD ?? '' } : undefined,
     });
     transportKey = key;
   }
@@ -36,7 +36,7 @@ function getTransport(): Transporter {
 
 /** The sender address of this installation (MAIL_FROM, default "Cavitas <cavitas@localhost>"). */
 export function mailFrom(): string {
-  return process.env.MAIL_FROM || 'Cavitas <cavitas@localhost>';
+  return settings().MAIL_FROM;
 }
 
 /** Sends one message; resolves with the SMTP message id. Throws when the server refuses it. */

@@ -13,6 +13,7 @@
 import { ZodError, type z } from 'zod';
 import { AppError, badRequest, forbidden, type ErrorBody } from './errors';
 import { currentRequestContext, runWithRequest } from './request-context';
+import { settings } from '@/src/settings';
 
 type Handler<P> = (req: Request, ctx: { params: P }) => Promise<Response | unknown>;
 
@@ -83,7 +84,7 @@ function assertSameOrigin(req: Request): void {
 
 /** Public origin for links in e-mails: APP_URL when set, else the request's own origin. */
 export function requestOrigin(req: Request): string {
-  const configured = process.env.APP_URL?.replace(/\/+$/, '');
+  const configured = settings().APP_URL;
   if (configured) return configured;
   const url = new URL(req.url);
   const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');

@@ -9,9 +9,10 @@ import { serveJobs } from './run';
 import { startRunSweep } from './sweep';
 import { handOverRuns } from './jobs/run-inversion';
 import { closeDatabase } from '@/db/lifecycle';
+import { settings } from '@/src/settings';
 
 async function main(): Promise<void> {
-  if (!process.env.DATABASE_URL) {
+  if (!settings().DATABASE_URL) {
     console.error('[worker] DATABASE_URL is not set: point it at the Cavitas database (npm start sets it).');
     process.exit(2);
   }

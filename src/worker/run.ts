@@ -3,16 +3,12 @@
  * definition. Separate from main.ts so tests can serve their own test-only queues.
  */
 import { ensureQueue, getBoss, stopBoss } from '@/db/jobs';
+import { settings } from '@/src/settings';
 import type { JobDefinition } from './types';
 
 export interface WorkerHandle {
   queues: string[];
   stop(timeoutMs?: number): Promise<void>;
-}
-
-export function defaultTeamSize(env: NodeJS.ProcessEnv = process.env): number {
-  const n = Number.parseInt(env.WORKER_CONCURRENCY ?? '', 10);
-  return Number.isFinite(n) && n > 0 ? n : 1;
 }
 
 export async function serveJobs(
@@ -27,7 +23,7 @@ export async function serveJobs(
   const boss = await getBoss({ supervise: true });
   for (const def of definitions) {
     await ensureQueue(def.queue, def.queueOptions);
-    const team = def.teamSize ?? defaultTeamSize();
+    const team = def.teamSize ?? settings().WORKER_CONCURRENCY;
     for (let i = 0; i < team; i++) {
       await boss.work(
         def.queue,

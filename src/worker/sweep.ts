@@ -12,7 +12,8 @@
  */
 import { BOSS_SCHEMA, enqueue } from '@/db/jobs';
 import { sweepLapsedRuns } from '@/db/repo/runs';
-import { RUN_JOB_OPTIONS, RUN_QUEUE, runLeaseSeconds, runSweepSeconds } from '@/src/runs/queues';
+import { RUN_JOB_OPTIONS, RUN_QUEUE } from '@/src/runs/queues';
+import { settings } from '@/src/settings';
 
 export interface SweepOutcome {
   continued: string[];
@@ -20,7 +21,7 @@ export interface SweepOutcome {
 }
 
 /** One sweep: queues a continuation for each lapsed run without a pending job. */
-export async function sweepRuns(leaseSeconds = runLeaseSeconds()): Promise<SweepOutcome> {
+export async function sweepRuns(leaseSeconds = settings().CAVITAS_RUN_LEASE_S): Promise<SweepOutcome> {
   return sweepLapsedRuns(
     leaseSeconds,
     RUN_QUEUE,
@@ -38,7 +39,7 @@ export interface SweepHandle {
 /** Sweeps now and every `everySeconds`; a failed sweep is logged and tried again next time. */
 export function startRunSweep(
   log: (line: string) => void = (l) => console.log(l),
-  everySeconds = runSweepSeconds(),
+  everySeconds = settings().CAVITAS_RUN_SWEEP_S,
 ): SweepHandle {
   let running: Promise<void> = Promise.resolve();
   let stopped = false;

@@ -4,7 +4,7 @@
  * and says so with COOKIE_SECURE=false; COOKIE_SECURE=true forces it.
  */
 import { describe, expect, it } from 'vitest';
-import { cookieSecure } from '@/src/auth/lucia';
+import { cookieSecure } from '@/src/settings';
 
 const env = (e: Record<string, string>) => e as unknown as NodeJS.ProcessEnv;
 

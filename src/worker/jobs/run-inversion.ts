@@ -14,7 +14,8 @@ import { enqueue } from '@/db/jobs';
 import { getRunById } from '@/db/repo/runs';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
-import { RUN_JOB_OPTIONS, RUN_QUEUE, runLeaseSeconds, runWriteMs } from '@/src/runs/queues';
+import { RUN_JOB_OPTIONS, RUN_QUEUE } from '@/src/runs/queues';
+import { settings } from '@/src/settings';
 
 let handingOver = false;
 /**
@@ -26,8 +27,7 @@ export function handOverRuns(): void {
 }
 
 function sliceMs(): number {
-  const s = Number(process.env.CAVITAS_RUN_SLICE_S);
-  return (Number.isFinite(s) && s > 0 ? s : 300) * 1000;
+  return settings().CAVITAS_RUN_SLICE_S * 1000;
 }
 
 export const job: JobDefinition<{ runId: string }> = {
@@ -39,9 +39,9 @@ export const job: JobDefinition<{ runId: string }> = {
         solve: engineSolver,
         workerId: `${hostname()}:${process.pid}:${j.id}`,
         budgetMs: sliceMs(),
-        leaseSeconds: runLeaseSeconds(),
+        leaseSeconds: settings().CAVITAS_RUN_LEASE_S,
         yieldNow: () => handingOver,
-        writeEveryMs: runWriteMs(),
+        writeEveryMs: settings().CAVITAS_RUN_WRITE_MS,
       });
       if (outcome === 'yielded') await enqueue(RUN_QUEUE, { runId: j.data.runId }, RUN_JOB_OPTIONS);
       if (outcome === 'not-runnable' && (await getRunById(j.data.runId))?.state === 'running') {

@@ -4,6 +4,7 @@ import { can } from '@/src/auth/permissions';
 import { getStationOrNull, listStations } from '@/src/data/stations';
 import { listStationDays } from '@/src/data/intervals';
 import { formatBytes, maxUploadBytes } from '@/src/data/limits';
+import { settings } from '@/src/settings';
 import { ButtonLink, Caution, Card, Panel, Tabs, buttonClass, formatNumber } from '@/src/web/ui';
 import { StationMap } from '@/src/web/stations/StationMap';
 import { DayView } from '@/src/web/stations/DayView';
@@ -20,7 +21,7 @@ export default async function StationPage({ params }: { params: Promise<{ networ
   const [days, all] = await Promise.all([listStationDays(networkId, station.id), listStations(networkId)]);
   const role = membership.role;
   const exportBase = `/api/networks/${networkId}/intervals/export?station=${station.id}&flagged=include`;
-  const pushUrl = `${process.env.APP_URL ?? ''}/api/v1/push/intervals`;
+  const pushUrl = `${settings().APP_URL ?? ''}/api/v1/push/intervals`;
   const facts: [string, string][] = [
     [
       'Position',
