@@ -6,12 +6,16 @@
  * (equivalent independent averages behind each bin, for overlapping Welch
  * segments fewer than the segments: absolute errors, bins taken as
  * independent; without it the scatter is estimated from the misfit),
- * `minHz`, `maxHz` (fitted band). The output names the band and the averages used.
+ * `minHz`, `maxHz` (fitted band), `welch` (the statistics `spectrum` reports; they win over
+ * `averages`: K_eff and the Hann bin correlation). Per mode the output adds `peak` (amplitude plus
+ * background), `errors.lnPeak` and the 3x3 `correlation` of (frequency, ln peak, halfWidth).
+ * The output names the band and the averages used.
  */
 import { parseSpectrumJson } from '@/src/engine/formats/pipeline-json';
 import { fitModes, ModeFitError } from '@/src/engine/modes/fit-modes';
 import { ModeFitOptionError } from '@/src/engine/modes/options';
 import { MAX_MODES, MIN_MODES } from '@/src/engine/modes/usual-modes';
+import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
 import { readPipelineJson } from './pipeline-input';
 import { CliError, parseArgs, type Verb } from './verb';
 
@@ -27,7 +31,15 @@ const fit: Verb = async (args) => {
   }
   const s = await readPipelineJson(positional[0], 'spectrum', parseSpectrumJson);
   try {
-    const r = fitModes(s.frequencies, s.power, { modes, averages: s.averages, minHz: s.minHz, maxHz: s.maxHz });
+    // Welch statistics win over a bare `averages`: K_eff and the Hann bin correlation of the segments averaged
+    const w = s.welch;
+    const r = fitModes(s.frequencies, s.power, {
+      modes,
+      averages: w ? w.effectiveAverages : s.averages,
+      binCorrelation: w ? hannWelchBinCorrelation(w.segments, w.overlap) : undefined,
+      minHz: s.minHz,
+      maxHz: s.maxHz,
+    });
     return {
       modes: r.modes,
       background: r.background,

@@ -2,10 +2,11 @@
  * `cli spectrum <series.json>`: one-sided Welch PSD (Hann window, 50 % overlap,
  * mean removed per segment, density scaling) of `samples`; with `mainsHz` the
  * mains line and its harmonics up to the Nyquist frequency are bridged over.
+ * The output adds `welch`: segments averaged, window, overlap and K_eff.
  */
 import { parseSeriesJson } from '@/src/engine/formats/pipeline-json';
 import { mainsLines, suppressLines } from '@/src/engine/signal/line-suppression';
-import { welch } from '@/src/engine/signal/welch';
+import { welch, welchStatisticsOf } from '@/src/engine/signal/welch';
 import { readPipelineJson } from './pipeline-input';
 import { CliError, parseArgs, type Verb } from './verb';
 
@@ -22,7 +23,13 @@ const spectrum: Verb = async (args) => {
       );
     power = suppressLines(est.frequencies, est.power, mainsLines(s.mainsHz, s.sampleRateHz / 2)).power;
   }
-  return { frequencies: Array.from(est.frequencies), power: Array.from(power), segments: est.used };
+  if (est.used === 0) throw new CliError(`${positional[0]}: no segment could be averaged (non-finite samples)`);
+  return {
+    frequencies: Array.from(est.frequencies),
+    power: Array.from(power),
+    segments: est.used,
+    welch: welchStatisticsOf(est),
+  };
 };
 
 export default spectrum;

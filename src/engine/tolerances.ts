@@ -8,6 +8,8 @@
 
 /** Digamma: shift Re z up to this before the asymptotic series (7 Bernoulli terms give ~1e-16). */
 export const DIGAMMA_ASYMPTOTIC_MIN = 12;
+/** Trigamma: shift x up to this before the asymptotic series (7 Bernoulli terms give ~1e-16). */
+export const TRIGAMMA_ASYMPTOTIC_MIN = 12;
 /** Legendre series: stop when the next term is below this fraction of the running sum. */
 export const LEGENDRE_SERIES_REL_TOL = 1e-17;
 /** Legendre series: hard cap on the number of terms (never reached for |nu| < 100 and z or w <= 1/2). */
@@ -126,3 +128,5 @@ export const HANN_HALF_OVERLAP_CORRELATION = 1 / 6;
  * 50 %-overlap Welch spectra of white noise (40 x 119 segments): 0.456 and 0.032.
  */
 export const HANN_BIN_POWER_CORRELATION: readonly number[] = [4 / 9, 1 / 36];
+/** Samples of the periodic Hann window on which a Welch spectrum's bin correlation is evaluated (stats/welch-bin-correlation.ts; the values change by under 1e-4 from 128 samples up). */
+export const WELCH_CORRELATION_WINDOW_SAMPLES = 1024;

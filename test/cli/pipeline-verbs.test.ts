@@ -35,6 +35,17 @@ describe('cli spectrum', () => {
     expect(mains.power[450]).toBe(out.power[450]);
   });
 
+  it('reports its Welch statistics: segments averaged, window, overlap and K_eff (Welch 1967, eq. 7)', () => {
+    const fx = JSON.parse(readFileSync(join(root, 'fixtures/welch/welch-cases.json'), 'utf8'));
+    const c = fx.cases.find((k: { name: string }) => k.name === 'fs200-seg2000');
+    const out = JSON.parse(
+      run('spectrum', write('w.json', { sampleRateHz: 200, samples: c.samples, segmentSeconds: 10 })).stdout,
+    );
+    // 45 s in 10 s segments every 5 s: 8 segments; Hann at 50 % overlap, rho = 1/6
+    expect(out.welch).toEqual({ segments: 8, window: 'hann', overlap: 0.5, effectiveAverages: expect.any(Number) });
+    expect(out.welch.effectiveAverages).toBeCloseTo(8 / (1 + (2 * (1 - 1 / 8)) / 36), 12);
+  });
+
   it('names the wrong field and exits non-zero', () => {
     const bad = run('spectrum', write('b.json', { sampleRateHz: 200, samples: [1, 2, 'x'], segmentSeconds: 10 }));
     expect(bad.status).not.toBe(0);
@@ -63,6 +74,38 @@ describe('cli fit', () => {
     expect(out.band.minHz).toBe(3);
     expect(out.band.maxHz).toBeGreaterThan(fs[3]);
     expect(out.averages).toBeNull();
+  });
+
+  it('reports per mode the peak, the error of ln peak and the correlation of (frequency, ln peak, halfWidth)', () => {
+    const out = JSON.parse(run('fit', join(root, 'fixtures/series/example-spectrum.json'), '--modes', '4').stdout);
+    for (const m of out.modes) {
+      expect(m.peak).toBeCloseTo(m.amplitude + out.background.b0 + out.background.b1 * m.frequency, 10);
+      expect(m.errors.lnPeak).toBeGreaterThan(0);
+      expect(m.correlation).toHaveLength(3);
+      for (let a = 0; a < 3; a++) {
+        expect(m.correlation[a][a]).toBe(1);
+        for (let b = 0; b < 3; b++) {
+          expect(m.correlation[a][b]).toBeCloseTo(m.correlation[b][a], 12);
+          expect(Math.abs(m.correlation[a][b])).toBeLessThanOrEqual(1 + 1e-12);
+        }
+      }
+    }
+  });
+
+  it('refuses Welch statistics that are too few or contradictory, naming the field', () => {
+    const spec = JSON.parse(readFileSync(join(root, 'fixtures/series/example-spectrum.json'), 'utf8'));
+    const few = run(
+      'fit',
+      write('w1.json', { ...spec, welch: { segments: 3, window: 'hann', overlap: 0.5, effectiveAverages: 2.9 } }),
+    );
+    expect(few.status).not.toBe(0);
+    expect(few.stderr).toMatch(/welch\.segments.*at least 4/);
+    const over = run(
+      'fit',
+      write('w2.json', { ...spec, welch: { segments: 10, window: 'hann', overlap: 0.5, effectiveAverages: 12 } }),
+    );
+    expect(over.status).not.toBe(0);
+    expect(over.stderr).toMatch(/welch\.effectiveAverages.*exceeds the 10 segments/);
   });
 
   it('names bad inputs', () => {

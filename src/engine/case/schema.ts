@@ -8,6 +8,7 @@ import { z } from 'zod';
 import { bandProblem, bandSize } from '../band';
 import { cavityConfigSchema } from '../cavity/schema';
 import { cellRegion } from '../sources/cell-region';
+import { welchStatisticsProblem } from '../stats/welch-statistics';
 
 const latitude = z.number().min(-90).max(90);
 const longitude = z.number().min(-360).max(360);
@@ -76,15 +77,35 @@ export const sourceSchema = z
   })
   .superRefine(placement('source'));
 
+/** Welch statistics of a spectrum (stats/welch-statistics.ts): contradictory or too few are refused, naming the field. */
+export const welchStatisticsSchema = z
+  .looseObject({
+    segments: z.number().int(),
+    window: z.literal('hann'),
+    overlap: z.number(),
+    effectiveAverages: z.number(),
+  })
+  .superRefine((w, ctx) => {
+    const problem = welchStatisticsProblem(w);
+    if (problem) {
+      const field = problem.slice(0, problem.indexOf(':'));
+      ctx.addIssue({ code: 'custom', path: [field], message: problem.slice(field.length + 2) });
+    }
+  });
+
 export const observedSchema = z
   .looseObject({
     station: z.string().min(1),
     component,
     frequencies: z.array(z.number().positive()).min(1),
     power: z.array(z.number().positive()).min(1),
-    sigmaLog: z.number().positive(),
+    /** Standard deviation of ln power; required unless `welch` is given (which then wins). */
+    sigmaLog: z.number().positive().optional(),
+    welch: welchStatisticsSchema.optional(),
   })
   .superRefine((o, ctx) => {
+    if (o.sigmaLog === undefined && o.welch === undefined)
+      ctx.addIssue({ code: 'custom', path: ['sigmaLog'], message: "give sigmaLog or the spectrum's welch statistics" });
     if (o.frequencies.length !== o.power.length)
       ctx.addIssue({
         code: 'custom',

@@ -5,6 +5,7 @@
  * fields are allowed. Errors name the file and the field (with its index).
  */
 import { z } from 'zod';
+import { welchStatisticsSchema } from '@/src/engine/case/schema';
 import { FormatError } from './format-error';
 
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
@@ -21,6 +22,8 @@ export const spectrumJsonSchema = z.looseObject({
   frequencies: z.array(finite.refine((v) => v >= 0, 'must be >= 0')).min(2),
   power: z.array(finite.refine((v) => v >= 0, 'must be >= 0')).min(2),
   averages: z.number().positive().optional(),
+  /** Welch statistics as `spectrum` reports them; their K_eff and Hann bin correlation set the fit's errors. */
+  welch: welchStatisticsSchema.optional(),
   minHz: z.number().nonnegative().optional(),
   maxHz: z.number().positive().optional(),
 });

@@ -7,6 +7,8 @@
  * series and bin.
  */
 import type { Component } from '@/src/engine/components';
+import { logPowerBias, logPowerVariance } from '@/src/engine/stats/log-power';
+import { welchStatisticsProblem } from '@/src/engine/stats/welch-statistics';
 import { InversionInputError } from './errors';
 import type { BinSelection, ObservedSeries, StationSite } from './types';
 
@@ -55,7 +57,12 @@ export function buildDataLayout(stations: StationSite[], observed: ObservedSerie
     if (!stationIndex.has(o.station)) throw new InversionInputError(`${where}: unknown station "${o.station}"`);
     if (!(o.component in COMPONENT_CODE))
       throw new InversionInputError(`${where}: unknown component "${String(o.component)}" (use Ez, Bns or Bew)`);
-    if (!(o.sigmaLog > 0) || !Number.isFinite(o.sigmaLog))
+    if (o.welch) {
+      const problem = welchStatisticsProblem(o.welch);
+      if (problem) throw new InversionInputError(`${where}: welch.${problem}`);
+    } else if (o.sigmaLog === undefined)
+      throw new InversionInputError(`${where}: sigmaLog or welch is required (the scatter of ln power)`);
+    else if (!(o.sigmaLog > 0) || !Number.isFinite(o.sigmaLog))
       throw new InversionInputError(`${where}: sigmaLog must be a positive number, got ${o.sigmaLog}`);
     if (o.frequencies.length !== o.power.length) {
       throw new InversionInputError(`${where}: ${o.frequencies.length} frequencies but ${o.power.length} power values`);
@@ -81,13 +88,15 @@ export function buildDataLayout(stations: StationSite[], observed: ObservedSerie
   let offset = 0;
   const series: SeriesLayout[] = observed.map((o, si) => {
     const { f, p } = kept[si];
+    // with Welch statistics: sigma = sqrt(psi1(K_eff)) and the observed logs raised by the bias psi(K_eff) - ln K_eff
+    const bias = o.welch ? logPowerBias(o.welch.effectiveAverages) : 0;
     const s: SeriesLayout = {
       station: stationIndex.get(o.station)!,
       component: COMPONENT_CODE[o.component],
       bins: Int32Array.from(f, (x) => gridIndex.get(x)!),
-      lnObs: Float64Array.from(p, Math.log),
+      lnObs: o.welch ? Float64Array.from(p, (v) => Math.log(v) - bias) : Float64Array.from(p, Math.log),
       obs: Float64Array.from(p),
-      invSigma: 1 / o.sigmaLog,
+      invSigma: o.welch ? 1 / Math.sqrt(logPowerVariance(o.welch.effectiveAverages)) : 1 / o.sigmaLog!,
       offset,
     };
     offset += f.length;

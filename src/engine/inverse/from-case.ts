@@ -66,6 +66,7 @@ export function inputFromCase(c: CaseFile, selection: BinSelection | undefined =
       frequencies: o.frequencies,
       power: o.power,
       sigmaLog: o.sigmaLog,
+      ...(o.welch ? { welch: o.welch } : {}),
     })),
     unknowns,
     selection,

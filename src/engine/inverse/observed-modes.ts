@@ -12,6 +12,7 @@
  */
 import { propagateBinScatter, type BinScatter } from '@/src/engine/modes/bin-scatter';
 import { fitModes } from '@/src/engine/modes/fit-modes';
+import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
 import { MODE_HALF_WIDTH_MAX_HZ, MODE_HALF_WIDTH_MIN_HZ } from '@/src/engine/tolerances';
 import { modeSeriesSetup, predictedModeDerivatives, predictedSeriesModes } from './predicted-modes';
 import type { ObservedMode, ObservedModes, ObservedSeries } from './types';
@@ -69,13 +70,26 @@ export function propagatedModeErrors(
   };
 }
 
+/** The bins' scatter a series states: from its Welch statistics (K_eff and the Hann bin correlation), else 1/sigmaLog^2 independent averages. */
+export function seriesScatter(series: ObservedSeries): BinScatter {
+  if (series.welch)
+    return {
+      averages: series.welch.effectiveAverages,
+      lagCorrelation: hannWelchBinCorrelation(series.welch.segments, series.welch.overlap),
+    };
+  if (!(series.sigmaLog! > 0)) throw new RangeError(`${series.station} ${series.component}: sigmaLog or welch is required`);
+  return { averages: 1 / series.sigmaLog! ** 2 };
+}
+
 export function observedModesOf(series: ObservedSeries, options: ObservedModeOptions): ObservedModes {
   const grid = Float64Array.from(series.frequencies);
+  const scatter = seriesScatter(series);
   const fit = fitModes(grid, series.power, {
     modes: options.modes,
     minHz: options.minHz,
     maxHz: options.maxHz,
-    averages: 1 / series.sigmaLog ** 2,
+    averages: scatter.averages,
+    binCorrelation: scatter.lagCorrelation,
   });
   const all: ObservedModes = {
     station: series.station,
@@ -90,7 +104,7 @@ export function observedModesOf(series: ObservedSeries, options: ObservedModeOpt
     })),
     fit: { modes: options.modes, ...fit.band },
   };
-  const { sigmas, onEdge } = propagatedModeErrors(all, grid, series.power, { averages: 1 / series.sigmaLog ** 2 });
+  const { sigmas, onEdge } = propagatedModeErrors(all, grid, series.power, scatter);
   const keep: ObservedMode[] = [];
   all.modes.forEach((m, k) => {
     const sigma = sigmas[k];

@@ -5,6 +5,7 @@
  */
 import type { Component } from '@/src/engine/components';
 import type { StopReason } from '@/src/engine/optim/types';
+import type { WelchStatistics } from '@/src/engine/stats/welch-statistics';
 
 export type ParamKind = 'intensity' | 'lat' | 'lon' | 'spread';
 export type Range = { min: number; max: number };
@@ -31,13 +32,18 @@ export interface StationSite {
   lon: number;
 }
 
-/** One observed power spectrum (SI units) with the standard deviation of ln(power). */
+/**
+ * One observed power spectrum (SI units) with what is known of its scatter: either the standard deviation of
+ * ln(power), `sigmaLog`, or the Welch statistics of the spectrum, `welch`, which win when both are given: sigma
+ * from K_eff, the log bias removed and neighbouring bins correlated (stats/, inverse/bin-whitening.ts).
+ */
 export interface ObservedSeries {
   station: string;
   component: Component;
   frequencies: ArrayLike<number>;
   power: ArrayLike<number>;
-  sigmaLog: number;
+  sigmaLog?: number;
+  welch?: WelchStatistics;
 }
 
 /** A frequency band left out of the misfit. */
@@ -63,6 +69,11 @@ export interface ObservedMode {
   /** Standard deviation of ln(intensity). */
   sigmaLogIntensity: number;
   sigmaHalfWidth: number;
+  /**
+   * Correlation (3x3) of (frequency, ln intensity, halfWidth), as a mode fit reports it; with the three sigmas it
+   * gives the mode's covariance, which the misfit then uses (whitened per mode). Absent: independent errors.
+   */
+  correlation?: number[][];
 }
 
 export interface ObservedModes {

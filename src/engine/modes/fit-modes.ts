@@ -22,6 +22,7 @@ import { propagatedFitCovariance } from './fit-errors';
 import { excludedRanges } from './excluded-ranges';
 import { heldSet } from './fit-hessian';
 import { initialGuess } from './initial-guess';
+import { peakStatistics } from './peak-statistics';
 import { resolveModeFitOptions, type ModeFitOptions } from './options';
 import { qualityOfFit } from './quality';
 import { paramCount, type FittedMode, type ModeFit } from './types';
@@ -101,15 +102,21 @@ export function fitModes(
   const held = heldSet(final.params, o.modes, guess.lower, guess.upper);
   const sigma = (j: number) => (prop && !held[j] ? Math.sqrt(Math.max(0, prop[j * np + j])) : formal.stdErrors[j]);
   const p = final.params;
+  // the covariance the errors come from: propagated, with the covariance's variance for a parameter held on a bound
+  const cov = prop ? Float64Array.from(prop) : Float64Array.from(formal.covariance);
+  if (prop) for (let j = 0; j < np; j++) if (held[j]) cov[j * np + j] = formal.covariance[j * np + j];
   const modes: FittedMode[] = [];
   for (let n = 0; n < o.modes; n++) {
     const [f, a, g] = [p[3 * n], p[3 * n + 1] * unit, p[3 * n + 2]];
+    const ps = peakStatistics(p, cov, o.modes, n);
     modes.push({
       frequency: f,
       amplitude: a,
       halfWidth: g,
       q: f / (2 * g),
-      errors: { frequency: sigma(3 * n), amplitude: sigma(3 * n + 1) * unit, halfWidth: sigma(3 * n + 2) },
+      peak: ps.peak * unit,
+      errors: { frequency: sigma(3 * n), amplitude: sigma(3 * n + 1) * unit, halfWidth: sigma(3 * n + 2), lnPeak: ps.sdLnPeak },
+      correlation: ps.correlation,
     });
   }
   modes.sort((x, y) => x.frequency - y.frequency);

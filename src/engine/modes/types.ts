@@ -10,8 +10,15 @@ export interface FittedMode {
   amplitude: number;
   halfWidth: number;
   q: number;
-  /** One-standard-deviation errors: the bins' scatter propagated through the fit (fit-errors.ts). */
-  errors: { frequency: number; amplitude: number; halfWidth: number };
+  /** Fitted model PSD at the mode's centre, amplitude plus background, A + b0 + b1 f (absent from fits stored before it was reported). */
+  peak?: number;
+  /**
+   * One-standard-deviation errors: the bins' scatter propagated through the fit (fit-errors.ts); `lnPeak`, of ln peak
+   * from the full parameter covariance, background included (modes/peak-statistics.ts).
+   */
+  errors: { frequency: number; amplitude: number; halfWidth: number; lnPeak?: number };
+  /** Correlation of (frequency, ln peak, halfWidth), 3x3, from the same covariance. */
+  correlation?: number[][];
 }
 
 /** Quality flags a fit can raise (names shared with the interval flags). */

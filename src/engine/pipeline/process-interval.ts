@@ -10,7 +10,7 @@ import { calibrateSpectrum, responseAt } from '@/src/engine/signal/calibration';
 import { listedLines, mainsLines, suppressLines, type SpectralLine } from '@/src/engine/signal/line-suppression';
 import { segmentLayout, segmentStats } from '@/src/engine/signal/segments';
 import { screenTransients } from '@/src/engine/signal/transients';
-import { welch } from '@/src/engine/signal/welch';
+import { welch, welchStatisticsOf } from '@/src/engine/signal/welch';
 import { hannWelchScatter } from '@/src/engine/modes/bin-scatter';
 import { REJECTED_SHARE_LIMIT } from '@/src/engine/tolerances';
 import { clippedShare, hasGaps } from './sample-checks';
@@ -30,7 +30,7 @@ export function processInterval(samples: Float64Array, config: ProcessingConfig)
   if (rejectedShare > REJECTED_SHARE_LIMIT) flags.push('too-much-rejected');
   if (est.used === 0) {
     flags.push('no-data');
-    return { spectrum: null, segments: 0, rejectedShare, fit: null, flags };
+    return { spectrum: null, segments: 0, welch: null, rejectedShare, fit: null, flags };
   }
 
   const lo = est.frequencies.findIndex((f) => f >= c.band.minHz);
@@ -63,5 +63,5 @@ export function processInterval(samples: Float64Array, config: ProcessingConfig)
       flags.push('fit-failed');
     }
   }
-  return { spectrum: { frequencies, power }, segments: est.used, rejectedShare, fit, flags };
+  return { spectrum: { frequencies, power }, segments: est.used, welch: welchStatisticsOf(est), rejectedShare, fit, flags };
 }

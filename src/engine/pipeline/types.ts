@@ -5,6 +5,7 @@
 import type { Calibration } from '@/src/engine/signal/calibration';
 import type { TransientOptions } from '@/src/engine/signal/transients';
 import type { ModeFit } from '@/src/engine/modes/types';
+import type { WelchStatistics } from '@/src/engine/stats/welch-statistics';
 
 /** How one station component's samples are turned into a spectrum and a fit. */
 export interface ProcessingConfig {
@@ -39,6 +40,8 @@ export interface IntervalResult {
   spectrum: { frequencies: number[]; power: number[] } | null;
   /** Welch segments averaged. */
   segments: number;
+  /** Welch statistics of the spectrum (segments averaged, window, overlap, K_eff); null when no segment was usable. */
+  welch: WelchStatistics | null;
   /** Share of the interval's segments left out (transients rejected or samples missing), 0–1. */
   rejectedShare: number;
   fit: ModeFit | null;

@@ -5,7 +5,10 @@
  *   P_k = c_k |X_k|^2 / (fs sum w^2),  c_k = 2 except at 0 Hz and Nyquist,
  * so that sum_k P_k df equals the (windowed) variance. With the default
  * 50 % overlap this is the estimate scipy.signal.welch gives with its defaults.
+ * `welchStatisticsOf` states what the estimate knows of its own scatter
+ * (stats/welch-statistics.ts).
  */
+import { hannWelchStatistics, type WelchStatistics } from '@/src/engine/stats/welch-statistics';
 import { hannWindow, windowPower } from './hann';
 import { realPowerPlan } from './real-power';
 import { segmentLayout, type SegmentLayout } from './segments';
@@ -27,6 +30,8 @@ export interface WelchEstimate {
   layout: SegmentLayout;
   /** Segments actually averaged. */
   used: number;
+  /** Their indexes in the layout, increasing. */
+  usedSegments: Int32Array;
 }
 
 export function welch(samples: ArrayLike<number>, options: WelchOptions): WelchEstimate {
@@ -46,6 +51,7 @@ export function welch(samples: ArrayLike<number>, options: WelchOptions): WelchE
   const seg = new Float64Array(n);
   const pow = new Float64Array(bins);
   let used = 0;
+  const usedSegments: number[] = [];
   for (let s = 0; s < layout.count; s++) {
     if (options.keep && !options.keep[s]) continue;
     const start = s * layout.step;
@@ -65,6 +71,7 @@ export function welch(samples: ArrayLike<number>, options: WelchOptions): WelchE
     plan.power(seg, pow);
     for (let k = 0; k < bins; k++) acc[k] += pow[k];
     used++;
+    usedSegments.push(s);
   }
   const power = new Float64Array(bins);
   if (used === 0) power.fill(NaN);
@@ -73,5 +80,10 @@ export function welch(samples: ArrayLike<number>, options: WelchOptions): WelchE
     const nyquist = n % 2 === 0 ? bins - 1 : -1;
     for (let k = 0; k < bins; k++) power[k] = acc[k] * scale * (k === 0 || k === nyquist ? 1 : 2);
   }
-  return { frequencies, power, layout, used };
+  return { frequencies, power, layout, used, usedSegments: Int32Array.from(usedSegments) };
+}
+
+/** The Welch statistics of an estimate: the segments averaged, the Hann window, the overlap share and K_eff. */
+export function welchStatisticsOf(est: WelchEstimate): WelchStatistics {
+  return hannWelchStatistics(est.usedSegments, (est.layout.length - est.layout.step) / est.layout.length);
 }

@@ -46,6 +46,46 @@ describe('bad inversion input', () => {
     expectInputError(() => buildDataLayout(stations, [series({ sigmaLog: 0 })]), /sigmaLog must be a positive number/);
     expectInputError(() => buildDataLayout(stations, [series({ sigmaLog: -1 })]), /sigmaLog/);
   });
+  it('missing, contradictory or too few Welch statistics name the series and the field', () => {
+    const welch = { segments: 10, window: 'hann' as const, overlap: 0.5, effectiveAverages: 9.5 };
+    expectInputError(
+      () => buildDataLayout(stations, [series({ sigmaLog: undefined })]),
+      /observed\[0\] \(BA1 Ez\): sigmaLog or welch/,
+    );
+    expectInputError(
+      () => buildDataLayout(stations, [series({ welch: { ...welch, effectiveAverages: 11 } })]),
+      /observed\[0\] \(BA1 Ez\): welch\.effectiveAverages: 11 exceeds the 10 segments/,
+    );
+    expectInputError(
+      () => buildDataLayout(stations, [series({ welch: { ...welch, segments: 3, effectiveAverages: 2.9 } })]),
+      /welch\.segments: at least 4/,
+    );
+    expectInputError(
+      () => buildDataLayout(stations, [series({ welch: { ...welch, effectiveAverages: 0 } })]),
+      /welch\.effectiveAverages: must be a positive/,
+    );
+    expectInputError(
+      () => buildDataLayout(stations, [series({ welch, power: [1e-12, 0, 1, 1] })]),
+      /observed\[0\] \(BA1 Ez\): power at bin 1/,
+    );
+    const parsed = invertCaseSchema.safeParse({
+      cavity: { model: 'linear' },
+      band: { minHz: 8, maxHz: 11, stepHz: 1 },
+      stations: [{ code: 'BA1', lat: 10, lon: 10, components: ['Ez'] }],
+      observed: [{ station: 'BA1', component: 'Ez', frequencies: [8, 9], power: [1, 1], welch: { ...welch, segments: 2 } }],
+      unknowns: [region],
+    });
+    expect(parsed.success).toBe(false);
+    expect(parsed.error!.issues[0].path).toEqual(['observed', 0, 'welch', 'segments']);
+  });
+  it('with Welch statistics sigma comes from K_eff and the log bias is removed (psi, psi1)', () => {
+    const welch = { segments: 10, window: 'hann' as const, overlap: 0.5, effectiveAverages: 9.5 };
+    const plain = buildDataLayout(stations, [series()]).series[0];
+    const s = buildDataLayout(stations, [series({ welch })]).series[0];
+    // psi(9.5) - ln 9.5 = -0.0535539 and psi1(9.5) = 0.1109973 (scipy.special.digamma, polygamma(1, .))
+    expect(s.invSigma).toBeCloseTo(1 / Math.sqrt(0.1109973), 6);
+    for (let k = 0; k < 4; k++) expect(s.lnObs[k] - plain.lnObs[k]).toBeCloseTo(0.0535539, 6);
+  });
   it('unknown station and component names are named', () => {
     expectInputError(() => buildDataLayout(stations, [series({ station: 'ZZZ' })]), /unknown station "ZZZ"/);
     expectInputError(() => buildDataLayout(stations, [series({ component: 'Bz' as never })]), /unknown component "Bz"/);

@@ -38,7 +38,7 @@ function directMisfit(x: Float64Array): number {
     const s = spectra.find((p) => p.station === o.station && p.component === o.component)!;
     o.frequencies.forEach((f, i) => {
       const j = s.frequencies.findIndex((g) => Math.abs(g - f) < 1e-9);
-      const r = (Math.log(s.power[j]) - Math.log(o.power[i])) / o.sigmaLog;
+      const r = (Math.log(s.power[j]) - Math.log(o.power[i])) / o.sigmaLog!;
       chi2 += r * r;
     });
   }
