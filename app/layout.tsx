@@ -29,8 +29,8 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = {
   themeColor: [
-    { media: '(prefers-color-scheme: light)', color: '#0e152e' },
-    { media: '(prefers-color-scheme: dark)', color: '#050817' },
+    { media: '(prefers-color-scheme: light)', color: '#f9f6f0' },
+    { media: '(prefers-color-scheme: dark)', color: '#14161b' },
   ],
 };
 

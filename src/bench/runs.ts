@@ -66,6 +66,7 @@ import { waitForHttp } from '@/src/ops/supervisor';
 import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { launchBrowser } from '@/src/ops/browser';
 import { childEnv, setEnv, settings } from '@/src/settings';
+import { REGION_COLOURS } from '@/src/design/tokens';
 
 const BENCH = settings();
 const INTERVALS = BENCH.BENCH_RUN_INTERVALS;
@@ -138,14 +139,14 @@ export async function seed() {
       {
         key: 'africa-belt',
         name: 'Eastern belt',
-        colour: '#E69F00',
+        colour: REGION_COLOURS[1],
         kind: 'moving',
         centre: { lat: 0, lon: 20 },
         bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
         spreadDeg: 0,
       },
-      { key: 'america-belt', name: 'Western belt', colour: '#56B4E9', kind: 'cells', cells: [300, 301] },
-      { key: 'asia-belt', name: 'Far eastern belt', colour: '#009E73', kind: 'cells', cells: [317, 318] },
+      { key: 'america-belt', name: 'Western belt', colour: REGION_COLOURS[5], kind: 'cells', cells: [300, 301] },
+      { key: 'asia-belt', name: 'Far eastern belt', colour: REGION_COLOURS[2], kind: 'cells', cells: [317, 318] },
     ],
   });
   const spectra = predictSpectra({
@@ -460,9 +461,9 @@ const DAY_SITES = Array.from({ length: 12 }, (_, i) => ({
   longitude: -170 + i * 29,
 }));
 const DAY_REGIONS = [
-  { key: 'day-west', name: 'Western cell', colour: '#E69F00', lat: { min: -25, max: 25 }, lon: { min: -90, max: -40 } },
-  { key: 'day-middle', name: 'Middle cell', colour: '#56B4E9', lat: { min: -25, max: 25 }, lon: { min: -10, max: 40 } },
-  { key: 'day-east', name: 'Eastern cell', colour: '#009E73', lat: { min: -25, max: 25 }, lon: { min: 90, max: 150 } },
+  { key: 'day-west', name: 'Western cell', colour: REGION_COLOURS[1], lat: { min: -25, max: 25 }, lon: { min: -90, max: -40 } },
+  { key: 'day-middle', name: 'Middle cell', colour: REGION_COLOURS[5], lat: { min: -25, max: 25 }, lon: { min: -10, max: 40 } },
+  { key: 'day-east', name: 'Eastern cell', colour: REGION_COLOURS[2], lat: { min: -25, max: 25 }, lon: { min: 90, max: 150 } },
 ];
 /** Three regions drifting slowly over the day (t in [0, 1)), as in the inverter bench. */
 const dayTruth = (t: number) => [

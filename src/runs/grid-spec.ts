@@ -10,9 +10,6 @@
 import { z } from 'zod';
 import { cellBox, gridShape } from './grid-cells';
 
-/** Okabe & Ito (2008), "Color Universal Design": eight colours distinguishable with common colour-vision deficiencies. */
-export const REGION_PALETTE = ['#E69F00', '#56B4E9', '#009E73', '#F0E442', '#0072B2', '#D55E00', '#CC79A7', '#000000'] as const;
-
 export const CELL_SIZES = [2, 2.5, 3, 4, 5, 6, 9, 10, 15, 18, 20, 30] as const;
 
 const range = (lo: number, hi: number) =>
@@ -23,7 +20,7 @@ const range = (lo: number, hi: number) =>
 const common = {
   key: z.string().regex(/^[a-z0-9][a-z0-9-]{0,39}$/, 'use lower-case letters, digits and dashes'),
   name: z.string().trim().min(1, 'give the region a name').max(60),
-  colour: z.string().regex(/^#[0-9a-fA-F]{6}$/, 'a colour like #56B4E9'),
+  colour: z.string().regex(/^#[0-9a-fA-F]{6}$/, 'a colour like #425fe1'),
 };
 
 export const cellRegionSchema = z.object({

@@ -52,11 +52,11 @@ describe('global grid cells', () => {
       notes: '',
       cellSizeDeg: 10,
       regions: [
-        { key: 'a', name: 'Same', colour: '#E69F00', kind: 'cells', cells: [1] },
+        { key: 'a', name: 'Same', colour: '#eb476b', kind: 'cells', cells: [1] },
         {
           key: 'b',
           name: 'same',
-          colour: '#56B4E9',
+          colour: '#6dc4ff',
           kind: 'moving',
           centre: { lat: 50, lon: 0 },
           bounds: { lat: { min: -10, max: 10 }, lon: { min: -10, max: 10 } },

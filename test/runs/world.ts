@@ -50,13 +50,13 @@ export const GRID: GridInput = {
     {
       key: 'east-basin',
       name: TRUTH.name,
-      colour: '#E69F00',
+      colour: '#eb476b',
       kind: 'moving',
       centre: { lat: 0, lon: 20 },
       bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
       spreadDeg: 0,
     },
-    { key: 'west-shelf', name: 'West shelf', colour: '#56B4E9', kind: 'cells', cells: [300, 301] },
+    { key: 'west-shelf', name: 'West shelf', colour: '#6dc4ff', kind: 'cells', cells: [300, 301] },
   ],
 };
 

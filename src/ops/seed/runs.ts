@@ -22,6 +22,7 @@ import { makeGlobalGrid } from '@/src/engine/sources/grid';
 import { landCellsInBox } from '@/src/engine/sources/land-mask';
 import { demoNetworkId } from './accounts';
 import { DEMO_DAY } from './stations';
+import { REGION_COLOURS } from '@/src/design/tokens';
 
 export const DEMO_MODEL = 'Ishaq–Jones, 60 km';
 export const DEMO_LINEAR_MODEL = 'Linear reference';
@@ -39,7 +40,7 @@ function demoGrid(): GridInput {
       {
         key: 'west-belt',
         name: 'West belt',
-        colour: '#0072B2',
+        colour: REGION_COLOURS[0],
         kind: 'moving',
         centre: { lat: -6, lon: -58 },
         bounds: { lat: { min: -25, max: 15 }, lon: { min: -85, max: -35 } },
@@ -48,7 +49,7 @@ function demoGrid(): GridInput {
       {
         key: 'middle-belt',
         name: 'Middle belt',
-        colour: '#E69F00',
+        colour: REGION_COLOURS[1],
         kind: 'moving',
         centre: { lat: 2, lon: 22 },
         bounds: { lat: { min: -20, max: 20 }, lon: { min: -5, max: 45 } },
@@ -57,7 +58,7 @@ function demoGrid(): GridInput {
       {
         key: 'east-belt',
         name: 'East belt',
-        colour: '#009E73',
+        colour: REGION_COLOURS[2],
         kind: 'moving',
         centre: { lat: 4, lon: 112 },
         bounds: { lat: { min: -15, max: 25 }, lon: { min: 90, max: 140 } },
@@ -66,7 +67,7 @@ function demoGrid(): GridInput {
       {
         key: 'northern-patch',
         name: 'Northern land patch',
-        colour: '#CC79A7',
+        colour: REGION_COLOURS[4],
         kind: 'cells',
         cells: landCellsInBox(makeGlobalGrid(cell), { latMin: 30, latMax: 50, lonMin: 60, lonMax: 100 }),
       },

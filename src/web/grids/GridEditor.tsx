@@ -3,7 +3,7 @@
  * Draw a source grid: a global grid of a chosen cell size on the equal-area
  * world map, regions made of cells (click a cell, drag a box, or drag a box
  * keeping only land cells, from the engine's land mask), or moving regions
- * with a centre, bounds and spread. Names and colours (Okabe–Ito) per region.
+ * with a centre, bounds and spread. Names and colours (the design tokens' region colours) per region.
  * Overlaps, empty regions and centres outside bounds are shown before saving.
  */
 import { useMemo, useRef, useState, type MouseEvent } from 'react';
@@ -12,7 +12,8 @@ import { geoGraticule, geoPath, type GeoProjection } from 'd3-geo';
 import { WorldMap } from '@/src/web/map/WorldMap';
 import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
 import { apiSend } from '@/src/web/swr';
-import { CELL_SIZES, REGION_PALETTE, cellAt, cellBox, cellsInBox, gridProblems, type Region } from '@/src/runs/grid-spec';
+import { REGION_COLOURS } from '@/src/design/tokens';
+import { CELL_SIZES, cellAt, cellBox, cellsInBox, gridProblems, type Region } from '@/src/runs/grid-spec';
 import { makeGlobalGrid } from '@/src/engine/sources/grid';
 import { landCellsInBox } from '@/src/engine/sources/land-mask';
 
@@ -65,7 +66,7 @@ export function GridEditor({ networkId, initial, baseId }: { networkId: string; 
     const taken = new Set(regions.map((r) => r.key));
     const n = regions.length + 1;
     const nm = kind === 'cells' ? `Region ${n}` : `Moving region ${n}`;
-    const colour = REGION_PALETTE[regions.length % REGION_PALETTE.length];
+    const colour = REGION_COLOURS[regions.length % REGION_COLOURS.length];
     const r: Region =
       kind === 'cells'
         ? { key: slug(nm, taken), name: nm, colour, kind: 'cells', cells: [] }
@@ -356,7 +357,7 @@ export function GridEditor({ networkId, initial, baseId }: { networkId: string; 
                   onChange={(e) => update(i, { colour: e.target.value })}
                   style={{ color: r.colour }}
                 >
-                  {REGION_PALETTE.map((c) => (
+                  {REGION_COLOURS.map((c) => (
                     <option key={c} value={c} style={{ color: c }}>
                       ■ {c}
                     </option>

@@ -13,6 +13,7 @@ import { resolveCavity } from '@/src/engine/cavity/resolve';
 import { speedAttenuationFromNu } from '@/src/engine/cavity/propagation';
 import type { CavityConfig } from '@/src/engine/cavity/types';
 import { predictSpectra } from '@/src/engine/forward/predict';
+import { REGION_COLOURS } from '@/src/design/tokens';
 
 export function ModelCurves({ config }: { config: CavityConfig }) {
   const [distanceMm, setDistanceMm] = useState(10);
@@ -56,7 +57,7 @@ export function ModelCurves({ config }: { config: CavityConfig }) {
         {curves.error}
       </Notice>
     );
-  const line = (y: string, stroke = '#0072B2') =>
+  const line = (y: string, stroke: string = REGION_COLOURS[0]) =>
     ({ marks: [Plot.line(curves.pts, { x: 'f', y, stroke }), Plot.ruleY([0], { strokeOpacity: 0.3 })] }) as Plot.PlotOptions;
   return (
     <div className="space-y-6">
@@ -72,21 +73,21 @@ export function ModelCurves({ config }: { config: CavityConfig }) {
           title="Imaginary part of ν"
           xLabel="Frequency (Hz)"
           yLabel="Im ν (dimensionless)"
-          options={line('im', '#D55E00')}
+          options={line('im', REGION_COLOURS[1])}
           height={220}
         />
         <PlotFigure
           title="Phase-velocity ratio"
           xLabel="Frequency (Hz)"
           yLabel="c/V (dimensionless)"
-          options={line('cv', '#009E73')}
+          options={line('cv', REGION_COLOURS[2])}
           height={220}
         />
         <PlotFigure
           title="Attenuation"
           xLabel="Frequency (Hz)"
           yLabel="α (dB/Mm)"
-          options={line('alpha', '#CC79A7')}
+          options={line('alpha', REGION_COLOURS[4])}
           height={220}
         />
       </div>
@@ -128,7 +129,7 @@ export function ModelCurves({ config }: { config: CavityConfig }) {
                   marks: [
                     Plot.line(
                       spectra.ez.frequencies.map((f, i) => ({ f, p: spectra.ez!.power[i] * 1e6 })),
-                      { x: 'f', y: 'p', stroke: '#0072B2' },
+                      { x: 'f', y: 'p', stroke: REGION_COLOURS[0] },
                     ),
                   ],
                 } as Plot.PlotOptions
@@ -145,7 +146,7 @@ export function ModelCurves({ config }: { config: CavityConfig }) {
                   marks: [
                     Plot.line(
                       spectra.b.frequencies.map((f, i) => ({ f, p: spectra.b!.power[i] * 1e24 })),
-                      { x: 'f', y: 'p', stroke: '#E69F00' },
+                      { x: 'f', y: 'p', stroke: REGION_COLOURS[1] },
                     ),
                   ],
                 } as Plot.PlotOptions

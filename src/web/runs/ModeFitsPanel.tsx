@@ -12,14 +12,15 @@ import type { PlotModule } from '@/src/web/charts/plot-module';
 import { Notice } from '@/src/web/ui';
 import type { ModeFit } from '@/src/runs/fits';
 import { fmt } from './types';
+import { FIGURE } from '@/src/design/tokens';
 
 const UNIT: Record<ModeFit['component'], { k: number; unit: string }> = {
   Ez: { k: 1e6, unit: '(mV/m)²/Hz' },
   Bns: { k: 1e24, unit: 'pT²/Hz' },
   Bew: { k: 1e24, unit: 'pT²/Hz' },
 };
-const OBSERVED = 'var(--c-accent)';
-const PREDICTED = '#CC79A7'; // Okabe & Ito (2008) reddish purple: apart from teal, and not the activity amber
+const OBSERVED = FIGURE.observed;
+const PREDICTED = FIGURE.predicted;
 
 type Row = { key: string; station: string; component: string; mode: number; rf: number; ri: number; rg: number; chi2: number };
 type SortKey = keyof Omit<Row, 'key'>;

@@ -1,8 +1,8 @@
 'use client';
 /**
  * The best (or selected) minimum on the world map: cell regions shaded by
- * intensity on a perceptually uniform sequential scale (inferno, van der Walt
- * & Smith 2015), moving centres with 1- and 2-sigma ellipses from their
+ * intensity on the activity ramp of the design tokens (lightness falls
+ * monotonically with intensity), moving centres with 1- and 2-sigma ellipses from their
  * lat/lon covariance, stations marked by their fit quality (chi-square per bin).
  *
  * The outline is drawn on the server (`RunMapFrame`, a `WorldFrame`); `RunMap`
@@ -11,7 +11,7 @@
  */
 import { createContext, useContext, useMemo, type ReactNode } from 'react';
 import { geoPath } from 'd3-geo';
-import { interpolateInferno } from 'd3-scale-chromatic';
+import { RAMPS } from '@/src/design/tokens';
 import { makeProjection } from '@/src/web/map/projection';
 import { cellBox } from '@/src/runs/grid-cells';
 import type { Region } from '@/src/runs/grid-spec';
@@ -35,7 +35,7 @@ export interface RunMapState {
 const Selection = createContext<RunMapState | null>(null);
 
 function shade(t: number): string {
-  return interpolateInferno(0.15 + 0.8 * Math.min(1, Math.max(0, t)));
+  return RAMPS.activity(0.15 + 0.85 * Math.min(1, Math.max(0, t)));
 }
 
 /** log10 intensity range of the minimum's sources and the position of one intensity in it (0..1). */
@@ -54,8 +54,8 @@ export function RunMap({ frame, regions, cellSizeDeg, minimum, stations }: RunMa
     <div>
       <Selection.Provider value={state}>{frame}</Selection.Provider>
       <p className="mt-1 text-xs text-muted">
-        Shading: intensity on a logarithmic inferno scale from {fmt(10 ** lo)} to {fmt(10 ** hi)} C² km²/s. Ellipses: 1σ (solid
-        fill) and 2σ (dashed) of the centre. Squares: stations, teal when chi-square per bin ≤ 2, red otherwise.
+        Shading: intensity on a logarithmic scale, pale to dark, from {fmt(10 ** lo)} to {fmt(10 ** hi)} C² km²/s. Ellipses: 1σ
+        (solid fill) and 2σ (dashed) of the centre. Squares: stations, violet when chi-square per bin ≤ 2, red otherwise.
       </p>
     </div>
   );

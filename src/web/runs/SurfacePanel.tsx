@@ -4,7 +4,7 @@ import { useMemo, useState } from 'react';
 import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import type { PlotModule } from '@/src/web/charts/plot-module';
-import { SEQUENTIAL_MISFIT } from '@/src/web/charts/scales';
+import { RAMPS } from '@/src/design/tokens';
 import { Button } from '@/src/web/ui/Button';
 import { Notice } from '@/src/web/ui/Notice';
 import { apiSend, useApi } from '@/src/web/swr';
@@ -69,7 +69,7 @@ export function SurfacePanel({
       ({
         x: logX ? { type: 'log' } : {},
         y: logY ? { type: 'log' } : {},
-        color: { type: 'log', scheme: SEQUENTIAL_MISFIT, legend: true, label: 'misfit χ² (dimensionless)' },
+        color: { type: 'log', interpolate: RAMPS.depth, legend: true, label: 'misfit χ² (dimensionless)' },
         marks: [
           Plot.rect(cells, {
             x1: 'x1',

@@ -27,20 +27,13 @@ export function AccountMenu({ name, email, isAdmin }: Props) {
     }
   }
 
-  const initials = name
-    .split(/\s+/)
-    .map((p) => p[0])
-    .join('')
-    .slice(0, 2)
-    .toUpperCase();
-
   return (
     <Menu
       label={`Account: ${name}`}
       align="right"
       summary={
-        <span aria-hidden className="grid size-7 place-items-center rounded-full bg-signal-700 text-xs font-semibold text-white">
-          {initials || '·'}
+        <span className="max-w-[12rem] truncate text-sm" aria-hidden>
+          {name}
         </span>
       }
     >

@@ -43,17 +43,17 @@ export function AppShell({ user, networks, current, nav, navLabel, children }: A
   return (
     <>
       <SkipLink />
-      <header className="sticky top-0 z-30 bg-chrome text-chrome-fg shadow-[0_1px_0_rgb(255_255_255/0.06)]">
+      <header className="sticky top-0 z-30 border-b border-line-strong bg-canvas text-fg">
         <div className="mx-auto flex h-shell max-w-page items-center gap-3 px-4 sm:px-6">
           <Brand href="/networks" />
-          <span aria-hidden className="h-6 w-px bg-white/15" />
+          <span aria-hidden className="h-6 w-px bg-line-strong" />
           <NetworkSwitcher current={current} networks={networks} />
           <div className="ml-auto flex items-center gap-2">
             <AccountMenu name={user.name} email={user.email} isAdmin={user.isAdmin} />
           </div>
         </div>
         {items ? (
-          <div className="border-t border-white/8">
+          <div className="border-t border-line">
             <div className="mx-auto max-w-page px-2 sm:px-4">
               <NavLinks items={items} label={navLabel ?? (current ? `${current.name} sections` : 'Sections')} />
             </div>

@@ -9,11 +9,11 @@ export function BrandMark({ className = 'size-7' }: { className?: string }) {
       <path
         d="M3.5 16c2.1-4.4 4.2-4.4 6.3 0s4.2 4.4 6.2 0 4.2-4.4 6.3 0 4.1 4.4 6.2 0"
         fill="none"
-        stroke="var(--color-signal-300)"
+        stroke="var(--c-accent)"
         strokeWidth="1.8"
         strokeLinecap="round"
       />
-      <circle cx="22.5" cy="10" r="1.6" fill="var(--color-storm-300)" />
+      <circle cx="22.5" cy="10" r="1.6" fill="var(--c-storm)" />
     </svg>
   );
 }

@@ -43,7 +43,7 @@ export function Menu({
     <details ref={ref} className={cx('group relative', className)}>
       <summary
         aria-label={label}
-        className="flex cursor-pointer list-none items-center gap-1.5 rounded-md px-2 py-1.5 text-sm text-chrome-fg hover:bg-white/8 [&::-webkit-details-marker]:hidden"
+        className="flex cursor-pointer list-none items-center gap-1.5 rounded-md px-2 py-1.5 text-sm text-chrome-fg hover:bg-raised [&::-webkit-details-marker]:hidden"
       >
         {summary}
         <svg aria-hidden viewBox="0 0 12 12" className="size-3 text-chrome-muted transition-transform group-open:rotate-180">

@@ -24,7 +24,9 @@ export function NavLinks({ items, label }: { items: NavItem[]; label: string }) 
             aria-current={active ? 'page' : undefined}
             className={cx(
               'border-b-2 px-3 py-2.5 text-sm font-medium whitespace-nowrap no-underline transition-colors',
-              active ? 'border-signal-300 text-chrome-fg' : 'border-transparent text-chrome-muted hover:text-chrome-fg',
+              active
+                ? 'border-accent font-semibold text-fg'
+                : 'border-transparent text-muted hover:border-line-strong hover:text-fg',
             )}
           >
             {item.label}

@@ -11,6 +11,7 @@ import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import { Badge, Button, DataTable, EmptyState, FormField, Notice, inputClass } from '@/src/web/ui';
 import { api, ApiFailure, displayUnit, fetcher, toDisplayPower } from './api';
 import { FitSettings } from './FitSettings';
+import { RAMPS } from '@/src/design/tokens';
 
 interface Mode {
   frequency: number;
@@ -227,7 +228,7 @@ export function DayView({
             marginBottom: 40,
             x: timeX,
             y: { domain: [raster.fMin, raster.fMax] },
-            color: { type: 'linear', scheme: 'viridis', legend: true, label: `log10 PSD (${unit})` },
+            color: { type: 'linear', interpolate: RAMPS.depth, legend: true, label: `log10 PSD (${unit})` },
             marks: [
               Plot.raster(raster.values, {
                 width: raster.nx,
@@ -402,12 +403,12 @@ function SpectrumWithFit({
         xLabel="Frequency (Hz)"
         yLabel={`PSD (${unit})`}
         height={300}
-        caption={`Measured spectrum (grey), Lorentzian fit (teal), fitted mode frequencies (dashed)${fit?.excluded?.length ? ', bins left out of the fit (shaded)' : ''}. ${spectrum.segments} Welch segments.`}
+        caption={`Measured spectrum (grey), Lorentzian fit (violet), fitted mode frequencies (dashed)${fit?.excluded?.length ? ', bins left out of the fit (shaded)' : ''}. ${spectrum.segments} Welch segments.`}
         options={{
           y: { type: 'log' },
           marks: [
             Plot.line(pts, { x: 'f', y: 'p', stroke: 'var(--c-muted, grey)' }),
-            Plot.line(model, { x: 'f', y: 'p', stroke: 'var(--c-accent, teal)', strokeWidth: 2 }),
+            Plot.line(model, { x: 'f', y: 'p', stroke: 'var(--c-accent)', strokeWidth: 2 }),
             ...(fit
               ? [
                   Plot.ruleX(

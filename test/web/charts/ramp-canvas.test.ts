@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { parseHTML } from 'linkedom';
-import { interpolatePuOr, interpolateViridis, interpolateYlOrBr } from 'd3-scale-chromatic';
 import { color } from 'd3-color';
 import { rampCanvas } from '@/src/web/charts/ramp-canvas';
+import { RAMPS } from '@/src/design/tokens';
 
 /** Fills the stand-in as Observable Plot's continuous legend does (256 x 1, one fillRect per pixel). */
 function paint(interpolator: (t: number) => string) {
@@ -26,12 +26,12 @@ const rgb = (c: string) => {
   return [x.r, x.g, x.b];
 };
 
-// Reference: d3-scale-chromatic's interpolators (the schemes Plot's legends use), evaluated directly.
+// Reference: the ramps our legends use, evaluated directly.
 describe('rampCanvas', () => {
   for (const [name, interpolator] of [
-    ['PuOr', interpolatePuOr],
-    ['viridis', interpolateViridis],
-    ['YlOrBr', interpolateYlOrBr],
+    ['signed', RAMPS.signed],
+    ['depth', RAMPS.depth],
+    ['activity', RAMPS.activity],
   ] as const) {
     it(`hands back the ${name} ramp as gradient stops at the interpolator's own colours, ends included`, () => {
       const { stops } = paint(interpolator);

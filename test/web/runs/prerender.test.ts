@@ -47,7 +47,7 @@ function view(intervals: number): RunView {
         {
           key: 'belt',
           name: 'Belt',
-          colour: '#E69F00',
+          colour: '#eb476b',
           kind: 'moving',
           centre: { lat: 0, lon: 20 },
           bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
@@ -86,7 +86,7 @@ describe('firstFigures', () => {
   it('draws every figure of the first view under the title the browser draws it with', () => {
     const v = view(3);
     const f = firstFigures(v, fits);
-    expect(label(f.series)).toBe(seriesFigure(v.intervals, { Belt: '#E69F00' }).title);
+    expect(label(f.series)).toBe(seriesFigure(v.intervals, { Belt: '#eb476b' }).title);
     expect(label(f.correlation)).toBe(correlationFigure(result.minima[0]).title);
     expect(label(f.starts)).toBe(startsFigure(result, 0).title);
     expect(label(f.power)).toBe(fitFigures(fits.series[0]).power.title);

@@ -1,7 +1,7 @@
 /** Correlation matrix of one minimum on a diverging scale centred on zero; values show on hover. */
 import type * as Plot from '@observablehq/plot';
 import type { FigureSpec } from '@/src/web/charts/figure-spec';
-import { DIVERGING_SIGNED } from '@/src/web/charts/scales';
+import { RAMPS } from '@/src/design/tokens';
 import type { Minimum } from '@/src/engine/inverse/types';
 
 export function correlationFigure(minimum: Minimum): FigureSpec {
@@ -23,9 +23,8 @@ export function correlationFigure(minimum: Minimum): FigureSpec {
         y: { domain: names },
         color: {
           type: 'linear',
-          scheme: DIVERGING_SIGNED,
+          interpolate: RAMPS.signed,
           domain: [-1, 1],
-          pivot: 0,
           legend: true,
           label: 'correlation (dimensionless)',
         },

@@ -2,6 +2,7 @@
 import type * as Plot from '@observablehq/plot';
 import type { FigureSpec } from '@/src/web/charts/figure-spec';
 import type { SeriesFit } from '@/src/runs/fits';
+import { FIGURE } from '@/src/design/tokens';
 
 /** Display units per component: field power in SI times k. */
 export const POWER_UNIT: Record<string, { k: number; unit: string }> = {
@@ -22,7 +23,7 @@ export function fitFigures(s: SeriesFit): { power: FigureSpec; residual: FigureS
       build: (P) =>
         ({
           y: { type: 'log' },
-          color: { legend: true, domain: ['observed', 'predicted'], range: ['#0072B2', '#E69F00'] },
+          color: { legend: true, domain: ['observed', 'predicted'], range: [FIGURE.observed, FIGURE.predicted] },
           marks: [
             P.dot(pts, {
               x: 'f',
@@ -45,7 +46,7 @@ export function fitFigures(s: SeriesFit): { power: FigureSpec; residual: FigureS
           marks: [
             P.ruleY([0]),
             P.ruleY([-2, 2], { strokeDasharray: '3 3', strokeOpacity: 0.5 }),
-            P.dot(pts, { x: 'f', y: 'res', r: 2, fill: '#0072B2' }),
+            P.dot(pts, { x: 'f', y: 'res', r: 2, fill: FIGURE.observed }),
           ],
         }) as Plot.PlotOptions,
     },

@@ -2,6 +2,7 @@
 import type * as Plot from '@observablehq/plot';
 import type { FigureSpec } from '@/src/web/charts/figure-spec';
 import type { IntervalView } from '@/src/runs/results';
+import { regionColour } from '@/src/design/tokens';
 
 export function seriesFigure(intervals: IntervalView[], colours: Record<string, string>): FigureSpec {
   const pts = intervals.flatMap((iv) => {
@@ -23,7 +24,7 @@ export function seriesFigure(intervals: IntervalView[], colours: Record<string, 
       ({
         y: { type: 'log' },
         x: { type: 'utc', tickFormat: '%H:%M' },
-        color: { legend: true, domain: names, range: names.map((n) => colours[n] ?? '#0072B2') },
+        color: { legend: true, domain: names, range: names.map((n) => colours[n] ?? regionColour(0)) },
         marks: [
           P.areaY(pts, { x: 't', y1: 'lo', y2: 'hi', fill: 'region', fillOpacity: 0.2 }),
           P.line(pts, { x: 't', y: 'I', stroke: 'region', strokeWidth: 1.5 }),

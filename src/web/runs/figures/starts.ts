@@ -1,8 +1,8 @@
 /**
  * The multi-start picture: one mark per start at its own final misfit,
  * grouped by the minimum it is counted in (x, best first; spread sideways
- * within a group). Starts that reached a minimum are teal circles, starts
- * that stopped without converging are vermillion triangles (shape and colour
+ * within a group). Starts that reached a minimum are accent circles, starts
+ * that stopped without converging are rose triangles (shape and colour
  * both differ, so the two read apart without colour vision). Hover a mark for
  * its start number, misfit, iterations and why it stopped. Results stored
  * before each start's own end was kept draw every start at its minimum's
@@ -12,6 +12,7 @@ import type * as Plot from '@observablehq/plot';
 import type { FigureSpec } from '@/src/web/charts/figure-spec';
 import { CONVERGED_REASONS, type StopReason } from '@/src/engine/optim/types';
 import type { InversionResult } from '@/src/engine/inverse/types';
+import { FIGURE } from '@/src/design/tokens';
 
 /** Our words for why a start stopped. */
 export const STOP_WORDS: Record<StopReason, string> = {
@@ -24,8 +25,8 @@ export const STOP_WORDS: Record<StopReason, string> = {
   cancelled: 'cancelled',
 };
 
-export const REACHED = 'var(--c-accent)';
-export const STOPPED_SHORT = '#D55E00'; // Okabe & Ito (2008) vermillion, apart from teal for every colour vision
+export const REACHED = FIGURE.reached;
+export const STOPPED_SHORT = FIGURE.stoppedShort; // a triangle too, so it reads apart without colour
 
 interface Dot {
   x: number;
