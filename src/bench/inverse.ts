@@ -11,11 +11,11 @@ import { availableParallelism, loadavg } from 'node:os';
 import { bandFrequencies } from '@/src/engine/band';
 import { invertSpectra } from '@/src/engine/inverse/invert';
 import { invertSeries } from '@/src/engine/inverse/interval-series';
-import { closeInversionPool } from '@/src/engine/inverse/pool';
-import type { SpectrumInversionInput } from '@/src/engine/inverse/spectrum-setup';
+import { closeInversionPool } from '@/src/engine/inverse/threads/pool';
+import type { SpectrumInversionInput } from '@/src/engine/inverse/interval-problem';
 import { syntheticObserved } from '@/src/engine/inverse/synthetic';
 import { invertModes } from '@/src/engine/inverse/invert';
-import { invertAnyCaseSchema, modeInputFromCase } from '@/src/engine/inverse/modes-from-case';
+import { invertAnyCaseSchema, modeInputFromCase } from '@/src/engine/case/mode-input';
 import { readFileSync } from 'node:fs';
 
 const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };

@@ -1,22 +1,23 @@
 /**
  * `invert <case.json> [--starts N] [--seed S] [--threads T]`: multi-start
  * inversion of the observed spectra (`observed`) or of observed mode
- * parameters (`observedModes`, modes-from-case.ts) for the unknown regions.
+ * parameters (`observedModes`, src/engine/case/mode-input.ts) for the unknown regions.
  * Prints the distinct minima best first; progress goes to stderr.
  */
 import { availableParallelism } from 'node:os';
 import { InversionInputError } from '@/src/engine/inverse/errors';
-import { inputFromCase } from '@/src/engine/inverse/from-case';
-import { invertModes, invertSpectra } from '@/src/engine/inverse/invert';
-import { caseModes, invertAnyCaseSchema, modeInputFromCase } from '@/src/engine/inverse/modes-from-case';
-import { closeInversionPool } from '@/src/engine/inverse/pool';
+import { intervalInputFromCase } from '@/src/engine/case/interval-input';
+import { invertAnyCaseSchema } from '@/src/engine/case/mode-input';
+import { INVERSION_DEFAULTS } from '@/src/engine/inverse/defaults';
+import { invertInterval } from '@/src/engine/inverse/invert';
+import { closeInversionPool } from '@/src/engine/inverse/threads/pool';
 import { OptimInputError } from '@/src/engine/optim/errors';
 import { CliError, intFlag, parseArgs, readJsonFile, type Verb } from './verb';
 
 const invert: Verb = async (args) => {
   const { positional, flags } = parseArgs(args, ['starts', 'seed', 'threads']);
-  const starts = intFlag(flags, 'starts', 64, 1, 100_000);
-  const seed = intFlag(flags, 'seed', 1, 0, 2 ** 31 - 1);
+  const starts = intFlag(flags, 'starts', INVERSION_DEFAULTS.starts, 1, 100_000);
+  const seed = intFlag(flags, 'seed', INVERSION_DEFAULTS.seed, 0, 2 ** 31 - 1);
   const threads = intFlag(flags, 'threads', availableParallelism(), 1, 256);
   const file = positional[0];
   const c = await readJsonFile(file, invertAnyCaseSchema, 'case');
@@ -31,9 +32,7 @@ const invert: Verb = async (args) => {
         }
       },
     };
-    const result = caseModes(c)
-      ? await invertModes(modeInputFromCase(c), { starts, seed, threads }, callbacks)
-      : await invertSpectra(inputFromCase(c), { starts, seed, threads }, callbacks);
+    const result = await invertInterval(intervalInputFromCase(c), { starts, seed, threads }, callbacks);
     return {
       ...result,
       minima: result.minima.map((m) => ({

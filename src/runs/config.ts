@@ -4,6 +4,7 @@
  * worker and the run page.
  */
 import { z } from 'zod';
+import { INVERSION_DEFAULTS } from '@/src/engine/inverse/defaults';
 
 const bounds = z
   .object({ min: z.number(), max: z.number() })
@@ -47,12 +48,16 @@ export const runConfigSchema = z.object({
   regions: z.array(regionUnknownSchema).min(1, 'choose at least one source region'),
   damping: z
     .object({
-      initialLambda: z.number().positive().max(1e6).default(1e-2),
-      maxIterations: z.number().int().min(5).max(2000).default(200),
+      initialLambda: z.number().positive().max(1e6).default(INVERSION_DEFAULTS.lm.initialDamping),
+      maxIterations: z.number().int().min(5).max(2000).default(INVERSION_DEFAULTS.lm.maxIterations),
       scaleCovariance: z.boolean().default(true),
     })
-    .default({ initialLambda: 1e-2, maxIterations: 200, scaleCovariance: true }),
-  starts: z.number().int().min(1).max(256).default(16),
+    .default({
+      initialLambda: INVERSION_DEFAULTS.lm.initialDamping,
+      maxIterations: INVERSION_DEFAULTS.lm.maxIterations,
+      scaleCovariance: true,
+    }),
+  starts: z.number().int().min(1).max(256).default(INVERSION_DEFAULTS.seriesStarts),
   seed: z
     .number()
     .int()

@@ -4,18 +4,17 @@
  * spectrum runs; for mode-parameter runs every observed mode beside the one
  * fitted to the predicted spectrum, with the weighted residuals of frequency,
  * ln intensity and half-width. Both come from the engine's own least-squares
- * problem at the minimum's parameters, built from the run solver's recipe
- * (so the figure shows exactly what the inversion fitted).
+ * problem at the minimum's parameters, built as the run solver builds it
+ * (interval-input.ts), so the figure shows exactly what the inversion fitted.
  */
-import { prepareModes, prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import { buildIntervalProblem } from '@/src/engine/inverse/interval-problem';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import { badRequest } from '@/src/server/errors';
 import { getRun, getRunInterval } from '@/db/repo/runs';
 import { notFound } from '@/src/server/errors';
 import { loadRunContext } from './context';
 import { assumedExclusionSeries, loadModeObservations, loadObservations } from './observations';
-import { intervalRecipe } from './surface-compute';
-import { buildUnknowns } from './unknowns';
+import { intervalInput } from './interval-input';
 
 export interface SeriesFit {
   station: string;
@@ -68,9 +67,9 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
   const ctx = await loadRunContext(run);
   if (ctx.config.observables.kind === 'modes') {
     const observedModes = await loadModeObservations(networkId, ctx.config, when);
-    const recipe = intervalRecipe(ctx, { observed: [], modes: observedModes });
-    if (recipe.kind !== 'modes') throw new Error('a mode run builds a mode recipe');
-    const modes: ModeFit[] = prepareModes(recipe.input).problem.compare(Float64Array.from(minimum.internal));
+    const built = buildIntervalProblem(intervalInput(ctx, { observed: [], modes: observedModes }));
+    if (built.kind !== 'modes') throw new Error('a mode run builds a mode problem');
+    const modes: ModeFit[] = built.problem.compare(Float64Array.from(minimum.internal));
     const stations: StationFit[] = ctx.stations.map((st) => {
       const mine = modes.filter((m) => m.station === st.code);
       const chi2 = mine.reduce(
@@ -83,12 +82,9 @@ export async function fitsAt(networkId: string, runId: string, intervalIso: stri
     return { series: [], stations, modes, assumedExclusions: assumedExclusionSeries(observedModes) };
   }
   const observed = await loadObservations(networkId, ctx.config, when);
-  const { problem, layout } = prepareSpectrum({
-    cavity: ctx.cavity,
-    stations: ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon })),
-    observed,
-    unknowns: buildUnknowns(ctx.config, ctx.grid),
-  });
+  const built = buildIntervalProblem(intervalInput(ctx, { observed }));
+  if (built.kind !== 'spectrum') throw new Error('a spectrum run builds a spectrum problem');
+  const { problem, layout } = built;
   const r = new Float64Array(problem.nResiduals);
   problem.residuals(Float64Array.from(minimum.internal), r);
   const series: SeriesFit[] = layout.series.map((s, i) => {

@@ -3,12 +3,11 @@
  * interval — log-power spectra, or fitted mode parameters. Threads per run
  * come from CAVITAS_RUN_THREADS (default: the engine's own default, all cores).
  */
-import { invertModes, invertSpectra } from '@/src/engine/inverse/invert';
+import { invertInterval } from '@/src/engine/inverse/invert';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import { settings } from '@/src/settings';
+import { intervalInput } from './interval-input';
 import type { IntervalSolver } from './types';
-import { buildUnknowns } from './unknowns';
-import { MODE_BAND } from './observations';
 
 export function runThreads(): number | undefined {
   return settings().CAVITAS_RUN_THREADS;
@@ -23,8 +22,6 @@ export const engineSolver: IntervalSolver = (ctx, c, hooks) => solve(ctx, c, hoo
 
 const solve = async (...[ctx, c, hooks, threads]: [...Parameters<IntervalSolver>, number | undefined]) => {
   const { config } = ctx;
-  const stations = ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon }));
-  const unknowns = buildUnknowns(config, ctx.grid);
   const options = {
     starts: config.starts,
     seed: config.seed,
@@ -36,9 +33,7 @@ const solve = async (...[ctx, c, hooks, threads]: [...Parameters<IntervalSolver>
     onProgress: (p: { done: number; total: number }) => hooks.onStart(p.done, p.total),
     shouldCancel: hooks.shouldStop,
   };
-  const result = c.modes
-    ? await invertModes({ cavity: ctx.cavity, band: MODE_BAND, stations, modes: c.modes, unknowns }, options, callbacks)
-    : await invertSpectra({ cavity: ctx.cavity, stations, observed: c.observed, unknowns }, options, callbacks);
+  const result = await invertInterval(intervalInput(ctx, c), options, callbacks);
   // A stop asked for while the last starts were finishing leaves a complete result: it is kept.
   if (interrupted(result)) return 'cancelled' as const;
   return { nData: result.nData, result: result as unknown as Record<string, unknown> };

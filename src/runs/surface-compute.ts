@@ -2,33 +2,20 @@
  * Computing a cached misfit surface: chi-square over a grid of two free
  * parameters, the others held at the chosen minimum ('fixed') or re-minimised
  * at every point ('profile'), for spectrum and mode-parameter runs alike. The
- * least-squares problem is built from the same recipe the run solver hands the
- * multi-start driver (log-power spectra, or fitted modes on the mode grid), so
+ * least-squares problem is built as the run solver builds it (interval-input.ts:
+ * log-power spectra, or fitted modes on the mode grid), so
  * the surface passes through the stored minimum. The grid spans +-3 standard
  * errors around the minimum (in the internal parameterisation: log intensity,
  * degrees), clipped to the bounds.
  */
 import { getRunById, getSurfaceById, listRunIntervals, setSurface } from '@/db/repo/runs';
-import { prepareRecipe, type ProblemRecipe } from '@/src/engine/inverse/recipes';
+import { buildIntervalProblem } from '@/src/engine/inverse/interval-problem';
 import { misfitSurface } from '@/src/engine/inverse/surface';
 import type { InversionResult, MisfitSurface } from '@/src/engine/inverse/types';
 import { loadRunContext } from './context';
-import { loadIntervalObservations, MODE_BAND, type IntervalObservations } from './observations';
-import type { RunContext } from './types';
-import { buildUnknowns } from './unknowns';
+import { intervalInput } from './interval-input';
+import { loadIntervalObservations } from './observations';
 import type { SurfaceSpec } from './surfaces';
-
-/** The problem recipe of one interval, as the run solver builds its input (src/runs/solver.ts). */
-export function intervalRecipe(
-  ctx: RunContext,
-  obs: IntervalObservations,
-): Extract<ProblemRecipe, { kind: 'spectrum' | 'modes' }> {
-  const stations = ctx.stations.map((s) => ({ code: s.code, lat: s.lat, lon: s.lon }));
-  const unknowns = buildUnknowns(ctx.config, ctx.grid);
-  return obs.modes
-    ? { kind: 'modes', input: { cavity: ctx.cavity, band: MODE_BAND, stations, modes: obs.modes, unknowns } }
-    : { kind: 'spectrum', input: { cavity: ctx.cavity, stations, observed: obs.observed, unknowns } };
-}
 
 const SPAN_SIGMAS = 3;
 
@@ -55,8 +42,7 @@ export async function computeSurface(surfaceId: string): Promise<'ready' | 'fail
     if (!result || !minimum) throw new Error('the interval or minimum has no stored result');
     const obs = await loadIntervalObservations(ctx.networkId, ctx.config, new Date(spec.interval));
     if (obs.modes && obs.modes.length === 0) throw new Error('this interval has no stored mode fits any more');
-    const { problem, par: maybePar } = prepareRecipe(intervalRecipe(ctx, obs));
-    const par = maybePar!;
+    const { problem, par } = buildIntervalProblem(intervalInput(ctx, obs));
     const ix = par.names.indexOf(spec.x);
     const iy = par.names.indexOf(spec.y);
     if (ix < 0 || iy < 0) throw new Error(`unknown parameter ${ix < 0 ? spec.x : spec.y}`);

@@ -8,8 +8,9 @@
  */
 import { InversionInputError } from './errors';
 import { invertSpectra } from './invert';
-import type { MultiStartOptions } from './multistart';
-import type { SpectrumInversionInput } from './spectrum-setup';
+import { INVERSION_DEFAULTS } from './defaults';
+import type { MultiStartOptions } from './multistart-options';
+import type { SpectrumInversionInput } from './interval-problem';
 import type { InversionResult, IntervalResult } from './types';
 
 export interface SeriesOptions extends Partial<MultiStartOptions> {
@@ -38,8 +39,8 @@ export async function invertSeries(
   const from = options.fromIndex ?? 0;
   if (!Number.isInteger(from) || from < 0 || from > count)
     throw new InversionInputError(`fromIndex must be within 0..${count}, got ${from}`);
-  const starts = options.starts ?? 16;
-  const seed = options.seed ?? 1;
+  const starts = options.starts ?? INVERSION_DEFAULTS.seriesStarts;
+  const seed = options.seed ?? INVERSION_DEFAULTS.seed;
   const maxWarm = options.maxWarm ?? Math.floor(starts / 2);
   let previous = options.previous;
   const results: IntervalResult[] = [];

@@ -1,30 +1,35 @@
 /**
- * The multi-start inversions for regional intensities (and centres):
- * invertSpectra (log-power misfit of observed spectra) and invertModes
- * (misfit of observed mode parameters), returning distinct minima best first.
+ * The multi-start inversion of one interval for regional intensities (and
+ * centres): builds the interval's problem (interval-problem.ts: log-power
+ * spectra or mode parameters), runs the multi-start and returns the distinct
+ * minima best first.
  */
+import {
+  buildIntervalProblem,
+  type IntervalInput,
+  type ModeInversionInput,
+  type SpectrumInversionInput,
+} from './interval-problem';
 import { buildMinima, startEnds } from './minima';
-import { multiStart, resolveMultiStartOptions, type MultiStartOptions } from './multistart';
-import { prepareRecipe, type ProblemRecipe } from './recipes';
-import type { ModeInversionInput, SpectrumInversionInput } from './spectrum-setup';
+import { multiStart } from './multistart';
+import { resolveMultiStartOptions, type MultiStartOptions } from './multistart-options';
 import type { InversionCallbacks, InversionResult } from './types';
 
-async function runInversion(
-  recipe: Extract<ProblemRecipe, { kind: 'spectrum' | 'modes' }>,
-  options: Partial<MultiStartOptions>,
-  callbacks: InversionCallbacks,
+export async function invertInterval(
+  interval: IntervalInput,
+  options: Partial<MultiStartOptions> = {},
+  callbacks: InversionCallbacks = {},
 ): Promise<InversionResult> {
   const t0 = performance.now();
   const o = resolveMultiStartOptions(options);
-  const prepared = prepareRecipe(recipe);
-  const par = prepared.par!;
-  const outcomes = await multiStart(recipe, prepared.problem, o, callbacks);
-  const minima = buildMinima(outcomes, par, prepared.nData, o.scaleErrors);
+  const { problem, par, nData } = buildIntervalProblem(interval);
+  const outcomes = await multiStart({ problem, ref: { builder: 'interval', input: interval } }, o, callbacks);
+  const minima = buildMinima(outcomes, par, nData, o.scaleErrors);
   return {
     starts: o.starts,
     seed: o.seed,
     seconds: (performance.now() - t0) / 1000,
-    nData: prepared.nData,
+    nData,
     nParams: par.slots.length,
     paramNames: par.names,
     unconverged: outcomes.filter((x) => !x.converged).length,
@@ -38,7 +43,7 @@ export function invertSpectra(
   options: Partial<MultiStartOptions> = {},
   callbacks: InversionCallbacks = {},
 ): Promise<InversionResult> {
-  return runInversion({ kind: 'spectrum', input }, options, callbacks);
+  return invertInterval({ kind: 'spectrum', input }, options, callbacks);
 }
 
 export function invertModes(
@@ -46,5 +51,5 @@ export function invertModes(
   options: Partial<MultiStartOptions> = {},
   callbacks: InversionCallbacks = {},
 ): Promise<InversionResult> {
-  return runInversion({ kind: 'modes', input }, options, callbacks);
+  return invertInterval({ kind: 'modes', input }, options, callbacks);
 }

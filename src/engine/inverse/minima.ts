@@ -8,7 +8,7 @@ import { covarianceFromJtJ } from '@/src/engine/optim/covariance';
 import type { StopReason } from '@/src/engine/optim/types';
 import { groupMinima } from './grouping';
 import { physicalParams, sourcesOf, type Parameterisation } from './parameters';
-import type { StartOutcome } from './run-starts';
+import type { StartOutcome } from './descents';
 import type { Minimum, ParamKind, StartEnds } from './types';
 
 function square(a: Float64Array, n: number): number[][] {

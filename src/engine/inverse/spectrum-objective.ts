@@ -22,11 +22,11 @@ import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { SPOT_MAX_NODES, SPOT_STRIDE, spotNodesInto } from '@/src/engine/sources/spot';
 import { SPREAD_DIFF_STEP_DEG } from '@/src/engine/tolerances';
 import type { DataLayout } from './data-layout';
-import { centreDerivatives, effectiveKernels } from './effective-kernel';
+import { centreDerivatives, effectiveKernels } from './region-kernels';
 import { InversionInputError } from './errors';
 import { createKernelBuffers, type KernelBuffers, type KernelSampler } from './kernel-sampler';
 import { regionValue, type Parameterisation } from './parameters';
-import { linearStartIntensities } from './start-intensities';
+import { linearStartIntensities } from './linear-intensities';
 
 /** 'log': ln-power misfit; 'linear': relative power misfit; 'power': r = P / (sigma P_obs), the bare model (for derived objectives). */
 export type MisfitScale = 'log' | 'linear' | 'power';

@@ -8,7 +8,7 @@ import type { CavityConfig } from '../cavity/types';
 import type { Component } from '../components';
 import { greatCircle } from '../geometry/great-circle';
 import { mulberry32 } from '../random';
-import { engineKernel } from './engine-kernel';
+import { engineKernel } from './kernel-sampler';
 import { createKernelBuffers } from './kernel-sampler';
 import type { ObservedSeries, StationSite } from './types';
 

@@ -10,6 +10,7 @@ import { useRouter } from 'next/navigation';
 import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { Button, Caution, Notice, formatDuration, inputClass } from '@/src/web/ui';
 import { apiSend } from '@/src/web/swr';
+import { INVERSION_DEFAULTS } from '@/src/engine/inverse/defaults';
 import { runConfigSchema, type RunConfig } from '@/src/runs/config';
 import type { Region } from '@/src/runs/grid-spec';
 
@@ -161,11 +162,11 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
       every: 1,
       modes: 4,
       regions: firstGrid ? regionRows(firstGrid.regions) : [],
-      initialLambda: 0.01,
-      maxIterations: 200,
+      initialLambda: INVERSION_DEFAULTS.lm.initialDamping,
+      maxIterations: INVERSION_DEFAULTS.lm.maxIterations,
       scaleCovariance: true,
-      starts: 16,
-      seed: 1,
+      starts: INVERSION_DEFAULTS.seriesStarts,
+      seed: INVERSION_DEFAULTS.seed,
     },
   });
   const {

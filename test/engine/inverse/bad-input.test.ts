@@ -2,11 +2,11 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { invertCaseSchema } from '@/src/engine/case';
-import { inputFromCase } from '@/src/engine/inverse/from-case';
+import { inputFromCase } from '@/src/engine/case/spectrum-input';
 import { buildDataLayout } from '@/src/engine/inverse/data-layout';
 import { InversionInputError } from '@/src/engine/inverse/errors';
 import { buildParameterisation } from '@/src/engine/inverse/parameters';
-import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import { prepareSpectrum } from '@/src/engine/inverse/interval-problem';
 import type { ObservedSeries } from '@/src/engine/inverse/types';
 import { LINEAR_CAVITY } from './helpers';
 

@@ -9,7 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { invertSpectra } from '@/src/engine/inverse/invert';
-import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import { prepareSpectrum } from '@/src/engine/inverse/interval-problem';
 import { syntheticObserved } from '@/src/engine/inverse/synthetic';
 import type { RegionUnknown } from '@/src/engine/inverse/types';
 import { cellRegion } from '@/src/engine/sources/cell-region';
@@ -97,7 +97,7 @@ describe('regions with a fixed footprint', () => {
 describe('case files with regions given by grid cells', () => {
   it('pass the cells through to the inverter as a fixed footprint', async () => {
     const { invertCaseSchema } = await import('@/src/engine/case');
-    const { inputFromCase } = await import('@/src/engine/inverse/from-case');
+    const { inputFromCase } = await import('@/src/engine/case/spectrum-input');
     const c = invertCaseSchema.parse({
       cavity,
       band: { minHz: 6, maxHz: 30, stepHz: 0.5 },

@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { bandFrequencies } from '@/src/engine/band';
 import type { Component } from '@/src/engine/components';
 import { predictSpectraDirect } from '@/src/engine/forward/direct-spectra';
-import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import { prepareSpectrum } from '@/src/engine/inverse/interval-problem';
 import { LINEAR_CAVITY } from './helpers';
 
 describe('inverter prediction', () => {

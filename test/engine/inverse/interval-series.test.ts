@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { invertSeries } from '@/src/engine/inverse/interval-series';
-import type { SpectrumInversionInput } from '@/src/engine/inverse/spectrum-setup';
+import type { SpectrumInversionInput } from '@/src/engine/inverse/interval-problem';
 import { LINEAR_CAVITY, syntheticObserved } from './helpers';
 
 const stations = [

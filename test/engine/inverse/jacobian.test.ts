@@ -9,7 +9,7 @@ import { buildParameterisation } from '@/src/engine/inverse/parameters';
 import { spectrumProblem } from '@/src/engine/inverse/spectrum-objective';
 import type { ObservedSeries, StationSite } from '@/src/engine/inverse/types';
 import type { Component } from '@/src/engine/components';
-import { engineKernel } from '@/src/engine/inverse/engine-kernel';
+import { engineKernel } from '@/src/engine/inverse/kernel-sampler';
 import { analyticKernel, centralDifferenceJacobian, LINEAR_CAVITY, maxColumnRelativeError } from './helpers';
 
 const stations: StationSite[] = [

@@ -13,7 +13,7 @@ import { Matrix, solve } from 'ml-matrix';
 import type { Component } from '@/src/engine/components';
 import { greatCircle } from '@/src/engine/geometry/great-circle';
 import { buildDataLayout } from '@/src/engine/inverse/data-layout';
-import { engineKernel } from '@/src/engine/inverse/engine-kernel';
+import { engineKernel } from '@/src/engine/inverse/kernel-sampler';
 import { createKernelBuffers } from '@/src/engine/inverse/kernel-sampler';
 import { buildParameterisation } from '@/src/engine/inverse/parameters';
 import { spectrumProblem } from '@/src/engine/inverse/spectrum-objective';

@@ -19,7 +19,7 @@
 import { describe, expect, it } from 'vitest';
 import { invertModes } from '@/src/engine/inverse/invert';
 import { observedModesOf } from '@/src/engine/inverse/observed-modes';
-import { prepareModes } from '@/src/engine/inverse/spectrum-setup';
+import { prepareModes } from '@/src/engine/inverse/interval-problem';
 import type { ObservedModes } from '@/src/engine/inverse/types';
 import { LINEAR_CAVITY, syntheticObserved, modeTestWorld } from './helpers';
 

@@ -14,7 +14,7 @@ import { modeProblem } from '@/src/engine/inverse/mode-objective';
 import { modeSeriesSetup, predictedSeriesModes } from '@/src/engine/inverse/predicted-modes';
 import { observedModesOf } from '@/src/engine/inverse/observed-modes';
 import { buildParameterisation } from '@/src/engine/inverse/parameters';
-import { prepareModes } from '@/src/engine/inverse/spectrum-setup';
+import { prepareModes } from '@/src/engine/inverse/interval-problem';
 import type { Component } from '@/src/engine/components';
 import type { ObservedModes } from '@/src/engine/inverse/types';
 import {

@@ -2,17 +2,21 @@
  * Multi-start driver on NIST StRD BoxBOD (higher difficulty; certified values
  * from https://www.itl.nist.gov/div898/strd/nls/data/boxbod.shtml, see
  * fixtures/nist/boxbod.json): from seeded quasi-random starts over a box, the
- * best minimum is the certified one; the same seed gives the same outcomes
- * on 1 or 2 threads; cancellation stops the run.
+ * best minimum is the certified one; cancellation stops the run. On the
+ * interval problem of fixtures/cases/two-minima.json (which pool workers can
+ * rebuild), the same seed gives the same outcomes on 1 or 2 threads.
  */
 import { readFileSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
-import { curveProblem } from '@/src/engine/inverse/curve-problem';
+import { invertCaseSchema } from '@/src/engine/case';
+import { inputFromCase } from '@/src/engine/case/spectrum-input';
 import { groupMinima } from '@/src/engine/inverse/grouping';
-import { multiStart, resolveMultiStartOptions } from '@/src/engine/inverse/multistart';
-import { closeInversionPool } from '@/src/engine/inverse/pool';
-import type { ProblemRecipe } from '@/src/engine/inverse/recipes';
-import { haltonPoint, haltonShift, radicalInverse } from '@/src/engine/inverse/starts';
+import { haltonPoint, haltonShift, radicalInverse } from '@/src/engine/inverse/halton';
+import { buildIntervalProblem, type IntervalInput } from '@/src/engine/inverse/interval-problem';
+import { multiStart, type PortableProblem } from '@/src/engine/inverse/multistart';
+import { resolveMultiStartOptions } from '@/src/engine/inverse/multistart-options';
+import { closeInversionPool } from '@/src/engine/inverse/threads/pool';
+import { curveProblem } from './curve-problem';
 
 const box = JSON.parse(readFileSync('fixtures/nist/boxbod.json', 'utf8')) as {
   x: number[];
@@ -20,9 +24,14 @@ const box = JSON.parse(readFileSync('fixtures/nist/boxbod.json', 'utf8')) as {
   certified: number[];
   residualSumOfSquares: number;
 };
-const recipe: ProblemRecipe = {
-  kind: 'curve',
-  curve: { model: 'exp-rise', x: box.x, y: box.y, lower: [1, 0.01], upper: [1000, 5] },
+const boxbod = { problem: curveProblem({ model: 'exp-rise', x: box.x, y: box.y, lower: [1, 0.01], upper: [1000, 5] }) };
+const interval: IntervalInput = {
+  kind: 'spectrum',
+  input: inputFromCase(invertCaseSchema.parse(JSON.parse(readFileSync('fixtures/cases/two-minima.json', 'utf8')))),
+};
+const portable: PortableProblem = {
+  problem: buildIntervalProblem(interval).problem,
+  ref: { builder: 'interval', input: interval },
 };
 
 afterAll(() => closeInversionPool());
@@ -43,20 +52,8 @@ describe('quasi-random starts', () => {
 });
 
 describe('multi-start on BoxBOD', () => {
-  const problem = curveProblem(recipe.kind === 'curve' ? recipe.curve : (undefined as never));
-
-  it('finds the certified minimum as the best one, in-process and on 2 pool workers alike', async () => {
-    const one = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 1 }));
-    const two = await multiStart(
-      recipe,
-      problem,
-      resolveMultiStartOptions({ starts: 24, seed: 3, threads: 2, callerWorks: false }),
-    );
-    expect(two.map((o) => o.index)).toEqual(one.map((o) => o.index));
-    for (let i = 0; i < one.length; i++) {
-      expect(Array.from(two[i].params)).toEqual(Array.from(one[i].params));
-      expect(two[i].stopReason).toBe(one[i].stopReason);
-    }
+  it('finds the certified minimum as the best one', async () => {
+    const one = await multiStart(boxbod, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 1 }));
     const groups = groupMinima(one, { lower: Float64Array.from([1, 0.01]), upper: Float64Array.from([1000, 5]) });
     expect(groups.reduce((s, g) => s + g.members.length, 0)).toBe(24);
     const best = groups[0].best;
@@ -68,7 +65,7 @@ describe('multi-start on BoxBOD', () => {
   it('reports progress for every start and stops early when cancelled', async () => {
     const seen: number[] = [];
     let calls = 0;
-    const out = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 10, seed: 1, threads: 1 }), {
+    const out = await multiStart(boxbod, resolveMultiStartOptions({ starts: 10, seed: 1, threads: 1 }), {
       onProgress: (p) => seen.push(p.done),
       shouldCancel: () => ++calls > 3,
     });
@@ -78,20 +75,31 @@ describe('multi-start on BoxBOD', () => {
 });
 
 describe('multi-start on 2 threads', () => {
+  it('gives the same outcomes in-process and on 2 pool workers', async () => {
+    const one = await multiStart(portable, resolveMultiStartOptions({ starts: 12, seed: 3, threads: 1 }));
+    const two = await multiStart(portable, resolveMultiStartOptions({ starts: 12, seed: 3, threads: 2, callerWorks: false }));
+    expect(two.map((o) => o.index)).toEqual(one.map((o) => o.index));
+    for (let i = 0; i < one.length; i++) {
+      expect(Array.from(two[i].params)).toEqual(Array.from(one[i].params));
+      expect(two[i].stopReason).toBe(one[i].stopReason);
+    }
+  });
+
+  it('refuses threads > 1 for a problem the workers cannot rebuild', async () => {
+    await expect(multiStart(boxbod, resolveMultiStartOptions({ starts: 4, seed: 1, threads: 2 }))).rejects.toThrow(
+      /problem reference/,
+    );
+  });
+
   it('counts every start once and stops early when cancelled', async () => {
-    const problem = curveProblem(recipe.kind === 'curve' ? recipe.curve : (undefined as never));
     const seen: number[] = [];
     let calls = 0;
-    const out = await multiStart(recipe, problem, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2 }), {
+    const out = await multiStart(portable, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2 }), {
       onProgress: (p) => seen.push(p.done),
       shouldCancel: () => ++calls > 50,
     });
     // and all on the pool, without the caller computing
-    const pooled = await multiStart(
-      recipe,
-      problem,
-      resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2, callerWorks: false }),
-    );
+    const pooled = await multiStart(portable, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2, callerWorks: false }));
     expect(pooled.map((o) => o.index)).toEqual(Array.from({ length: 40 }, (_, i) => i));
     expect(out.map((o) => o.index)).toEqual(Array.from({ length: 40 }, (_, i) => i));
     expect(seen).toEqual(Array.from({ length: 40 }, (_, i) => i + 1));
@@ -99,15 +107,9 @@ describe('multi-start on 2 threads', () => {
   });
 
   it('passes a cancellation on to the pool workers when the caller computes no starts itself', async () => {
-    const problem = curveProblem(recipe.kind === 'curve' ? recipe.curve : (undefined as never));
-    const out = await multiStart(
-      recipe,
-      problem,
-      resolveMultiStartOptions({ starts: 12, seed: 9, threads: 2, callerWorks: false }),
-      {
-        shouldCancel: () => true,
-      },
-    );
+    const out = await multiStart(portable, resolveMultiStartOptions({ starts: 12, seed: 9, threads: 2, callerWorks: false }), {
+      shouldCancel: () => true,
+    });
     expect(out.map((o) => o.index)).toEqual(Array.from({ length: 12 }, (_, i) => i));
     expect(out.every((o) => o.stopReason === 'cancelled')).toBe(true);
   });

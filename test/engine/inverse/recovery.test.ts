@@ -9,7 +9,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { invertCaseSchema } from '@/src/engine/case';
-import { inputFromCase } from '@/src/engine/inverse/from-case';
+import { inputFromCase } from '@/src/engine/case/spectrum-input';
 import { invertSpectra } from '@/src/engine/inverse/invert';
 
 function load(name: string) {

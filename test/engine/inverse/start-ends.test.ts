@@ -12,12 +12,12 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { invertCaseSchema, type CaseFile } from '@/src/engine/case';
 import { predictSpectraDirect } from '@/src/engine/forward/direct-spectra';
-import { inputFromCase } from '@/src/engine/inverse/from-case';
+import { inputFromCase } from '@/src/engine/case/spectrum-input';
 import { groupMinima, type FinishedStart } from '@/src/engine/inverse/grouping';
 import { invertSpectra } from '@/src/engine/inverse/invert';
-import { resolveMultiStartOptions } from '@/src/engine/inverse/multistart';
-import { runStarts } from '@/src/engine/inverse/run-starts';
-import { prepareSpectrum } from '@/src/engine/inverse/spectrum-setup';
+import { resolveMultiStartOptions } from '@/src/engine/inverse/multistart-options';
+import { runStarts } from '@/src/engine/inverse/descents';
+import { prepareSpectrum } from '@/src/engine/inverse/interval-problem';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import { CONVERGED_REASONS } from '@/src/engine/optim/types';
 

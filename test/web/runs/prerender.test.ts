@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseHTML } from 'linkedom';
 import { bandFrequencies } from '@/src/engine/band';
 import { invertSpectra } from '@/src/engine/inverse/invert';
-import { closeInversionPool } from '@/src/engine/inverse/pool';
+import { closeInversionPool } from '@/src/engine/inverse/threads/pool';
 import { syntheticObserved } from '@/src/engine/inverse/synthetic';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import type { RunView } from '@/src/runs/results';

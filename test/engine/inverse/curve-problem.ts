@@ -1,13 +1,12 @@
 /**
- * Least-squares fit of y(x) with a named closed-form model, as a problem for
- * the optimiser (any shape of data the spectrum objective does not cover, and
- * the generic path through the thread pool). Models:
+ * Test helper: least-squares fit of y(x) with a named closed-form model, as a
+ * problem for the multi-start (which knows nothing of what a problem models). Models:
  *  - 'exp-rise':   y = b1 (1 - exp(-b2 x))
  *  - 'rational-2': y = b1 (x^2 + b2 x) / (x^2 + b3 x + b4)
  *  - 'rational-3': y = (b1 + b2 x + b3 x^2 + b4 x^3) / (1 + b5 x + b6 x^2 + b7 x^3)
  */
 import type { LeastSquaresProblem } from '@/src/engine/optim/types';
-import { InversionInputError } from './errors';
+import { InversionInputError } from '@/src/engine/inverse/errors';
 
 export type CurveModel = 'exp-rise' | 'rational-2' | 'rational-3';
 export const CURVE_MODEL_PARAMS: Record<CurveModel, number> = { 'exp-rise': 2, 'rational-2': 4, 'rational-3': 7 };

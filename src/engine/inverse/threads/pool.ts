@@ -6,7 +6,7 @@
  */
 import { Piscina } from 'piscina';
 import type { PoolTask } from './pool-worker';
-import type { StartOutcome } from './run-starts';
+import type { StartOutcome } from '../descents';
 
 let pool: Piscina | null = null;
 let poolThreads = 0;

@@ -10,12 +10,12 @@
  * cover the fitted band in the bins the observed spectrum had.
  */
 import { z } from 'zod';
-import { caseSchema, type CaseFile } from '@/src/engine/case';
+import { caseSchema, type CaseFile } from './schema';
 import type { CavityConfig } from '@/src/engine/cavity';
 import type { Component } from '@/src/engine/components';
 import { MAX_MODES, MIN_MODES } from '@/src/engine/modes/usual-modes';
-import { unknownsFromCase } from './from-case';
-import type { ModeInversionInput } from './spectrum-setup';
+import { unknownsFromCase } from './spectrum-input';
+import type { ModeInversionInput } from '@/src/engine/inverse/interval-problem';
 
 const positive = z.number().positive();
 

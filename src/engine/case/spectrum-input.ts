@@ -6,12 +6,12 @@
  * leaves mains bins and bands out of the misfit.
  */
 import { z } from 'zod';
-import type { CaseFile } from '@/src/engine/case';
+import type { CaseFile } from './schema';
 import type { CavityConfig } from '@/src/engine/cavity';
 import type { Component } from '@/src/engine/components';
-import { InversionInputError } from './errors';
-import type { SpectrumInversionInput } from './spectrum-setup';
-import type { BinSelection, RegionUnknown } from './types';
+import { InversionInputError } from '@/src/engine/inverse/errors';
+import type { SpectrumInversionInput } from '@/src/engine/inverse/interval-problem';
+import type { BinSelection, RegionUnknown } from '@/src/engine/inverse/types';
 
 const ZERO_INTENSITY_FLOOR = 1e-9;
 

@@ -6,7 +6,7 @@
  */
 import { levenbergMarquardt } from '@/src/engine/optim/levenberg-marquardt';
 import type { LeastSquaresProblem, LmOptions, StopReason } from '@/src/engine/optim/types';
-import { startPoint } from './starts';
+import { startPoint } from './halton';
 
 export interface StartOutcome {
   index: number;
