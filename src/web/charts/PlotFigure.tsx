@@ -2,7 +2,8 @@
 /**
  * Renders an Observable Plot figure. Every figure must name its axes with
  * units (`xLabel`, `yLabel`); they override any label in `options`.
- * Colours follow the theme through CSS variables (currentColor for ink).
+ * Colours follow the theme through CSS variables (currentColor for ink); our
+ * chart style (`plotOptions`, `finishFigure`) is applied here and on the server.
  *
  * The heading, caption and a box of the figure's height come with the page;
  * Plot itself is loaded on demand (`loadPlot`) and draws into the box. Give
@@ -23,7 +24,7 @@
 import { useEffect, useRef, useState } from 'react';
 import type * as Plot from '@observablehq/plot';
 import { loadPlot, type PlotModule } from './plot-module';
-import { plotOptions } from './figure-spec';
+import { finishFigure, plotOptions } from './figure-spec';
 
 // A page with figures starts fetching the chart code while it hydrates, not after.
 if (typeof window !== 'undefined') loadPlot().catch(() => {});
@@ -83,7 +84,7 @@ export function PlotFigure({
       drawnWidth = w;
       const options = built;
       const t0 = performance.now();
-      const fig = lib.plot(plotOptions(options, { title, xLabel, yLabel, height, width: w }));
+      const fig = finishFigure(lib.plot(plotOptions(options, { title, xLabel, yLabel, height, width: w })));
       host.replaceChildren(fig);
       host.dataset.drawn = 'client'; // read by the page benchmark (figures live, tips on hover)
       performance.measure(`figure: ${title}`, { start: t0, end: performance.now() }); // shows in a browser profile's timings

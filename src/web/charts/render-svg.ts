@@ -6,7 +6,7 @@
  */
 import { parseHTML } from 'linkedom';
 import * as kit from './plot-kit';
-import { plotOptions, type FigureSpec } from './figure-spec';
+import { finishFigure, plotOptions, type FigureSpec } from './figure-spec';
 import { rampCanvas } from './ramp-canvas';
 
 let shared: Document | null = null;
@@ -41,7 +41,7 @@ function compact(markup: string): string {
 export function renderFigureSvg(spec: FigureSpec, width: number): string | null {
   try {
     const options = plotOptions(spec.build(kit), { ...spec, width });
-    const node = kit.plot({ ...options, document: serverDocument() }) as unknown as Element;
+    const node = finishFigure(kit.plot({ ...options, document: serverDocument() }) as unknown as Element);
     // Hover texts (one <title> per mark) come with the browser's live drawing; they would double the markup.
     for (const t of Array.from(node.querySelectorAll('title'))) t.remove();
     return compact(node.outerHTML);

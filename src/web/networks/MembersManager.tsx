@@ -6,6 +6,7 @@
 import { useState } from 'react';
 import { apiSend, useApi, type ApiError } from '@/src/web/swr';
 import { Badge, Button, Card, EmptyState, FormField, Notice, formatUtc, inputClass } from '@/src/web/ui';
+import { ConfirmAction } from '@/src/web/ui/ConfirmAction';
 import { useApiForm } from '@/src/web/account/useApiForm';
 
 type Role = 'owner' | 'analyst' | 'viewer';
@@ -158,22 +159,20 @@ export function MembersManager({
                   <td className="num px-4 py-2 text-muted">{formatUtc(m.joinedAt).slice(0, 10)}</td>
                   {canManage ? (
                     <td className="px-4 py-2 text-right">
-                      <Button
-                        tone="danger"
+                      <ConfirmAction
+                        label="Remove"
                         size="sm"
-                        busy={pending === `remove-${m.userId}`}
                         disabled={pending !== null}
-                        onClick={() => {
-                          if (!window.confirm(`Remove ${m.name} from this network?`)) return;
-                          void act(
+                        loss={`${m.name} loses access to this network. What they stored stays.`}
+                        confirmLabel={`Remove ${m.name}`}
+                        onConfirm={() =>
+                          act(
                             `remove-${m.userId}`,
                             () => apiSend('DELETE', `/api/networks/${networkId}/members/${m.userId}`),
                             `${m.name} was removed.`,
-                          );
-                        }}
-                      >
-                        Remove
-                      </Button>
+                          )
+                        }
+                      />
                     </td>
                   ) : null}
                 </tr>

@@ -17,6 +17,7 @@ import { useRouter } from 'next/navigation';
 import dynamic from 'next/dynamic';
 // Straight from each module, not the ui index: the index also brings the table and tab code.
 import { Button, buttonClass } from '@/src/web/ui/Button';
+import { ConfirmAction } from '@/src/web/ui/ConfirmAction';
 import { Panel } from '@/src/web/ui/Card';
 import { Caution, Notice } from '@/src/web/ui/Notice';
 import { ProgressBar } from '@/src/web/ui/ProgressBar';
@@ -157,7 +158,7 @@ function RunPageBody({
         actions={
           <>
             {LIVE.has(run.state) && canCancel ? (
-              <Button type="button" onClick={() => act(`${base}/cancel`)} disabled={run.cancelRequested}>
+              <Button type="button" tone="secondary" onClick={() => act(`${base}/cancel`)} disabled={run.cancelRequested}>
                 {run.cancelRequested ? 'Stopping…' : 'Cancel run'}
               </Button>
             ) : null}
@@ -167,14 +168,12 @@ function RunPageBody({
               </Button>
             ) : null}
             {!LIVE.has(run.state) && canDelete ? (
-              <Button
-                type="button"
-                onClick={() => {
-                  if (confirm('Delete this run and its results?')) void act(base, 'DELETE');
-                }}
-              >
-                Delete
-              </Button>
+              <ConfirmAction
+                label="Delete run"
+                loss="The run goes with every interval's result, fit and misfit surface it stored. Its settings can be launched again."
+                confirmLabel="Delete run and results"
+                onConfirm={() => act(base, 'DELETE')}
+              />
             ) : null}
           </>
         }

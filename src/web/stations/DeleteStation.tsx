@@ -1,13 +1,13 @@
 'use client';
-/** Owners remove a station with everything stored for it, after typing its code. */
+/** Owners remove a station with everything stored for it (confirmed in place, see ConfirmAction). */
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
+import { Notice } from '@/src/web/ui/Notice';
+import { ConfirmAction } from '@/src/web/ui/ConfirmAction';
 import { api, ApiFailure } from './api';
 
 export function DeleteStation({ networkId, stationId, code }: { networkId: string; stationId: string; code: string }) {
   const router = useRouter();
-  const [typed, setTyped] = useState('');
   const [error, setError] = useState<string | null>(null);
   async function remove() {
     try {
@@ -21,13 +21,13 @@ export function DeleteStation({ networkId, stationId, code }: { networkId: strin
   return (
     <div className="space-y-3">
       <p className="text-sm text-muted">Removes the station with its files, intervals, fits and push tokens.</p>
-      <FormField id="del-code" label={`Type ${code} to confirm`}>
-        <input className={inputClass} value={typed} onChange={(e) => setTyped(e.target.value)} />
-      </FormField>
+      <ConfirmAction
+        label="Remove station"
+        loss={`${code} goes with every file, interval, spectrum, fit and push token stored for it. Runs that used it keep their results.`}
+        confirmLabel={`Remove ${code} and its data`}
+        onConfirm={remove}
+      />
       {error ? <Notice tone="error">{error}</Notice> : null}
-      <Button tone="danger" disabled={typed !== code} onClick={remove}>
-        Remove station
-      </Button>
     </div>
   );
 }

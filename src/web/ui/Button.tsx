@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { AnchorHTMLAttributes, ButtonHTMLAttributes, ReactNode } from 'react';
+import type { AnchorHTMLAttributes, ButtonHTMLAttributes, ReactNode, Ref } from 'react';
 import { cx } from './cx';
 
 export type ButtonTone = 'primary' | 'secondary' | 'danger' | 'quiet';
@@ -30,6 +30,7 @@ interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   size?: ButtonSize;
   /** Shows a busy state and disables the button. */
   busy?: boolean;
+  ref?: Ref<HTMLButtonElement>;
 }
 
 export function Button({ tone = 'primary', size = 'md', busy, className, children, disabled, type, ...rest }: ButtonProps) {

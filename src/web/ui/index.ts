@@ -1,4 +1,5 @@
 export { Button, ButtonLink, buttonClass } from './Button';
+export { ConfirmAction } from './ConfirmAction';
 export { Card, Panel } from './Card';
 export { EmptyState } from './EmptyState';
 export { FormField, inputClass } from './FormField';

@@ -3,6 +3,7 @@ import { parseHTML } from 'linkedom';
 import * as Plot from '@observablehq/plot';
 import { renderFigureSvg } from '@/src/web/charts/render-svg';
 import { plotOptions, type FigureSpec } from '@/src/web/charts/figure-spec';
+import { RAMPS, REGION_COLOURS } from '@/src/design/tokens';
 
 const points = Array.from({ length: 49 }, (_, i) => ({ f: 6 + i * 0.5, p: 1e-3 * (1 + Math.sin(i / 5) ** 2) }));
 const spec: FigureSpec = {
@@ -13,7 +14,7 @@ const spec: FigureSpec = {
   build: (P) =>
     ({
       y: { type: 'log' },
-      color: { type: 'linear', scheme: 'viridis', legend: true, label: 'bin' },
+      color: { type: 'linear', interpolate: RAMPS.depth, legend: true, label: 'bin' },
       marks: [
         P.dot(points, { x: 'f', y: 'p', r: 2, fill: (_d: unknown, i: number) => i, title: (d: { f: number }) => `${d.f} Hz` }),
         P.line(points, { x: 'f', y: 'p' }),
@@ -78,5 +79,53 @@ describe('renderFigureSvg', () => {
     };
     expect(() => Plot.plot({ ...bad.build(Plot), document: parse('') as unknown as Document })).toThrow();
     expect(renderFigureSvg(bad, 300)).toBeNull();
+  });
+});
+
+// Our chart style (common practice for printed journal figures: inward ticks, numbers and units on every axis).
+describe('chart style', () => {
+  const markup = renderFigureSvg(spec, 640)!;
+  const doc = parse(markup);
+  const tickPaths = (axis: 'x' | 'y') =>
+    Array.from(doc.querySelectorAll(`[aria-label="${axis}-axis tick"] path`)).map((p) => p.getAttribute('d'));
+
+  it('draws ticks inward: up from the x axis, right from the y axis', () => {
+    expect(tickPaths('x').length).toBeGreaterThan(2);
+    for (const d of tickPaths('x')) expect(d).toBe('M0,0L0,-4');
+    expect(tickPaths('y').length).toBeGreaterThan(1);
+    for (const d of tickPaths('y')) expect(d).toBe('M0,0L4,0');
+  });
+
+  it('puts numbers on both axes and both axis lines in, and labels without arrows', () => {
+    for (const axis of ['x', 'y']) {
+      const labels = Array.from(doc.querySelectorAll(`[aria-label="${axis}-axis tick label"] text`)).map((t) => t.textContent);
+      expect(labels.length, axis).toBeGreaterThan(1);
+      for (const l of labels) expect(l).toMatch(/\d/);
+    }
+    expect(doc.querySelectorAll('[aria-label="frame"]').length).toBe(2); // Plot draws each axis line as an anchored frame
+    expect(markup).not.toMatch(/[↑↓→←]/);
+  });
+
+  it('carries no inline CSS (no <style> element, no style attribute) and our class', () => {
+    expect(doc.querySelectorAll('style').length).toBe(0);
+    expect(markup).not.toMatch(/\sstyle="/);
+    expect(doc.querySelector('svg.cv-plot')).not.toBeNull();
+  });
+
+  it('gives categories the region colours of the design tokens unless the figure sets its own', () => {
+    const cats: FigureSpec = {
+      ...spec,
+      build: (P) =>
+        ({
+          color: { legend: true },
+          marks: [
+            P.dot(['a', 'b', 'c'], { x: (_d: string, i: number) => i, y: (_d: string, i: number) => i, fill: (d: string) => d }),
+          ],
+        }) as Plot.PlotOptions,
+    };
+    const fills = Array.from(parse(renderFigureSvg(cats, 400)!).querySelectorAll('.cv-plot-swatch svg')).map((s) =>
+      s.getAttribute('fill'),
+    );
+    expect(fills).toEqual(REGION_COLOURS.slice(0, 3));
   });
 });
