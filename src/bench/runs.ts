@@ -560,7 +560,7 @@ async function solveDay(userId: string): Promise<void> {
         .map((x) => x.toFixed(1))
         .join(' ')}`,
   );
-  const { extra, rows, last, passes } = await driverAgainstEngine('(c2)', networkId, userId, config, DAY_ROUNDS);
+  const { extra, rows, passes } = await driverAgainstEngine('(c2)', networkId, userId, config, DAY_ROUNDS);
   const mid = (pick: (p: { driver: Pass; alone: Pass }) => number) => median(passes.map(pick));
   console.log(
     `(c2) the run through the driver ${(mid((p) => p.driver.wallMs) / 1000).toFixed(2)} s, the engine alone ${(mid((p) => p.alone.wallMs) / 1000).toFixed(2)} s (medians of ${passes.length} rounds); ` +

@@ -1,7 +1,9 @@
 /**
- * `npm test [-- vitest args]`: a throwaway PostgreSQL (fresh temp folder, free loopback port),
- * migrations, the unit and integration tests, then the browser tests when /usr/bin/chromium
- * exists (required when CI=true), then the cluster is removed. Exit code 0 only if all passed.
+ * `npm test [-- vitest args]`: first the static checks (`eslint .` and `prettier --check .`;
+ * left out when vitest arguments narrow the run), then a throwaway PostgreSQL (fresh temp
+ * folder, free loopback port), migrations, the unit and integration tests, then the browser
+ * tests when /usr/bin/chromium exists (required when CI=true), then the cluster is removed.
+ * Exit code 0 only if all passed: a lint finding or an unformatted file fails the run.
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -9,7 +11,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { startThrowawayPostgres } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
-import { projectRoot, vitestBin } from './paths';
+import { eslintBin, prettierBin, projectRoot, vitestBin } from './paths';
 import { CHROMIUM, browserPlan } from './test-plan';
 import { childEnv } from '@/src/settings';
 
@@ -43,16 +45,30 @@ function vitest(config: string, args: string[], env: NodeJS.ProcessEnv): number 
   return r.status ?? 1;
 }
 
+/** One static check over the whole tree; true when it found nothing. */
+function staticCheck(name: string, bin: string, args: string[]): boolean {
+  console.log(`[test] ${name}…`);
+  const r = spawnSync(process.execPath, [bin, ...args], { cwd: projectRoot, stdio: 'inherit' });
+  if (r.status === 0) return true;
+  console.error(`[test] ${name} found problems (exit ${r.status ?? r.signal}); see above`);
+  return false;
+}
+
 async function main(): Promise<number> {
   const args = process.argv.slice(2);
   // With a filter, either suite may legitimately match nothing.
   const extra = args.length ? [...args, '--passWithNoTests'] : [];
+  let failed = false;
+  if (!args.length) {
+    const cache = ['--cache', '--cache-location', path.join(projectRoot, 'node_modules', '.cache', 'eslint')];
+    if (!staticCheck('eslint .', eslintBin, ['.', ...cache])) failed = true;
+    if (!staticCheck('prettier --check .', prettierBin, ['--check', '.', '--log-level', 'warn'])) failed = true;
+  }
   console.log('[test] starting a throwaway PostgreSQL…');
   const pg = await startThrowawayPostgres();
   // Ctrl-C reaches vitest too; we stay alive long enough to remove the cluster.
   process.on('SIGINT', () => console.log('[test] interrupted; cleaning up…'));
   process.on('SIGTERM', () => console.log('[test] terminated; cleaning up…'));
-  let failed = false;
   try {
     await migrate(pg.url);
     const env = childEnv({ DATABASE_URL: pg.url, NEXT_TELEMETRY_DISABLED: '1' });

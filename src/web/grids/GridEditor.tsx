@@ -107,7 +107,10 @@ export function GridEditor({ networkId, initial, baseId }: { networkId: string; 
   function applyCells(ids: number[], remove: boolean) {
     if (!current || current.kind !== 'cells') return;
     const set = new Set(current.cells);
-    for (const id of ids) remove ? set.delete(id) : set.add(id);
+    for (const id of ids) {
+      if (remove) set.delete(id);
+      else set.add(id);
+    }
     update(active, { cells: [...set].sort((a, b) => a - b) } as Partial<Region>);
   }
   function onDown(e: MouseEvent<SVGRectElement>) {

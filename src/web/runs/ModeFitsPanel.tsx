@@ -189,8 +189,8 @@ export function ModeFitsPanel({
   if (!chosen || !figs)
     return (
       <p className="text-sm text-muted">
-        No observed modes in this interval: the stations' mode fits for it may have been removed. Fit the interval's spectra
-        again, then run again.
+        No observed modes in this interval: the stations&apos; mode fits for it may have been removed. Fit the interval&apos;s
+        spectra again, then run again.
       </p>
     );
   const [label, { station, component }] = chosen;

@@ -11,7 +11,7 @@ import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { Button, Caution, Notice, formatDuration, inputClass } from '@/src/web/ui';
 import { apiSend } from '@/src/web/swr';
 import { INVERSION_DEFAULTS } from '@/src/engine/inverse/defaults';
-import { runConfigSchema, type RunConfig } from '@/src/runs/config';
+import { runConfigSchema } from '@/src/runs/config';
 import type { Region } from '@/src/runs/grid-spec';
 
 export interface LauncherOptions {
@@ -216,7 +216,6 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
   }
   const err = (k: string) =>
     (errors as Record<string, { message?: string }>)[k]?.message ?? problems.find((p) => formPath(p.field) === k)?.message;
-  const E = ({ k }: { k: string }) => (err(k) ? <p className="text-xs font-medium text-danger">{err(k)}</p> : null);
   const section = 'rounded-[var(--radius-card,0.5rem)] border border-line p-4 space-y-3';
 
   return (
@@ -226,7 +225,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
           Run name
           <input className={inputClass} {...register('name')} />
         </label>
-        <E k="name" />
+        <FieldError message={err('name')} />
         <div className="grid gap-3 md:grid-cols-2">
           <label className="block text-sm font-medium">
             Cavity model
@@ -249,8 +248,8 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
             </select>
           </label>
         </div>
-        <E k="modelId" />
-        <E k="gridId" />
+        <FieldError message={err('modelId')} />
+        <FieldError message={err('gridId')} />
       </div>
 
       <fieldset className={section}>
@@ -263,7 +262,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
             </label>
           ))}
         </div>
-        <E k="stationIds" />
+        <FieldError message={err('stationIds')} />
         <div className="flex gap-4 text-sm">
           {['Ez', 'Bns', 'Bew'].map((c) => (
             <label key={c} className="flex items-center gap-1">
@@ -272,7 +271,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
             </label>
           ))}
         </div>
-        <E k="components" />
+        <FieldError message={err('components')} />
         <div className="grid gap-3 md:grid-cols-3">
           <label className="block text-sm font-medium">
             First interval start (UT)
@@ -287,8 +286,8 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
             Include flagged intervals
           </label>
         </div>
-        <E k="from" />
-        <E k="to" />
+        <FieldError message={err('from')} />
+        <FieldError message={err('to')} />
         <p className="text-xs text-muted">
           Stored data:{' '}
           {options.range.first
@@ -331,9 +330,9 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
             <input type="number" className={inputClass} {...register('modes', { valueAsNumber: true })} />
           </label>
         )}
-        <E k="minHz" />
-        <E k="maxHz" />
-        <E k="observables" />
+        <FieldError message={err('minHz')} />
+        <FieldError message={err('maxHz')} />
+        <FieldError message={err('observables')} />
       </fieldset>
 
       <fieldset className={section}>
@@ -378,7 +377,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
                         step="any"
                         {...register(`regions.${i}.iMax`, { valueAsNumber: true })}
                       />
-                      <E k={`regions.${i}.iMin`} />
+                      <FieldError message={err(`regions.${i}.iMin`)} />
                     </td>
                     <td>
                       {r.moving ? (
@@ -398,7 +397,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
                             step="any"
                             {...register(`regions.${i}.latMax`, { valueAsNumber: true })}
                           />
-                          <E k={`regions.${i}.latMin`} />
+                          <FieldError message={err(`regions.${i}.latMin`)} />
                         </>
                       ) : (
                         'fixed'
@@ -422,7 +421,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
                             step="any"
                             {...register(`regions.${i}.lonMax`, { valueAsNumber: true })}
                           />
-                          <E k={`regions.${i}.lonMin`} />
+                          <FieldError message={err(`regions.${i}.lonMin`)} />
                         </>
                       ) : (
                         'fixed'
@@ -436,7 +435,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
         ) : (
           <p className="text-sm text-muted">The chosen grid has no regions yet: draw some on the grid page first.</p>
         )}
-        <E k="regions" />
+        <FieldError message={err('regions')} />
       </fieldset>
 
       <fieldset className={section}>
@@ -463,10 +462,10 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
           <input type="checkbox" {...register('scaleCovariance')} />
           Scale standard errors by the reduced chi-square
         </label>
-        <E k="starts" />
-        <E k="seed" />
-        <E k="initialLambda" />
-        <E k="maxIterations" />
+        <FieldError message={err('starts')} />
+        <FieldError message={err('seed')} />
+        <FieldError message={err('initialLambda')} />
+        <FieldError message={err('maxIterations')} />
       </fieldset>
 
       <div className={section} aria-live="polite">
@@ -506,4 +505,8 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
       <Caution topic="research" />
     </form>
   );
+}
+
+function FieldError({ message }: { message?: string }) {
+  return message ? <p className="text-xs font-medium text-danger">{message}</p> : null;
 }

@@ -1,26 +1,39 @@
 'use client';
 /** Light / dark / system colour theme, remembered in this browser. */
-import { useEffect, useState } from 'react';
-
-type Choice = 'system' | 'light' | 'dark';
+import { useSyncExternalStore } from 'react';
 import { THEME_KEY as KEY } from './theme-script';
 
-export function ThemeToggle() {
-  const [choice, setChoice] = useState<Choice>('system');
-  useEffect(() => {
-    const t = localStorage.getItem(KEY);
-    if (t === 'light' || t === 'dark') setChoice(t);
-  }, []);
-  function apply(next: Choice) {
-    setChoice(next);
-    if (next === 'system') {
-      localStorage.removeItem(KEY);
-      delete document.documentElement.dataset.theme;
-    } else {
-      localStorage.setItem(KEY, next);
-      document.documentElement.dataset.theme = next;
-    }
+type Choice = 'system' | 'light' | 'dark';
+
+// The stored choice is a small external store: localStorage, with listeners for changes made
+// here and in other tabs (the 'storage' event).
+const listeners = new Set<() => void>();
+function subscribe(listener: () => void): () => void {
+  listeners.add(listener);
+  window.addEventListener('storage', listener);
+  return () => {
+    listeners.delete(listener);
+    window.removeEventListener('storage', listener);
+  };
+}
+function storedChoice(): Choice {
+  const t = localStorage.getItem(KEY);
+  return t === 'light' || t === 'dark' ? t : 'system';
+}
+function applyChoice(next: Choice): void {
+  if (next === 'system') {
+    localStorage.removeItem(KEY);
+    delete document.documentElement.dataset.theme;
+  } else {
+    localStorage.setItem(KEY, next);
+    document.documentElement.dataset.theme = next;
   }
+  for (const l of listeners) l();
+}
+
+export function ThemeToggle() {
+  const choice = useSyncExternalStore<Choice>(subscribe, storedChoice, () => 'system');
+  const apply = applyChoice;
   return (
     <fieldset className="px-2.5 py-1.5">
       <legend className="mb-1 text-xs text-muted">Colour theme</legend>

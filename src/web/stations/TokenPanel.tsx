@@ -47,7 +47,7 @@ export function TokenPanel({ networkId, stationId, pushUrl }: { networkId: strin
     await mutate();
   }
 
-  const now = Date.now();
+  const [now] = useState(() => Date.now()); // when the panel opened: expiry is a matter of days
   const rows = (data?.tokens ?? []).map((t) => ({
     ...t,
     status: t.revokedAt ? 'revoked' : t.expiresAt && new Date(t.expiresAt).getTime() <= now ? 'expired' : 'active',

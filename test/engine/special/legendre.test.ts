@@ -116,7 +116,7 @@ describe('zonal harmonic series identity sum (2n+1) P_n(cos th)/(n(n+1) - nu(nu+
 
 describe('special cases and the Legendre equation', () => {
   const Pn = [
-    (x: number) => 1,
+    () => 1,
     (x: number) => x,
     (x: number) => (3 * x * x - 1) / 2,
     (x: number) => (5 * x ** 3 - 3 * x) / 2,
