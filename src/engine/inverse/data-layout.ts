@@ -3,12 +3,16 @@
  * common frequency grid (the sorted union of the kept observed frequencies),
  * and per series its station, component, grid indexes, ln(power) and 1/sigma.
  * Mains bins (line and harmonics ± half-width) and user-excluded bands are
- * left out here. Every bad input throws an InversionInputError naming the
+ * left out here. A series with Welch statistics gets sigma from K_eff, the
+ * log bias removed and a whitening of its neighbouring bins' correlation
+ * (bin-whitening.ts). Every bad input throws an InversionInputError naming the
  * series and bin.
  */
 import type { Component } from '@/src/engine/components';
 import { logPowerBias, logPowerVariance } from '@/src/engine/stats/log-power';
 import { welchStatisticsProblem } from '@/src/engine/stats/welch-statistics';
+import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
+import { bandedWhitener, gridPositions, type BandedWhitener } from './bin-whitening';
 import { InversionInputError } from './errors';
 import type { BinSelection, ObservedSeries, StationSite } from './types';
 
@@ -26,6 +30,8 @@ export interface SeriesLayout {
   invSigma: number;
   /** Offset of this series' first residual. */
   offset: number;
+  /** Banded whitening of the bins' correlation (series with Welch statistics; bin-whitening.ts). */
+  whiten?: BandedWhitener;
 }
 
 export interface DataLayout {
@@ -60,6 +66,11 @@ export function buildDataLayout(stations: StationSite[], observed: ObservedSerie
     if (o.welch) {
       const problem = welchStatisticsProblem(o.welch);
       if (problem) throw new InversionInputError(`${where}: welch.${problem}`);
+      for (let k = 1; k < o.frequencies.length; k++)
+        if (!(o.frequencies[k] > o.frequencies[k - 1]))
+          throw new InversionInputError(
+            `${where}: frequencies must increase when welch is given (bin ${k}, ${o.frequencies[k]} Hz)`,
+          );
     } else if (o.sigmaLog === undefined)
       throw new InversionInputError(`${where}: sigmaLog or welch is required (the scatter of ln power)`);
     else if (!(o.sigmaLog > 0) || !Number.isFinite(o.sigmaLog))
@@ -99,6 +110,10 @@ export function buildDataLayout(stations: StationSite[], observed: ObservedSerie
       invSigma: o.welch ? 1 / Math.sqrt(logPowerVariance(o.welch.effectiveAverages)) : 1 / o.sigmaLog!,
       offset,
     };
+    if (o.welch) {
+      const lag = hannWelchBinCorrelation(o.welch.segments, o.welch.overlap);
+      s.whiten = bandedWhitener(gridPositions(o.frequencies, f), lag);
+    }
     offset += f.length;
     return s;
   });

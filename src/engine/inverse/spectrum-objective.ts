@@ -16,12 +16,15 @@
  * centre (spotNodesInto's derivatives); the same for lon; dproj/dbearing is
  * sin(2b) for Bns and -sin(2b) for Bew. The spread derivative is a central
  * difference of the effective kernel (SPREAD_DIFF_STEP_DEG).
+ * A series with correlated bins (Welch statistics) has its residuals and
+ * Jacobian rows whitened (bin-whitening.ts): chi2 = r^T C^-1 r.
  */
 import type { GreatCircle } from '@/src/engine/geometry/great-circle';
 import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { SPOT_MAX_NODES, SPOT_STRIDE, spotNodesInto } from '@/src/engine/sources/spot';
 import { SPREAD_DIFF_STEP_DEG } from '@/src/engine/tolerances';
 import type { DataLayout } from './data-layout';
+import { whitenResiduals, whitenRows } from './bin-whitening';
 import { centreDerivatives, effectiveKernels } from './region-kernels';
 import { InversionInputError } from './errors';
 import { createKernelBuffers, type KernelBuffers, type KernelSampler } from './kernel-sampler';
@@ -128,6 +131,7 @@ export function spectrumProblem(
       if (scale === 'log') for (let k = 0; k < len; k++) out[offset + k] = (Math.log(predicted[offset + k]) - se.lnObs[k]) * inv;
       else if (scale === 'linear') for (let k = 0; k < len; k++) out[offset + k] = (predicted[offset + k] / se.obs[k] - 1) * inv;
       else for (let k = 0; k < len; k++) out[offset + k] = (predicted[offset + k] / se.obs[k]) * inv;
+      if (se.whiten) whitenResiduals(se.whiten, out, offset);
     }
   }
 
@@ -192,6 +196,7 @@ export function spectrumProblem(
           if (dSp) out[row + jSp] += w * dSp[b];
         }
       }
+      if (se.whiten) whitenRows(se.whiten, out, offset, n);
     }
   }
 

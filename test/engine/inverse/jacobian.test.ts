@@ -49,6 +49,23 @@ describe('spectrum misfit Jacobian', () => {
     });
   }
 
+  it('matches central differences with Welch statistics (whitened residuals and rows, a bin left out)', () => {
+    const welch = { segments: 20, window: 'hann' as const, overlap: 0.5, effectiveAverages: 19.1 };
+    const withGap = observed.map((o) => ({
+      ...o,
+      frequencies: freqs.filter((_, k) => k !== 7),
+      power: Array.from(o.power).filter((_, k) => k !== 7),
+      welch,
+    }));
+    const l = buildDataLayout(stations, withGap);
+    expect(l.series[0].whiten).toBeDefined();
+    const prob = spectrumProblem(l, analyticKernel(l.freqs), par, 'log');
+    const analytic = new Float64Array(prob.nResiduals * prob.nParams);
+    prob.jacobian(point, analytic);
+    const numeric = centralDifferenceJacobian(prob, point);
+    expect(maxColumnRelativeError(analytic, numeric, prob.nResiduals, prob.nParams)).toBeLessThan(1e-6);
+  });
+
   it('matches central differences for spot regions (free spread, fixed spread) with the engine kernel', () => {
     const spotUnknowns = [
       {
