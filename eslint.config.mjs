@@ -26,4 +26,29 @@ export default defineConfig([
       '@typescript-eslint/no-unused-expressions': 'error',
     },
   },
+  {
+    // House rule: one way to the data. Pages, route handlers and actions call the domain modules in src/.
+    files: ['app/**'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        { patterns: [{ group: ['@/db', '@/db/*'], message: 'app/ calls the domain modules in src/, never db/ directly.' }] },
+      ],
+    },
+  },
+  {
+    // House rule: the environment is read in src/settings.ts only (tests may set it).
+    files: ['app/**', 'src/**', 'db/**'],
+    ignores: ['src/settings.ts'],
+    rules: {
+      'no-restricted-properties': [
+        'error',
+        {
+          object: 'process',
+          property: 'env',
+          message: 'Read settings through src/settings.ts (settings(), childEnv(), setEnv()).',
+        },
+      ],
+    },
+  },
 ]);

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { pageAdmin } from '@/src/auth/pages';
-import { listNetworksForUser } from '@/db/repo/networks';
+import { listNetworksForUser } from '@/src/auth/networks';
 import { AppShell } from '@/src/web/shell/AppShell';
 
 /** Site administration: only administrators (others get a 404 page). */

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { pageUser } from '@/src/auth/pages';
-import { listNetworksForUser } from '@/db/repo/networks';
+import { listNetworksForUser } from '@/src/auth/networks';
 import { AppShell } from '@/src/web/shell/AppShell';
 import { PageHeader } from '@/src/web/shell/PageHeader';
 import { Card, DataTable, EmptyState, Notice } from '@/src/web/ui';

@@ -11,6 +11,7 @@ import {
   createNetwork,
   findOpenInvitation,
   listMembers,
+  listNetworksForUser,
   listOpenInvitations,
   removeMember,
   renameNetwork,
@@ -49,7 +50,7 @@ export const acceptSchema = z.discriminatedUnion(
   { error: 'Say how to accept: mode "current", "sign-up" or "sign-in".' },
 );
 
-export { createNetwork, renameNetwork, listMembers, changeMemberRole, removeMember, revokeInvitation };
+export { createNetwork, renameNetwork, listMembers, listNetworksForUser, changeMemberRole, removeMember, revokeInvitation };
 
 export async function membersOverview(networkId: string, includeInvitations: boolean) {
   const [members, invitations] = await Promise.all([

@@ -9,6 +9,9 @@ import { resolveCavity } from '@/src/engine/cavity/resolve';
 import { gridProblems, type GridInput } from './grid-spec';
 import type { ModelInput } from './model-spec';
 
+export { getGrid, listGrids, listGridVersions, type GridRow } from '@/db/repo/grids';
+export { getModel, listModels, listModelVersions, type ModelRow } from '@/db/repo/models';
+
 function checkModel(input: ModelInput): void {
   try {
     resolveCavity(input.config);

@@ -1,7 +1,9 @@
-/** Cancelling, re-running and deleting runs (the route handlers call these). */
+/** A network's runs: listing, cancelling, re-running and deleting (the pages and route handlers call these). */
 import { deleteRun, getRun, requestCancel, requeueRun, type RunRow } from '@/db/repo/runs';
 import { enqueue } from '@/db/jobs';
 import { conflict, notFound } from '@/src/server/errors';
+
+export { listRuns, type RunListEntry } from '@/db/repo/runs';
 import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
 
 export async function cancelRun(networkId: string, runId: string): Promise<RunRow> {

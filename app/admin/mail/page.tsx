@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { pageAdmin } from '@/src/auth/pages';
-import { listMail, countMail } from '@/db/repo/mail';
+import { listMail, countMail } from '@/src/mail/mailbox';
 import { PageHeader } from '@/src/web/shell/PageHeader';
 import { DataTable, EmptyState, Notice } from '@/src/web/ui';
 

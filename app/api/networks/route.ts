@@ -1,7 +1,6 @@
 import { json, parseJson, route } from '@/src/server/route';
 import { requireUser } from '@/src/auth/permissions';
-import { createNetwork, createNetworkSchema } from '@/src/auth/networks';
-import { listNetworksForUser } from '@/db/repo/networks';
+import { createNetwork, createNetworkSchema, listNetworksForUser } from '@/src/auth/networks';
 
 /** The caller's networks with their role in each. */
 export const GET = route(async () => {

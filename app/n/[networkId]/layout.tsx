@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { pageNetworkAction } from '@/src/auth/pages';
-import { listNetworksForUser } from '@/db/repo/networks';
+import { listNetworksForUser } from '@/src/auth/networks';
 import { AppShell } from '@/src/web/shell/AppShell';
 
 export default async function NetworkLayout({

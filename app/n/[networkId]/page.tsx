@@ -1,8 +1,8 @@
 import type { Metadata } from 'next';
 import { pageNetworkAction } from '@/src/auth/pages';
 import { can, ROLE_LABEL, ROLE_SUMMARY } from '@/src/auth/permissions';
-import { listMembers } from '@/db/repo/networks';
-import { listStations } from '@/db/repo/stations';
+import { listMembers } from '@/src/auth/networks';
+import { listStations } from '@/src/data/stations';
 import { PageHeader } from '@/src/web/shell/PageHeader';
 import { ButtonLink, Card, Caution, Notice, Panel, formatUtc } from '@/src/web/ui';
 import { StationOverviewMap } from '@/src/web/networks/StationOverviewMap';

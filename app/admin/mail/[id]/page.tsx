@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { pageAdmin } from '@/src/auth/pages';
-import { getMail } from '@/db/repo/mail';
+import { getMail } from '@/src/mail/mailbox';
 import { PageHeader } from '@/src/web/shell/PageHeader';
 import { Card, formatUtc } from '@/src/web/ui';
 

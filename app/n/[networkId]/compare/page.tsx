@@ -1,5 +1,5 @@
 import { pageNetworkAction } from '@/src/auth/pages';
-import { listRuns } from '@/db/repo/runs';
+import { listRuns } from '@/src/runs/control';
 import { getRunSummary, type RunView } from '@/src/runs/results';
 import { Button, Caution, EmptyState, Notice, Panel, inputClass } from '@/src/web/ui';
 import { CompareView } from '@/src/web/runs/CompareView';

@@ -1,6 +1,6 @@
 import { pageNetworkAction } from '@/src/auth/pages';
 import { can } from '@/src/auth/permissions';
-import { listGrids } from '@/db/repo/grids';
+import { listGrids } from '@/src/runs/catalogue';
 import { ButtonLink, DataTable, EmptyState, Panel } from '@/src/web/ui';
 
 export const metadata = { title: 'Source grids · Cavitas' };

@@ -1,6 +1,6 @@
 import { pageNetworkAction } from '@/src/auth/pages';
 import { can } from '@/src/auth/permissions';
-import { listModels } from '@/db/repo/models';
+import { listModels } from '@/src/runs/catalogue';
 import { ButtonLink, DataTable, EmptyState, Panel } from '@/src/web/ui';
 
 export const metadata = { title: 'Cavity models · Cavitas' };

@@ -1,6 +1,6 @@
 import { pageNetworkAction } from '@/src/auth/pages';
 import { can } from '@/src/auth/permissions';
-import { listRuns } from '@/db/repo/runs';
+import { listRuns } from '@/src/runs/control';
 import { ButtonLink, Caution, DataTable, EmptyState, Panel } from '@/src/web/ui';
 
 export const metadata = { title: 'Runs · Cavitas' };

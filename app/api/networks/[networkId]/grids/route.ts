@@ -1,8 +1,7 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseJson, route } from '@/src/server/route';
-import { listGrids } from '@/db/repo/grids';
+import { listGrids, saveGrid } from '@/src/runs/catalogue';
 import { gridInputSchema } from '@/src/runs/grid-spec';
-import { saveGrid } from '@/src/runs/catalogue';
 
 type P = { networkId: string };
 

@@ -1,8 +1,7 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseJson, route } from '@/src/server/route';
-import { listModels } from '@/db/repo/models';
+import { listModels, saveModel } from '@/src/runs/catalogue';
 import { modelInputSchema } from '@/src/runs/model-spec';
-import { saveModel } from '@/src/runs/catalogue';
 
 type P = { networkId: string };
 

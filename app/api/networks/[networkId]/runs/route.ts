@@ -1,6 +1,6 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseJson, route } from '@/src/server/route';
-import { listRuns } from '@/db/repo/runs';
+import { listRuns } from '@/src/runs/control';
 import { runConfigSchema } from '@/src/runs/config';
 import { launchRun } from '@/src/runs/launch';
 

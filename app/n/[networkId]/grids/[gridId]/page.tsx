@@ -1,7 +1,7 @@
 import { notFound } from 'next/navigation';
 import { pageNetworkAction } from '@/src/auth/pages';
 import { can } from '@/src/auth/permissions';
-import { listGridVersions } from '@/db/repo/grids';
+import { listGridVersions } from '@/src/runs/catalogue';
 import { regionSchema } from '@/src/runs/grid-spec';
 import { ButtonLink, Panel } from '@/src/web/ui';
 import { GridPreview } from '@/src/web/grids/GridPreview';

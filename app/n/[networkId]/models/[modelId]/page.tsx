@@ -1,7 +1,7 @@
 import { notFound } from 'next/navigation';
 import { pageNetworkAction } from '@/src/auth/pages';
 import { can } from '@/src/auth/permissions';
-import { listModelVersions } from '@/db/repo/models';
+import { listModelVersions } from '@/src/runs/catalogue';
 import { ButtonLink, Panel } from '@/src/web/ui';
 import { ModelCurves } from '@/src/web/models/ModelCurves';
 import type { CavityConfig } from '@/src/engine/cavity/types';

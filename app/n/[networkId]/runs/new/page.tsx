@@ -1,7 +1,6 @@
 import { pageNetworkAction } from '@/src/auth/pages';
-import { listModels } from '@/db/repo/models';
-import { listGrids } from '@/db/repo/grids';
-import { listStations } from '@/db/repo/stations';
+import { listModels, listGrids } from '@/src/runs/catalogue';
+import { listStations } from '@/src/data/stations';
 import { regionSchema } from '@/src/runs/grid-spec';
 import { ButtonLink, EmptyState, Panel } from '@/src/web/ui';
 import { RunLauncher } from '@/src/web/runs/RunLauncher';

@@ -1,9 +1,8 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseJson, route } from '@/src/server/route';
-import { listGridVersions } from '@/db/repo/grids';
+import { listGridVersions, saveGrid } from '@/src/runs/catalogue';
 import { notFound } from '@/src/server/errors';
 import { gridInputSchema } from '@/src/runs/grid-spec';
-import { saveGrid } from '@/src/runs/catalogue';
 import { requireId } from '@/src/runs/ids';
 
 type P = { networkId: string; gridId: string };

@@ -1,9 +1,8 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseJson, route } from '@/src/server/route';
-import { listModelVersions } from '@/db/repo/models';
+import { listModelVersions, saveModel } from '@/src/runs/catalogue';
 import { notFound } from '@/src/server/errors';
 import { modelInputSchema } from '@/src/runs/model-spec';
-import { saveModel } from '@/src/runs/catalogue';
 import { requireId } from '@/src/runs/ids';
 
 type P = { networkId: string; modelId: string };

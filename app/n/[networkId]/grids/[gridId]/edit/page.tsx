@@ -1,6 +1,6 @@
 import { notFound } from 'next/navigation';
 import { pageNetworkAction } from '@/src/auth/pages';
-import { getGrid } from '@/db/repo/grids';
+import { getGrid } from '@/src/runs/catalogue';
 import { regionSchema } from '@/src/runs/grid-spec';
 import { Panel } from '@/src/web/ui';
 import { GridEditor } from '@/src/web/grids/GridEditor';

@@ -1,6 +1,6 @@
 import { notFound } from 'next/navigation';
 import { pageNetworkAction } from '@/src/auth/pages';
-import { getModel } from '@/db/repo/models';
+import { getModel } from '@/src/runs/catalogue';
 import { Panel } from '@/src/web/ui';
 import { ModelEditor } from '@/src/web/models/ModelEditor';
 import type { CavityConfig } from '@/src/engine/cavity/types';
