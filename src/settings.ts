@@ -62,6 +62,16 @@ const schema = z.object({
   UPLOAD_MAX_MB: positive.default(200),
   /** Requests one station push token may make per minute. */
   PUSH_RATE_PER_MINUTE: count.default(120),
+  /** Largest JSON body of sign-in, sign-up and password resets, in kilobytes (refused with 413 before parsing). */
+  AUTH_BODY_MAX_KB: positive.default(16),
+  /** Largest JSON body of every other API call, in kilobytes (station pushes have their own cap). */
+  JSON_BODY_MAX_KB: positive.default(1024),
+  /** Earliest sample date accepted from an upload or a push (a UTC day). */
+  SAMPLE_EARLIEST: z.iso.date('must be a day like 1990-01-01').default('1990-01-01'),
+  /** Hours ahead of the server's clock a sample date may lie (clock drift of station computers). */
+  SAMPLE_AHEAD_HOURS: num.refine((n) => n >= 0, 'must be 0 or more').default(24),
+  /** Cells a source grid's cell regions may name in all. */
+  GRID_MAX_CELLS: count.default(10000),
 
   // ── Worker and runs ───────────────────────────────────────────────────────────────────────
   /** Jobs of each kind one worker process works at once. */

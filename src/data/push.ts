@@ -10,30 +10,18 @@ import { saveIntervals } from '@/db/repo/intervals';
 import { AppError, badRequest, notFound } from '@/src/server/errors';
 import { processRawInterval, INTERVAL_SECONDS } from './interval-processing';
 import { COMPONENTS } from './station-input';
+import { readLimitedText } from '@/src/server/body-limit';
 
 /** Largest push body accepted (bytes): three components at a few hundred Hz fit easily. */
 export const PUSH_MAX_BYTES = 32 * 1024 * 1024;
 
 /** The request body as text, refusing more than PUSH_MAX_BYTES whether announced or streamed. */
-export async function readPushBody(req: Request): Promise<string> {
-  const tooBig = () =>
-    new AppError(413, 'too_large', `A push may carry at most ${PUSH_MAX_BYTES >> 20} MB; send one interval per request.`, 'body');
-  if (Number(req.headers.get('content-length') ?? 0) > PUSH_MAX_BYTES) throw tooBig();
-  if (!req.body) return '';
-  const reader = req.body.getReader();
-  const parts: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.length;
-    if (size > PUSH_MAX_BYTES) {
-      await reader.cancel().catch(() => {});
-      throw tooBig();
-    }
-    parts.push(value);
-  }
-  return Buffer.concat(parts).toString('utf8');
+export function readPushBody(req: Request): Promise<string> {
+  return readLimitedText(
+    req,
+    PUSH_MAX_BYTES,
+    () => `A push may carry at most ${PUSH_MAX_BYTES >> 20} MB; send one interval per request.`,
+  );
 }
 
 const sample = z.union([z.number(), z.null()]);

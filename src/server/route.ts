@@ -13,6 +13,7 @@
 import { ZodError, type z } from 'zod';
 import { AppError, badRequest, forbidden, type ErrorBody } from './errors';
 import { currentRequestContext, runWithRequest } from './request-context';
+import { readJsonText } from './body-limit';
 import { settings } from '@/src/settings';
 
 type Handler<P> = (req: Request, ctx: { params: P }) => Promise<Response | unknown>;
@@ -94,9 +95,9 @@ export function requestOrigin(req: Request): string {
 
 /** Parse and validate a JSON body; a body that is not JSON is a 400 naming the problem. */
 export async function parseJson<S extends z.ZodType>(req: Request, schema: S): Promise<z.infer<S>> {
+  const text = await readJsonText(req); // 413 past the body cap, before any parsing
   let data: unknown;
   try {
-    const text = await req.text();
     data = text.trim() === '' ? {} : JSON.parse(text);
   } catch {
     throw badRequest('The request body is not valid JSON.');
