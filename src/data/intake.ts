@@ -113,7 +113,9 @@ async function storeSpooled(
     },
   );
 
-  if (!result.duplicate) await queueProcessing(result.upload.id);
+  // A duplicate still queued may be the same file sent again after its first queueing failed
+  // (the database went away in between): queue it again; the worker takes an upload only once.
+  if (!result.duplicate || result.upload.state === 'queued') await queueProcessing(result.upload.id);
   return result;
 }
 

@@ -14,6 +14,7 @@ import { ZodError, type z } from 'zod';
 import { AppError, badRequest, forbidden, type ErrorBody } from './errors';
 import { currentRequestContext, runWithRequest } from './request-context';
 import { readJsonText } from './body-limit';
+import { databaseFaultReason, databaseUnavailableResponse, isDatabaseFault } from './db-faults';
 import { settings } from '@/src/settings';
 
 type Handler<P> = (req: Request, ctx: { params: P }) => Promise<Response | unknown>;
@@ -44,6 +45,10 @@ export function toErrorResponse(e: unknown): Response {
     const error: ErrorBody['error'] = { code: 'invalid_input', message };
     if (field) error.field = field;
     return errorResponse(400, { error });
+  }
+  if (isDatabaseFault(e)) {
+    console.error(`[cavitas] database not reachable: ${databaseFaultReason(e)}`);
+    return databaseUnavailableResponse();
   }
   console.error('[cavitas] unhandled error in route handler', e);
   return errorResponse(500, {
