@@ -8,6 +8,7 @@
  * fills in DATABASE_URL for its children) may change a variable and see the effect at once.
  */
 import { z } from 'zod';
+import { DEFAULT_GRID_MAX_CELLS } from '@/src/runs/grid-spec';
 
 type Env = Record<string, string | undefined>;
 
@@ -71,7 +72,7 @@ const schema = z.object({
   /** Hours ahead of the server's clock a sample date may lie (clock drift of station computers). */
   SAMPLE_AHEAD_HOURS: num.refine((n) => n >= 0, 'must be 0 or more').default(24),
   /** Cells a source grid's cell regions may name in all. */
-  GRID_MAX_CELLS: count.default(10000),
+  GRID_MAX_CELLS: count.default(DEFAULT_GRID_MAX_CELLS),
 
   // ── Worker and runs ───────────────────────────────────────────────────────────────────────
   /** Jobs of each kind one worker process works at once. */
@@ -106,6 +107,12 @@ const schema = z.object({
   BENCH_RUN_DAY: flag.default(true),
   /** Measure the run page's load (false skips it). */
   BENCH_RUN_PAGE: flag.default(true),
+  /** `npm run bench -- load`: simulated users, each with a session of its own. */
+  LOAD_USERS: count.default(50),
+  /** Rounds each simulated user makes over the three addresses. */
+  LOAD_ROUNDS: count.default(10),
+  /** The load phase stops after this many seconds even if rounds remain. */
+  LOAD_SECONDS: positive.default(120),
 });
 
 export type Settings = z.output<typeof schema>;

@@ -58,6 +58,8 @@ export interface IntervalResultInput {
   qualityFlags: string[];
   spectrum: { frequencies: number[]; power: number[]; segments: number };
   fit: IntervalFit | null;
+  /** Checksum of pushed samples (pushes only). */
+  samplesSha256?: string | null;
 }
 
 export interface IntervalSummary {
@@ -110,6 +112,17 @@ export interface IntervalFilter {
 const BATCH = 400;
 
 /** Saves processed intervals (upsert); returns ids in input order and whether each row is new. */
+/** What is stored at one station and start, per component: where it came from and its samples' checksum. */
+export async function storedAt(
+  stationId: string,
+  startsAt: Date,
+): Promise<{ component: ComponentName; origin: IntervalOrigin; samplesSha256: string | null }[]> {
+  return getDb()
+    .select({ component: intervals.component, origin: intervals.origin, samplesSha256: intervals.samplesSha256 })
+    .from(intervals)
+    .where(and(eq(intervals.stationId, stationId), eq(intervals.startsAt, startsAt)));
+}
+
 export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id: string; created: boolean }[]> {
   const out: { id: string; created: boolean }[] = [];
   await getDb().transaction(async (tx) => {
@@ -128,6 +141,7 @@ export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id:
             uploadId: i.uploadId,
             rejectedShare: i.rejectedShare,
             qualityFlags: i.qualityFlags,
+            samplesSha256: i.samplesSha256 ?? null,
           })),
         )
         .onConflictDoUpdate({
@@ -138,6 +152,7 @@ export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id:
             uploadId: sql`excluded.upload_id`,
             rejectedShare: sql`excluded.rejected_share`,
             qualityFlags: sql`excluded.quality_flags`,
+            samplesSha256: sql`excluded.samples_sha256`,
           },
         })
         .returning({

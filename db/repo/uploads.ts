@@ -40,7 +40,7 @@ class Duplicate extends Error {
  */
 export async function storeUpload(
   meta: UploadMeta,
-  fill: (writer: UploadWriter) => Promise<{ sha256: string; sizeBytes: number }>,
+  fill: (writer: UploadWriter) => Promise<{ sha256: string; sizeBytes: number; warnings?: string[] }>,
 ): Promise<{ upload: UploadRow; duplicate: boolean }> {
   let checksum: string | null = null;
   try {
@@ -58,7 +58,11 @@ export async function storeUpload(
         pending = [];
         pendingBytes = 0;
       };
-      const { sha256, sizeBytes } = await fill({
+      const {
+        sha256,
+        sizeBytes,
+        warnings = [],
+      } = await fill({
         async append(bytes) {
           pending.push(bytes);
           pendingBytes += bytes.length;
@@ -72,7 +76,7 @@ export async function storeUpload(
         .from(uploads)
         .where(and(eq(uploads.networkId, meta.networkId), eq(uploads.sha256, sha256)));
       if (existing) throw new Duplicate(existing);
-      const [done] = await tx.update(uploads).set({ sha256, sizeBytes }).where(eq(uploads.id, row.id)).returning();
+      const [done] = await tx.update(uploads).set({ sha256, sizeBytes, warnings }).where(eq(uploads.id, row.id)).returning();
       return done;
     });
     return { upload, duplicate: false };

@@ -104,6 +104,8 @@ export const uploads = pgTable(
     error: text('error'),
     attempts: integer('attempts').notNull().default(0),
     intervalCount: integer('interval_count').notNull().default(0),
+    /** What the intake noticed but did not refuse (e.g. header keys the layout does not define). */
+    warnings: jsonb('warnings').$type<string[]>().notNull().default([]),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     startedAt: timestamp('started_at', { withTimezone: true }),
     finishedAt: timestamp('finished_at', { withTimezone: true }),
@@ -150,6 +152,8 @@ export const intervals = pgTable(
     flagReason: text('flag_reason'),
     flaggedBy: text('flagged_by').references(() => users.id, { onDelete: 'set null' }),
     flaggedAt: timestamp('flagged_at', { withTimezone: true }),
+    /** SHA-256 of the pushed samples (float64, little-endian; null as NaN); null for other origins. */
+    samplesSha256: text('samples_sha256'),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [

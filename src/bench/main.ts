@@ -8,6 +8,7 @@ const groups: Record<string, () => Promise<{ default: () => Promise<void> }>> = 
   inverse: () => import('./inverse'),
   pipeline: () => import('./pipeline'),
   runs: () => import('./runs'),
+  load: () => import('./load'),
 };
 
 async function main(): Promise<void> {

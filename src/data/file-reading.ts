@@ -19,6 +19,8 @@ import type { UploadFormat } from '@/db/repo/uploads';
 import { textOf } from './text';
 import { INTERVAL_SECONDS, sampleUnitFactor, spectrumUnitFactor, type RawInterval } from './interval-processing';
 import { COMPONENTS } from './station-input';
+import { outsideSampleWindow } from './limits';
+import { SIGNAL_SEGMENT_SECONDS } from '@/src/engine/tolerances';
 
 /** A problem with a file's content: the message names file, line and field. */
 export class FileProblem extends Error {
@@ -89,6 +91,21 @@ function checkRate(rate: number, ctx: FileContext, field: string) {
   }
 }
 
+function checkWhen(ms: number, ctx: FileContext, field: string): void {
+  const why = outsideSampleWindow(ms);
+  if (why) throw new FileProblem(`${ctx.fileName}, ${field}: ${why}`, field);
+}
+
+/** The shortest series that gives a spectrum: one Welch segment. */
+function checkLongEnough(samples: number, sampleRateHz: number, ctx: FileContext, field: string): void {
+  const need = Math.ceil(SIGNAL_SEGMENT_SECONDS * sampleRateHz);
+  if (samples < need)
+    throw new FileProblem(
+      `${ctx.fileName}: ${samples} samples are too short for a spectrum — the minimum is one ${SIGNAL_SEGMENT_SECONDS} s segment, ${need} samples at ${sampleRateHz} Hz`,
+      field,
+    );
+}
+
 async function checkSeriesHeader(h: SeriesHeader, ctx: FileContext): Promise<Partial<Record<ComponentName, number>>> {
   await checkStationCode(h.station, ctx, 'station');
   checkRate(h.sampleRateHz, ctx, 'sample-rate-hz');
@@ -127,28 +144,52 @@ async function readJsonUpload(chunks: Chunks, ctx: FileContext): Promise<JsonUpl
       'startUtc',
     );
   checkRate(series.sampleRateHz, ctx, 'sampleRateHz');
+  checkWhen(startMs, ctx, 'startUtc');
+  checkLongEnough(series.samples.length, series.sampleRateHz, ctx, 'samples');
+  checkWhen(startMs + (series.samples.length / series.sampleRateHz) * 1000, ctx, 'samples');
   return { component, startMs, sampleRateHz: series.sampleRateHz, samples: series.samples };
 }
 
-/** Reads the whole file once, as the upload arrives; throws FileProblem naming file, line and field. */
-export async function checkFile(format: UploadFormat, chunks: Chunks, ctx: FileContext): Promise<{ intervals: number }> {
+/** Header keys the layout does not know: kept, and listed on the upload as warnings. */
+function unknownKeyWarnings(keys: { key: string; line: number }[], ctx: FileContext): string[] {
+  return keys.map((k) => `${ctx.fileName}, line ${k.line}: header key "${k.key}" is not part of the layout and was ignored`);
+}
+
+/**
+ * Reads the whole file once, as the upload arrives; throws FileProblem naming file, line and field.
+ * Refuses sample times outside the accepted window and series shorter than one Welch segment.
+ */
+export async function checkFile(
+  format: UploadFormat,
+  chunks: Chunks,
+  ctx: FileContext,
+): Promise<{ intervals: number; warnings: string[] }> {
   try {
     if (format === 'series-csv') {
       const reader = await openSeriesCsv(chunks, ctx.fileName);
-      await checkSeriesHeader(reader.header, ctx);
+      const h = reader.header;
+      await checkSeriesHeader(h, ctx);
+      checkWhen(h.startMs, ctx, 'start-utc');
       let last = -1;
-      for await (const b of reader.blocks) last = b.firstSample + b.length - 1;
-      const spanS = (last + 1) / reader.header.sampleRateHz;
-      return { intervals: Math.max(1, Math.ceil(spanS / INTERVAL_SECONDS)) };
+      let samples = 0;
+      for await (const b of reader.blocks) {
+        last = b.firstSample + b.length - 1;
+        samples += b.length;
+      }
+      checkLongEnough(samples, h.sampleRateHz, ctx, 'file');
+      const spanS = (last + 1) / h.sampleRateHz;
+      checkWhen(h.startMs + spanS * 1000, ctx, 'seconds');
+      return { intervals: Math.max(1, Math.ceil(spanS / INTERVAL_SECONDS)), warnings: unknownKeyWarnings(h.unknownKeys, ctx) };
     }
     if (format === 'spectra-csv') {
       const f = await readSpectraCsv(chunks, ctx.fileName);
       await checkStationCode(f.station, ctx, 'station');
       checkComponent(f.component, ctx, 'component');
-      return { intervals: f.intervals.length };
+      for (const iv of f.intervals) checkWhen(iv.startMs, ctx, iv.startUtc);
+      return { intervals: f.intervals.length, warnings: unknownKeyWarnings(f.unknownKeys, ctx) };
     }
     await readJsonUpload(chunks, ctx);
-    return { intervals: 1 };
+    return { intervals: 1, warnings: [] };
   } catch (e) {
     return problem(e);
   }

@@ -98,8 +98,9 @@ async function storeSpooled(
         }
       }
       const stream = tap();
+      let warnings: string[] = [];
       try {
-        await checkFile(format, stream, { fileName: name, station: req.station });
+        ({ warnings } = await checkFile(format, stream, { fileName: name, station: req.station }));
         for await (const _ of stream) {
           /* the parser may stop early: store the rest */
         }
@@ -109,7 +110,7 @@ async function storeSpooled(
       } finally {
         file.destroy();
       }
-      return { sha256: hash.digest('hex'), sizeBytes: size };
+      return { sha256: hash.digest('hex'), sizeBytes: size, warnings };
     },
   );
 

@@ -44,10 +44,7 @@ export const intervalQuerySchema = z.object({
   component: list(z.enum(COMPONENTS)),
   from: time,
   to: time,
-  day: z
-    .string()
-    .regex(/^\d{4}-\d{2}-\d{2}$/, 'give a UTC day like 2026-03-01')
-    .optional(),
+  day: z.iso.date('give a UTC day like 2026-03-01 (a real calendar day)').optional(),
   flagged: z.enum(['include', 'exclude']).default('include'),
   clean: z.enum(['yes', 'no']).default('no'),
   format: z.enum(['csv', 'json']).default('json'),

@@ -1,15 +1,18 @@
 /**
  * Station push: one 10-minute interval of raw samples per request, for one or
- * more components, processed at once and stored. The same interval sent again
- * replaces itself (one row per station, component and start), so retries by
- * the station computer are harmless.
+ * more components, processed at once and stored with a checksum of its samples.
+ * The same interval sent again with the same samples changes nothing (retries by
+ * the station computer are harmless); with other samples it is refused (409)
+ * naming the interval and the stored checksum.
  */
+import { createHash } from 'node:crypto';
 import { z } from 'zod';
 import { getStation } from '@/db/repo/stations';
-import { saveIntervals } from '@/db/repo/intervals';
-import { AppError, badRequest, notFound } from '@/src/server/errors';
+import { listIntervals, saveIntervals, storedAt } from '@/db/repo/intervals';
+import { badRequest, conflict, notFound } from '@/src/server/errors';
 import { processRawInterval, INTERVAL_SECONDS } from './interval-processing';
 import { COMPONENTS } from './station-input';
+import { outsideSampleWindow } from './limits';
 import { readLimitedText } from '@/src/server/body-limit';
 
 /** Largest push body accepted (bytes): three components at a few hundred Hz fit easily. */
@@ -22,6 +25,14 @@ export function readPushBody(req: Request): Promise<string> {
     PUSH_MAX_BYTES,
     () => `A push may carry at most ${PUSH_MAX_BYTES >> 20} MB; send one interval per request.`,
   );
+}
+
+/** SHA-256 of pushed samples as float64 little-endian, a missing sample (null) as NaN. */
+export function samplesChecksum(samples: (number | null)[]): string {
+  const values = Float64Array.from(samples, (v) => (v === null ? NaN : v));
+  const bytes = Buffer.alloc(values.length * 8);
+  values.forEach((v, i) => bytes.writeDoubleLE(v, i * 8));
+  return createHash('sha256').update(bytes).digest('hex');
 }
 
 const sample = z.union([z.number(), z.null()]);
@@ -43,6 +54,8 @@ export async function receivePush(token: { networkId: string; stationId: string 
   }
   if (startsAt.getTime() > Date.now() + 15 * 60_000)
     throw badRequest('This interval starts in the future; check the station clock.', 'startsAt');
+  const outside = outsideSampleWindow(startsAt.getTime());
+  if (outside) throw badRequest(`startsAt ${outside}.`, 'startsAt');
   if (Math.abs(body.sampleRateHz - station.sampleRateHz) > 1e-9 * station.sampleRateHz) {
     throw badRequest(
       `The station ${station.code} is registered at ${station.sampleRateHz} Hz, not ${body.sampleRateHz} Hz.`,
@@ -62,7 +75,23 @@ export async function receivePush(token: { networkId: string; stationId: string 
       );
     }
   }
-  const results = entries.map(([component, samples]) => ({
+  // The same interval sent again with the same samples changes nothing (200); with other samples,
+  // or over an interval stored from a file, it is a conflict that names what is stored (409).
+  const stored = new Map((await storedAt(station.id, startsAt)).map((r) => [r.component, r]));
+  const sums = new Map(entries.map(([component, samples]) => [component, samplesChecksum(samples)]));
+  for (const [component] of entries) {
+    const have = stored.get(component);
+    if (!have || have.samplesSha256 === sums.get(component)) continue;
+    const what = `${station.code} ${component} ${startsAt.toISOString()}`;
+    throw conflict(
+      have.samplesSha256
+        ? `The interval ${what} is already stored with other samples (stored checksum sha256:${have.samplesSha256}, this push sha256:${sums.get(component)}); it was not replaced. Delete the stored interval first to replace it.`
+        : `The interval ${what} is already stored from ${have.origin === 'upload' ? 'an uploaded file' : 'synthetic data'} (no sample checksum); it was not replaced.`,
+      `components.${component}`,
+    );
+  }
+  const fresh = entries.filter(([component]) => !stored.has(component));
+  const results = fresh.map(([component, samples]) => ({
     ...processRawInterval(station, {
       kind: 'samples',
       component,
@@ -73,17 +102,42 @@ export async function receivePush(token: { networkId: string; stationId: string 
     }),
     origin: 'push' as const,
     uploadId: null,
+    samplesSha256: sums.get(component)!,
   }));
-  const saved = await saveIntervals(results);
+  const saved = results.length ? await saveIntervals(results) : [];
+  const again =
+    entries.length === fresh.length
+      ? []
+      : await listIntervals({
+          networkId: station.networkId,
+          stationIds: [station.id],
+          from: startsAt,
+          to: new Date(startsAt.getTime() + 1),
+        });
   return {
     station: station.code,
-    intervals: saved.map((s, i) => ({
-      id: s.id,
-      component: results[i].component,
-      startsAt: startsAt.toISOString(),
-      created: s.created,
-      qualityFlags: results[i].qualityFlags,
-      modes: results[i].fit?.modes.length ?? 0,
-    })),
+    intervals: entries.map(([component]) => {
+      const k = results.findIndex((r) => r.component === component);
+      if (k >= 0)
+        return {
+          id: saved[k].id,
+          component,
+          startsAt: startsAt.toISOString(),
+          created: saved[k].created,
+          samplesSha256: sums.get(component)!,
+          qualityFlags: results[k].qualityFlags,
+          modes: results[k].fit?.modes.length ?? 0,
+        };
+      const row = again.find((r) => r.component === component)!;
+      return {
+        id: row.id,
+        component,
+        startsAt: startsAt.toISOString(),
+        created: false,
+        samplesSha256: sums.get(component)!,
+        qualityFlags: row.qualityFlags,
+        modes: row.fit?.modes.length ?? 0,
+      };
+    }),
   };
 }

@@ -7,6 +7,7 @@ import { addModelVersion, createModel, type ModelRow } from '@/db/repo/models';
 import { badRequest, notFound } from '@/src/server/errors';
 import { resolveCavity } from '@/src/engine/cavity/resolve';
 import { gridProblems, type GridInput } from './grid-spec';
+import { settings } from '@/src/settings';
 import type { ModelInput } from './model-spec';
 
 export { getGrid, listGrids, listGridVersions, type GridRow } from '@/db/repo/grids';
@@ -21,7 +22,7 @@ function checkModel(input: ModelInput): void {
 }
 
 function checkGrid(input: GridInput): void {
-  const problems = gridProblems(input);
+  const problems = gridProblems(input, { maxCells: settings().GRID_MAX_CELLS });
   if (problems.length) throw badRequest(`${problems[0].field}: ${problems[0].message}`, problems[0].field);
 }
 

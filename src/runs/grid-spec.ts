@@ -77,10 +77,17 @@ export function cellsInBox(cellSizeDeg: number, box: { south: number; north: num
 
 export type GridProblem = { field: string; message: string };
 
+/** Cells a grid's cell regions may name in all, unless the server's settings say otherwise (GRID_MAX_CELLS). */
+export const DEFAULT_GRID_MAX_CELLS = 10000;
+
 /** Everything wrong with a grid, in the order an editor should show it (empty list = valid). */
-export function gridProblems(grid: GridInput): GridProblem[] {
+export function gridProblems(grid: GridInput, opts: { maxCells?: number } = {}): GridProblem[] {
   const problems: GridProblem[] = [];
   const { cells } = gridShape(grid.cellSizeDeg);
+  const maxCells = opts.maxCells ?? DEFAULT_GRID_MAX_CELLS;
+  const named = grid.regions.reduce((n, r) => n + (r.kind === 'cells' ? r.cells.length : 0), 0);
+  if (named > maxCells)
+    return [{ field: 'regions', message: `the regions name ${named} cells; a grid may have at most ${maxCells} cells in all` }];
   const owner = new Map<number, string>();
   const keys = new Set<string>();
   const names = new Set<string>();
@@ -102,8 +109,12 @@ export function gridProblems(grid: GridInput): GridProblem[] {
           break;
         }
         const other = owner.get(c);
-        if (other !== undefined && other !== r.name) {
-          problems.push({ field: `${at}.cells`, message: `regions "${other}" and "${r.name}" overlap (cell ${c})` });
+        if (other !== undefined) {
+          problems.push({
+            field: `${at}.cells`,
+            message:
+              other === r.name ? `region "${r.name}" names cell ${c} twice` : `regions "${other}" and "${r.name}" overlap (cell ${c})`,
+          });
           break;
         }
         owner.set(c, r.name);

@@ -245,6 +245,26 @@ describe('rejected uploads store nothing and say why', () => {
     ],
     ['truncated file', () => seriesCsv(spec({ seconds: 1 })).slice(0, -12), /cut off/, 'file'],
     ['missing column', () => seriesCsv(spec({ seconds: 1 })).replace('seconds,Ez,Bns', 'seconds,Ez'), /units/, 'units'],
+    // Sample dates outside the accepted window (SAMPLE_EARLIEST 1990-01-01, SAMPLE_AHEAD_HOURS 24 by default).
+    [
+      'dated in the year 1000',
+      () => seriesCsv(spec({ startUtc: '1000-01-01T00:00:00Z', seconds: 20 })),
+      /start-utc: 1000-01-01T00:00:00.000Z lies outside the accepted sample dates, from 1990-01-01/,
+      'start-utc',
+    ],
+    [
+      'dated in the year 2999',
+      () => seriesCsv(spec({ startUtc: '2999-01-01T00:00:00Z', seconds: 20 })),
+      /outside the accepted sample dates.*24 h past the server's clock/,
+      'start-utc',
+    ],
+    // One Welch segment of 10 s at 100 Hz is 1000 samples; a second of data is 100.
+    [
+      'too short for one segment',
+      () => seriesCsv(spec({ seconds: 1 })),
+      /100 samples are too short.*one 10 s segment, 1000 samples at 100 Hz/,
+      'file',
+    ],
     [
       'out-of-order rows',
       () => seriesCsv(spec({ seconds: 1 })).replace(/\n0\.05,/, '\n0.03,'),
@@ -259,6 +279,14 @@ describe('rejected uploads store nothing and say why', () => {
       expect(await listUploads(w.networkId)).toHaveLength(0);
     });
   }
+
+  it('keeps header keys the layout does not define, listed as warnings on the upload', async () => {
+    const w = await makeWorld(station100);
+    const text = seriesCsv(spec({ seconds: 20 })).replace('# units:', '# operator: night shift\n# units:');
+    const { upload: u } = await upload(w, text);
+    expect(u.warnings).toEqual(['rec.csv, line 5: header key "operator" is not part of the layout and was ignored']);
+    expect((await listUploads(w.networkId))[0].warnings).toEqual(u.warnings);
+  });
 
   it('files over the size limit (413), whether announced or streamed', async () => {
     process.env.UPLOAD_MAX_MB = '0.01'; // about 10 kB

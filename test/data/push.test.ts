@@ -2,6 +2,7 @@
  * Station push through the route handler: bearer token, one interval per
  * request, idempotent on (station, component, start), error shape on bad input.
  */
+import { createHash } from 'node:crypto';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { listIntervals, getIntervalSpectra } from '@/db/repo/intervals';
@@ -55,6 +56,28 @@ describe('push', () => {
     expect(level / ((2 * 16) / FS / 4)).toBeLessThan(1.04);
   });
 
+  it('refuses the same interval with other samples (409 naming it and the stored checksum), keeps the first', async () => {
+    const w = await setup();
+    const first = white(4, 11);
+    const body = { startsAt: '2026-03-14T08:00:00Z', sampleRateHz: FS, components: { Ez: first } };
+    expect((await push(w.secret, body)).status).toBe(201);
+    const other = await push(w.secret, { ...body, components: { Ez: white(4, 12) } });
+    expect(other.status).toBe(409);
+    const err = (await other.json()).error;
+    // SHA-256 (FIPS 180-4) of the float64 samples, little-endian, as Node's crypto gives it.
+    const stored = createHash('sha256')
+      .update(Buffer.from(new Float64Array(first).buffer))
+      .digest('hex');
+    expect(err).toMatchObject({ code: 'conflict', field: 'components.Ez' });
+    expect(err.message).toContain('TST1 Ez 2026-03-14T08:00:00.000Z');
+    expect(err.message).toContain(`stored checksum sha256:${stored}`);
+    // The same samples again: 200, nothing changed.
+    const same = await push(w.secret, body);
+    expect(same.status).toBe(200);
+    expect((await same.json()).intervals).toMatchObject([{ component: 'Ez', created: false, samplesSha256: stored }]);
+    expect(await listIntervals({ networkId: w.networkId })).toHaveLength(1);
+  });
+
   it("stores with each fit the bins it left out: the station's listed line", async () => {
     // The test station lists 16.65 Hz here; with the default 0.3 Hz notch half-width that is the 0.1 Hz bins
     // 16.4–16.9 Hz (|f - 16.65| <= 0.3, worked by hand).
@@ -74,6 +97,8 @@ describe('push', () => {
       ['{not json', 'body', 400],
       [{ ...ok, startsAt: '2026-03-14T06:25:00Z' }, 'startsAt', 400],
       [{ ...ok, startsAt: 'yesterday' }, 'startsAt', 400],
+      // before the accepted sample dates (SAMPLE_EARLIEST, default 1990-01-01)
+      [{ ...ok, startsAt: '1000-01-01T00:00:00Z' }, 'startsAt', 400],
       [{ ...ok, sampleRateHz: 200 }, 'sampleRateHz', 400],
       [{ ...ok, components: { Ez: white(1, 3).slice(0, 1000) } }, 'components.Ez', 400],
       [{ ...ok, components: { Bew: white(1, 3) } }, 'components.Bew', 400],

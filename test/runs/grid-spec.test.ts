@@ -66,4 +66,21 @@ describe('global grid cells', () => {
     });
     expect(p.map((x) => x.field)).toEqual(['regions.1.name', 'regions.1.centre']);
   });
+
+  it('limit the cells a grid names in all, and refuse a cell named twice', () => {
+    const grid = (cells: number[]) => ({
+      name: 'g',
+      notes: '',
+      cellSizeDeg: 2,
+      regions: [{ key: 'a', name: 'A', colour: '#E69F00', kind: 'cells' as const, cells }],
+    });
+    // A 2° grid has 90 x 180 = 16200 cells; the default limit is 10000 named cells.
+    const many = Array.from({ length: 10001 }, (_, i) => i);
+    expect(gridProblems(grid(many))).toEqual([
+      { field: 'regions', message: 'the regions name 10001 cells; a grid may have at most 10000 cells in all' },
+    ]);
+    expect(gridProblems(grid(many.slice(0, 10000)))).toEqual([]);
+    expect(gridProblems(grid(many.slice(0, 50)), { maxCells: 40 })[0].field).toBe('regions');
+    expect(gridProblems(grid([5, 6, 5]))).toEqual([{ field: 'regions.0.cells', message: 'region "A" names cell 5 twice' }]);
+  });
 });

@@ -31,6 +31,11 @@ export function requireValue(block: HeaderBlock, key: string, file: string, head
   return v;
 }
 
+/** Header keys outside `known`, in file order: readers keep them for the caller to report. */
+export function unknownKeys(block: HeaderBlock, known: readonly string[]): { key: string; line: number }[] {
+  return [...block.values.entries()].filter(([k]) => !known.includes(k)).map(([key, v]) => ({ key, line: v.line }));
+}
+
 /** Strict ISO 8601 UTC instant, e.g. 2026-03-14T00:00:00Z or with fractional seconds. */
 export function parseUtc(text: string): number | null {
   if (!/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d{1,9})?Z$/.test(text)) return null;

@@ -17,7 +17,15 @@
  */
 import { COMPONENTS, type Component } from '@/src/engine/components';
 import { FormatError } from './format-error';
-import { parseHeaderLine, parseNumberCell, parseSignature, parseUtc, requireValue, type HeaderBlock } from './header-lines';
+import {
+  parseHeaderLine,
+  parseNumberCell,
+  parseSignature,
+  parseUtc,
+  requireValue,
+  unknownKeys,
+  type HeaderBlock,
+} from './header-lines';
 import { linesOf, type TextLine } from './lines';
 
 export const SERIES_SIGNATURE = 'cavitas-series';
@@ -33,7 +41,11 @@ export interface SeriesHeader {
   /** Component columns in file order. */
   components: Component[];
   units: Partial<Record<Component, string>>;
+  /** Header keys this layout does not define (kept, not an error: the caller may warn). */
+  unknownKeys: { key: string; line: number }[];
 }
+
+const SERIES_KEYS = ['station', 'sample-rate-hz', 'start-utc', 'units'] as const;
 
 /** Contiguous samples: column c holds components[c] for samples firstSample .. firstSample + length - 1. */
 export interface SeriesBlock {
@@ -96,7 +108,15 @@ function parseHeader(block: HeaderBlock, columnsLine: TextLine, file: string): S
     if (!components.includes(c as Component))
       throw new FormatError(file, unitsLine.line, 'units', `names ${c} but the file has no ${c} column`);
   }
-  return { station: station.value, sampleRateHz, startUtc: start.value, startMs, components, units };
+  return {
+    station: station.value,
+    sampleRateHz,
+    startUtc: start.value,
+    startMs,
+    components,
+    units,
+    unknownKeys: unknownKeys(block, SERIES_KEYS),
+  };
 }
 
 export async function openSeriesCsv(

@@ -17,7 +17,15 @@
  */
 import { COMPONENTS, type Component } from '@/src/engine/components';
 import { FormatError } from './format-error';
-import { parseHeaderLine, parseNumberCell, parseSignature, parseUtc, requireValue, type HeaderBlock } from './header-lines';
+import {
+  parseHeaderLine,
+  parseNumberCell,
+  parseSignature,
+  parseUtc,
+  requireValue,
+  unknownKeys,
+  type HeaderBlock,
+} from './header-lines';
 import { linesOf, type TextLine } from './lines';
 
 export const SPECTRA_SIGNATURE = 'cavitas-spectra';
@@ -30,7 +38,11 @@ export interface SpectraFile {
   intervalSeconds: number;
   frequencies: Float64Array;
   intervals: { startUtc: string; startMs: number; power: Float64Array }[];
+  /** Header keys this layout does not define (kept, not an error: the caller may warn). */
+  unknownKeys: { key: string; line: number }[];
 }
+
+const SPECTRA_KEYS = ['station', 'component', 'units', 'interval-seconds'] as const;
 
 export async function readSpectraCsv(
   chunks: AsyncIterable<string | Uint8Array> | Iterable<string | Uint8Array>,
@@ -137,5 +149,6 @@ export async function readSpectraCsv(
     intervalSeconds,
     frequencies: Float64Array.from(freqs),
     intervals: starts.map((ms, i) => ({ startUtc: names[i + 1], startMs: ms, power: Float64Array.from(powers[i]) })),
+    unknownKeys: unknownKeys(block, SPECTRA_KEYS),
   };
 }

@@ -19,6 +19,7 @@ interface UploadItem {
   progressNote: string;
   error: string | null;
   intervalCount: number;
+  warnings?: string[];
   createdAt: string;
   attempts: number;
   startedAt: string | null;
@@ -182,7 +183,7 @@ export function UploadPanel({
           { key: 'intervalCount', header: 'Intervals', numeric: true, digits: 0 },
           {
             key: 'error',
-            header: 'Reason / action',
+            header: 'Reason, warnings, action',
             sortable: false,
             render: (r) =>
               r.state === 'failed' ? (
@@ -194,6 +195,8 @@ export function UploadPanel({
                     </Button>
                   ) : null}
                 </span>
+              ) : (r.warnings as string[] | undefined)?.length ? (
+                <span className="text-muted">{(r.warnings as string[]).join(' ')}</span>
               ) : (
                 ''
               ),

@@ -142,7 +142,7 @@ const rows: Row[] = [
           station: 'AUTH1',
           fs: 100,
           startUtc: '2026-03-14T00:00:00Z',
-          seconds: 2,
+          seconds: 10,
           seed: seq++,
           components: { Ez: { kind: 'white', sigma: 1, unit: 'mV/m' } },
         }),

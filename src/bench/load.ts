@@ -1,0 +1,282 @@
+/**
+ * `npm run bench -- load`: simulated users against a production server (`next start`) on loopback.
+ * Seeds a throwaway PostgreSQL with a network holding a long run (144 intervals x 256 starts, the
+ * size of a full day with many starts; results made up by `largeResult`) and more runs for the
+ * list, then lets LOAD_USERS users (default 50), each signed in with a session of its own, ask in
+ * turn for the network overview, the run list and the run API (its summary), LOAD_ROUNDS times
+ * each (default 10), for at most LOAD_SECONDS (default 120). Prints p50/p95/max per address
+ * (goal: p95 under 300 ms on the 2-core machine), and the run page and the run API alone, one
+ * request at a time. Measurements only; nothing passes or fails. Needs a production build in .next.
+ */
+import { randomUUID } from 'node:crypto';
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { loadavg } from 'node:os';
+import path from 'node:path';
+import { startThrowawayPostgres, freePort, type ThrowawayPg } from '@/db/pglocal';
+import { migrate } from '@/db/migrate';
+import { closeDatabase } from '@/db/lifecycle';
+import { stopBoss } from '@/db/jobs';
+import { insertUser } from '@/db/repo/users';
+import { createNetwork, upsertMembership } from '@/db/repo/networks';
+import { createStation } from '@/db/repo/stations';
+import { createRun, endRun, saveRunIntervals } from '@/db/repo/runs';
+import { saveGrid, saveModel } from '@/src/runs/catalogue';
+import type { RunConfig } from '@/src/runs/config';
+import { engineVersion } from '@/src/runs/engine-version';
+import { startSession } from '@/src/auth/session';
+import { nextBin, projectRoot } from '@/src/ops/paths';
+import { waitForHttp } from '@/src/ops/supervisor';
+import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
+import { childEnv, settings } from '@/src/settings';
+import { largeResult } from './large-result';
+
+const INTERVALS = 144;
+const STARTS = 256;
+const OTHER_RUNS = 24;
+const REGIONS = [
+  { key: 'west-cell', name: 'West cell', colour: '#E69F00', lat: { min: -25, max: 25 }, lon: { min: -90, max: -40 } },
+  { key: 'middle-cell', name: 'Middle cell', colour: '#56B4E9', lat: { min: -25, max: 25 }, lon: { min: -10, max: 40 } },
+  { key: 'east-cell', name: 'East cell', colour: '#009E73', lat: { min: -25, max: 25 }, lon: { min: 90, max: 150 } },
+];
+
+const quantile = (xs: number[], q: number) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length ? s[Math.min(s.length - 1, Math.ceil(q * s.length) - 1)] : NaN;
+};
+const ms = (x: number) => `${x.toFixed(0)} ms`;
+
+/** A network with three invented huts, a model, a grid, the long run and OTHER_RUNS short ones. */
+async function seedNetwork(userId: string): Promise<{ networkId: string; runId: string }> {
+  const network = await createNetwork('Load bench network', userId);
+  const stations = [];
+  for (let i = 0; i < 3; i++) {
+    stations.push(
+      await createStation(network.id, {
+        code: `LB${i + 1}`,
+        name: `Load bench hut ${i + 1}`,
+        latitude: -40 + 35 * i,
+        longitude: -150 + 110 * i,
+        elevationM: 100,
+        mainsHz: 50,
+        interferenceLines: [],
+        sampleRateHz: 200,
+        notes: '',
+        status: 'operating',
+        components: (['Ez', 'Bns', 'Bew'] as const).map((component) => ({
+          component,
+          calibration: { kind: 'gain' as const, gain: 1 },
+        })),
+      }),
+    );
+  }
+  const model = await saveModel(network.id, userId, {
+    name: 'Load linear',
+    notes: '',
+    config: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 },
+  });
+  const grid = await saveGrid(network.id, userId, {
+    name: 'Load cells',
+    notes: '',
+    cellSizeDeg: 10,
+    regions: REGIONS.map((r) => ({
+      key: r.key,
+      name: r.name,
+      colour: r.colour,
+      kind: 'moving' as const,
+      spreadDeg: 0,
+      centre: { lat: 0, lon: (r.lon.min + r.lon.max) / 2 },
+      bounds: { lat: r.lat, lon: r.lon },
+    })),
+  });
+  const day = Date.UTC(2031, 6, 3);
+  const starts = Array.from({ length: INTERVALS }, (_, i) => new Date(day + i * 600_000));
+  const config: RunConfig = {
+    name: 'Load long run',
+    modelId: model.id,
+    gridId: grid.id,
+    data: {
+      stationIds: stations.map((s) => s.id),
+      components: ['Ez', 'Bns', 'Bew'],
+      from: starts[0].toISOString(),
+      to: starts.at(-1)!.toISOString(),
+      includeFlagged: false,
+    },
+    observables: { kind: 'spectrum', minHz: 5, maxHz: 40, every: 1 },
+    regions: REGIONS.map((r) => ({ region: r.key, intensity: { min: 1e3, max: 1e6 }, lat: r.lat, lon: r.lon })),
+    damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
+    starts: STARTS,
+    seed: 5,
+  };
+  const names = REGIONS.map((r) => r.name);
+  const store = async (name: string, count: number, starts: number) => {
+    const run = await createRun({
+      networkId: network.id,
+      name,
+      config: { ...config, name, starts } as unknown as Record<string, unknown>,
+      modelId: model.id,
+      gridId: grid.id,
+      engineVersion: engineVersion(),
+      intervalStarts: Array.from({ length: count }, (_, i) => new Date(day + i * 600_000).toISOString()),
+      startsPerInterval: starts,
+      createdBy: userId,
+    });
+    for (let i0 = 0; i0 < count; i0 += 12) {
+      const entries = Array.from({ length: Math.min(12, count - i0) }, (_, j) => ({
+        startsAt: new Date(day + (i0 + j) * 600_000),
+        nData: 3000,
+        seconds: 1,
+        result: largeResult({ regions: names, starts, minima: 8, seed: i0 + j + 1 }) as unknown as Record<string, unknown>,
+      }));
+      await saveRunIntervals(run.id, entries, run.progress);
+    }
+    await endRun(run.id, 'finished', { ...run.progress, intervalsDone: count, intervalsTotal: count });
+    return run.id;
+  };
+  const runId = await store('Load long run', INTERVALS, STARTS);
+  for (let k = 0; k < OTHER_RUNS; k++) await store(`Load short run ${k + 1}`, 6, 16);
+  return { networkId: network.id, runId };
+}
+
+async function timed(url: string, cookie: string): Promise<{ ms: number; status: number; bytes: number }> {
+  const t0 = performance.now();
+  const res = await fetch(url, { headers: { cookie }, redirect: 'manual' });
+  const body = await res.arrayBuffer();
+  return { ms: performance.now() - t0, status: res.status, bytes: body.byteLength };
+}
+
+export default async function main(): Promise<void> {
+  if (!existsSync(path.join(projectRoot, '.next', 'BUILD_ID'))) {
+    console.log('load: skipped — no production build in .next (build with `npm run build` or `npm start`, then run again)');
+    return;
+  }
+  const s = settings();
+  const users = s.LOAD_USERS;
+  const rounds = s.LOAD_ROUNDS;
+  const stop: Array<() => Promise<void> | void> = [];
+  let pg: ThrowawayPg | null = null;
+  const previousUrl = process.env.DATABASE_URL;
+  try {
+    pg = await startThrowawayPostgres();
+    process.env.DATABASE_URL = pg.url;
+    await migrate(pg.url);
+    const t0 = performance.now();
+    const ownerId = `load-${randomUUID()}`;
+    await insertUser({ id: ownerId, email: `${ownerId}@example.test`, name: 'Load owner', passwordHash: 'x' });
+    const { networkId, runId } = await seedNetwork(ownerId);
+    const cookies: string[] = [];
+    for (let u = 0; u < users; u++) {
+      const id = `load-${randomUUID()}`;
+      await insertUser({ id, email: `${id}@example.test`, name: `Load user ${u + 1}`, passwordHash: 'x' });
+      await upsertMembership(networkId, id, 'viewer');
+      cookies.push((await startSession(id)).split(';')[0]);
+    }
+    console.log(
+      `seeded a ${INTERVALS}-interval x ${STARTS}-start run, ${OTHER_RUNS} short runs and ${users} users in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+    );
+
+    const stale = buildStaleness();
+    const release = await holdSharedBuildLock(); // no build replaces .next while we serve it
+    stop.push(release);
+    const port = await freePort();
+    const web: ChildProcess = spawn(process.execPath, [nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
+      cwd: projectRoot,
+      stdio: ['ignore', 'ignore', 'pipe'],
+      env: childEnv(
+        {
+          DATABASE_URL: pg.url,
+          PORT: String(port),
+          APP_URL: `http://127.0.0.1:${port}`,
+          COOKIE_SECURE: 'false',
+          NEXT_TELEMETRY_DISABLED: '1',
+        },
+        { dropNodeEnv: true },
+      ),
+    });
+    stop.push(
+      () =>
+        new Promise<void>((resolve) => {
+          if (web.exitCode !== null || web.signalCode !== null) return resolve();
+          web.once('exit', () => resolve());
+          web.kill('SIGTERM');
+        }),
+    );
+    const base = `http://127.0.0.1:${port}`;
+    await waitForHttp(`${base}/`, 60_000, () => web.exitCode === null);
+    const targets = {
+      overview: `${base}/n/${networkId}`,
+      'run list': `${base}/n/${networkId}/runs`,
+      'run API': `${base}/api/networks/${networkId}/runs/${runId}`,
+    };
+    // Warm up: each address once (first requests load their code).
+    for (const url of [...Object.values(targets), `${base}/n/${networkId}/runs/${runId}`]) {
+      const r = await timed(url, cookies[0]);
+      if (r.status !== 200) throw new Error(`${url} answered ${r.status} while warming up`);
+    }
+
+    // One request at a time: the run page (HTML) and the run API, summary and in full.
+    const alone = async (url: string, n = 7) => {
+      const xs: number[] = [];
+      let bytes = 0;
+      for (let i = 0; i < n; i++) {
+        const r = await timed(url, cookies[0]);
+        xs.push(r.ms);
+        bytes = r.bytes;
+      }
+      return { median: quantile(xs, 0.5), kb: bytes / 1024 };
+    };
+    const page = await alone(`${base}/n/${networkId}/runs/${runId}`);
+    const summary = await alone(targets['run API']);
+    const full = await alone(`${targets['run API']}?detail=full`, 3);
+    console.log(
+      `alone: run page ${ms(page.median)} to its last byte (${page.kb.toFixed(0)} KiB of HTML); run API summary ${ms(summary.median)} ` +
+        `(${summary.kb.toFixed(0)} KiB) against the whole run ${ms(full.median)} (${(full.kb / 1024).toFixed(1)} MiB) — medians`,
+    );
+
+    const times: Record<string, number[]> = Object.fromEntries(Object.keys(targets).map((k) => [k, []]));
+    const failures: string[] = [];
+    const until = performance.now() + s.LOAD_SECONDS * 1000;
+    const t1 = performance.now();
+    await Promise.all(
+      cookies.map(async (cookie, u) => {
+        const order = Object.entries(targets);
+        for (let r = 0; r < rounds && performance.now() < until; r++) {
+          // Each user starts at another address, so the mix is even from the first second.
+          for (let k = 0; k < order.length; k++) {
+            const [name, url] = order[(k + u) % order.length];
+            const res = await timed(url, cookie).catch((e: Error) => ({ ms: NaN, status: 0, bytes: 0, error: e.message }));
+            if (res.status !== 200) failures.push(`${name}: ${res.status}`);
+            else times[name].push(res.ms);
+          }
+        }
+      }),
+    );
+    const wall = (performance.now() - t1) / 1000;
+    const total = Object.values(times).reduce((a, xs) => a + xs.length, 0);
+    console.log(
+      `${users} users x ${rounds} rounds x 3 addresses: ${total} answers in ${wall.toFixed(1)} s (${(total / wall).toFixed(0)}/s)` +
+        `${failures.length ? `, ${failures.length} failed (${[...new Set(failures)].slice(0, 3).join('; ')})` : ''}; load average ${loadavg()
+          .map((x) => x.toFixed(1))
+          .join(' ')}`,
+    );
+    console.log('| address | answers | p50 | p95 | max | goal p95 |');
+    console.log('|---|---|---|---|---|---|');
+    for (const [name, xs] of Object.entries(times)) {
+      const p95 = quantile(xs, 0.95);
+      console.log(
+        `| ${name} | ${xs.length} | ${ms(quantile(xs, 0.5))} | ${ms(p95)} | ${ms(Math.max(...xs))} | < 300 ms: ${p95 < 300 ? 'met' : 'NOT met'} |`,
+      );
+    }
+    if (stale.stale) console.log(`note: the build in .next is older than the sources (${stale.reason})`);
+  } finally {
+    for (const f of stop.reverse())
+      await Promise.resolve()
+        .then(f)
+        .catch(() => {});
+    await stopBoss(5_000).catch(() => {});
+    await closeDatabase().catch(() => {});
+    await pg?.stop().catch(() => {});
+    if (previousUrl === undefined) delete process.env.DATABASE_URL;
+    else process.env.DATABASE_URL = previousUrl;
+  }
+}
