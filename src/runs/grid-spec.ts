@@ -113,7 +113,9 @@ export function gridProblems(grid: GridInput, opts: { maxCells?: number } = {}):
           problems.push({
             field: `${at}.cells`,
             message:
-              other === r.name ? `region "${r.name}" names cell ${c} twice` : `regions "${other}" and "${r.name}" overlap (cell ${c})`,
+              other === r.name
+                ? `region "${r.name}" names cell ${c} twice`
+                : `regions "${other}" and "${r.name}" overlap (cell ${c})`,
           });
           break;
         }
