@@ -17,9 +17,10 @@
  *   diverging ramp whose pale middle stands for zero ("signed", indigo to
  *   paper to brick red). Between the stops colours are interpolated in CIELAB.
  *
- * No imports but d3-interpolate: shared by server, browser and `src/runs`.
+ * No imports but d3-interpolate and d3-color: shared by server, browser and `src/runs`.
  */
 import { interpolateLab, piecewise } from 'd3-interpolate';
+import { rgb } from 'd3-color';
 
 /** UI colours of the light (default) and the dark theme, by role. */
 export const UI = {
@@ -126,3 +127,24 @@ export const RAMPS: Record<RampName, Ramp> = {
   depth: makeRamp(RAMP_STOPS.depth),
   signed: makeRamp(RAMP_STOPS.signed),
 };
+
+/** Relative luminance of an sRGB colour (WCAG 2.1, "relative luminance"). */
+function luminance(colour: string): number {
+  const c = rgb(colour);
+  const lin = (v: number) => {
+    const x = v / 255;
+    return x <= 0.04045 ? x / 12.92 : ((x + 0.055) / 1.055) ** 2.4;
+  };
+  return 0.2126 * lin(c.r) + 0.7152 * lin(c.g) + 0.0722 * lin(c.b);
+}
+
+/**
+ * Text colour for a label drawn on `background` (a ramp cell): black or white, whichever contrasts
+ * more. (Only the pure pair reaches 4.5:1 on every background: at the crossover, luminance 0.18,
+ * both give about 4.58; graphite ink would drop to about 4.2.)
+ */
+export function inkOn(background: string): string {
+  const bg = luminance(background);
+  const contrast = (fg: number) => (Math.max(fg, bg) + 0.05) / (Math.min(fg, bg) + 0.05);
+  return contrast(0) >= contrast(1) ? '#000000' : '#ffffff';
+}

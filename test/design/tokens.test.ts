@@ -17,7 +17,7 @@ import {
   wcagContrast,
   type Color,
 } from 'culori';
-import { RAMPS, RAMP_STOPS, REGION_COLOURS, UI, cssVar, regionColour, type UiRole } from '@/src/design/tokens';
+import { RAMPS, RAMP_STOPS, REGION_COLOURS, UI, cssVar, inkOn, regionColour, type UiRole } from '@/src/design/tokens';
 
 const lab = converter('lab65');
 const oklab = converter('oklab');
@@ -158,4 +158,15 @@ describe('UI colours', () => {
       }
     }
   });
+});
+
+describe('text on ramp cells', () => {
+  for (const name of ['signed', 'depth', 'activity'] as const) {
+    it(`${name}: the chosen ink reaches 4.5:1 on every one of 101 cell colours (WCAG 2.1, 1.4.3)`, () => {
+      for (const t of samples(101)) {
+        const bg = RAMPS[name](t);
+        expect(wcagContrast(inkOn(bg), bg), `t = ${t}`).toBeGreaterThanOrEqual(4.5);
+      }
+    });
+  }
 });

@@ -2,6 +2,26 @@
 /** The distinct minima of one interval, sortable; clicking a row selects that minimum everywhere on the page. */
 import { useMemo, useState } from 'react';
 import { fmt, type InversionResult } from './types';
+import { formatEstimate } from '@/src/web/ui/format';
+import type { RunConfig } from '@/src/runs/config';
+import type { Region } from '@/src/runs/grid-spec';
+
+type Bounds = { min: number; max: number };
+
+/** Allowed range of each free parameter ("Region.intensity", "Region.lat", …) from the run's settings and grid. */
+export function parameterBounds(config: Pick<RunConfig, 'regions'>, regions: Region[]): Record<string, Bounds> {
+  const out: Record<string, Bounds> = {};
+  for (const u of config.regions) {
+    const r = regions.find((x) => x.key === u.region || x.name === u.region);
+    const name = r?.name ?? u.region;
+    out[`${name}.intensity`] = u.intensity;
+    const lat = u.lat ?? (r?.kind === 'moving' ? r.bounds.lat : undefined);
+    const lon = u.lon ?? (r?.kind === 'moving' ? r.bounds.lon : undefined);
+    if (lat) out[`${name}.lat`] = lat;
+    if (lon) out[`${name}.lon`] = lon;
+  }
+  return out;
+}
 
 type Key = 'rank' | 'misfit' | 'reduced' | 'count';
 
@@ -9,10 +29,13 @@ export function MinimaTable({
   result,
   selected,
   onSelect,
+  bounds = {},
 }: {
   result: InversionResult;
   selected: number;
   onSelect: (i: number) => void;
+  /** Allowed ranges (`parameterBounds`): an estimate on a bound is flagged instead of given a symmetric error. */
+  bounds?: Record<string, Bounds>;
 }) {
   const [sort, setSort] = useState<{ key: Key; desc: boolean }>({ key: 'rank', desc: false });
   const names = result.paramNames;
@@ -42,7 +65,7 @@ export function MinimaTable({
     const s = m.sources.find((x) => x.name === region);
     const v = s ? (s as unknown as Record<string, number>)[kind] : m.params[name];
     const e = m.stdErrors[region]?.[kind as 'lat'];
-    return `${fmt(v)} ± ${fmt(e, 2)}`;
+    return formatEstimate(v, e, bounds[name]);
   };
   return (
     <div className="overflow-x-auto">
@@ -83,11 +106,23 @@ export function MinimaTable({
               <td className="px-2 py-1 text-right">{fmt(r.misfit, 5)}</td>
               <td className="px-2 py-1 text-right">{fmt(r.reduced)}</td>
               <td className="px-2 py-1 text-right">{r.count}</td>
-              {names.map((n) => (
-                <td key={n} className="px-2 py-1 text-right">
-                  {value(r.m, n)}
-                </td>
-              ))}
+              {names.map((n) => {
+                const { text, flag } = value(r.m, n);
+                return (
+                  <td
+                    key={n}
+                    className={`px-2 py-1 text-right whitespace-nowrap ${flag.startsWith('at-') ? 'font-semibold text-danger' : ''}`}
+                    title={
+                      flag.startsWith('near-')
+                        ? 'The error bar reaches past the allowed range: the error is not symmetric here.'
+                        : undefined
+                    }
+                  >
+                    {text}
+                    {flag.startsWith('near-') ? ' ◂' : ''}
+                  </td>
+                );
+              })}
             </tr>
           ))}
         </tbody>

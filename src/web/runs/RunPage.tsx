@@ -23,7 +23,7 @@ import { Caution, Notice } from '@/src/web/ui/Notice';
 import { ProgressBar } from '@/src/web/ui/ProgressBar';
 import { apiSend, useApi } from '@/src/web/swr';
 import { RunMap } from './RunMap';
-import { MinimaTable } from './MinimaTable';
+import { MinimaTable, parameterBounds } from './MinimaTable';
 import { FitsPanel, useFits } from './FitsPanel';
 import { CorrelationHeatmap } from './CorrelationHeatmap';
 import { SurfacePanel } from './SurfacePanel';
@@ -238,7 +238,16 @@ function RunPageBody({
               stations={fits.data?.stations ?? []}
             />
             <h3 className="mt-4 mb-1 text-sm font-semibold">Minima</h3>
-            <MinimaTable result={result} selected={minimum} onSelect={setMinimum} />
+            <MinimaTable
+              result={result}
+              selected={minimum}
+              onSelect={setMinimum}
+              bounds={parameterBounds(view.config, view.grid.regions)}
+            />
+            <p className="mt-1 text-xs text-muted">
+              Estimates ± one standard error, the error to two significant digits. An estimate held on a bound of its range is
+              marked “at lower/upper bound” (no symmetric error there); ◂ marks an error bar that reaches past a bound.
+            </p>
             <Caution topic="research" className="mt-4" />
           </Panel>
           <Panel

@@ -12,6 +12,7 @@ import { Badge, Button, DataTable, EmptyState, FormField, Notice, inputClass } f
 import { api, ApiFailure, displayUnit, fetcher, toDisplayPower } from './api';
 import { FitSettings } from './FitSettings';
 import { RAMPS } from '@/src/design/tokens';
+import { fittedCurve } from './fit-curve';
 
 interface Mode {
   frequency: number;
@@ -48,11 +49,6 @@ interface Spectrum {
 const SLOT_MS = 600_000;
 
 /** The fitted model P(f) = sum A_n / (1 + ((f - f_n)/g_n)^2) + b0 + b1 f (Lorentzian modes plus linear background). */
-export function fitModel(fit: Fit, f: number): number {
-  let p = fit.background.b0 + fit.background.b1 * f;
-  for (const m of fit.modes) p += m.amplitude / (1 + ((f - m.frequency) / m.halfWidth) ** 2);
-  return p;
-}
 
 export function DayView({
   networkId,
@@ -393,9 +389,7 @@ function SpectrumWithFit({
   const pts = spectrum.frequencies.map((f, i) => ({ f, p: toDisplayPower(component, spectrum.power[i]) })).filter((d) => d.p > 0);
   const fit = interval.fit;
   const halfBin = spectrum.frequencies.length > 1 ? (spectrum.frequencies[1] - spectrum.frequencies[0]) / 2 : 0.05;
-  const model = fit
-    ? spectrum.frequencies.map((f) => ({ f, p: toDisplayPower(component, fitModel(fit, f)) })).filter((d) => d.p > 0)
-    : [];
+  const model = fit ? fittedCurve(fit, spectrum.frequencies).map((d) => ({ f: d.f, p: toDisplayPower(component, d.p) })) : [];
   return (
     <div className="space-y-2">
       <PlotFigure
@@ -403,7 +397,7 @@ function SpectrumWithFit({
         xLabel="Frequency (Hz)"
         yLabel={`PSD (${unit})`}
         height={300}
-        caption={`Measured spectrum (grey), Lorentzian fit (violet), fitted mode frequencies (dashed)${fit?.excluded?.length ? ', bins left out of the fit (shaded)' : ''}. ${spectrum.segments} Welch segments.`}
+        caption={`Measured spectrum (grey), Lorentzian fit over its band (violet), fitted mode frequencies (dashed)${fit?.excluded?.length ? ', bins left out of the fit (shaded)' : ''}. ${spectrum.segments} Welch segments.`}
         options={{
           y: { type: 'log' },
           marks: [
@@ -423,7 +417,7 @@ function SpectrumWithFit({
                   Plot.rectX(fit.excluded, {
                     x1: (r: { minHz: number }) => r.minHz - halfBin,
                     x2: (r: { maxHz: number }) => r.maxHz + halfBin,
-                    fill: 'var(--c-storm, orange)',
+                    fill: 'var(--c-muted)',
                     fillOpacity: 0.15,
                   }),
                 ]

@@ -22,3 +22,112 @@ export function formatUtc(value: Date | string | number | null | undefined, with
 export function formatUtcDate(value: Date | string | number | null | undefined): string {
   return formatUtc(value).slice(0, 10);
 }
+
+/** SI prefixes from giga to pico (BIPM, The International System of Units, 9th ed., Table 7). */
+const PREFIXES: [number, string][] = [
+  [1e9, 'G'],
+  [1e6, 'M'],
+  [1e3, 'k'],
+  [1, ''],
+  [1e-3, 'm'],
+  [1e-6, 'µ'],
+  [1e-9, 'n'],
+  [1e-12, 'p'],
+];
+/** Units written as one symbol, which take an SI prefix; any other unit gets a power of ten instead. */
+const PREFIXABLE = new Set(['Hz', 's', 'm', 'V', 'T', 'C', 'A', 'W', 'Ω', 'g', 'V/m']);
+const SUPERSCRIPT: Record<string, string> = {
+  '-': '⁻',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
+};
+const MINUS = '−';
+
+function decimalsFor(error: number): number {
+  return 1 - Math.floor(Math.log10(error)); // the error's second significant digit is the last one shown
+}
+
+function fixed(x: number, decimals: number): string {
+  const s = decimals >= 0 ? x.toFixed(decimals) : (Math.round(x / 10 ** -decimals) * 10 ** -decimals).toFixed(0);
+  const t = /^-0(\.0*)?$/.test(s) ? s.slice(1) : s;
+  return t.replace('-', MINUS);
+}
+
+/**
+ * The one formatter for a measured value with its uncertainty: the error to two significant digits
+ * and the value rounded to the same decimal place (common practice; e.g. Taylor, An Introduction to
+ * Error Analysis, §2.2), with an SI prefix on a one-symbol unit ("1.234 ± 0.067 ms") or a power of
+ * ten before a compound unit ("(4.0 ± 1.2) × 10⁻² (mV/m)²/Hz") — never a prefix stacked on a compound
+ * unit. Without a usable error the value gets `digits` significant figures. Missing values are "—".
+ */
+export function formatMeasured(value: number | null | undefined, error?: number | null, unit = '', digits = 3): string {
+  if (value == null || !Number.isFinite(value)) return '—';
+  const hasError = error != null && Number.isFinite(error) && error > 0;
+  const size = Math.abs(value) || (hasError ? error : 0);
+  let scale = 1;
+  let prefix = '';
+  let power = 0;
+  if (size > 0 && PREFIXABLE.has(unit)) {
+    [scale, prefix] = PREFIXES.find(([p]) => size >= p * 0.9995) ?? PREFIXES[PREFIXES.length - 1];
+  } else if (size > 0 && (size >= 1e5 || size < 1e-3)) {
+    power = Math.floor(Math.log10(size));
+    scale = 10 ** power;
+  }
+  const v = value / scale;
+  const unitText = unit ? ` ${prefix}${unit}` : '';
+  const times = power ? ` × 10${String(power).replace(/./g, (c) => SUPERSCRIPT[c])}` : '';
+  if (!hasError) {
+    const d = v === 0 ? digits - 1 : Math.max(0, digits - 1 - Math.floor(Math.log10(Math.abs(v))));
+    return `${fixed(v, d)}${times}${unitText}`;
+  }
+  const e = error / scale;
+  const d = decimalsFor(e);
+  const pair = `${fixed(v, d)} ± ${fixed(e, d)}`;
+  return power ? `(${pair})${times}${unitText}` : `${pair}${unitText}`;
+}
+
+export type BoundState = 'at-lower' | 'at-upper' | 'near-lower' | 'near-upper' | 'free';
+
+/**
+ * Where an estimate sits in its allowed range: at a bound (within 1e-6 of the range's size: the
+ * inverter holds an estimate there, and a symmetric error means nothing), within one standard error
+ * of a bound (the error bar would cross it), or free.
+ */
+export function boundState(
+  value: number,
+  error: number | null | undefined,
+  bounds: { min: number; max: number } | undefined,
+): BoundState {
+  if (!bounds || !Number.isFinite(value)) return 'free';
+  const tol = 1e-6 * Math.max(Math.abs(bounds.min), Math.abs(bounds.max), bounds.max - bounds.min);
+  if (value - bounds.min <= tol) return 'at-lower';
+  if (bounds.max - value <= tol) return 'at-upper';
+  if (error != null && Number.isFinite(error)) {
+    if (value - error < bounds.min) return 'near-lower';
+    if (value + error > bounds.max) return 'near-upper';
+  }
+  return 'free';
+}
+
+/** A parameter estimate as a table shows it: "at lower bound 100 C² km²/s" instead of "100 ± 288". */
+export function formatEstimate(
+  value: number | null | undefined,
+  error: number | null | undefined,
+  bounds: { min: number; max: number } | undefined,
+  unit = '',
+): { text: string; flag: BoundState } {
+  if (value == null || !Number.isFinite(value)) return { text: '—', flag: 'free' };
+  const flag = boundState(value, error, bounds);
+  if (flag === 'at-lower' || flag === 'at-upper') {
+    return { text: `${formatMeasured(value, null, unit)} (at ${flag === 'at-lower' ? 'lower' : 'upper'} bound)`, flag };
+  }
+  return { text: formatMeasured(value, error, unit), flag };
+}

@@ -1,7 +1,10 @@
-/** Correlation matrix of one minimum on a diverging scale centred on zero; values show on hover. */
+/**
+ * Correlation matrix of one minimum on the diverging ramp (pale = 0); each cell's value is written
+ * in black or white, whichever meets WCAG 2.1 contrast on that cell.
+ */
 import type * as Plot from '@observablehq/plot';
 import type { FigureSpec } from '@/src/web/charts/figure-spec';
-import { RAMPS } from '@/src/design/tokens';
+import { RAMPS, inkOn } from '@/src/design/tokens';
 import type { Minimum } from '@/src/engine/inverse/types';
 
 export function correlationFigure(minimum: Minimum): FigureSpec {
@@ -36,7 +39,13 @@ export function correlationFigure(minimum: Minimum): FigureSpec {
             tip: true,
             title: (d: { a: string; b: string; r: number }) => `${d.a} × ${d.b}: ${d.r.toFixed(3)}`,
           }),
-          P.text(cells, { x: 'b', y: 'a', text: (d: { r: number }) => d.r.toFixed(2), fontSize: 10 }),
+          P.text(cells, {
+            x: 'b',
+            y: 'a',
+            text: (d: { r: number }) => d.r.toFixed(2).replace('-', '−'),
+            fill: { value: (d: { r: number }) => inkOn(RAMPS.signed((d.r + 1) / 2)), scale: null },
+            fontSize: 10,
+          }),
         ],
       }) as Plot.PlotOptions,
   };

@@ -92,7 +92,12 @@ function captionOf(result: InversionResult, notDrawn: number): string {
 export function startsFigure(result: InversionResult, selected: number): FigureSpec {
   const { dots, notDrawn } = dotsOf(result);
   const n = result.minima.length;
-  const logScale = dots.length > 0 && dots.every((d) => d.misfit > 0);
+  const misfits = dots.map((d) => d.misfit);
+  const [lo, hi] = [Math.min(...misfits), Math.max(...misfits)];
+  // All starts at one misfit: a range of a scale without extent has no ticks, so give it ±0.1 % around the value.
+  const flat = dots.length > 0 && hi - lo <= 1e-9 * Math.max(1, Math.abs(hi));
+  const pad = Math.max(1e-3 * Math.abs(hi), 1e-6);
+  const logScale = !flat && dots.length > 0 && dots.every((d) => d.misfit > 0);
   return {
     title: `Where the ${result.starts} starts ended`,
     xLabel: 'Minimum (rank, best first)',
@@ -102,7 +107,11 @@ export function startsFigure(result: InversionResult, selected: number): FigureS
     build: (P) =>
       ({
         x: { domain: [0.4, n + 0.6], ticks: result.minima.map((_, i) => i + 1), tickFormat: (d: number) => `#${d}` },
-        y: logScale ? { type: 'log', insetTop: 10 } : { nice: true, insetTop: 10 },
+        y: flat
+          ? { domain: [lo - pad, hi + pad], insetTop: 10 }
+          : logScale
+            ? { type: 'log', insetTop: 10 }
+            : { nice: true, insetTop: 10 },
         symbol: { domain: ['reached', 'short', 'unknown'], range: ['circle', 'triangle', 'circle'] },
         marks: [
           // the selected minimum's column

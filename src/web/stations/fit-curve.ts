@@ -1,0 +1,37 @@
+/**
+ * The fitted Lorentzian-plus-background curve as a figure draws it: only over the band the fit was
+ * made on (a fit says nothing outside it; beyond the band a linear background can even fall below
+ * zero), and only where the model power is positive (a log axis cannot show the rest).
+ */
+export interface CurveFit {
+  modes: { frequency: number; amplitude: number; halfWidth: number }[];
+  background: { b0: number; b1: number };
+  band?: { minHz: number; maxHz: number };
+}
+
+/** Model power at f: b0 + b1 f + sum of A / (1 + ((f - f_n) / g_n)^2). */
+export function fitModel(fit: CurveFit, f: number): number {
+  let p = fit.background.b0 + fit.background.b1 * f;
+  for (const m of fit.modes) p += m.amplitude / (1 + ((f - m.frequency) / m.halfWidth) ** 2);
+  return p;
+}
+
+/** The band the curve is drawn over: the recorded one, else the modes' frequencies ± 3 half-widths (older fits). */
+export function fittedBand(fit: CurveFit): { minHz: number; maxHz: number } | null {
+  if (fit.band) return fit.band;
+  if (!fit.modes.length) return null;
+  return {
+    minHz: Math.min(...fit.modes.map((m) => m.frequency - 3 * m.halfWidth)),
+    maxHz: Math.max(...fit.modes.map((m) => m.frequency + 3 * m.halfWidth)),
+  };
+}
+
+/** Points (f, model power) at the given frequencies inside the fitted band, positive power only. */
+export function fittedCurve(fit: CurveFit, frequencies: number[]): { f: number; p: number }[] {
+  const band = fittedBand(fit);
+  if (!band) return [];
+  return frequencies
+    .filter((f) => f >= band.minHz && f <= band.maxHz)
+    .map((f) => ({ f, p: fitModel(fit, f) }))
+    .filter((d) => d.p > 0);
+}
