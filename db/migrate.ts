@@ -7,13 +7,13 @@
  */
 import fs from 'node:fs';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import postgres from 'postgres';
 import { drizzle } from 'drizzle-orm/postgres-js';
 import { migrate as drizzleMigrate } from 'drizzle-orm/postgres-js/migrator';
+import { projectRoot, runAsScript } from '@/src/ops/paths';
 import { settings } from '@/src/settings';
 
-export const migrationsFolder = fileURLToPath(new URL('../migrations', import.meta.url));
+export const migrationsFolder = path.join(projectRoot, 'migrations');
 
 /** Arbitrary constant key for pg_advisory_lock ("cavitas migrate"). */
 const MIGRATE_LOCK_KEY = 7_245_110_331;
@@ -38,7 +38,7 @@ export async function migrate(url: string | undefined = settings().DATABASE_URL)
   return entries;
 }
 
-if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+if (runAsScript(import.meta.url)) {
   migrate()
     .then((n) => console.log(`migrations: ${n} in journal, database up to date`))
     .catch((e) => {

@@ -7,6 +7,8 @@
  * Also the mode-parameter inversion of fixtures/cases/modes.json (4 stations,
  * 27 fitted modes, 3 parameters): CPU time per start, in-process.
  */
+import path from 'node:path';
+import { projectRoot } from '@/src/ops/paths';
 import { availableParallelism, loadavg } from 'node:os';
 import { bandFrequencies } from '@/src/engine/band';
 import { invertSpectra } from '@/src/engine/inverse/invert';
@@ -94,7 +96,7 @@ export default async function bench(): Promise<void> {
 /** Mode-parameter inversion: every misfit evaluation fits each predicted spectrum with the pipeline's mode fit. */
 async function modeStarts(): Promise<void> {
   const c = invertAnyCaseSchema.parse(
-    JSON.parse(readFileSync(new URL('../../fixtures/cases/modes.json', import.meta.url), 'utf8')),
+    JSON.parse(readFileSync(path.join(projectRoot, 'fixtures', 'cases', 'modes.json'), 'utf8')),
   );
   const input = modeInputFromCase(c);
   await invertModes(input, { starts: 1, seed: 2, threads: 1 }); // kernel tables

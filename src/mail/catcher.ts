@@ -1,10 +1,8 @@
 /**
  * The local mail catcher: an SMTP server on 127.0.0.1 that accepts every message the app sends
  * and stores it in `mail_messages` instead of delivering it. Started by `npm start`; can run
- * alone with `npx tsx src/mail/catcher.ts` (port from SMTP_PORT, default 2525).
+ * alone with `npx tsx src/mail/catcher-main.ts` (port from SMTP_PORT, default 2525).
  */
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser } from 'mailparser';
 import { storeMail } from '@/db/repo/mail';
@@ -72,19 +70,4 @@ export function startCatcher(options: { port?: number; host?: string; log?: (l: 
       resolve({ port, close: () => new Promise<void>((r) => server.close(() => r())) });
     });
   });
-}
-
-if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
-  const port = settings().SMTP_PORT;
-  startCatcher({ port, log: (l) => console.log(l) })
-    .then((c) => {
-      console.log(`[mail] catcher listening on 127.0.0.1:${c.port}`);
-      const stop = () => void c.close().then(() => process.exit(0));
-      process.on('SIGINT', stop);
-      process.on('SIGTERM', stop);
-    })
-    .catch((err: Error) => {
-      console.error(`[mail] cannot listen on 127.0.0.1:${port}: ${err.message} (set SMTP_PORT to a free port)`);
-      process.exit(1);
-    });
 }

@@ -8,8 +8,7 @@
 import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { NEXT_LOCK, nextBin, projectRoot } from './paths';
+import { NEXT_LOCK, nextBin, projectRoot, runAsScript } from './paths';
 import { childEnv } from '@/src/settings';
 
 /** Everything a production build depends on. */
@@ -75,11 +74,15 @@ function buildNowIfStale(env: NodeJS.ProcessEnv, log: (l: string) => void): void
 export function buildIfStale(env: NodeJS.ProcessEnv = childEnv(), log: (l: string) => void = console.log): void {
   if (!buildStaleness().stale) return;
   log(`[build] waiting for the build lock ${NEXT_LOCK}…`);
-  const r = spawnSync('flock', [NEXT_LOCK, process.execPath, '--import', 'tsx', fileURLToPath(import.meta.url), '--locked'], {
-    cwd: projectRoot,
-    stdio: 'inherit',
-    env,
-  });
+  const r = spawnSync(
+    'flock',
+    [NEXT_LOCK, process.execPath, '--import', 'tsx', path.join(projectRoot, 'src', 'ops', 'build.ts'), '--locked'],
+    {
+      cwd: projectRoot,
+      stdio: 'inherit',
+      env,
+    },
+  );
   if (r.error) throw new Error(`cannot run flock (util-linux): ${r.error.message}`);
   if (r.status !== 0) throw new Error(`production build failed (exit ${r.status})`);
 }
@@ -104,7 +107,7 @@ export function holdSharedBuildLock(lockFile = NEXT_LOCK): Promise<() => void> {
   });
 }
 
-if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+if (runAsScript(import.meta.url)) {
   try {
     if (process.argv.includes('--locked')) buildNowIfStale(childEnv(), console.log);
     else buildIfStale(childEnv(), console.log);

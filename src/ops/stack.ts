@@ -5,7 +5,7 @@
 import net from 'node:net';
 import path from 'node:path';
 import { Supervisor, waitForHttp } from './supervisor';
-import { nextBin, projectRoot } from './paths';
+import { nextBin, programArgs, projectRoot } from './paths';
 import { portInUse } from '@/db/pglocal';
 import { childEnv, mailRelay, settings } from '@/src/settings';
 
@@ -74,13 +74,12 @@ export async function startStack(o: StackOptions): Promise<Stack> {
     { dropNodeEnv: true }, // next sets NODE_ENV per command
   );
   const sup = new Supervisor(log, o.onUnexpectedExit);
-  const tsx = (file: string) => ['--import', 'tsx', path.join(projectRoot, file)];
   try {
     if (!relay) {
-      sup.start({ name: 'mail', command: process.execPath, args: tsx('src/mail/catcher.ts'), env, cwd: projectRoot });
+      sup.start({ name: 'mail', command: process.execPath, args: programArgs('mail-catcher'), env, cwd: projectRoot });
       await waitForTcp(o.smtpPort, 30_000);
     }
-    sup.start({ name: 'worker', command: process.execPath, args: tsx('src/worker/main.ts'), env, cwd: projectRoot });
+    sup.start({ name: 'worker', command: process.execPath, args: programArgs('worker'), env, cwd: projectRoot });
     const web = sup.start({
       name: 'web',
       command: process.execPath,

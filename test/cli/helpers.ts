@@ -8,9 +8,9 @@ import { expect } from 'vitest';
 
 export const root = fileURLToPath(new URL('../../', import.meta.url));
 
-/** `npm run cli -- <verb> ...args` without npm: tsx on src/cli/main.ts from the project root. */
+/** `npm run cli -- <verb> ...args` without npm: the compiled command line (src/ops/launch.mjs) from the project root. */
 export function runVerb(verb: string, args: string[], timeoutMs = 120_000) {
-  return spawnSync(join(root, 'node_modules/.bin/tsx'), ['src/cli/main.ts', verb, ...args], {
+  return spawnSync(process.execPath, ['src/ops/launch.mjs', 'cli', verb, ...args], {
     cwd: root,
     encoding: 'utf8',
     timeout: timeoutMs,

@@ -11,6 +11,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawn, type ChildProcess } from 'node:child_process';
+import { programArgs } from '@/src/ops/paths';
 import { fileURLToPath } from 'node:url';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { getBoss, stopBoss } from '@/db/jobs';
@@ -24,7 +25,7 @@ const root = fileURLToPath(new URL('../../', import.meta.url));
 const children: ChildProcess[] = [];
 
 function startWorker(): { child: ChildProcess; out: () => string } {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'src/worker/main.ts'], {
+  const child = spawn(process.execPath, programArgs('worker'), {
     cwd: root,
     env: {
       ...process.env,

@@ -1,5 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { spawn } from 'node:child_process';
+import { programArgs } from '@/src/ops/paths';
 import { fileURLToPath } from 'node:url';
 import { enqueue, getBoss, stopBoss } from '@/db/jobs';
 import { serveJobs, type WorkerHandle } from '@/src/worker/run';
@@ -70,7 +71,7 @@ describe('worker', () => {
     // one would (rightly) finish it before exiting. Start from empty queues.
     const boss = await getBoss();
     for (const j of registry) if (await boss.getQueue(j.queue)) await boss.purgeQueue(j.queue);
-    const child = spawn(process.execPath, ['--import', 'tsx', 'src/worker/main.ts'], {
+    const child = spawn(process.execPath, programArgs('worker'), {
       cwd: root,
       env: { ...process.env },
       stdio: ['ignore', 'pipe', 'pipe'],

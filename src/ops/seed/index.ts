@@ -4,8 +4,7 @@
  * Area owners add their module here: `import * as accounts from './accounts';` and an entry
  * `['accounts', accounts]`. Run alone with `npx tsx src/ops/seed/index.ts`.
  */
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { runAsScript } from '../paths';
 import type { DemoSignIn, SeedModule } from './types';
 import * as accounts from './accounts';
 import * as stations from './stations';
@@ -32,7 +31,7 @@ export function demoSignIns(): DemoSignIn[] {
   return seeders.flatMap(([, mod]) => [...(mod.DEMO_SIGN_INS ?? [])]);
 }
 
-if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+if (runAsScript(import.meta.url)) {
   const { closeDatabase: closeDb } = await import('@/db/lifecycle');
   runSeeds(console.log)
     .then(() => closeDb())

@@ -1,12 +1,20 @@
 /**
- * A shared worker-thread pool (piscina) for multi-start runs. Workers load
- * TypeScript through pool-bootstrap.mjs (tsx's ESM API). The pool is kept
+ * A shared worker-thread pool (piscina) for multi-start runs. The pool is kept
  * between runs (an interval series reuses it) and closed by
  * closeInversionPool().
  */
 import { Piscina } from 'piscina';
 import type { PoolTask } from './pool-worker';
 import type { StartOutcome } from '../descents';
+
+/**
+ * Run from TypeScript sources (tests, `npx tsx`), each thread loads them through pool-bootstrap.mjs; in the
+ * compiled programs (src/ops/launch.mjs) the thread entry `inversion-thread.js` sits beside this module's bundle.
+ */
+function workerFile(): string {
+  const fromSource = import.meta.url.endsWith('.ts');
+  return new URL(fromSource ? './pool-bootstrap.mjs' : './inversion-thread.js', import.meta.url).href;
+}
 
 let pool: Piscina | null = null;
 let poolThreads = 0;
@@ -15,7 +23,7 @@ export function inversionPool(threads: number): Piscina {
   if (pool && poolThreads === threads) return pool;
   if (pool) void pool.destroy();
   pool = new Piscina({
-    filename: new URL('./pool-bootstrap.mjs', import.meta.url).href,
+    filename: workerFile(),
     minThreads: threads,
     maxThreads: threads,
     idleTimeout: 60_000,
