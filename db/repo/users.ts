@@ -161,6 +161,17 @@ export async function writeSettings(values: Record<string, unknown>): Promise<vo
   });
 }
 
+/**
+ * The stored value of `key`; when there is none yet, `value` is stored and returned. Concurrent
+ * callers all get the one value that was stored first.
+ */
+export async function readOrCreateSetting(key: string, value: unknown): Promise<unknown> {
+  const db = getDb();
+  await db.insert(instanceSettings).values({ key, value }).onConflictDoNothing({ target: instanceSettings.key });
+  const [row] = await db.select().from(instanceSettings).where(eq(instanceSettings.key, key));
+  return row.value;
+}
+
 export async function countUsers(): Promise<number> {
   const [row] = await getDb()
     .select({ n: sql<number>`count(*)::int` })

@@ -8,3 +8,4 @@ export * from './networks';
 export * from './stations';
 export * from './runs';
 export * from './mail';
+export * from './sharing';

@@ -27,6 +27,7 @@ export type Action =
   | 'runs.launch'
   | 'runs.cancel'
   | 'runs.delete'
+  | 'runs.share'
   | 'export'
   | 'admin.mail'
   | 'admin.settings';
@@ -45,6 +46,7 @@ export const GRANTS: Readonly<Record<Action, readonly Role[]>> = {
   'grids.edit': [O, A],
   'runs.launch': [O, A],
   'runs.cancel': [O, A],
+  'runs.share': [O, A],
   'network.manage': [O],
   'members.manage': [O],
   'stations.manage': [O],
@@ -63,7 +65,7 @@ export function can(role: Role | null | undefined, action: Action): boolean {
 export const ROLE_LABEL: Record<Role, string> = { owner: 'Owner', analyst: 'Analyst', viewer: 'Viewer' };
 export const ROLE_SUMMARY: Record<Role, string> = {
   owner: 'Manages members, stations, push tokens and deletions, plus everything an analyst does.',
-  analyst: 'Uploads data, flags intervals, edits cavity models and source grids, launches and cancels runs.',
+  analyst: 'Uploads data, flags intervals, edits cavity models and source grids, launches and cancels runs, shares runs by link.',
   viewer: 'Reads everything in the network and exports results.',
 };
 

@@ -17,6 +17,7 @@ const analystActions: Action[] = [
   'grids.edit',
   'runs.launch',
   'runs.cancel',
+  'runs.share',
 ];
 const ownerOnly: Action[] = [
   'network.manage',

@@ -12,6 +12,7 @@ import { firstFigures } from '@/src/web/runs/figures/prerender';
 import { openingInterval } from '@/src/runs/view-select';
 import { SettingsSummary } from '@/src/web/runs/SettingsSummary';
 import { RunMapFrame } from '@/src/web/runs/RunMapFrame';
+import { RunLinksPanel } from '@/src/web/sharing/RunLinksPanel';
 
 export const metadata = { title: 'Run · Cavitas' };
 
@@ -59,6 +60,12 @@ export default async function RunDetailPage({ params }: { params: Promise<{ netw
         canLaunch={can(membership.role, 'runs.launch')}
         canDelete={can(membership.role, 'runs.delete')}
       />
+      <Panel
+        heading="Shared by link"
+        description="Read-only links for people outside the network: they open this run's map, minima and fits, nothing else, until they expire or are revoked."
+      >
+        <RunLinksPanel base={runApi(networkId, view.run.id)} canShare={can(membership.role, 'runs.share')} />
+      </Panel>
     </div>
   );
 }
