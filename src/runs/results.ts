@@ -12,6 +12,8 @@ import { runConfigSchema, type RunConfig } from './config';
 import { regionSchema, type Region } from './grid-spec';
 
 export interface IntervalView {
+  /** The stored interval's id (names it in `export?what=case&interval=`). */
+  id?: string;
   startsAt: string;
   nData: number;
   seconds: number;
@@ -77,9 +79,10 @@ async function runHead(networkId: string, runId: string): Promise<{ row: RunRow;
   };
 }
 
-function intervalOf(r: { startsAt: Date; nData: number; seconds: number; result: Record<string, unknown> }): IntervalView {
+function intervalOf(r: { id: string; startsAt: Date; nData: number; seconds: number; result: Record<string, unknown> }): IntervalView {
   const res = r.result as unknown as InversionResult & { skipped?: string };
   return {
+    id: r.id,
     startsAt: r.startsAt.toISOString(),
     nData: r.nData,
     seconds: r.seconds,

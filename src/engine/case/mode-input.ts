@@ -15,6 +15,7 @@ import type { CavityConfig } from '@/src/engine/cavity';
 import type { Component } from '@/src/engine/components';
 import { MAX_MODES, MIN_MODES } from '@/src/engine/modes/usual-modes';
 import { unknownsFromCase } from './spectrum-input';
+import { caseSolveSchema } from './solve-options';
 import type { ModeInversionInput } from '@/src/engine/inverse/interval-problem';
 
 const positive = z.number().positive();
@@ -51,8 +52,15 @@ export const observedModesSchema = z.looseObject({
 
 export type CaseModes = z.infer<typeof observedModesSchema>;
 
-/** A case for `invert` with either observed spectra or observed modes (exactly one of the two), and unknowns. */
+/**
+ * A case for `invert` with either observed spectra or observed modes (exactly one of the two), and unknowns;
+ * its optional `starts`, `seed` and `solver` are checked too (solve-options.ts).
+ */
 export const invertAnyCaseSchema = caseSchema.superRefine((c, ctx) => {
+  const solve = caseSolveSchema.safeParse(c);
+  if (!solve.success)
+    for (const issue of solve.error.issues)
+      ctx.addIssue({ code: 'custom', path: issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p)), message: issue.message });
   const raw = (c as { observedModes?: unknown }).observedModes;
   const hasSpectra = (c.observed?.length ?? 0) > 0;
   if (raw !== undefined && hasSpectra)

@@ -211,6 +211,9 @@ function RunPageBody({
                 <Download href={`${base}/export?format=csv&what=minima`}>Minima (CSV)</Download>
                 <Download href={`${base}/export?format=json&what=minima`}>Minima (JSON)</Download>
                 {solved.length > 1 ? <Download href={`${base}/export?format=csv&what=series`}>Series (CSV)</Download> : null}
+                <Download href={`${base}/export?what=case&interval=${encodeURIComponent(interval.startsAt)}`}>
+                  Case file (JSON)
+                </Download>
               </>
             }
           >
