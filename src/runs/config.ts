@@ -5,6 +5,8 @@
  */
 import { z } from 'zod';
 import { INVERSION_DEFAULTS } from '@/src/engine/inverse/defaults';
+import type { ObservedModes } from '@/src/engine/inverse/types';
+import type { ObservedSeries } from './types';
 
 const bounds = z
   .object({ min: z.number(), max: z.number() })
@@ -64,6 +66,16 @@ export const runConfigSchema = z.object({
     .min(0)
     .max(2 ** 31 - 1)
     .default(1),
+  /**
+   * A run made from an imported case file: the case's own observations, solved instead of stored
+   * spectra (validated by the engine's case schema on import; see src/runs/case-import.ts).
+   */
+  imported: z
+    .object({
+      observed: z.array(z.custom<ObservedSeries>()),
+      modes: z.array(z.custom<ObservedModes>()).optional(),
+    })
+    .optional(),
 });
 export type RunConfig = z.infer<typeof runConfigSchema>;
 export type RunConfigInput = z.input<typeof runConfigSchema>;

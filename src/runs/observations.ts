@@ -48,6 +48,7 @@ function bandSeries(s: IntervalSpectrum, minHz: number, maxHz: number, every: nu
 export async function loadSpectrumObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedSeries[]> {
   const o = config.observables;
   if (o.kind !== 'spectrum') throw new Error('loadSpectrumObservations needs spectrum observables');
+  if (config.imported) return config.imported.observed;
   const spectra = await getIntervalSpectra({
     networkId,
     stationIds: config.data.stationIds,
@@ -73,6 +74,8 @@ export async function loadSpectrumObservationsOf(
   const o = config.observables;
   if (o.kind !== 'spectrum') throw new Error('loadSpectrumObservationsOf needs spectrum observables');
   const times = [...new Set(starts.map((t) => t.getTime()))].sort((a, b) => a - b);
+  const imported = config.imported;
+  if (imported) return new Map(times.map((t) => [t, imported.observed]));
   const out = new Map<number, ObservedSeries[]>(times.map((t) => [t, []]));
   if (times.length === 0) return out;
   const spectra = await getIntervalSpectra({
@@ -109,6 +112,7 @@ export async function loadSpectrumObservationsOf(
 export async function loadModeObservations(networkId: string, config: RunConfig, startsAt: Date): Promise<ObservedModes[]> {
   const o = config.observables;
   if (o.kind !== 'modes') throw new Error('loadModeObservations needs mode observables');
+  if (config.imported) return config.imported.modes ?? [];
   const filter = {
     networkId,
     stationIds: config.data.stationIds,

@@ -2,6 +2,7 @@ import { pageNetworkAction } from '@/src/auth/pages';
 import { can } from '@/src/auth/permissions';
 import { listRuns } from '@/src/runs/control';
 import { ButtonLink, Caution, DataTable, EmptyState, Panel } from '@/src/web/ui';
+import { ImportCaseButton } from '@/src/web/runs/ImportCaseButton';
 
 export const metadata = { title: 'Runs · Cavitas' };
 
@@ -29,6 +30,7 @@ export default async function RunsPage({ params }: { params: Promise<{ networkId
         actions={
           <>
             {runs.length > 1 ? <ButtonLink href={`/n/${networkId}/compare`}>Compare two runs</ButtonLink> : null}
+            {launch ? <ImportCaseButton networkId={networkId} /> : null}
             {launch ? (
               <ButtonLink href={`/n/${networkId}/runs/new`} tone="primary">
                 Set up a run
