@@ -14,7 +14,8 @@ import { useApi } from '@/src/web/swr';
 import { RunMap } from '@/src/web/runs/RunMap';
 import { MinimaTable } from '@/src/web/runs/MinimaTable';
 import { FitsPanel, useFits } from '@/src/web/runs/FitsPanel';
-import { fitsUrl, type RunJson } from '@/src/web/runs/types';
+import { fitsUrl, intervalUrl, type RunJson } from '@/src/web/runs/types';
+import type { IntervalView } from '@/src/runs/results';
 import { solvedIntervals } from '@/src/runs/view-select';
 import type { RunFits } from '@/src/runs/fits';
 
@@ -49,15 +50,19 @@ export function SharedRunView({ fits, ...props }: Props) {
 
 function Body({ token, initial, map, children }: Omit<Props, 'fits'>) {
   const base = sharedApi(token);
-  const [wantFull, setWantFull] = useState(false);
-  const { data, error } = useApi<RunJson>(wantFull ? base : null, { revalidateOnFocus: false });
-  const view = data ?? initial;
+  const view = initial;
   const solved = solvedIntervals(view.intervals);
   const [pick, setPick] = useState<string | null>(null);
   const interval = solved.find((i) => i.startsAt === pick) ?? solved.at(-1) ?? null;
   const [minimum, setMinimum] = useState(0);
-  const pending = interval?.brief === true;
-  const result = pending ? null : (interval?.result ?? null);
+  // A chosen interval that came in brief is fetched whole through the link's API.
+  const chosen = useApi<{ interval: IntervalView }>(interval?.brief ? intervalUrl(base, interval.startsAt) : null, {
+    revalidateOnFocus: false,
+  });
+  const error = chosen.error;
+  const whole = interval?.brief ? (chosen.data?.interval ?? null) : interval;
+  const pending = interval !== null && whole === null;
+  const result = whole?.result ?? null;
   const index = Math.min(minimum, (result?.minima.length ?? 1) - 1);
   const m = result?.minima[index] ?? null;
   const fits = useFits(base, interval?.startsAt ?? null, index);
@@ -80,7 +85,6 @@ function Body({ token, initial, map, children }: Omit<Props, 'fits'>) {
                   onChange={(e) => {
                     setPick(e.target.value);
                     setMinimum(0);
-                    setWantFull(true);
                   }}
                 >
                   {solved.map((i) => (
