@@ -20,7 +20,9 @@ import { badRequest } from '@/src/server/errors';
 import { saveGrid, saveModel } from './catalogue';
 import { runConfigSchema, type RunConfig } from './config';
 import { engineVersion } from './engine-version';
-import { REGION_PALETTE, gridInputSchema, gridProblems, type GridInput } from './grid-spec';
+import { gridInputSchema, gridProblems, type GridInput } from './grid-spec';
+import { regionColour } from '@/src/design/tokens';
+import { logPowerVariance } from '@/src/engine/stats/log-power';
 import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
 import type { ObservedSeries } from './types';
 
@@ -54,7 +56,7 @@ function slug(i: number): string {
 }
 
 function regionOf(u: RawUnknown, i: number, cellSizeDeg: number): GridInput['regions'][number] {
-  const base = { key: slug(i), name: u.name.slice(0, 60), colour: REGION_PALETTE[i % REGION_PALETTE.length] };
+  const base = { key: slug(i), name: u.name.slice(0, 60), colour: regionColour(i) };
   if (u.cells) {
     if (u.cells.cellSizeDeg !== cellSizeDeg)
       refuse(`unknowns.${i}.cells.cellSizeDeg`, `all regions of cells must use one cell size (${cellSizeDeg}° here)`);
@@ -156,7 +158,9 @@ export async function importCase(networkId: string, userId: string, raw: unknown
     component: o.component,
     frequencies: o.frequencies,
     power: o.power,
-    sigmaLog: o.sigmaLog,
+    // With Welch statistics the engine takes sigma from them (they win); sigmaLog then says the same.
+    sigmaLog: o.welch ? Math.sqrt(logPowerVariance(o.welch.effectiveAverages)) : o.sigmaLog!,
+    ...(o.welch ? { welch: o.welch } : {}),
   }));
   const components = [...new Set([...observed.map((o) => o.component), ...(modes ?? []).map((m) => m.component)])];
   const at = intervalOf(body);

@@ -3,6 +3,7 @@
  * Engine results are stored as plain JSON on `run_intervals.result`.
  */
 import type { CavityConfig } from '@/src/engine/cavity/types';
+import type { WelchStatistics } from '@/src/engine/stats/welch-statistics';
 import type { RunConfig } from './config';
 import type { Region } from './grid-spec';
 
@@ -15,6 +16,8 @@ export interface ObservedSeries {
   frequencies: number[];
   power: number[];
   sigmaLog: number;
+  /** Welch statistics of the spectrum (imported case files may carry them; they then win over sigmaLog). */
+  welch?: WelchStatistics;
 }
 
 export interface RunStation {
