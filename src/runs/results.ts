@@ -79,7 +79,13 @@ async function runHead(networkId: string, runId: string): Promise<{ row: RunRow;
   };
 }
 
-function intervalOf(r: { id: string; startsAt: Date; nData: number; seconds: number; result: Record<string, unknown> }): IntervalView {
+function intervalOf(r: {
+  id: string;
+  startsAt: Date;
+  nData: number;
+  seconds: number;
+  result: Record<string, unknown>;
+}): IntervalView {
   const res = r.result as unknown as InversionResult & { skipped?: string };
   return {
     id: r.id,
