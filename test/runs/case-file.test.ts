@@ -16,6 +16,11 @@ import { CALLERS, call, errorOf } from '@/test/helpers/authz';
 import { stopBoss } from '@/db/jobs';
 import { listRunIntervals } from '@/db/repo/runs';
 import { invertAnyCaseSchema } from '@/src/engine/case/mode-input';
+import { intervalInputFromCase } from '@/src/engine/case/interval-input';
+import { getRun } from '@/db/repo/runs';
+import { loadRunContext } from '@/src/runs/context';
+import { loadIntervalObservations } from '@/src/runs/observations';
+import { intervalInput } from '@/src/runs/interval-input';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import * as exportRoute from '@/app/api/networks/[networkId]/runs/[runId]/export/route';
 import { makeSharingWorld, type SharingWorld } from '@/test/sharing/world';
@@ -70,7 +75,12 @@ describe('export a run interval as a case file', () => {
       expect(res.status).toBe(200);
       expect(res.headers.get('content-disposition')).toMatch(/attachment; filename=".*-case\.json"/);
       const body = (await res.json()) as Record<string, unknown>;
-      expect(invertAnyCaseSchema.safeParse(body).success).toBe(true);
+      const parsed = invertAnyCaseSchema.safeParse(body);
+      expect(parsed.success).toBe(true);
+      // Read back, it is the very problem the run's solver built for this interval.
+      const ctx = await loadRunContext((await getRun(w.networkId, w.runId))!);
+      const asRun = intervalInput(ctx, await loadIntervalObservations(w.networkId, ctx.config, row.startsAt));
+      expect(intervalInputFromCase(parsed.data!)).toEqual(asRun);
       expect(body).toMatchObject({ starts: w.config.starts, seed: w.config.seed });
       const stored = row.result as unknown as InversionResult;
       const cli = invertWithCli(body, body.starts as number, body.seed as number);

@@ -72,8 +72,8 @@ describe('import a case file as a run', () => {
 
   it('refuses bad cases with the field named and stores nothing', async () => {
     const before = await stored();
+    // eslint-disable-next-line @typescript-eslint/no-explicit-any -- the cases change JSON in any shape
     const cases: [(c: Record<string, any>) => void, string][] = [
-      // eslint-disable-line @typescript-eslint/no-explicit-any
       [
         (c) => {
           // a station the network lacks, consistently named in the case

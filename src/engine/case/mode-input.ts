@@ -60,7 +60,11 @@ export const invertAnyCaseSchema = caseSchema.superRefine((c, ctx) => {
   const solve = caseSolveSchema.safeParse(c);
   if (!solve.success)
     for (const issue of solve.error.issues)
-      ctx.addIssue({ code: 'custom', path: issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p)), message: issue.message });
+      ctx.addIssue({
+        code: 'custom',
+        path: issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p)),
+        message: issue.message,
+      });
   const raw = (c as { observedModes?: unknown }).observedModes;
   const hasSpectra = (c.observed?.length ?? 0) > 0;
   if (raw !== undefined && hasSpectra)
