@@ -9,6 +9,7 @@
 import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
 import { cavityModels, runIntervals, runs, runSurfaces, sourceGrids, type RunProgress } from '../schema/runs';
+import { ENDED_STATES } from '@/src/runs/lifecycle';
 
 export type RunRow = typeof runs.$inferSelect;
 export type RunIntervalRow = typeof runIntervals.$inferSelect;
@@ -147,9 +148,6 @@ export async function releaseRun(runId: string, workerId: string, progress: RunP
     .set({ state: 'queued', workerId: null, heartbeatAt: new Date(), progress })
     .where(and(eq(runs.id, runId), eq(runs.workerId, workerId), eq(runs.state, 'running')));
 }
-
-/** States after which nothing more is written to a run (its intervals, progress or heartbeat). */
-const ENDED_STATES = ['finished', 'failed', 'cancelled'] as const;
 
 /**
  * Which run rows a write may touch: never an ended run; with a worker id, only while that
@@ -334,31 +332,25 @@ export async function endRun(
 }
 
 /**
- * Asks a run to stop. A queued run ends at once; a running one is stopped by
- * its worker at the next check. Returns the run, or null when not in this network.
+ * Marks a run as asked to stop (no worker claims it from then on; its worker stops at the
+ * next check). Returns the run, or null when not in this network.
  */
 export async function requestCancel(networkId: string, runId: string): Promise<RunRow | null> {
-  return getDb().transaction(async (tx) => {
-    const [row] = await tx
-      .update(runs)
-      .set({ cancelRequested: true })
-      .where(and(eq(runs.id, runId), eq(runs.networkId, networkId)))
-      .returning();
-    if (!row) return null;
-    if (row.state === 'queued') {
-      const [ended] = await tx
-        .update(runs)
-        .set({ state: 'cancelled', finishedAt: new Date(), progress: { ...row.progress, phase: 'cancelled before it started' } })
-        .where(eq(runs.id, runId))
-        .returning();
-      return ended;
-    }
-    return row;
-  });
+  const [row] = await getDb()
+    .update(runs)
+    .set({ cancelRequested: true })
+    .where(and(eq(runs.id, runId), eq(runs.networkId, networkId)))
+    .returning();
+  return row ?? null;
 }
 
-/** Puts a failed or cancelled run back in the queue; its finished intervals are kept and skipped. */
-export async function requeueRun(networkId: string, runId: string): Promise<RunRow | null> {
+/** Puts a run that is in one of `from` back in the queue, showing `phase`; its finished intervals are kept. */
+export async function requeueRun(
+  networkId: string,
+  runId: string,
+  from: readonly RunState[],
+  phase: string,
+): Promise<RunRow | null> {
   const [row] = await getDb()
     .update(runs)
     .set({
@@ -366,9 +358,9 @@ export async function requeueRun(networkId: string, runId: string): Promise<RunR
       cancelRequested: false,
       error: null,
       finishedAt: null,
-      progress: sql`jsonb_set(${runs.progress}, '{phase}', '"waiting for a worker"')`,
+      progress: sql`jsonb_set(${runs.progress}, '{phase}', to_jsonb(${phase}::text))`,
     })
-    .where(and(eq(runs.id, runId), eq(runs.networkId, networkId), inArray(runs.state, ['failed', 'cancelled'])))
+    .where(and(eq(runs.id, runId), eq(runs.networkId, networkId), inArray(runs.state, [...from])))
     .returning();
   return row ?? null;
 }
@@ -401,6 +393,7 @@ export async function sweepLapsedRuns(
   leaseSeconds: number,
   queue: string,
   send: (runId: string) => Promise<void>,
+  cancelledPhase: string,
   bossSchema = 'pgboss',
 ): Promise<{ continued: string[]; cancelled: string[] }> {
   return getDb().transaction(async (tx) => {
@@ -414,7 +407,7 @@ export async function sweepLapsedRuns(
         state: 'cancelled',
         finishedAt: new Date(),
         heartbeatAt: new Date(),
-        progress: sql`jsonb_set(${runs.progress}, '{phase}', '"cancelled (its worker had stopped)"')`,
+        progress: sql`jsonb_set(${runs.progress}, '{phase}', to_jsonb(${cancelledPhase}::text))`,
       })
       .where(and(eq(runs.cancelRequested, true), lapsed))
       .returning({ id: runs.id });

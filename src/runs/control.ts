@@ -1,17 +1,21 @@
 /** A network's runs: listing, cancelling, re-running and deleting (the pages and route handlers call these). */
-import { deleteRun, getRun, requestCancel, requeueRun, type RunRow } from '@/db/repo/runs';
-import { enqueue } from '@/db/jobs';
+import { deleteRun, endRun, getRun, requestCancel, requeueRun, type RunRow } from '@/db/repo/runs';
 import { conflict, notFound } from '@/src/server/errors';
+import { enqueueRun } from './queues';
+import { mayCancel, mayDelete, mayRerun, PHASE, RERUNNABLE_STATES } from './lifecycle';
 
 export { listRuns, type RunListEntry } from '@/db/repo/runs';
-import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
 
 export async function cancelRun(networkId: string, runId: string): Promise<RunRow> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
-  if (run.state !== 'queued' && run.state !== 'running') throw conflict(`The run has already ended (${run.state}).`);
+  if (!mayCancel(run.state)) throw conflict(`The run has already ended (${run.state}).`);
   const row = await requestCancel(networkId, runId);
   if (!row) throw notFound('That run is not in this network.');
+  // No worker claims a run once it is asked to stop, so a queued run ends here and now;
+  // a running one is stopped by its worker at the next check.
+  if (row.state === 'queued' && (await endRun(runId, 'cancelled', { ...row.progress, phase: PHASE.cancelledBeforeStart })))
+    return (await getRun(networkId, runId)) ?? row;
   return row;
 }
 
@@ -19,15 +23,16 @@ export async function cancelRun(networkId: string, runId: string): Promise<RunRo
 export async function rerunRun(networkId: string, runId: string): Promise<RunRow> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
-  const row = await requeueRun(networkId, runId);
+  if (!mayRerun(run.state)) throw conflict(`Only a failed or cancelled run can be run again; this one is ${run.state}.`);
+  const row = await requeueRun(networkId, runId, RERUNNABLE_STATES, PHASE.waiting);
   if (!row) throw conflict(`Only a failed or cancelled run can be run again; this one is ${run.state}.`);
-  await enqueue(RUN_QUEUE, { runId }, RUN_JOB_OPTIONS);
+  await enqueueRun(runId);
   return row;
 }
 
 export async function removeRun(networkId: string, runId: string): Promise<void> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
-  if (run.state === 'running' || run.state === 'queued') throw conflict('Cancel the run before deleting it.');
+  if (!mayDelete(run.state)) throw conflict('Cancel the run before deleting it.');
   await deleteRun(networkId, runId);
 }

@@ -11,13 +11,12 @@ import { getGrid } from '@/db/repo/grids';
 import { createRun, measuredCostPerUnit, type RunRow } from '@/db/repo/runs';
 import { listIntervals } from '@/db/repo/intervals';
 import { listStations } from '@/db/repo/stations';
-import { enqueue } from '@/db/jobs';
 import { badRequest } from '@/src/server/errors';
 import { countParameters, type RunConfig } from './config';
 import { regionSchema, type Region } from './grid-spec';
 import { countIntervalData, loadIntervalObservations } from './observations';
 import { engineVersion } from './engine-version';
-import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
+import { enqueueRun } from './queues';
 
 export type LaunchProblem = { field: string; message: string };
 export interface LaunchPreview {
@@ -177,6 +176,6 @@ export async function launchRun(networkId: string, userId: string | null, config
     startsPerInterval: config.starts,
     createdBy: userId,
   });
-  await enqueue(RUN_QUEUE, { runId: run.id }, RUN_JOB_OPTIONS);
+  await enqueueRun(run.id);
   return run;
 }

@@ -6,10 +6,9 @@
  */
 import { z } from 'zod';
 import { getRun, getOrCreateSurface, getSurface, resetSurface, type SurfaceRow } from '@/db/repo/runs';
-import { enqueue } from '@/db/jobs';
 import { badRequest, notFound } from '@/src/server/errors';
 import { findIntervalView } from './results';
-import { SURFACE_JOB_OPTIONS, SURFACE_QUEUE } from './queues';
+import { enqueueSurface } from './queues';
 
 export const surfaceSpecSchema = z
   .object({
@@ -38,7 +37,7 @@ export async function requestSurface(networkId: string, runId: string, spec: Sur
   const { row, created } = await getOrCreateSurface(runId, surfaceKey(spec), spec as unknown as Record<string, unknown>);
   if (created || row.state === 'failed') {
     if (!created) await resetSurface(row.id);
-    await enqueue(SURFACE_QUEUE, { surfaceId: row.id }, SURFACE_JOB_OPTIONS);
+    await enqueueSurface(row.id);
     return { ...row, state: 'queued', error: null };
   }
   return row;

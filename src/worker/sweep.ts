@@ -10,9 +10,10 @@
  * `sweepLapsedRuns`), so at most one continuation per run is ever pending, however many
  * workers sweep.
  */
-import { BOSS_SCHEMA, enqueue } from '@/db/jobs';
+import { BOSS_SCHEMA } from '@/db/jobs';
 import { sweepLapsedRuns } from '@/db/repo/runs';
-import { RUN_JOB_OPTIONS, RUN_QUEUE } from '@/src/runs/queues';
+import { enqueueRun, RUN_QUEUE } from '@/src/runs/queues';
+import { PHASE } from '@/src/runs/lifecycle';
 import { settings } from '@/src/settings';
 
 export interface SweepOutcome {
@@ -22,14 +23,7 @@ export interface SweepOutcome {
 
 /** One sweep: queues a continuation for each lapsed run without a pending job. */
 export async function sweepRuns(leaseSeconds = settings().CAVITAS_RUN_LEASE_S): Promise<SweepOutcome> {
-  return sweepLapsedRuns(
-    leaseSeconds,
-    RUN_QUEUE,
-    async (runId) => {
-      await enqueue(RUN_QUEUE, { runId }, RUN_JOB_OPTIONS);
-    },
-    BOSS_SCHEMA,
-  );
+  return sweepLapsedRuns(leaseSeconds, RUN_QUEUE, enqueueRun, PHASE.cancelledWorkerGone, BOSS_SCHEMA);
 }
 
 export interface SweepHandle {

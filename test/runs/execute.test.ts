@@ -7,6 +7,7 @@
  * once a run has ended or passed to another worker.
  */
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { PHASE, RERUNNABLE_STATES } from '@/src/runs/lifecycle';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import {
   claimRun,
@@ -155,7 +156,7 @@ describe('run driver', () => {
     // hand, or the progress timer within a longer solve): the interval in hand is finished and
     // kept, and no further interval begins.
     expect(await listRunIntervals(run.id)).toHaveLength(2);
-    expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
+    expect(await requeueRun(w.networkId, run.id, RERUNNABLE_STATES, PHASE.waiting)).not.toBeNull();
     expect(await executeRun(run.id, { solve: engineSolver, workerId: 'w2' })).toBe('finished');
     expect(await listRunIntervals(run.id)).toHaveLength(4);
   });
@@ -306,7 +307,7 @@ describe('run driver', () => {
     expect(r!.progress.intervalsDone).toBe(3);
 
     // "Run the rest again": the re-run solves only the three left, and every interval is stored once.
-    expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
+    expect(await requeueRun(w.networkId, run.id, RERUNNABLE_STATES, PHASE.waiting)).not.toBeNull();
     const again: string[] = [];
     expect(
       await executeRun(run.id, {
@@ -359,7 +360,7 @@ describe('run driver', () => {
     expect(r!.progress.intervalsDone).toBe(2);
     expect(r!.progress.phase).toBe('cancelled after 2 of 5 intervals');
 
-    expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
+    expect(await requeueRun(w.networkId, run.id, RERUNNABLE_STATES, PHASE.waiting)).not.toBeNull();
     const again: string[] = [];
     expect(
       await executeRun(run.id, {
@@ -405,7 +406,7 @@ describe('run driver', () => {
     expect((await getRunById(run.id))!.progress).toEqual(ended!.progress);
 
     // Re-queued and taken by another worker: the first worker's writes are refused, the holder's go through.
-    expect(await requeueRun(w.networkId, run.id)).not.toBeNull();
+    expect(await requeueRun(w.networkId, run.id, RERUNNABLE_STATES, PHASE.waiting)).not.toBeNull();
     expect(await saveRunIntervals(run.id, [late], ended!.progress, 'w1')).toMatchObject({ inserted: 0, held: false });
     const solvedBy: string[] = [];
     expect(

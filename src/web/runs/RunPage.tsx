@@ -33,6 +33,7 @@ import { intervalUrl, runApi, type IntervalView, type RunJson } from './types';
 import type { FirstFigures } from './figures/prerender';
 import { openingInterval, regionColours, solvedIntervals } from '@/src/runs/view-select';
 import type { RunFits } from '@/src/runs/fits';
+import { hasEnded, mayCancel, mayDelete, mayRerun } from '@/src/runs/lifecycle';
 
 /** What the server drew and computed for the first view. */
 export interface FirstView {
@@ -46,7 +47,6 @@ const ModeFitsPanel = dynamic(() => import('./ModeFitsPanel').then((m) => m.Mode
   loading: () => <p className="text-sm text-muted">Loading mode fits…</p>,
 });
 
-const LIVE = new Set(['queued', 'running']);
 const STATE_WORDS: Record<string, string> = {
   queued: 'Waiting for a worker',
   running: 'Computing',
@@ -96,7 +96,7 @@ function RunPageBody({
   const base = runApi(networkId, initial.run.id);
   // Poll while the run is queued or running (a fixed interval switched by the last answer:
   // SWR's function form sees no data until the first fetch).
-  const [live, setLive] = useState(LIVE.has(initial.run.state));
+  const [live, setLive] = useState(!hasEnded(initial.run.state));
   const {
     data,
     mutate,
@@ -107,7 +107,7 @@ function RunPageBody({
     // whole); a finished run's is here already, a live run's is fetched again while it runs.
     revalidateOnMount: live,
     refreshInterval: live ? 1500 : 0,
-    onSuccess: (d) => setLive(LIVE.has(d.run.state)),
+    onSuccess: (d) => setLive(!hasEnded(d.run.state)),
   });
   const view = data ?? initial;
   const { run } = view;
@@ -157,17 +157,17 @@ function RunPageBody({
         heading="How it went"
         actions={
           <>
-            {LIVE.has(run.state) && canCancel ? (
+            {mayCancel(run.state) && canCancel ? (
               <Button type="button" tone="secondary" onClick={() => act(`${base}/cancel`)} disabled={run.cancelRequested}>
                 {run.cancelRequested ? 'Stopping…' : 'Cancel run'}
               </Button>
             ) : null}
-            {(run.state === 'failed' || run.state === 'cancelled') && canLaunch ? (
+            {mayRerun(run.state) && canLaunch ? (
               <Button type="button" tone="primary" onClick={() => act(`${base}/rerun`)}>
                 Run the rest again
               </Button>
             ) : null}
-            {!LIVE.has(run.state) && canDelete ? (
+            {mayDelete(run.state) && canDelete ? (
               <ConfirmAction
                 label="Delete run"
                 loss="The run goes with every interval's result, fit and misfit surface it stored. Its settings can be launched again."
@@ -187,7 +187,7 @@ function RunPageBody({
         <ProgressBar
           value={run.state === 'finished' ? 1 : fraction}
           label={p.phase}
-          remainingSeconds={LIVE.has(run.state) ? p.etaSeconds : null}
+          remainingSeconds={!hasEnded(run.state) ? p.etaSeconds : null}
         />
         {run.state === 'failed' ? (
           <Notice tone="error" className="mt-3" title="The run stopped">
@@ -301,7 +301,7 @@ function RunPageBody({
               ? (chosen.error ?? viewError)
                 ? `The chosen interval could not be loaded: ${(chosen.error ?? viewError)!.message}`
                 : 'Loading the chosen interval…'
-              : LIVE.has(run.state)
+              : !hasEnded(run.state)
                 ? 'Results appear here as soon as the first interval is finished.'
                 : 'This run has no finished interval with data.'}
           </p>

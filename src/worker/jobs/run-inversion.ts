@@ -10,11 +10,10 @@
  */
 import { hostname } from 'node:os';
 import type { JobDefinition } from '../types';
-import { enqueue } from '@/db/jobs';
 import { getRunById } from '@/db/repo/runs';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
-import { RUN_JOB_OPTIONS, RUN_QUEUE } from '@/src/runs/queues';
+import { enqueueRun, RUN_JOB_OPTIONS, RUN_QUEUE } from '@/src/runs/queues';
 import { settings } from '@/src/settings';
 
 let handingOver = false;
@@ -43,7 +42,7 @@ export const job: JobDefinition<{ runId: string }> = {
         yieldNow: () => handingOver,
         writeEveryMs: settings().CAVITAS_RUN_WRITE_MS,
       });
-      if (outcome === 'yielded') await enqueue(RUN_QUEUE, { runId: j.data.runId }, RUN_JOB_OPTIONS);
+      if (outcome === 'yielded') await enqueueRun(j.data.runId);
       if (outcome === 'not-runnable' && (await getRunById(j.data.runId))?.state === 'running') {
         // Held by a heartbeat: either a live worker (then these retries run out harmlessly) or
         // an attempt that just died (then a retry after the lease has passed takes the run over).

@@ -1,0 +1,27 @@
+/**
+ * What a run may do next. A run is queued, then running (claimed by a worker, handed back to
+ * the queue after each time slice), and ends finished, failed or cancelled; a failed or
+ * cancelled run may be put back in the queue, keeping its finished intervals. These rules are
+ * declared here once; the queries in db/repo/runs.ts apply them, the pages show them.
+ */
+import type { RunState } from '@/db/repo/runs';
+
+/** States after which nothing more is written to a run (its intervals, progress or heartbeat). */
+export const ENDED_STATES = ['finished', 'failed', 'cancelled'] as const satisfies readonly RunState[];
+
+/** States from which a run may be put back in the queue. */
+export const RERUNNABLE_STATES = ['failed', 'cancelled'] as const satisfies readonly RunState[];
+
+/** The phase a run shows when a state change, not its worker, wrote its progress. */
+export const PHASE = {
+  waiting: 'waiting for a worker',
+  cancelledBeforeStart: 'cancelled before it started',
+  cancelledWorkerGone: 'cancelled (its worker had stopped)',
+} as const;
+
+export const hasEnded = (s: RunState): boolean => (ENDED_STATES as readonly RunState[]).includes(s);
+/** Only a run that has not ended can be asked to stop; a queued one stops at once. */
+export const mayCancel = (s: RunState): boolean => !hasEnded(s);
+export const mayRerun = (s: RunState): boolean => (RERUNNABLE_STATES as readonly RunState[]).includes(s);
+/** A run is deleted only once it has ended (cancel it first). */
+export const mayDelete = (s: RunState): boolean => hasEnded(s);
