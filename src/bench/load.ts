@@ -28,7 +28,7 @@ import { startSession } from '@/src/auth/session';
 import { nextBin, projectRoot } from '@/src/ops/paths';
 import { waitForHttp } from '@/src/ops/supervisor';
 import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
-import { childEnv, settings } from '@/src/settings';
+import { childEnv, setEnv, settings } from '@/src/settings';
 import { largeResult } from './large-result';
 
 const INTERVALS = 144;
@@ -155,10 +155,10 @@ export default async function main(): Promise<void> {
   const rounds = s.LOAD_ROUNDS;
   const stop: Array<() => Promise<void> | void> = [];
   let pg: ThrowawayPg | null = null;
-  const previousUrl = process.env.DATABASE_URL;
+  const previousUrl = settings().DATABASE_URL;
   try {
     pg = await startThrowawayPostgres();
-    process.env.DATABASE_URL = pg.url;
+    setEnv('DATABASE_URL', pg.url);
     await migrate(pg.url);
     const t0 = performance.now();
     const ownerId = `load-${randomUUID()}`;
@@ -276,7 +276,6 @@ export default async function main(): Promise<void> {
     await stopBoss(5_000).catch(() => {});
     await closeDatabase().catch(() => {});
     await pg?.stop().catch(() => {});
-    if (previousUrl === undefined) delete process.env.DATABASE_URL;
-    else process.env.DATABASE_URL = previousUrl;
+    setEnv('DATABASE_URL', previousUrl);
   }
 }

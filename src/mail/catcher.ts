@@ -6,7 +6,6 @@
 import { SMTPServer } from 'smtp-server';
 import { simpleParser } from 'mailparser';
 import { storeMail } from '@/db/repo/mail';
-import { settings } from '@/src/settings';
 
 /** Largest message accepted (bytes); larger ones are refused with SMTP 552. */
 export const MAX_MESSAGE_BYTES = 10 * 1024 * 1024;

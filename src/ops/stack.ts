@@ -3,7 +3,6 @@
  * pointed at one DATABASE_URL. Used by `npm start`, `npm run dev` and the browser tests.
  */
 import net from 'node:net';
-import path from 'node:path';
 import { Supervisor, waitForHttp } from './supervisor';
 import { nextBin, programArgs, projectRoot } from './paths';
 import { portInUse } from '@/db/pglocal';
