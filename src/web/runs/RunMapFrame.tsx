@@ -5,9 +5,10 @@
  */
 import { WorldFrame } from '@/src/web/map/WorldFrame';
 import { RunMapLayer } from './RunMap';
+import { MAP_SIZE } from './map-size';
 
-const WIDTH = 900;
-const HEIGHT = 460;
+const WIDTH = MAP_SIZE.width;
+const HEIGHT = MAP_SIZE.height;
 
 export function RunMapFrame() {
   return (
@@ -15,7 +16,7 @@ export function RunMapFrame() {
       width={WIDTH}
       height={HEIGHT}
       title="Source regions of the selected minimum"
-      description="Regions shaded by estimated intensity; moving centres with 1- and 2-sigma ellipses; stations coloured by fit quality."
+      description="Regions shaded by estimated intensity; moving regions with their spread and the 68 % and 95 % confidence ellipses of their centre; stations marked by fit quality or as without data."
     >
       <RunMapLayer width={WIDTH} height={HEIGHT} />
     </WorldFrame>

@@ -5,6 +5,7 @@ import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import type { PlotModule } from '@/src/web/charts/plot-module';
 import { RAMPS } from '@/src/design/tokens';
+import { JOINT_2D, deltaChi2Contours } from '@/src/runs/confidence';
 import { Button } from '@/src/web/ui/Button';
 import { Notice } from '@/src/web/ui/Notice';
 import { apiSend, useApi } from '@/src/web/swr';
@@ -62,23 +63,52 @@ export function SurfacePanel({
     };
     const ex = edges(r.x, logX);
     const ey = edges(r.y, logY);
+    const least = Math.min(r.centre.misfit, ...r.misfit.flat().filter(Number.isFinite));
     const cells = r.y.flatMap((yv, j) =>
-      r.x.map((xv, i) => ({ x1: ex[i][0], x2: ex[i][1], y1: ey[j][0], y2: ey[j][1], m: r.misfit[j][i] })),
+      r.x.map((xv, i) => ({
+        x1: ex[i][0],
+        x2: ex[i][1],
+        y1: ey[j][0],
+        y2: ey[j][1],
+        m: r.misfit[j][i],
+        d: r.misfit[j][i] - least,
+      })),
+    );
+    // Joint 68 % and 95 % regions of the two parameters (Delta chi2 = 2.30, 6.18), one line per ring.
+    const lines = deltaChi2Contours(
+      { ...r, minimum: r.centre.misfit },
+      JOINT_2D.map((l) => l.deltaChi2),
+      { x: logX, y: logY },
+    ).flatMap((c, k) =>
+      c.rings.flatMap((ring, n) => ring.map(([px, py]) => ({ x: px, y: py, ring: `${k}-${n}`, level: JOINT_2D[k].label }))),
     );
     return (Plot: PlotModule) =>
       ({
         x: logX ? { type: 'log' } : {},
         y: logY ? { type: 'log' } : {},
-        color: { type: 'log', interpolate: RAMPS.depth, legend: true, label: 'misfit χ² (dimensionless)' },
+        color: {
+          type: 'linear',
+          interpolate: RAMPS.depth,
+          legend: true,
+          label: `Δχ² above the minimum χ² = ${least.toPrecision(6)} (dimensionless)`,
+        },
         marks: [
           Plot.rect(cells, {
             x1: 'x1',
             x2: 'x2',
             y1: 'y1',
             y2: 'y2',
-            fill: 'm',
-            title: (d: { m: number }) => `χ² = ${d.m.toPrecision(5)}`,
+            fill: 'd',
+            title: (d: { m: number; d: number }) => `χ² = ${d.m.toPrecision(6)} (Δχ² = ${d.d.toPrecision(3)})`,
           }),
+          // each contour twice, a dark line under a white one, so it reads on every cell of the ramp
+          Plot.line(lines, { x: 'x', y: 'y', z: 'ring', stroke: '#000000', strokeWidth: 3, strokeOpacity: 0.6 }),
+          ...JOINT_2D.map((l, k) =>
+            Plot.line(
+              lines.filter((p) => p.level === l.label),
+              { x: 'x', y: 'y', z: 'ring', stroke: '#ffffff', strokeWidth: 1.25, strokeDasharray: k ? '5 3' : undefined },
+            ),
+          ),
           Plot.dot([r.centre], { x: 'x', y: 'y', r: 5, stroke: 'white', strokeWidth: 2, symbol: 'cross' }),
         ],
       }) as unknown as Plot.PlotOptions;
@@ -159,7 +189,7 @@ export function SurfacePanel({
           title={`Misfit over ${s.result.xName} and ${s.result.yName}`}
           xLabel={unit(s.result.xName)}
           yLabel={unit(s.result.yName)}
-          caption={`${s.result && (s.result as { mode?: string }).mode === 'profile' ? 'Other parameters re-minimised at each point' : 'Other parameters held at the minimum'}; the cross marks the minimum; ±3 standard errors around it.`}
+          caption={`${s.result && (s.result as { mode?: string }).mode === 'profile' ? 'Other parameters re-minimised at each point' : 'Other parameters held at the minimum'}; the cross marks the minimum; ±3 standard errors around it. Contours: joint 68 % (solid) and 95 % (dashed) regions of the two parameters, Δχ² = 2.30 and 6.18 (Press et al., Numerical Recipes §15.6).`}
           options={options}
           height={340}
         />
