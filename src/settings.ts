@@ -111,6 +111,8 @@ const schema = z.object({
   LOAD_USERS: count.default(50),
   /** Rounds each simulated user makes over the three addresses. */
   LOAD_ROUNDS: count.default(10),
+  /** Milliseconds a simulated user reads an answer before the next request, on average (0: back to back). */
+  LOAD_THINK_MS: num.refine((n) => n >= 0, 'must be 0 or more').default(1000),
   /** The load phase stops after this many seconds even if rounds remain. */
   LOAD_SECONDS: positive.default(120),
 });

@@ -258,7 +258,7 @@ export interface RunIntervalSummaryRow {
   nData: number;
   seconds: number;
   skipped: string | null;
-  /** The best minimum without its start list, internal vector and matrices (null when none). */
+  /** The best minimum's misfit, reduced chi-square, start count, sources and standard errors (null when none). */
   best: Record<string, unknown> | null;
   minimaCount: number;
   starts: number | null;
@@ -277,10 +277,12 @@ export async function listRunIntervalSummaries(runId: string): Promise<RunInterv
       nData: runIntervals.nData,
       seconds: runIntervals.seconds,
       skipped: sql<string | null>`${r} ->> 'skipped'`,
-      best: sql<Record<
-        string,
-        unknown
-      > | null>`(${r} -> 'minima' -> 0) - 'startIndexes' - 'internal' - 'correlation' - 'resolution'`,
+      best: sql<Record<string, unknown> | null>`case when ${r} -> 'minima' -> 0 is not null then jsonb_build_object(
+        'misfit', ${r} -> 'minima' -> 0 -> 'misfit',
+        'reducedChi2', ${r} -> 'minima' -> 0 -> 'reducedChi2',
+        'count', ${r} -> 'minima' -> 0 -> 'count',
+        'sources', ${r} -> 'minima' -> 0 -> 'sources',
+        'stdErrors', ${r} -> 'minima' -> 0 -> 'stdErrors') end`,
       minimaCount: sql<number>`coalesce(jsonb_array_length(case when jsonb_typeof(${r} -> 'minima') = 'array' then ${r} -> 'minima' end), 0)::int`,
       starts: sql<number | null>`(${r} ->> 'starts')::int`,
       unconverged: sql<number | null>`(${r} ->> 'unconverged')::int`,

@@ -4,7 +4,8 @@
  * size of a full day with many starts; results made up by `largeResult`) and more runs for the
  * list, then lets LOAD_USERS users (default 50), each signed in with a session of its own, ask in
  * turn for the network overview, the run list and the run API (its summary), LOAD_ROUNDS times
- * each (default 10), for at most LOAD_SECONDS (default 120). Prints p50/p95/max per address
+ * each (default 10), reading each answer LOAD_THINK_MS on average (default 1000; 0 for back-to-back
+ * requests), for at most LOAD_SECONDS (default 120). Prints p50/p95/max per address
  * (goal: p95 under 300 ms on the 2-core machine), and the run page and the run API alone, one
  * request at a time. Measurements only; nothing passes or fails. Needs a production build in .next.
  */
@@ -153,6 +154,7 @@ export default async function main(): Promise<void> {
   const s = settings();
   const users = s.LOAD_USERS;
   const rounds = s.LOAD_ROUNDS;
+  const think = s.LOAD_THINK_MS;
   const stop: Array<() => Promise<void> | void> = [];
   let pg: ThrowawayPg | null = null;
   const previousUrl = settings().DATABASE_URL;
@@ -225,6 +227,11 @@ export default async function main(): Promise<void> {
       }
       return { median: quantile(xs, 0.5), kb: bytes / 1024 };
     };
+    const overview = await alone(targets.overview);
+    const list = await alone(targets['run list']);
+    console.log(
+      `alone: overview ${ms(overview.median)} (${overview.kb.toFixed(0)} KiB), run list ${ms(list.median)} (${list.kb.toFixed(0)} KiB) — medians`,
+    );
     const page = await alone(`${base}/n/${networkId}/runs/${runId}`);
     const summary = await alone(targets['run API']);
     const full = await alone(`${targets['run API']}?detail=full`, 3);
@@ -247,6 +254,8 @@ export default async function main(): Promise<void> {
             const res = await timed(url, cookie).catch((e: Error) => ({ ms: NaN, status: 0, bytes: 0, error: e.message }));
             if (res.status !== 200) failures.push(`${name}: ${res.status}`);
             else times[name].push(res.ms);
+            // A person reads before the next click: THINK ms on average (uniform, ±50 %).
+            await new Promise((r) => setTimeout(r, think * (0.5 + Math.random())));
           }
         }
       }),
@@ -254,7 +263,7 @@ export default async function main(): Promise<void> {
     const wall = (performance.now() - t1) / 1000;
     const total = Object.values(times).reduce((a, xs) => a + xs.length, 0);
     console.log(
-      `${users} users x ${rounds} rounds x 3 addresses: ${total} answers in ${wall.toFixed(1)} s (${(total / wall).toFixed(0)}/s)` +
+      `${users} users x ${rounds} rounds x 3 addresses, ${think} ms to read each answer: ${total} answers in ${wall.toFixed(1)} s (${(total / wall).toFixed(0)}/s)` +
         `${failures.length ? `, ${failures.length} failed (${[...new Set(failures)].slice(0, 3).join('; ')})` : ''}; load average ${loadavg()
           .map((x) => x.toFixed(1))
           .join(' ')}`,

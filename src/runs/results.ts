@@ -21,8 +21,8 @@ export interface IntervalView {
   result: InversionResult | null;
   skipped?: string;
   /**
-   * Set in a run summary (`getRunSummary`): `result` holds only the best minimum, without its start
-   * list, internal vector and matrices, and the result's counts; `counts` says how many minima there are.
+   * Set in a run summary (`getRunSummary`): `result` holds only the best minimum's misfit, reduced
+   * chi-square, start count, sources and standard errors; `counts` says how many minima and starts there are.
    * The whole interval comes from `getIntervalView` (the API's `?interval=`).
    */
   brief?: true;
@@ -104,8 +104,8 @@ export async function getRunView(networkId: string, runId: string): Promise<RunV
 }
 
 /**
- * What the run page and the run API send first: every interval's best minimum (without its
- * matrices and start list) and counts, cut down in the database, and the whole result of the
+ * What the run page and the run API send first: every interval's best minimum (misfit, sources,
+ * standard errors) and counts, cut down in the database, and the whole result of the
  * interval the page opens on (the last solved one). Other intervals come from `getIntervalView`.
  */
 export async function getRunSummary(networkId: string, runId: string): Promise<RunView> {
