@@ -263,6 +263,12 @@ export interface RunIntervalSummaryRow {
   minimaCount: number;
   starts: number | null;
   unconverged: number | null;
+  /** Free parameters of the interval's inversion (null for skipped intervals). */
+  nParams: number | null;
+  /** How the stored errors were made ('stated'; null for results stored before it was recorded). */
+  errorBasis: string | null;
+  /** Each series' chi2 and data count at the best minimum (null when not recorded). */
+  seriesMisfits: unknown[] | null;
 }
 
 /**
@@ -286,6 +292,9 @@ export async function listRunIntervalSummaries(runId: string): Promise<RunInterv
       minimaCount: sql<number>`coalesce(jsonb_array_length(case when jsonb_typeof(${r} -> 'minima') = 'array' then ${r} -> 'minima' end), 0)::int`,
       starts: sql<number | null>`(${r} ->> 'starts')::int`,
       unconverged: sql<number | null>`(${r} ->> 'unconverged')::int`,
+      nParams: sql<number | null>`(${r} ->> 'nParams')::int`,
+      errorBasis: sql<string | null>`${r} ->> 'errorBasis'`,
+      seriesMisfits: sql<unknown[] | null>`${r} -> 'seriesMisfits'`,
     })
     .from(runIntervals)
     .where(eq(runIntervals.runId, runId))

@@ -52,13 +52,22 @@ export const runConfigSchema = z.object({
     .object({
       initialLambda: z.number().positive().max(1e6).default(INVERSION_DEFAULTS.lm.initialDamping),
       maxIterations: z.number().int().min(5).max(2000).default(INVERSION_DEFAULTS.lm.maxIterations),
-      scaleCovariance: z.boolean().default(true),
+      /**
+       * Runs launched before `scaleErrorsByMisfit`: true stored errors multiplied by sqrt(reduced chi2)
+       * (also below 1). Read only to undo that and as the switch's value for those runs
+       * (src/runs/error-scaling.ts); new runs set `scaleErrorsByMisfit`.
+       */
+      scaleCovariance: z.boolean().optional(),
     })
     .default({
       initialLambda: INVERSION_DEFAULTS.lm.initialDamping,
       maxIterations: INVERSION_DEFAULTS.lm.maxIterations,
-      scaleCovariance: true,
     }),
+  /**
+   * "Scale errors by the misfit": shown errors times sqrt(chi2 / dof) of their minimum where that is above 1.
+   * Off by default: errors then follow from the stated sigmas alone. Recorded with the run.
+   */
+  scaleErrorsByMisfit: z.boolean().optional(),
   starts: z.number().int().min(1).max(256).default(INVERSION_DEFAULTS.seriesStarts),
   seed: z
     .number()
@@ -79,6 +88,11 @@ export const runConfigSchema = z.object({
 });
 export type RunConfig = z.infer<typeof runConfigSchema>;
 export type RunConfigInput = z.input<typeof runConfigSchema>;
+
+/** Whether a run's shown errors are scaled by its misfit (runs launched before the switch: their old setting). */
+export function scalesErrorsByMisfit(config: Pick<RunConfig, 'scaleErrorsByMisfit' | 'damping'>): boolean {
+  return config.scaleErrorsByMisfit ?? config.damping.scaleCovariance ?? false;
+}
 
 /** Number of free parameters a configuration asks for: intensity, plus lat/lon for moving regions. */
 export function countParameters(config: Pick<RunConfig, 'regions'>): number {

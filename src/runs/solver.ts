@@ -8,6 +8,13 @@ import type { InversionResult } from '@/src/engine/inverse/types';
 import { settings } from '@/src/settings';
 import { intervalInput } from './interval-input';
 import type { IntervalSolver } from './types';
+import { seriesMisfits } from './series-misfit';
+
+/**
+ * Marks a stored result whose standard errors come from the stated sigmas alone (never scaled by
+ * the misfit: the run view scales them when the run asks for it, src/runs/error-scaling.ts).
+ */
+export const STATED_ERRORS = 'stated' as const;
 
 export function runThreads(): number | undefined {
   return settings().CAVITAS_RUN_THREADS;
@@ -27,7 +34,7 @@ const solve = async (...[ctx, c, hooks, threads]: [...Parameters<IntervalSolver>
     seed: config.seed,
     ...(threads ? { threads } : {}),
     lm: { initialDamping: config.damping.initialLambda, maxIterations: config.damping.maxIterations },
-    scaleErrors: config.damping.scaleCovariance,
+    scaleErrors: false,
   };
   const callbacks = {
     onProgress: (p: { done: number; total: number }) => hooks.onStart(p.done, p.total),
@@ -36,7 +43,16 @@ const solve = async (...[ctx, c, hooks, threads]: [...Parameters<IntervalSolver>
   const result = await invertInterval(intervalInput(ctx, c), options, callbacks);
   // A stop asked for while the last starts were finishing leaves a complete result: it is kept.
   if (interrupted(result)) return 'cancelled' as const;
-  return { nData: result.nData, result: result as unknown as Record<string, unknown> };
+  // Each series' share of the best minimum's chi-square, for the goodness-of-fit tables.
+  const best = result.minima[0];
+  const misfits = best && Number.isFinite(best.misfit) ? seriesMisfits(ctx, c, best.internal) : undefined;
+  return {
+    nData: result.nData,
+    result: { ...result, errorBasis: STATED_ERRORS, ...(misfits ? { seriesMisfits: misfits } : {}) } as unknown as Record<
+      string,
+      unknown
+    >,
+  };
 };
 
 /**

@@ -106,6 +106,20 @@ describe('configure a model and a grid, run, and read the results', () => {
     await page.getByText('Research estimate, not a lightning warning').first().waitFor();
 
     step('figures shown');
+    // Goodness of fit in the open: the run's chi2, dof and probability, the selected interval per station
+    // and component, the minima's probabilities, and how the errors are meant (as stated, the default).
+    await page.getByTestId('goodness').waitFor();
+    await expect(page.getByTestId('goodness-run-chi2').textContent()).resolves.toMatch(/\d/);
+    await expect(page.getByTestId('goodness-run-p').textContent()).resolves.toMatch(/\d/);
+    const perSeries = page.getByRole('table', { name: /selected interval per station and component/ });
+    await perSeries.waitFor();
+    expect(await perSeries.locator('tbody tr').count()).toBeGreaterThan(0);
+    await page
+      .getByRole('table', { name: /Distinct minima/ })
+      .getByText('P(≥ χ²)')
+      .waitFor();
+    await expect(page.getByTestId('error-scaling').textContent()).resolves.toMatch(/as stated/);
+
     // Opened afresh, the page brings its first view drawn in the HTML (before any script runs); the
     // browser then redraws every figure live (its own width, hover texts), leaving none of the server's.
     const html = await (await page.request.get(page.url())).text();

@@ -44,6 +44,10 @@ describe('mode runs on the demo data', () => {
       const best = res.minima[0];
       expect(best.singular).toBe(false);
       for (const v of Object.values(best.stdErrors['Middle belt'])) expect(Number.isFinite(v as number)).toBe(true);
+      // Goodness per station/component: three data per observed mode, the shares adding up to the best chi2.
+      const series = (res as unknown as { seriesMisfits: { chi2: number; n: number }[] }).seriesMisfits;
+      expect(series.reduce((a, s) => a + s.n, 0)).toBe(res.nData);
+      expect(series.reduce((a, s) => a + s.chi2, 0)).toBeCloseTo(best.misfit, 6);
     }
     // Each misfit evaluation fits every predicted spectrum with the pipeline's mode fit (predicted-modes.ts): minutes, not seconds, on a busy 2-core machine.
   }, 300_000);

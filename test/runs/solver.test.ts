@@ -70,6 +70,24 @@ describe('engine solver and stop requests', () => {
     expect(early).toBe('cancelled');
   });
 
+  it("records each series' chi2 at the best minimum (adding up to its misfit) and errors as stated", async () => {
+    const { ctx, c } = await oneInterval();
+    const out = await engineSolver(ctx, { ...c }, { onStart: () => {}, shouldStop: () => false });
+    const result = (out as { result: Record<string, unknown> }).result as unknown as InversionResult & {
+      seriesMisfits: { station: string; component: string; chi2: number; n: number }[];
+      errorBasis: string;
+    };
+    expect(result.errorBasis).toBe('stated');
+    expect(result.seriesMisfits.map((s) => `${s.station} ${s.component}`)).toEqual(
+      c.observed.map((o) => `${o.station} ${o.component}`),
+    );
+    expect(result.seriesMisfits.reduce((a, s) => a + s.n, 0)).toBe(result.nData);
+    const best = result.minima[0];
+    expect(result.seriesMisfits.reduce((a, s) => a + s.chi2, 0)).toBeCloseTo(best.misfit, 6);
+    // Errors from the stated sigmas: the run world does not scale them, whatever its chi2.
+    expect(ctx.config.scaleErrorsByMisfit ?? false).toBe(false);
+  });
+
   it('calls a result interrupted when a start is missing or was ended by the stop', () => {
     const base = {
       starts: 3,

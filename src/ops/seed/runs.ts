@@ -109,7 +109,8 @@ export async function seedDemoRuns(networkId: string): Promise<void> {
       { region: 'west-belt', intensity: { min: 1e3, max: 1e6 } },
       { region: 'east-belt', intensity: { min: 1e3, max: 1e6 } },
     ],
-    damping: { initialLambda: 1e-2, maxIterations: 100, scaleCovariance: true },
+    damping: { initialLambda: 1e-2, maxIterations: 100 },
+    scaleErrorsByMisfit: false,
     starts: 4,
     seed: 1,
   };

@@ -5,11 +5,13 @@ import * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import type { RunView } from '@/src/runs/results';
 import { fmt } from './types';
+import { goodnessOf } from '@/src/runs/goodness';
 
 function bestRows(v: RunView) {
   return v.intervals.flatMap((iv) => {
     const m = iv.result?.minima[0];
-    return m ? [{ t: iv.startsAt, misfit: m.misfit, reduced: m.reducedChi2, sources: m.sources, errors: m.stdErrors }] : [];
+    const g = m && iv.result ? goodnessOf(m.misfit, iv.nData - iv.result.nParams) : null;
+    return m ? [{ t: iv.startsAt, misfit: m.misfit, reduced: m.reducedChi2, sources: m.sources, errors: m.stdErrors, g }] : [];
   });
 }
 
@@ -45,7 +47,7 @@ export function CompareView({ a, b }: { a: RunView; b: RunView }) {
             </h3>
             <p className="text-muted">
               {v.model.name} v{v.model.version} · {v.grid.name} v{v.grid.version} · {v.config.starts} starts, seed {v.config.seed}{' '}
-              · {v.run.state}
+              · {v.run.state} · errors {v.errorsScaledByMisfit ? 'scaled by the misfit where χ²/dof > 1' : 'as stated'}
             </p>
             <table className="mt-3 w-full tabular-nums">
               <thead className="text-left text-muted">
@@ -53,6 +55,7 @@ export function CompareView({ a, b }: { a: RunView; b: RunView }) {
                   <th>Interval (UT)</th>
                   <th className="text-right">χ²</th>
                   <th className="text-right">Reduced χ²</th>
+                  <th className="text-right">P(≥ χ²)</th>
                   <th className="text-right">Intensities (C² km²/s)</th>
                 </tr>
               </thead>
@@ -62,6 +65,10 @@ export function CompareView({ a, b }: { a: RunView; b: RunView }) {
                     <td>{r.t.slice(0, 16).replace('T', ' ')}</td>
                     <td className="text-right">{fmt(r.misfit, 5)}</td>
                     <td className="text-right">{fmt(r.reduced)}</td>
+                    <td className="text-right">
+                      {fmt(r.g?.p, 2)}
+                      {r.g?.implausible ? <span className="ml-1 text-xs font-semibold text-danger">implausible</span> : null}
+                    </td>
                     <td className="text-right">
                       {r.sources.map((s) => `${s.name} ${fmt(s.intensity)} ± ${fmt(r.errors[s.name]?.intensity, 2)}`).join('; ')}
                     </td>

@@ -22,6 +22,8 @@ export function parameterBounds(config: Pick<RunConfig, 'regions'>, regions: Reg
   }
   return out;
 }
+import { goodnessOf } from '@/src/runs/goodness';
+import { errorScaleLabel } from '@/src/runs/error-scaling';
 
 type Key = 'rank' | 'misfit' | 'reduced' | 'count';
 
@@ -39,6 +41,8 @@ export function MinimaTable({
 }) {
   const [sort, setSort] = useState<{ key: Key; desc: boolean }>({ key: 'rank', desc: false });
   const names = result.paramNames;
+  const dof = result.nData - result.nParams;
+  const scaleOf = (m: unknown) => (m as { errorScale?: number }).errorScale;
   const rows = useMemo(() => {
     const r = result.minima.map((m, i) => ({ i, rank: i + 1, misfit: m.misfit, reduced: m.reducedChi2, count: m.count, m }));
     r.sort((a, b) => (a[sort.key] - b[sort.key]) * (sort.desc ? -1 : 1));
@@ -76,6 +80,9 @@ export function MinimaTable({
             {head('rank', '#')}
             {head('misfit', 'Misfit χ²')}
             {head('reduced', 'Reduced χ²')}
+            <th scope="col" className="px-2 py-1.5 text-right font-medium">
+              P(≥ χ²)
+            </th>
             {head('count', 'Starts')}
             {names.map((n) => (
               <th key={n} scope="col" className="px-2 py-1.5 text-right font-medium">
@@ -83,6 +90,9 @@ export function MinimaTable({
                 {n.endsWith('.intensity') ? ' (C² km²/s)' : ' (°)'}
               </th>
             ))}
+            <th scope="col" className="px-2 py-1.5 text-left font-medium">
+              ± 1σ
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -105,6 +115,12 @@ export function MinimaTable({
               </td>
               <td className="px-2 py-1 text-right">{fmt(r.misfit, 5)}</td>
               <td className="px-2 py-1 text-right">{fmt(r.reduced)}</td>
+              <td className="px-2 py-1 text-right">
+                {fmt(goodnessOf(r.misfit, dof).p, 2)}
+                {goodnessOf(r.misfit, dof).implausible ? (
+                  <span className="ml-1 rounded bg-danger-soft px-1 text-xs font-semibold text-danger">implausible</span>
+                ) : null}
+              </td>
               <td className="px-2 py-1 text-right">{r.count}</td>
               {names.map((n) => {
                 const { text, flag } = value(r.m, n);
@@ -123,6 +139,7 @@ export function MinimaTable({
                   </td>
                 );
               })}
+              <td className="px-2 py-1 text-left text-xs text-muted">{errorScaleLabel(scaleOf(r.m))}</td>
             </tr>
           ))}
         </tbody>

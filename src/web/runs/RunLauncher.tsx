@@ -49,7 +49,7 @@ type FormValues = {
   regions: RegionRow[];
   initialLambda: number;
   maxIterations: number;
-  scaleCovariance: boolean;
+  scaleErrorsByMisfit: boolean;
   starts: number;
   seed: number;
 };
@@ -98,8 +98,8 @@ export function toConfig(v: FormValues): unknown {
     damping: {
       initialLambda: Number(v.initialLambda),
       maxIterations: Number(v.maxIterations),
-      scaleCovariance: v.scaleCovariance,
     },
+    scaleErrorsByMisfit: v.scaleErrorsByMisfit,
     starts: Number(v.starts),
     seed: Number(v.seed),
   };
@@ -164,7 +164,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
       regions: firstGrid ? regionRows(firstGrid.regions) : [],
       initialLambda: INVERSION_DEFAULTS.lm.initialDamping,
       maxIterations: INVERSION_DEFAULTS.lm.maxIterations,
-      scaleCovariance: true,
+      scaleErrorsByMisfit: false,
       starts: INVERSION_DEFAULTS.seriesStarts,
       seed: INVERSION_DEFAULTS.seed,
     },
@@ -459,8 +459,8 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
           </label>
         </div>
         <label className="flex items-center gap-2 text-sm">
-          <input type="checkbox" {...register('scaleCovariance')} />
-          Scale standard errors by the reduced chi-square
+          <input type="checkbox" {...register('scaleErrorsByMisfit')} />
+          Scale errors by the misfit: × √(χ²/dof) where χ²/dof is above 1 (shown errors are then labelled as scaled)
         </label>
         <FieldError message={err('starts')} />
         <FieldError message={err('seed')} />

@@ -30,6 +30,8 @@ import { SurfacePanel } from './SurfacePanel';
 import { StartsPicture } from './StartsPicture';
 import { SeriesCurves } from './SeriesCurves';
 import { intervalUrl, runApi, type IntervalView, type RunJson } from './types';
+import { GoodnessTables } from './GoodnessTables';
+import { intervalSeriesGoodness, type GoodnessSource } from '@/src/runs/goodness';
 import type { FirstFigures } from './figures/prerender';
 import { openingInterval, regionColours, solvedIntervals } from '@/src/runs/view-select';
 import type { RunFits } from '@/src/runs/fits';
@@ -261,6 +263,12 @@ function RunPageBody({
                 : 'Observed and predicted spectra at each station and component, with weighted residuals.'
             }
           >
+            <GoodnessTables
+              goodness={view.goodness}
+              selected={whole ? intervalSeriesGoodness(whole as unknown as GoodnessSource) : []}
+              selectedStartsAt={interval.startsAt}
+            />
+            <h3 className="mt-6 mb-2 text-sm font-semibold">Fits at each station</h3>
             {view.config.observables.kind === 'modes' ? (
               <ModeFitsPanel fits={fits.data} error={fits.error} />
             ) : (
@@ -289,6 +297,7 @@ function RunPageBody({
               <SeriesCurves
                 intervals={view.intervals}
                 colours={colours}
+                goodness={view.goodness}
                 prerendered={view === initial ? first?.figures.series : null}
               />
             </Panel>

@@ -59,8 +59,14 @@ export function SettingsSummary({ view, stationCodes, networkId }: { view: RunVi
         </ul>
       </Row>
       <Row label="Damping">
-        initial λ {config.damping.initialLambda}, at most {config.damping.maxIterations} iterations, errors{' '}
-        {config.damping.scaleCovariance ? 'scaled by reduced χ²' : 'from the stated σ'}
+        initial λ {config.damping.initialLambda}, at most {config.damping.maxIterations} iterations
+      </Row>
+      <Row label="Errors">
+        <span data-testid="error-scaling">
+          {view.errorsScaledByMisfit
+            ? 'scaled by the misfit: × √(χ²/dof) of each minimum where above 1'
+            : 'as stated (from the data’s σ, not scaled by the misfit)'}
+        </span>
       </Row>
       <Row label="Starts / seed">
         {config.starts} / {config.seed}

@@ -32,7 +32,7 @@ export function firstFigures(view: RunView, fits: RunFits | null): FirstFigures 
   return {
     series:
       solved.length > 1
-        ? renderFigureSvg(seriesFigure(view.intervals, regionColours(view.grid.regions)), SERVER_WIDTH.full)
+        ? renderFigureSvg(seriesFigure(view.intervals, regionColours(view.grid.regions), view.goodness), SERVER_WIDTH.full)
         : null,
     correlation: best ? renderFigureSvg(correlationFigure(best), SERVER_WIDTH.half) : null,
     starts: open?.result && best ? renderFigureSvg(startsFigure(open.result, 0), SERVER_WIDTH.half) : null,
