@@ -1,9 +1,10 @@
 /**
  * The running application: mail catcher, worker and web server as supervised children, all
- * pointed at one DATABASE_URL. Used by `npm start`, `npm run dev` and the browser tests.
+ * pointed at one DATABASE_URL. A child that dies is restarted (src/ops/supervisor.ts); the
+ * others, and PostgreSQL, stay up. Used by `npm start`, `npm run dev` and the browser tests.
  */
 import net from 'node:net';
-import { Supervisor, waitForHttp } from './supervisor';
+import { Supervisor, waitForHttp, type RestartPolicy } from './supervisor';
 import { nextBin, programArgs, projectRoot } from './paths';
 import { portInUse } from '@/db/pglocal';
 import { childEnv, mailRelay, settings } from '@/src/settings';
@@ -16,7 +17,9 @@ export interface StackOptions {
   /** Public address of the app (default http://127.0.0.1:<port>). */
   appUrl?: string;
   log?: (line: string) => void;
-  onUnexpectedExit?: (name: string, code: number | null) => void;
+  /** A child kept crashing and is no longer restarted (see Supervisor). */
+  onGiveUp?: (name: string, reason: string) => void;
+  restartPolicy?: RestartPolicy;
   /** Extra variables for every child. */
   env?: NodeJS.ProcessEnv;
 }
@@ -25,6 +28,8 @@ export interface Stack {
   appUrl: string;
   port: number;
   smtpPort: number;
+  /** Current process id of a child ('web', 'worker', 'mail'), undefined while it is down. */
+  pid(name: string): number | undefined;
   stop(): Promise<void>;
 }
 
@@ -72,29 +77,25 @@ export async function startStack(o: StackOptions): Promise<Stack> {
     },
     { dropNodeEnv: true }, // next sets NODE_ENV per command
   );
-  const sup = new Supervisor(log, o.onUnexpectedExit);
+  const sup = new Supervisor(log, o.onGiveUp, o.restartPolicy);
   try {
     if (!relay) {
       sup.start({ name: 'mail', command: process.execPath, args: programArgs('mail-catcher'), env, cwd: projectRoot });
       await waitForTcp(o.smtpPort, 30_000);
     }
     sup.start({ name: 'worker', command: process.execPath, args: programArgs('worker'), env, cwd: projectRoot });
-    const web = sup.start({
+    sup.start({
       name: 'web',
       command: process.execPath,
       args: [nextBin, o.mode === 'dev' ? 'dev' : 'start', '-H', '127.0.0.1', '-p', String(o.port)],
       env,
       cwd: projectRoot,
     });
-    await waitForHttp(
-      `http://127.0.0.1:${o.port}/`,
-      o.mode === 'dev' ? 180_000 : 60_000,
-      () => web.exitCode === null && web.signalCode === null,
-    );
+    await waitForHttp(`http://127.0.0.1:${o.port}/`, o.mode === 'dev' ? 180_000 : 60_000, () => sup.isSupervised('web'));
     log(`[start] web server answers on http://127.0.0.1:${o.port}/`);
   } catch (err) {
     await sup.stopAll(5_000);
     throw err;
   }
-  return { appUrl, port: o.port, smtpPort: o.smtpPort, stop: () => sup.stopAll() };
+  return { appUrl, port: o.port, smtpPort: o.smtpPort, pid: (name) => sup.pid(name), stop: () => sup.stopAll() };
 }

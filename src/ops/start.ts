@@ -4,7 +4,9 @@
  * 1. PostgreSQL: DATABASE_URL if set, else the private cluster in .data/pg on 127.0.0.1:PGPORT_CAVITAS.
  * 2. Migrations, then the demo data (idempotent).
  * 3. `next build` when the build is missing or stale (npm start only).
- * 4. Mail catcher, worker and web server; prints the address and the demo sign-ins.
+ * 4. Mail catcher, worker and web server; prints the address and the demo sign-ins. A child
+ *    that dies is restarted after a back-off; only one that keeps crashing (five times within a
+ *    minute) stops everything, with a message naming it.
  * Ctrl-C stops the children, then PostgreSQL if this command started it.
  */
 import path from 'node:path';
@@ -71,8 +73,8 @@ async function main(): Promise<void> {
       smtpPort,
       appUrl: s.APP_URL,
       log,
-      onUnexpectedExit: (name) => {
-        console.error(`[start] ${name} stopped unexpectedly; shutting everything down`);
+      onGiveUp: (name, reason) => {
+        console.error(`[start] ${name} keeps crashing (${reason}); shutting everything down`);
         void shutdown(1);
       },
     });

@@ -21,10 +21,17 @@ export interface TestApp {
   /** Output of the children, for failure messages. */
   logs: string[];
   signIns: DemoSignIn[];
+  /** Current process id of a child ('web', 'worker', 'mail'). */
+  pid(name: string): number | undefined;
   stop(): Promise<void>;
 }
 
-export async function startTestApp(): Promise<TestApp> {
+export interface TestAppOptions {
+  /** Extra environment for every child (e.g. a short run lease for the worker). */
+  env?: NodeJS.ProcessEnv;
+}
+
+export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
   const databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) throw new Error('DATABASE_URL is not set (run through npm test or the e2e vitest config)');
   await migrate(databaseUrl);
@@ -42,7 +49,7 @@ export async function startTestApp(): Promise<TestApp> {
     buildIfStale({ ...process.env, DATABASE_URL: databaseUrl }, log);
     // Keep other checkouts' builds from replacing .next while this app serves it.
     release = await holdSharedBuildLock();
-    stack = await startStack({ mode: 'production', databaseUrl, port, smtpPort, log });
+    stack = await startStack({ mode: 'production', databaseUrl, port, smtpPort, log, env: options.env });
   } catch (err) {
     release?.();
     const tail = logs.slice(-40).join('\n');
@@ -55,6 +62,7 @@ export async function startTestApp(): Promise<TestApp> {
     smtpPort,
     logs,
     signIns: demoSignIns(),
+    pid: (name) => running.pid(name),
     stop: async () => {
       try {
         await running.stop();
