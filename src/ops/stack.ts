@@ -21,7 +21,7 @@ export interface StackOptions {
   onGiveUp?: (name: string, reason: string) => void;
   restartPolicy?: RestartPolicy;
   /** Extra variables for every child. */
-  env?: NodeJS.ProcessEnv;
+  env?: Record<string, string | undefined>;
 }
 
 export interface Stack {

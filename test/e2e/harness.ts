@@ -28,7 +28,7 @@ export interface TestApp {
 
 export interface TestAppOptions {
   /** Extra environment for every child (e.g. a short run lease for the worker). */
-  env?: NodeJS.ProcessEnv;
+  env?: Record<string, string>;
 }
 
 export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
