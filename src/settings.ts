@@ -61,6 +61,10 @@ const schema = z.object({
   // ── Limits ────────────────────────────────────────────────────────────────────────────────
   /** Largest accepted upload, in megabytes. */
   UPLOAD_MAX_MB: positive.default(200),
+  /** Failed sign-ins for one e-mail address within 15 minutes before it must wait (5 s, doubling, at most 1 min). */
+  SIGN_IN_ACCOUNT_ALLOWANCE: count.default(5),
+  /** Failed sign-ins from one client address within 15 minutes before it must wait (30 s, doubling, at most 15 min). */
+  SIGN_IN_ADDRESS_ALLOWANCE: count.default(20),
   /** Requests one station push token may make per minute. */
   PUSH_RATE_PER_MINUTE: count.default(120),
   /** Largest JSON body of sign-in, sign-up and password resets, in kilobytes (refused with 413 before parsing). */

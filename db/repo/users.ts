@@ -127,14 +127,26 @@ export async function getThrottleRows(keys: string[]): Promise<ThrottleRow[]> {
   return getDb().select().from(signInThrottle).where(inArray(signInThrottle.key, keys));
 }
 
-export async function saveThrottleRow(row: ThrottleRow): Promise<void> {
-  await getDb()
-    .insert(signInThrottle)
-    .values(row)
-    .onConflictDoUpdate({
-      target: signInThrottle.key,
-      set: { failures: row.failures, firstFailureAt: row.firstFailureAt, lockedUntil: row.lockedUntil },
-    });
+/**
+ * Change one throttle row atomically: the row is created if missing (no failures) and locked
+ * (SELECT … FOR UPDATE) while `next` computes its new state, so parallel failures queue up
+ * instead of overwriting each other.
+ */
+export async function bumpThrottleRow(
+  key: string,
+  now: Date,
+  next: (prev: ThrottleRow | undefined) => ThrottleRow,
+): Promise<ThrottleRow> {
+  return getDb().transaction(async (tx) => {
+    await tx.insert(signInThrottle).values({ key, failures: 0, firstFailureAt: now, lockedUntil: null }).onConflictDoNothing();
+    const [prev] = await tx.select().from(signInThrottle).where(eq(signInThrottle.key, key)).for('update');
+    const row = next(prev && prev.failures > 0 ? prev : undefined);
+    await tx
+      .update(signInThrottle)
+      .set({ failures: row.failures, firstFailureAt: row.firstFailureAt, lockedUntil: row.lockedUntil })
+      .where(eq(signInThrottle.key, key));
+    return row;
+  });
 }
 
 export async function clearThrottleRows(keys: string[]): Promise<void> {

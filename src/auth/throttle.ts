@@ -1,33 +1,62 @@
 /**
- * Sign-in throttling, per account and per client address, kept in PostgreSQL.
- * Five failures for an account (twenty for an address, which many people may
- * share) within fifteen minutes lock the key; each further failure doubles
- * the lock (30 s, 60 s, 120 s …) up to fifteen minutes.
+ * Sign-in throttling, per account and per client address, counted in PostgreSQL.
+ *
+ * Each failed sign-in adds one to two counters: the e-mail address tried (`account:<email>`,
+ * whether or not an account has it, so the answer never tells) and the client address
+ * (`address:<ip>`). Each counter is changed under a row lock (db/repo/users.ts
+ * `bumpThrottleRow`), so parallel attempts are all counted. Past its allowance within the
+ * window, a counter asks for a wait that doubles per further failure (exponential back-off,
+ * NIST SP 800-63B §5.2.2 and the OWASP Authentication Cheat Sheet, common practice):
+ *
+ * - an account waits 5 s, 10 s … at most one minute — short, so that nobody can keep an owner
+ *   out of their own account for long;
+ * - a client address waits 30 s, 60 s … at most fifteen minutes — it holds up only that address.
+ *
+ * A counter for one e-mail address or one client address never holds up another, so failures
+ * for unknown e-mail addresses cannot lock a real account, and one busy address cannot lock out
+ * everyone else. The wait is answered as 429 with Retry-After.
  */
-import { clearThrottleRows, getThrottleRows, saveThrottleRow, type ThrottleRow } from '@/db/repo/users';
+import { bumpThrottleRow, clearThrottleRows, getThrottleRows, type ThrottleRow } from '@/db/repo/users';
 import { tooManyRequests } from '@/src/server/errors';
 import { settings } from '@/src/settings';
 
-export const THROTTLE = {
-  allowance: 5,
-  addressAllowance: 20,
-  windowMs: 15 * 60_000,
-  baseLockMs: 30_000,
-  maxLockMs: 15 * 60_000,
-} as const;
+export interface ThrottlePolicy {
+  /** Failures within the window before any wait. */
+  allowance: number;
+  /** First wait; doubled per further failure. */
+  baseDelayMs: number;
+  maxDelayMs: number;
+}
 
-/** Pure: the row after one more failure at `now`. */
-export function afterFailure(prev: ThrottleRow | undefined, key: string, now: Date): ThrottleRow {
-  const stale = !prev || (now.getTime() - prev.firstFailureAt.getTime() > THROTTLE.windowMs && !isLocked(prev, now));
-  const failures = stale ? 1 : prev!.failures + 1;
-  const firstFailureAt = stale ? now : prev!.firstFailureAt;
-  const over = failures - (key.startsWith('address:') ? THROTTLE.addressAllowance : THROTTLE.allowance);
-  const lockedUntil = over >= 0 ? new Date(now.getTime() + Math.min(THROTTLE.maxLockMs, THROTTLE.baseLockMs * 2 ** over)) : null;
-  return { key, failures, firstFailureAt, lockedUntil };
+export const WINDOW_MS = 15 * 60_000;
+
+/** The two policies; the allowances come from the settings (SIGN_IN_ACCOUNT_ALLOWANCE, SIGN_IN_ADDRESS_ALLOWANCE). */
+export function throttlePolicies(): { account: ThrottlePolicy; address: ThrottlePolicy } {
+  const s = settings();
+  return {
+    account: { allowance: s.SIGN_IN_ACCOUNT_ALLOWANCE, baseDelayMs: 5_000, maxDelayMs: 60_000 },
+    address: { allowance: s.SIGN_IN_ADDRESS_ALLOWANCE, baseDelayMs: 30_000, maxDelayMs: 15 * 60_000 },
+  };
+}
+
+function policyFor(key: string): ThrottlePolicy {
+  const p = throttlePolicies();
+  return key.startsWith('address:') ? p.address : p.account;
 }
 
 export function isLocked(row: ThrottleRow | undefined, now: Date): boolean {
   return !!row?.lockedUntil && row.lockedUntil.getTime() > now.getTime();
+}
+
+/** Pure: the row after one more failure at `now`. A row with no failures counts as none. */
+export function afterFailure(prev: ThrottleRow | undefined, key: string, now: Date, policy: ThrottlePolicy): ThrottleRow {
+  const fresh =
+    !prev || prev.failures === 0 || (now.getTime() - prev.firstFailureAt.getTime() > WINDOW_MS && !isLocked(prev, now));
+  const failures = fresh ? 1 : prev!.failures + 1;
+  const firstFailureAt = fresh ? now : prev!.firstFailureAt;
+  const over = failures - policy.allowance;
+  const lockedUntil = over >= 0 ? new Date(now.getTime() + Math.min(policy.maxDelayMs, policy.baseDelayMs * 2 ** over)) : null;
+  return { key, failures, firstFailureAt, lockedUntil };
 }
 
 /** "45 seconds", "2 minutes" — rounded up. */
@@ -42,26 +71,27 @@ export function throttleKeys(email: string, address: string): string[] {
   return [`account:${email.trim().toLowerCase()}`, `address:${address}`];
 }
 
-/** Throw 429 with the wait time when any key is locked. */
+/** Throw 429 with the wait (message and Retry-After) when any key must wait. */
 export async function assertNotThrottled(keys: string[], now: Date): Promise<void> {
   const rows = await getThrottleRows(keys);
   const locked = rows.filter((r) => isLocked(r, now));
   if (locked.length === 0) return;
   const until = Math.max(...locked.map((r) => r.lockedUntil!.getTime()));
-  const what = locked.some((r) => r.key.startsWith('account:')) ? 'this account' : 'this address';
-  throw tooManyRequests(`Too many failed sign-ins for ${what}. Try again in ${describeWait(until - now.getTime())}.`);
+  const what = locked.some((r) => r.key.startsWith('address:')) ? 'from this address' : 'for this account';
+  throw tooManyRequests(
+    `Too many failed sign-ins ${what}. Try again in ${describeWait(until - now.getTime())}.`,
+    (until - now.getTime()) / 1000,
+  );
 }
 
-export async function recordFailure(keys: string[], now: Date): Promise<void> {
-  const rows = await getThrottleRows(keys);
-  for (const key of keys)
-    await saveThrottleRow(
-      afterFailure(
-        rows.find((r) => r.key === key),
-        key,
-        now,
-      ),
-    );
+/** Count one failure on every key, each atomically. */
+export async function recordFailure(keys: string[], now: Date): Promise<ThrottleRow[]> {
+  const out: ThrottleRow[] = [];
+  for (const key of keys) {
+    const policy = policyFor(key);
+    out.push(await bumpThrottleRow(key, now, (prev) => afterFailure(prev, key, now, policy)));
+  }
+  return out;
 }
 
 export async function clearAccountThrottle(email: string): Promise<void> {
@@ -69,13 +99,17 @@ export async function clearAccountThrottle(email: string): Promise<void> {
 }
 
 /**
- * Client address for throttling. Behind a reverse proxy (TRUST_PROXY=true) it
- * is the first X-Forwarded-For hop, else X-Real-IP; otherwise the headers could
- * be forged by the client, and all direct callers share the key "local".
+ * Client address for throttling. Behind a reverse proxy (TRUST_PROXY=true) it is the last
+ * X-Forwarded-For hop — the one the proxy itself appended — else X-Real-IP. Served directly,
+ * Next.js fills X-Forwarded-For with the socket's address; `npm start` listens on loopback only,
+ * so direct callers are local processes.
  */
 export function clientAddress(req: Request): string {
-  if (!settings().TRUST_PROXY) return 'local';
-  const fwd = req.headers.get('x-forwarded-for');
-  if (fwd) return fwd.split(',')[0].trim();
-  return req.headers.get('x-real-ip')?.trim() || 'local';
+  const fwd = req.headers
+    .get('x-forwarded-for')
+    ?.split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
+  if (settings().TRUST_PROXY) return fwd?.at(-1) || req.headers.get('x-real-ip')?.trim() || 'unknown';
+  return fwd?.[0] || 'unknown';
 }

@@ -6,13 +6,16 @@ export class AppError extends Error {
   readonly status: number;
   readonly code: string;
   readonly field?: string;
+  /** Seconds the client should wait before trying again; sent as the Retry-After header. */
+  readonly retryAfterS?: number;
 
-  constructor(status: number, code: string, message: string, field?: string) {
+  constructor(status: number, code: string, message: string, field?: string, retryAfterS?: number) {
     super(message);
     this.name = 'AppError';
     this.status = status;
     this.code = code;
     this.field = field;
+    this.retryAfterS = retryAfterS;
   }
 }
 
@@ -32,7 +35,8 @@ export const conflict = (message: string, field?: string) => new AppError(409, '
 
 export const gone = (message: string) => new AppError(410, 'gone', message);
 
-export const tooManyRequests = (message: string) => new AppError(429, 'throttled', message);
+export const tooManyRequests = (message: string, retryAfterS?: number) =>
+  new AppError(429, 'throttled', message, undefined, retryAfterS === undefined ? undefined : Math.max(1, Math.ceil(retryAfterS)));
 
 /** The JSON body every failing API response carries. */
 export interface ErrorBody {

@@ -23,8 +23,10 @@ export function json(data: unknown, status = 200, headers?: HeadersInit): Respon
   return Response.json(data, { status, headers });
 }
 
-export function errorResponse(status: number, body: ErrorBody): Response {
-  return Response.json(body, { status, headers: { 'cache-control': 'no-store' } });
+export function errorResponse(status: number, body: ErrorBody, retryAfterS?: number): Response {
+  const headers: Record<string, string> = { 'cache-control': 'no-store' };
+  if (retryAfterS !== undefined) headers['retry-after'] = String(retryAfterS);
+  return Response.json(body, { status, headers });
 }
 
 function fieldOf(path: ReadonlyArray<PropertyKey>): string | undefined {
@@ -36,7 +38,7 @@ export function toErrorResponse(e: unknown): Response {
   if (e instanceof AppError) {
     const error: ErrorBody['error'] = { code: e.code, message: e.message };
     if (e.field) error.field = e.field;
-    return errorResponse(e.status, { error });
+    return errorResponse(e.status, { error }, e.retryAfterS);
   }
   if (e instanceof ZodError) {
     const issue = e.issues[0];

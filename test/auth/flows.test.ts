@@ -115,6 +115,7 @@ describe('sign-up and sign-in', () => {
     }
     const locked = await call(signIn.POST, anon, post({ email: u.email, password: TEST_PASSWORD }));
     expect(locked.status).toBe(429);
+    expect(locked.headers.get('retry-after')).toMatch(/^\d+$/);
     expect((await errorOf(locked)).message).toMatch(/Try again in \d+ seconds/);
   });
 

@@ -1,44 +1,59 @@
 /**
- * Sign-in throttling policy (pure part): five failures inside fifteen minutes
- * lock the key, then the lock doubles per failure up to fifteen minutes —
- * exponential back-off as recommended for authentication throttling in
- * NIST SP 800-63B §5.2.2 ("rate limiting") and the OWASP Authentication
- * Cheat Sheet (common practice).
+ * Sign-in throttling policy (pure part): after the allowance, a wait that doubles per failure
+ * up to a cap — exponential back-off as recommended for authentication throttling in
+ * NIST SP 800-63B §5.2.2 ("rate limiting") and the OWASP Authentication Cheat Sheet
+ * (common practice). Accounts wait at most a minute; client addresses at most fifteen.
  */
 import { describe, expect, it } from 'vitest';
-import { afterFailure, describeWait, isLocked, THROTTLE } from '@/src/auth/throttle';
+import { afterFailure, clientAddress, describeWait, isLocked, throttlePolicies, WINDOW_MS } from '@/src/auth/throttle';
 
 const t0 = new Date('2026-03-01T12:00:00Z');
 const at = (s: number) => new Date(t0.getTime() + s * 1000);
+const { account, address } = throttlePolicies();
 
 describe('throttle policy', () => {
-  it('allows four failures, locks on the fifth for 30 s, then doubles', () => {
+  it('defaults: five failures per account, twenty per client address', () => {
+    expect(account.allowance).toBe(5);
+    expect(address.allowance).toBe(20);
+  });
+
+  it('an account: four failures free, then 5 s, doubling', () => {
     let row = undefined as ReturnType<typeof afterFailure> | undefined;
     for (let i = 1; i <= 4; i++) {
-      row = afterFailure(row, 'account:a@example.org', at(i));
+      row = afterFailure(row, 'account:a@example.org', at(i), account);
       expect(row.failures).toBe(i);
       expect(isLocked(row, at(i))).toBe(false);
     }
-    row = afterFailure(row, 'account:a@example.org', at(5));
-    expect(row.lockedUntil!.getTime() - at(5).getTime()).toBe(30_000);
-    row = afterFailure(row, 'account:a@example.org', at(40));
-    expect(row.lockedUntil!.getTime() - at(40).getTime()).toBe(60_000);
-    row = afterFailure(row, 'account:a@example.org', at(110));
-    expect(row.lockedUntil!.getTime() - at(110).getTime()).toBe(120_000);
+    row = afterFailure(row, 'account:a@example.org', at(5), account);
+    expect(row.lockedUntil!.getTime() - at(5).getTime()).toBe(5_000);
+    row = afterFailure(row, 'account:a@example.org', at(11), account);
+    expect(row.lockedUntil!.getTime() - at(11).getTime()).toBe(10_000);
+    row = afterFailure(row, 'account:a@example.org', at(30), account);
+    expect(row.lockedUntil!.getTime() - at(30).getTime()).toBe(20_000);
   });
 
-  it('caps the lock at fifteen minutes', () => {
-    let row = afterFailure(undefined, 'k', t0);
-    for (let i = 0; i < 30; i++) row = afterFailure(row, 'k', t0);
-    expect(row.lockedUntil!.getTime() - t0.getTime()).toBe(THROTTLE.maxLockMs);
+  it('an account never waits more than a minute (no long hard lock)', () => {
+    let row = afterFailure(undefined, 'account:k', t0, account);
+    for (let i = 0; i < 40; i++) row = afterFailure(row, 'account:k', t0, account);
+    expect(row.lockedUntil!.getTime() - t0.getTime()).toBe(60_000);
   });
 
-  it('starts a fresh window once fifteen minutes pass without a lock', () => {
-    let row = afterFailure(undefined, 'k', t0);
-    row = afterFailure(row, 'k', at(60));
-    row = afterFailure(row, 'k', at(16 * 60));
+  it('a client address is held only after twenty failures, then 30 s doubling up to fifteen minutes', () => {
+    let row = afterFailure(undefined, 'address:192.0.2.7', t0, address);
+    for (let i = 2; i <= 19; i++) row = afterFailure(row, 'address:192.0.2.7', t0, address);
+    expect(isLocked(row, t0)).toBe(false);
+    row = afterFailure(row, 'address:192.0.2.7', t0, address);
+    expect(row.failures).toBe(20);
+    expect(row.lockedUntil!.getTime() - t0.getTime()).toBe(30_000);
+    for (let i = 0; i < 30; i++) row = afterFailure(row, 'address:192.0.2.7', t0, address);
+    expect(row.lockedUntil!.getTime() - t0.getTime()).toBe(15 * 60_000);
+  });
+
+  it('starts a fresh window once fifteen minutes pass without a wait', () => {
+    let row = afterFailure(undefined, 'account:k', t0, account);
+    row = afterFailure(row, 'account:k', at(60), account);
+    row = afterFailure(row, 'account:k', new Date(t0.getTime() + WINDOW_MS + 1_000), account);
     expect(row.failures).toBe(1);
-    expect(row.firstFailureAt).toEqual(at(16 * 60));
   });
 
   it('words the wait time, rounding up', () => {
@@ -49,13 +64,23 @@ describe('throttle policy', () => {
   });
 });
 
-describe('per-address allowance', () => {
-  it('an address (shared by many people) is locked only after twenty failures', () => {
-    let row = afterFailure(undefined, 'address:192.0.2.7', t0);
-    for (let i = 2; i <= 19; i++) row = afterFailure(row, 'address:192.0.2.7', t0);
-    expect(isLocked(row, t0)).toBe(false);
-    row = afterFailure(row, 'address:192.0.2.7', t0);
-    expect(row.failures).toBe(20);
-    expect(isLocked(row, t0)).toBe(true);
+describe('client address', () => {
+  const req = (h: Record<string, string>) => new Request('http://127.0.0.1/', { headers: h });
+
+  it('served directly: the address Next.js put in X-Forwarded-For', () => {
+    expect(clientAddress(req({ 'x-forwarded-for': '127.0.0.2' }))).toBe('127.0.0.2');
+    expect(clientAddress(req({}))).toBe('unknown');
+  });
+
+  it('behind a trusted proxy: the hop the proxy appended (the last), not what the client wrote', () => {
+    const before = process.env.TRUST_PROXY;
+    process.env.TRUST_PROXY = 'true';
+    try {
+      expect(clientAddress(req({ 'x-forwarded-for': '203.0.113.9, 198.51.100.4' }))).toBe('198.51.100.4');
+      expect(clientAddress(req({ 'x-real-ip': '198.51.100.5' }))).toBe('198.51.100.5');
+    } finally {
+      if (before === undefined) delete process.env.TRUST_PROXY;
+      else process.env.TRUST_PROXY = before;
+    }
   });
 });
