@@ -142,10 +142,17 @@ export function databaseUrl(env: Env = process.env): string {
   return url;
 }
 
-/** Session cookies carry Secure: COOKIE_SECURE when given, else on in production. */
+/** The public address (APP_URL) is https: HSTS is sent and session cookies are Secure. */
+export function publicHttps(env: Env = process.env): boolean {
+  return settings(env).APP_URL?.startsWith('https:') ?? false;
+}
+
+/** Session cookies carry Secure: COOKIE_SECURE when given, else when APP_URL is https, else in production without APP_URL. */
 export function cookieSecure(env: Env = process.env): boolean {
   const s = settings(env);
-  return s.COOKIE_SECURE ?? s.NODE_ENV === 'production';
+  if (s.COOKIE_SECURE !== undefined) return s.COOKIE_SECURE;
+  if (s.APP_URL) return publicHttps(env);
+  return s.NODE_ENV === 'production';
 }
 
 /** SMTP_HOST names a real relay rather than the local catcher. */

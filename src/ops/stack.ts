@@ -71,7 +71,8 @@ export async function startStack(o: StackOptions): Promise<Stack> {
       SMTP_HOST: relay ? s.SMTP_HOST : '127.0.0.1',
       SMTP_PORT: relay ? String(s.SMTP_PORT) : String(o.smtpPort),
       APP_URL: appUrl,
-      COOKIE_SECURE: String(s.COOKIE_SECURE ?? false),
+      // Unset: Secure exactly when APP_URL is https (src/settings.ts cookieSecure).
+      COOKIE_SECURE: s.COOKIE_SECURE === undefined ? undefined : String(s.COOKIE_SECURE),
       PORT: String(o.port),
       NEXT_TELEMETRY_DISABLED: '1',
     },

@@ -11,7 +11,8 @@
  *   });
  */
 import { ZodError, type z } from 'zod';
-import { AppError, badRequest, forbidden, type ErrorBody } from './errors';
+import { AppError, badRequest, type ErrorBody } from './errors';
+import { assertSameOrigin } from './same-origin';
 import { currentRequestContext, runWithRequest } from './request-context';
 import { readJsonText } from './body-limit';
 import { databaseFaultReason, databaseUnavailableResponse, isDatabaseFault } from './db-faults';
@@ -74,20 +75,6 @@ export function route<P = Record<string, string>>(handler: Handler<P>) {
       for (const c of pending) res.headers.append('set-cookie', c);
       return res;
     });
-}
-
-/** Writes from another site's page are refused (defence in depth beside SameSite=Lax cookies). */
-function assertSameOrigin(req: Request): void {
-  if (req.method === 'GET' || req.method === 'HEAD') return;
-  const origin = req.headers.get('origin');
-  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
-  if (!origin || !host || origin === 'null') return;
-  try {
-    if (new URL(origin).host === host) return;
-  } catch {
-    // fall through
-  }
-  throw forbidden('This request came from another site and was refused.');
 }
 
 /** Public origin for links in e-mails: APP_URL when set, else the request's own origin. */
