@@ -77,13 +77,23 @@ export async function deleteUserSessions(userId: string): Promise<void> {
 
 // ── Password reset ───────────────────────────────────────────────────────────
 
+/**
+ * Store a new reset link and, in the same transaction, retire every older unused link of the
+ * account (marked used), so only the newest link works.
+ */
 export async function insertPasswordReset(
   userId: string,
   tokenHash: string,
   expiresAt: Date,
   createdAt = new Date(),
 ): Promise<void> {
-  await getDb().insert(passwordResets).values({ userId, tokenHash, expiresAt, createdAt });
+  await getDb().transaction(async (tx) => {
+    await tx
+      .update(passwordResets)
+      .set({ usedAt: createdAt })
+      .where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
+    await tx.insert(passwordResets).values({ userId, tokenHash, expiresAt, createdAt });
+  });
 }
 
 /** When reset links were issued for an account since `since`, oldest first. */
@@ -97,15 +107,18 @@ export async function resetTimesSince(userId: string, since: Date): Promise<Date
 }
 
 /**
- * In one transaction: check the token is known, unused and unexpired, mark it
- * used, set the new password and end every session of the account.
+ * In one transaction: check the token is known, unused and unexpired, mark it and every other
+ * unused link of the account used, set the new password and end every session of the account.
  */
 export async function consumePasswordReset(tokenHash: string, newPasswordHash: string, now: Date): Promise<string> {
   return getDb().transaction(async (tx) => {
     const [row] = await tx.select().from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).for('update');
     if (!row || row.usedAt) throw notFound('This reset link is unknown or was already used. Ask for a new one.');
     if (row.expiresAt.getTime() <= now.getTime()) throw gone('This reset link has expired. Ask for a new one.');
-    await tx.update(passwordResets).set({ usedAt: now }).where(eq(passwordResets.tokenHash, tokenHash));
+    await tx
+      .update(passwordResets)
+      .set({ usedAt: now })
+      .where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)));
     await tx.update(users).set({ passwordHash: newPasswordHash }).where(eq(users.id, row.userId));
     await tx.delete(sessions).where(eq(sessions.userId, row.userId));
     return row.userId;

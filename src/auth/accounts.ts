@@ -1,7 +1,8 @@
 /**
  * Account operations behind the auth routes: sign up, sign in (throttled),
  * sign out, password reset by e-mail. Each returns what the route needs,
- * including the Set-Cookie value when a session starts or ends.
+ * including the Set-Cookie value when a session starts or ends. Sign-up and
+ * reset answer the same, in the same time, whether or not an account exists.
  */
 import { z } from 'zod';
 import { generateIdFromEntropySize } from 'lucia';
@@ -13,7 +14,8 @@ import {
   normalizeEmail,
   type UserRow,
 } from '@/db/repo/users';
-import { forbidden, unauthorized } from '@/src/server/errors';
+import { AppError, forbidden, unauthorized } from '@/src/server/errors';
+import { runInBackground } from '@/src/server/background';
 import { sendMail } from '@/src/server/mail';
 import { hashPassword, passwordSchema, verifyPassword } from './password';
 import { mayMailReset, MAIL_LIMITS } from './mail-limits';
@@ -55,16 +57,42 @@ export function newUserId(): string {
   return generateIdFromEntropySize(10);
 }
 
-export async function signUp(input: z.infer<typeof signUpSchema>): Promise<{ user: User; cookie: string }> {
+/** The one answer to every sign-up, whether or not the address already had an account. */
+export const SIGN_UP_ANSWER =
+  'Thank you. If this address is new, its account is ready: sign in with it. If it already had an account, ' +
+  'we have e-mailed its owner instead.';
+
+/**
+ * Create an account — or, when the address already has one, e-mail its owner instead. Both
+ * take the same time (the password is hashed either way; mail is sent in the background) and
+ * get the same answer, so sign-up does not tell who has an account. No session starts here:
+ * the sign-up form signs in next with the same password.
+ */
+export async function signUp(input: z.infer<typeof signUpSchema>, origin: string): Promise<void> {
   const settings = await getInstanceSettings();
   if (!settings.openSignUp) throw forbidden('New accounts on this instance need an invitation from a network owner.');
-  const row = await insertUser({
-    id: newUserId(),
-    email: input.email,
-    name: input.name,
-    passwordHash: await hashPassword(input.password),
+  const passwordHash = await hashPassword(input.password);
+  const existing = await findUserByEmail(input.email);
+  if (!existing) {
+    try {
+      await insertUser({ id: newUserId(), email: input.email, name: input.name, passwordHash });
+      return;
+    } catch (e) {
+      if (!(e instanceof AppError && e.status === 409)) throw e; // taken in the meantime: mail its owner
+    }
+  }
+  runInBackground('sign-up notice mail', async () => {
+    const owner = existing ?? (await findUserByEmail(input.email));
+    if (!owner) return;
+    await sendMail({
+      to: owner.email,
+      subject: 'Cavitas: someone tried to create an account with your address',
+      text:
+        `Hello ${owner.name},\n\nSomeone (perhaps you) tried to create a new Cavitas account with this address, ` +
+        `which already has one. Nothing was changed.\n\nTo sign in: ${origin}/sign-in\n` +
+        `If you forgot your password: ${origin}/forgot-password\n`,
+    });
   });
-  return { user: publicUser(row), cookie: await startSession(row.id) };
 }
 
 const WRONG = 'The e-mail address or password is not right.';
@@ -93,34 +121,36 @@ export async function signOut(cookieHeader: string): Promise<string> {
 }
 
 /**
- * Always answers the same way (no hint whether the address has an account);
- * when it has one, a single-use link valid for one hour is mailed — at most
- * MAIL_LIMITS.resetsPerAccount within an hour (mail-limits.ts).
+ * Always answers the same way and in the same time (no hint whether the address has an
+ * account): the token is made either way, and the rest — the limit check, storing the link
+ * (which retires older ones) and the mail — happens in the background. When the address has an
+ * account, a single-use link valid for one hour is mailed, at most MAIL_LIMITS.resetsPerAccount
+ * within an hour (mail-limits.ts).
  */
 export async function requestPasswordReset(email: string, origin: string, now = new Date()): Promise<void> {
   const user = await findUserByEmail(email);
-  if (!user) return;
-  if (!(await mayMailReset(user.id, now))) {
-    console.warn(
-      `[cavitas] password-reset mail for account ${user.id} not sent: ${MAIL_LIMITS.resetsPerAccount} links within the last hour`,
-    );
-    return;
-  }
   const token = newToken();
-  await insertPasswordReset(user.id, hashToken(token), new Date(now.getTime() + RESET_LIFETIME_MS), now);
-  const link = `${origin}/reset-password?token=${encodeURIComponent(token)}`;
-  try {
+  const tokenHash = hashToken(token);
+  if (!user) return;
+  runInBackground('password-reset mail', async () => {
+    if (!(await mayMailReset(user.id, now))) {
+      console.warn(
+        `[cavitas] password-reset mail for account ${user.id} not sent: ${MAIL_LIMITS.resetsPerAccount} links within the last hour`,
+      );
+      return;
+    }
+    await insertPasswordReset(user.id, tokenHash, new Date(now.getTime() + RESET_LIFETIME_MS), now);
+    const link = `${origin}/reset-password?token=${encodeURIComponent(token)}`;
     await sendMail({
       to: user.email,
       subject: 'Cavitas: choose a new password',
       text:
         `Hello ${user.name},\n\nSomeone (hopefully you) asked to reset the password of your Cavitas account.\n` +
         `Open this link within one hour to choose a new one:\n\n${link}\n\n` +
-        `The link works once. If you did not ask for it, ignore this message; your password stays as it is.\n`,
+        `The link works once, and only the newest link you were sent works. If you did not ask for it, ignore this ` +
+        `message; your password stays as it is.\n`,
     });
-  } catch (e) {
-    console.error('[cavitas] password-reset mail could not be sent', e);
-  }
+  });
 }
 
 export async function resetPassword(token: string, password: string, now = new Date()): Promise<void> {

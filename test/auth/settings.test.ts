@@ -40,6 +40,6 @@ describe('instance settings', () => {
       method: 'POST',
       body: { email: 'closed.door@example.org', name: 'Open', password: 'long-enough-pass' },
     });
-    expect(again.status).toBe(201);
+    expect(again.status).toBe(202);
   });
 });

@@ -1,7 +1,7 @@
 'use client';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
-import { apiSend } from '@/src/web/swr';
+import { apiSend, ApiError } from '@/src/web/swr';
 import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
 import { useApiForm } from './useApiForm';
 
@@ -10,7 +10,20 @@ export function SignUpForm() {
   const f = useApiForm();
   const fields = ['name', 'email', 'password'];
   const submit = f.onSubmit(async (d) => {
-    await apiSend('POST', '/api/auth/sign-up', { name: d.get('name'), email: d.get('email'), password: d.get('password') });
+    const credentials = { email: d.get('email'), password: d.get('password') };
+    // Sign-up answers the same whether or not the address had an account; signing in tells.
+    await apiSend('POST', '/api/auth/sign-up', { name: d.get('name'), ...credentials });
+    try {
+      await apiSend('POST', '/api/auth/sign-in', credentials);
+    } catch (e) {
+      if (e instanceof ApiError && e.status === 401)
+        throw new ApiError(
+          409,
+          'conflict',
+          'This address already has an account, so we e-mailed its owner instead of creating one. Sign in, or reset the password.',
+        );
+      throw e;
+    }
     router.push('/networks');
     router.refresh();
   });
