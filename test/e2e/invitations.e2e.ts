@@ -1,7 +1,8 @@
 /**
  * Invitation round trip in a real browser: a new scientist signs up, creates
- * a network and invites a colleague as viewer; the administrator opens the
- * caught invitation mail in the mailbox page; the colleague accepts it in a
+ * a network and invites a colleague as viewer; the administrator finds the
+ * caught invitation in the mailbox page but sees its envelope only; the
+ * colleague accepts it (the link read from their copy of the mail) in a
  * second browser context by creating an account, lands in the network, and
  * as a viewer can neither see role controls nor change a role through the API.
  * Screenshots of the key pages go to test-results/e2e/.
@@ -10,6 +11,7 @@ import fs from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { useBrowserApp } from './harness';
+import { getMail, listMail } from '@/db/repo/mail';
 
 const SHOTS = 'test-results/e2e';
 const stamp = Date.now().toString(36);
@@ -80,10 +82,15 @@ describe('invitations in the browser', () => {
       .getByRole('link', { name: new RegExp(networkName) })
       .first()
       .click();
-    const body = await page.getByTestId('mail-body').textContent();
-    inviteLink = body?.match(/https?:\/\/\S+\/invitations\/\S+/)?.[0] ?? '';
-    expect(inviteLink).toMatch(/\/invitations\//);
+    // The administrator sees the envelope only: the body holds a live invitation link.
+    await page.getByTestId('mail-withheld').waitFor();
+    expect(await page.getByTestId('mail-body').count()).toBe(0);
+    expect(await page.content()).not.toMatch(/\/invitations\/[A-Za-z0-9_-]{20,}/);
     await ctx.close();
+    // The colleague has no account yet: their copy is read where their mail would arrive.
+    const [mail] = await listMail({ to: colleague.email, limit: 1 });
+    inviteLink = (await getMail(mail.id))?.text?.match(/https?:\/\/\S+\/invitations\/\S+/)?.[0] ?? '';
+    expect(inviteLink).toMatch(/\/invitations\//);
   });
 
   it('the colleague accepts in a second browser context by creating an account', async () => {

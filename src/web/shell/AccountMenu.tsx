@@ -43,6 +43,7 @@ export function AccountMenu({ name, email, isAdmin }: Props) {
       </div>
       <div className="py-1">
         <MenuLink href="/networks">My networks</MenuLink>
+        <MenuLink href="/mail">My mail</MenuLink>
         {isAdmin ? (
           <>
             <MenuLink href="/admin/mail">Outgoing mail</MenuLink>
