@@ -2,7 +2,7 @@
  * Accounts, sessions, password-reset tokens, sign-in throttling rows and
  * instance settings. The only place with queries on these tables.
  */
-import { and, asc, eq, gte, inArray, isNull, sql } from 'drizzle-orm';
+import { and, asc, eq, gte, inArray, isNull, ne, sql } from 'drizzle-orm';
 import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
 import { getDb } from '../client';
 import { instanceSettings, passwordResets, sessions, signInThrottle, users } from '../schema';
@@ -69,6 +69,30 @@ export async function setUserAdmin(id: string, isAdmin: boolean): Promise<void> 
 
 export async function updateUserPassword(id: string, passwordHash: string): Promise<void> {
   await getDb().update(users).set({ passwordHash }).where(eq(users.id, id));
+}
+
+/**
+ * In one transaction: set a new password, retire every unused reset link of the account and end
+ * its sessions except `keepSessionId` (the one asking). Returns how many sessions ended.
+ */
+export async function setPasswordEndingOtherSessions(
+  userId: string,
+  passwordHash: string,
+  keepSessionId: string | null,
+  now = new Date(),
+): Promise<number> {
+  return getDb().transaction(async (tx) => {
+    await tx.update(users).set({ passwordHash }).where(eq(users.id, userId));
+    await tx
+      .update(passwordResets)
+      .set({ usedAt: now })
+      .where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
+    const ended = await tx
+      .delete(sessions)
+      .where(keepSessionId ? and(eq(sessions.userId, userId), ne(sessions.id, keepSessionId)) : eq(sessions.userId, userId))
+      .returning({ id: sessions.id });
+    return ended.length;
+  });
 }
 
 export async function deleteUserSessions(userId: string): Promise<void> {

@@ -11,10 +11,12 @@ import {
   insertUser,
   insertPasswordReset,
   consumePasswordReset,
+  setPasswordEndingOtherSessions,
   normalizeEmail,
   type UserRow,
 } from '@/db/repo/users';
-import { AppError, forbidden, unauthorized } from '@/src/server/errors';
+import { AppError, badRequest, forbidden, unauthorized } from '@/src/server/errors';
+import { getLucia } from './lucia';
 import { runInBackground } from '@/src/server/background';
 import { sendMail } from '@/src/server/mail';
 import { hashPassword, passwordSchema, verifyPassword } from './password';
@@ -42,6 +44,10 @@ export const signUpSchema = z.object({ email: emailSchema, name: nameSchema, pas
 export const signInSchema = z.object({
   email: emailSchema,
   password: z.string({ error: 'Enter your password.' }).min(1, { error: 'Enter your password.' }),
+});
+export const passwordChangeSchema = z.object({
+  currentPassword: z.string({ error: 'Enter your current password.' }).min(1, { error: 'Enter your current password.' }),
+  newPassword: passwordSchema,
 });
 export const resetRequestSchema = z.object({ email: emailSchema });
 export const resetConfirmSchema = z.object({
@@ -114,6 +120,27 @@ export async function authenticate(email: string, password: string, address: str
 export async function signIn(input: z.infer<typeof signInSchema>, address: string): Promise<{ user: User; cookie: string }> {
   const user = await authenticate(input.email, input.password, address);
   return { user: publicUser(user), cookie: await startSession(user.id) };
+}
+
+/**
+ * Change the signed-in person's password: the current one is checked (throttled like a sign-in),
+ * then the new one is set, unused reset links are retired and every other session of the
+ * account ends; the session asking stays. Returns how many other sessions ended.
+ */
+export async function changePassword(
+  user: User,
+  cookieHeader: string,
+  input: z.infer<typeof passwordChangeSchema>,
+  address: string,
+): Promise<number> {
+  try {
+    await authenticate(user.email, input.currentPassword, address);
+  } catch (e) {
+    if (e instanceof AppError && e.status === 401) throw badRequest('The current password is not right.', 'currentPassword');
+    throw e;
+  }
+  const keep = getLucia().readSessionCookie(cookieHeader);
+  return setPasswordEndingOtherSessions(user.id, await hashPassword(input.newPassword), keep);
 }
 
 export async function signOut(cookieHeader: string): Promise<string> {

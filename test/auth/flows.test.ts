@@ -33,6 +33,7 @@ import * as signOut from '@/app/api/auth/sign-out/route';
 import * as session from '@/app/api/auth/session/route';
 import * as resetReq from '@/app/api/auth/password-reset/route';
 import * as resetConfirm from '@/app/api/auth/password-reset/confirm/route';
+import * as passwordChange from '@/app/api/auth/password/route';
 import * as networks from '@/app/api/networks/route';
 import * as member from '@/app/api/networks/[networkId]/members/[userId]/route';
 import * as invitations from '@/app/api/networks/[networkId]/invitations/route';
@@ -228,6 +229,37 @@ describe('password reset', () => {
   it('answers the same for an address without an account', async () => {
     const res = await call(resetReq.POST, anon, post({ email: 'nobody.here@example.org' }));
     expect(res.status).toBe(202);
+  });
+});
+
+describe('password change', () => {
+  it('checks the current password, keeps the session asking and ends every other one', async () => {
+    const u = await makeUser('Changer', 'flows');
+    const second = await call(signIn.POST, anon, post({ email: u.email, password: TEST_PASSWORD }));
+    const elsewhere: Caller = { ...u, cookie: cookiePair(second.headers.get('set-cookie')!) };
+    expect((await call(networks.GET, elsewhere)).status).toBe(200);
+    const wrong = await call(
+      passwordChange.POST,
+      u,
+      post({ currentPassword: 'not-the-password', newPassword: 'fresh-secret-123' }),
+    );
+    expect(wrong.status).toBe(400);
+    expect((await errorOf(wrong)).field).toBe('currentPassword');
+    const ok = await call(passwordChange.POST, u, post({ currentPassword: TEST_PASSWORD, newPassword: 'fresh-secret-123' }));
+    expect(ok.status).toBe(200);
+    expect(await ok.json()).toEqual({ ok: true, otherSessionsEnded: 1 });
+    expect((await call(networks.GET, u)).status).toBe(200); // this session stays
+    expect((await call(networks.GET, elsewhere)).status).toBe(401); // the other one ended
+    expect((await call(signIn.POST, anon, post({ email: u.email, password: TEST_PASSWORD }))).status).toBe(401);
+    expect((await call(signIn.POST, anon, post({ email: u.email, password: 'fresh-secret-123' }))).status).toBe(200);
+  });
+
+  it('needs a session and a valid new password', async () => {
+    const body = post({ currentPassword: TEST_PASSWORD, newPassword: 'fresh-secret-123' });
+    expect((await call(passwordChange.POST, anon, body)).status).toBe(401);
+    const u = await makeUser('Short', 'flows');
+    const short = await call(passwordChange.POST, u, post({ currentPassword: TEST_PASSWORD, newPassword: 'short' }));
+    expect([short.status, (await errorOf(short)).field]).toEqual([400, 'newPassword']);
   });
 });
 

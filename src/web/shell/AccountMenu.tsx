@@ -44,6 +44,7 @@ export function AccountMenu({ name, email, isAdmin }: Props) {
       <div className="py-1">
         <MenuLink href="/networks">My networks</MenuLink>
         <MenuLink href="/mail">My mail</MenuLink>
+        <MenuLink href="/account">My account</MenuLink>
         {isAdmin ? (
           <>
             <MenuLink href="/admin/mail">Outgoing mail</MenuLink>
