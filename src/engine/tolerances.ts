@@ -130,3 +130,12 @@ export const HANN_HALF_OVERLAP_CORRELATION = 1 / 6;
 export const HANN_BIN_POWER_CORRELATION: readonly number[] = [4 / 9, 1 / 36];
 /** Samples of the periodic Hann window on which a Welch spectrum's bin correlation is evaluated (stats/welch-bin-correlation.ts; the values change by under 1e-4 from 128 samples up). */
 export const WELCH_CORRELATION_WINDOW_SAMPLES = 1024;
+/**
+ * Clustering multi-start (clustering.ts): starts run in waves of this many (in start order, whatever the thread
+ * count); a start of a later wave that comes within CLUSTER_JOIN_DIST of a minimum found by an earlier wave (largest
+ * parameter difference as a fraction of its range, as in grouping) after at least CLUSTER_MIN_ITERATIONS iterations
+ * is stopped and counted in that minimum.
+ */
+export const CLUSTER_WAVE = 8;
+export const CLUSTER_JOIN_DIST = 0.02;
+export const CLUSTER_MIN_ITERATIONS = 2;

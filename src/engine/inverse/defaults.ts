@@ -21,6 +21,8 @@ export const INVERSION_DEFAULTS = Object.freeze({
     misfitTol: INVERSION_LM_MISFIT_TOL,
     stepTol: INVERSION_LM_STEP_TOL,
   }),
+  /** Quasi-random starts whose basin a better start nearby already leads into are not searched (clustering.ts). */
+  cluster: true,
   /** Standard errors are not scaled by the reduced chi-square unless asked: the sigmas are trusted. */
   scaleErrors: false,
 });

@@ -5,18 +5,22 @@
  * not depend on scheduling.
  */
 import { levenbergMarquardt } from '@/src/engine/optim/levenberg-marquardt';
-import type { LeastSquaresProblem, LmOptions, StopReason } from '@/src/engine/optim/types';
+import type { LeastSquaresProblem, LmOptions } from '@/src/engine/optim/types';
+import { basinOf, type KnownMinimum } from './clustering';
 import { startPoint } from './halton';
+import type { StartStop } from './types';
 
 export interface StartOutcome {
   index: number;
   params: Float64Array;
   chi2: number;
   converged: boolean;
-  stopReason: StopReason;
+  stopReason: StartStop;
   iterations: number;
   evaluations: number;
   jtj: Float64Array;
+  /** A start stopped before its search (stopReason 'clustered'): the start whose minimum it is counted in. */
+  joins?: number;
 }
 
 export interface StartPlan {
@@ -26,6 +30,8 @@ export interface StartPlan {
   lm?: Partial<LmOptions>;
   /** Let the problem improve quasi-random starts (e.g. intensities by linear least squares); default true. */
   refine?: boolean;
+  /** Minima found by earlier waves: a start that comes close to one is stopped and counted in it (clustering.ts). */
+  known?: KnownMinimum[];
 }
 
 export function startFor(plan: StartPlan, index: number, problem: LeastSquaresProblem): Float64Array {
@@ -47,17 +53,28 @@ export function runStarts(
   onEach?: (o: StartOutcome) => void,
 ): StartOutcome[] {
   const out: StartOutcome[] = [];
+  const known = plan.known ?? [];
+  const n = problem.nParams;
+  const bounds = {
+    lower: problem.lower ?? new Float64Array(n).fill(-Infinity),
+    upper: problem.upper ?? new Float64Array(n).fill(Infinity),
+  };
   for (const index of indexes) {
-    const r = levenbergMarquardt(problem, startFor(plan, index, problem), plan.lm ?? {}, { shouldStop });
+    let joins = -1;
+    const earlyStop = known.length
+      ? (p: Float64Array, _chi2: number, iterations: number) => (joins = basinOf(p, iterations, known, bounds)) >= 0
+      : undefined;
+    const r = levenbergMarquardt(problem, startFor(plan, index, problem), plan.lm ?? {}, { shouldStop, earlyStop });
     const o: StartOutcome = {
       index,
       params: Float64Array.from(r.params),
       chi2: r.chi2,
       converged: r.converged,
-      stopReason: r.stopReason,
+      stopReason: r.stopReason === 'early-stop' ? 'clustered' : r.stopReason,
       iterations: r.iterations,
       evaluations: r.evaluations,
       jtj: r.jtj,
+      ...(r.stopReason === 'early-stop' ? { joins } : {}),
     };
     out.push(o);
     onEach?.(o);

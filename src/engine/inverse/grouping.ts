@@ -33,7 +33,7 @@ export interface Group {
   members: FinishedStart[];
 }
 
-export function scaledDistance(a: Float64Array, b: Float64Array, o: GroupingOptions): number {
+export function scaledDistance(a: ArrayLike<number>, b: ArrayLike<number>, o: GroupingOptions): number {
   let worst = 0;
   for (let j = 0; j < a.length; j++) {
     let d = Math.abs(a[j] - b[j]);

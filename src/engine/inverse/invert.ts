@@ -32,7 +32,7 @@ export async function invertInterval(
     nData,
     nParams: par.slots.length,
     paramNames: par.names,
-    unconverged: outcomes.filter((x) => !x.converged).length,
+    unconverged: outcomes.filter((x) => !x.converged && x.joins === undefined).length,
     minima,
     startEnds: startEnds(outcomes, minima),
   };

@@ -5,11 +5,10 @@
  * the singular flag.
  */
 import { covarianceFromJtJ } from '@/src/engine/optim/covariance';
-import type { StopReason } from '@/src/engine/optim/types';
 import { groupMinima } from './grouping';
 import { physicalParams, sourcesOf, type Parameterisation } from './parameters';
 import type { StartOutcome } from './descents';
-import type { Minimum, ParamKind, StartEnds } from './types';
+import type { Minimum, ParamKind, StartEnds, StartStop } from './types';
 
 function square(a: Float64Array, n: number): number[][] {
   return Array.from({ length: n }, (_, i) => Array.from(a.subarray(i * n, i * n + n)));
@@ -19,7 +18,19 @@ export function buildMinima(outcomes: StartOutcome[], par: Parameterisation, nDa
   const n = par.slots.length;
   const periodic = Uint8Array.from(par.slots, (s) => (s.kind === 'lon' ? 1 : 0));
   const byIndex = new Map(outcomes.map((o) => [o.index, o]));
-  const groups = groupMinima(outcomes, { lower: par.lower, upper: par.upper, periodic });
+  const groups = groupMinima(
+    outcomes.filter((o) => o.joins === undefined),
+    { lower: par.lower, upper: par.upper, periodic },
+  );
+  // a start stopped before its search is counted in the minimum of the start it is linked to (clustering.ts)
+  const groupOf = new Map<number, (typeof groups)[number]>();
+  for (const g of groups) for (const m of g.members) groupOf.set(m.index, g);
+  for (const o of outcomes) {
+    if (o.joins === undefined) continue;
+    const g = groupOf.get(o.joins) ?? groups[groups.length - 1];
+    g.members.push(o);
+    g.members.sort((a, b) => a.index - b.index);
+  }
   const dof = Math.max(1, nData - n);
   return groups.map((g) => {
     const best = byIndex.get(g.best.index)!;
@@ -33,7 +44,7 @@ export function buildMinima(outcomes: StartOutcome[], par: Parameterisation, nDa
       // intensity is optimised as ln I: sigma_I = I sigma_lnI (delta method)
       (stdErrors[region] ??= {})[s.kind] = s.kind === 'intensity' ? physical[s.name] * e : e;
     });
-    const stopReasons: Partial<Record<StopReason, number>> = {};
+    const stopReasons: Partial<Record<StartStop, number>> = {};
     for (const m of g.members) {
       const r = byIndex.get(m.index)!.stopReason;
       stopReasons[r] = (stopReasons[r] ?? 0) + 1;

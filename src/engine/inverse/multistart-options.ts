@@ -18,6 +18,11 @@ export interface MultiStartOptions {
   warm: number[][];
   /** Options of each LM run (default: looser misfit and step tolerances than the optimiser's own). */
   lm: Partial<LmOptions>;
+  /**
+   * Stop quasi-random starts before their search when a start of lower misfit lies within the multi-level
+   * single linkage distance, counting them in that start's minimum (default true; clustering.ts).
+   */
+  cluster: boolean;
   /** Scale standard errors by the reduced chi-square (default false: sigmas are trusted). */
   scaleErrors: boolean;
   /**
@@ -34,6 +39,7 @@ export function resolveMultiStartOptions(o: Partial<MultiStartOptions> = {}): Mu
     threads: o.threads ?? availableParallelism(),
     warm: o.warm ?? [],
     lm: { ...INVERSION_DEFAULTS.lm, ...o.lm },
+    cluster: o.cluster ?? INVERSION_DEFAULTS.cluster,
     scaleErrors: o.scaleErrors ?? INVERSION_DEFAULTS.scaleErrors,
     callerWorks: o.callerWorks ?? true,
   };

@@ -7,6 +7,12 @@ import type { Component } from '@/src/engine/components';
 import type { StopReason } from '@/src/engine/optim/types';
 import type { WelchStatistics } from '@/src/engine/stats/welch-statistics';
 
+/**
+ * How a start ended: the optimiser's stop reason, or 'clustered' for a start stopped before its own search
+ * because a start of lower misfit nearby leads into the same basin (multi-level single linkage, clustering.ts).
+ */
+export type StartStop = StopReason | 'clustered';
+
 export type ParamKind = 'intensity' | 'lat' | 'lon' | 'spread';
 export type Range = { min: number; max: number };
 
@@ -134,7 +140,7 @@ export interface Minimum {
   singular: boolean;
   rank: number;
   /** How the starts in this minimum stopped. */
-  stopReasons: Partial<Record<StopReason, number>>;
+  stopReasons: Partial<Record<StartStop, number>>;
 }
 
 /**
@@ -148,7 +154,7 @@ export interface StartEnds {
   misfit: (number | null)[];
   /** Levenberg–Marquardt iterations the start took. */
   iterations: number[];
-  stopReason: StopReason[];
+  stopReason: StartStop[];
   /** Rank (0-based, best first) of the minimum the start is counted in. */
   minimum: number[];
 }

@@ -82,6 +82,7 @@ export function levenbergMarquardt(
 
   while (true) {
     if (hooks.shouldStop?.()) return finish('cancelled');
+    if (hooks.earlyStop?.(p, chi2, iterations)) return finish('early-stop');
     if (chi2 === 0) return finish('misfit-change');
     // Scaling, free set and the gradient test.
     let gradCos = 0;

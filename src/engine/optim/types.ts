@@ -19,7 +19,7 @@ export interface LeastSquaresProblem {
 
 /** Why a Levenberg–Marquardt run ended. */
 export type StopReason =
-  'misfit-change' | 'step-size' | 'gradient' | 'max-iterations' | 'max-evaluations' | 'non-finite' | 'cancelled';
+  'misfit-change' | 'step-size' | 'gradient' | 'max-iterations' | 'max-evaluations' | 'non-finite' | 'cancelled' | 'early-stop';
 
 /** Stop reasons that mean "reached a minimum". */
 export const CONVERGED_REASONS: readonly StopReason[] = ['misfit-change', 'step-size', 'gradient'];
@@ -45,6 +45,11 @@ export interface LmOptions {
 export interface LmHooks {
   /** Polled once per iteration; returning true ends the run with stopReason 'cancelled'. */
   shouldStop?: () => boolean;
+  /**
+   * Polled once per iteration with the current point, its chi-square and the iterations so far; returning true
+   * ends the run with stopReason 'early-stop' (the caller judged the rest of the run not worth doing).
+   */
+  earlyStop?: (p: Float64Array, chi2: number, iterations: number) => boolean;
 }
 
 export interface LmResult {

@@ -53,7 +53,7 @@ describe('quasi-random starts', () => {
 
 describe('multi-start on BoxBOD', () => {
   it('finds the certified minimum as the best one', async () => {
-    const one = await multiStart(boxbod, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 1 }));
+    const one = await multiStart(boxbod, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 1, cluster: false }));
     const groups = groupMinima(one, { lower: Float64Array.from([1, 0.01]), upper: Float64Array.from([1000, 5]) });
     expect(groups.reduce((s, g) => s + g.members.length, 0)).toBe(24);
     const best = groups[0].best;
@@ -62,10 +62,18 @@ describe('multi-start on BoxBOD', () => {
     expect(Math.abs(best.chi2 - box.residualSumOfSquares) / box.residualSumOfSquares).toBeLessThan(1e-9);
   });
 
+  it('clustered (multi-level single linkage): searches fewer starts and still reaches the certified misfit', async () => {
+    const one = await multiStart(boxbod, resolveMultiStartOptions({ starts: 24, seed: 3, threads: 1 }));
+    expect(one.map((o) => o.index)).toEqual(Array.from({ length: 24 }, (_, i) => i));
+    expect(one.some((o) => o.stopReason === 'clustered')).toBe(true);
+    const best = Math.min(...one.filter((o) => o.stopReason !== 'clustered').map((o) => o.chi2));
+    expect(Math.abs(best - box.residualSumOfSquares) / box.residualSumOfSquares).toBeLessThan(1e-9);
+  });
+
   it('reports progress for every start and stops early when cancelled', async () => {
     const seen: number[] = [];
     let calls = 0;
-    const out = await multiStart(boxbod, resolveMultiStartOptions({ starts: 10, seed: 1, threads: 1 }), {
+    const out = await multiStart(boxbod, resolveMultiStartOptions({ starts: 10, seed: 1, threads: 1, cluster: false }), {
       onProgress: (p) => seen.push(p.done),
       shouldCancel: () => ++calls > 3,
     });
@@ -94,12 +102,15 @@ describe('multi-start on 2 threads', () => {
   it('counts every start once and stops early when cancelled', async () => {
     const seen: number[] = [];
     let calls = 0;
-    const out = await multiStart(portable, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2 }), {
+    const out = await multiStart(portable, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2, cluster: false }), {
       onProgress: (p) => seen.push(p.done),
       shouldCancel: () => ++calls > 50,
     });
     // and all on the pool, without the caller computing
-    const pooled = await multiStart(portable, resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2, callerWorks: false }));
+    const pooled = await multiStart(
+      portable,
+      resolveMultiStartOptions({ starts: 40, seed: 9, threads: 2, callerWorks: false, cluster: false }),
+    );
     expect(pooled.map((o) => o.index)).toEqual(Array.from({ length: 40 }, (_, i) => i));
     expect(out.map((o) => o.index)).toEqual(Array.from({ length: 40 }, (_, i) => i));
     expect(seen).toEqual(Array.from({ length: 40 }, (_, i) => i + 1));
@@ -107,9 +118,13 @@ describe('multi-start on 2 threads', () => {
   });
 
   it('passes a cancellation on to the pool workers when the caller computes no starts itself', async () => {
-    const out = await multiStart(portable, resolveMultiStartOptions({ starts: 12, seed: 9, threads: 2, callerWorks: false }), {
-      shouldCancel: () => true,
-    });
+    const out = await multiStart(
+      portable,
+      resolveMultiStartOptions({ starts: 12, seed: 9, threads: 2, callerWorks: false, cluster: false }),
+      {
+        shouldCancel: () => true,
+      },
+    );
     expect(out.map((o) => o.index)).toEqual(Array.from({ length: 12 }, (_, i) => i));
     expect(out.every((o) => o.stopReason === 'cancelled')).toBe(true);
   });

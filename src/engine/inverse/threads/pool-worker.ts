@@ -12,11 +12,11 @@ export interface PoolTask {
   key: string;
   ref: ProblemRef;
   plan: StartPlan;
-  /** Number of starts of the run; indexes at or beyond it are not computed. */
-  total: number;
+  /** The start indexes to search, claimed in this order. */
+  indexes: number[];
   /** Most starts this task claims. */
   chunk: number;
-  /** Int32 counter of the next unclaimed start index (Atomics.add). */
+  /** Int32 counter of the next unclaimed position in `indexes` (Atomics.add). */
   claim: SharedArrayBuffer;
   cancel: SharedArrayBuffer;
 }
@@ -25,14 +25,15 @@ let cached: { key: string; problem: LeastSquaresProblem } | null = null;
 
 export default function runTask(task: PoolTask): StartOutcome[] {
   const next = new Int32Array(task.claim);
-  if (Atomics.load(next, 0) >= task.total) return [];
+  const total = task.indexes.length;
+  if (Atomics.load(next, 0) >= total) return [];
   if (cached?.key !== task.key) cached = { key: task.key, problem: rebuildProblem(task.ref) };
   const flag = new Int32Array(task.cancel);
   const out: StartOutcome[] = [];
   for (let k = 0; k < task.chunk; k++) {
-    const index = Atomics.add(next, 0, 1);
-    if (index >= task.total) break;
-    out.push(...runStarts(cached.problem, [index], task.plan, () => Atomics.load(flag, 0) !== 0));
+    const k = Atomics.add(next, 0, 1);
+    if (k >= total) break;
+    out.push(...runStarts(cached.problem, [task.indexes[k]], task.plan, () => Atomics.load(flag, 0) !== 0));
   }
   return out;
 }

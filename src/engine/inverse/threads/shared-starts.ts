@@ -12,10 +12,13 @@ import { runPoolTask } from './pool';
 import type { ProblemRef } from './problem-builders';
 
 export interface SharedStartsRun {
+  /** Names the problem in the pool workers' cache (newRunKey); calls with the same key share one build. */
+  key?: string;
   problem: LeastSquaresProblem;
   ref: ProblemRef;
   plan: StartPlan;
-  total: number;
+  /** The start indexes to search. */
+  indexes: number[];
   threads: number;
   /** The calling thread computes starts too. */
   callerWorks: boolean;
@@ -25,16 +28,17 @@ export interface SharedStartsRun {
 }
 
 let runCounter = 0;
+export const newRunKey = () => `${process.pid}:${++runCounter}`;
 /** How often (ms) the caller asks shouldCancel while it waits for pool workers. */
 const CANCEL_POLL_MS = 50;
 
 export async function sharedStarts(run: SharedStartsRun): Promise<StartOutcome[]> {
-  const { total } = run;
+  const total = run.indexes.length;
   const cancel = new SharedArrayBuffer(4);
   const flag = new Int32Array(cancel);
   const claim = new SharedArrayBuffer(4);
   const next = new Int32Array(claim);
-  const key = `${process.pid}:${++runCounter}`;
+  const key = run.key ?? newRunKey();
   const workers = run.callerWorks ? run.threads - 1 : run.threads;
   const chunk = Math.max(1, Math.ceil(total / (run.threads * 8)));
   const have = new Map<number, StartOutcome>();
@@ -53,7 +57,7 @@ export async function sharedStarts(run: SharedStartsRun): Promise<StartOutcome[]
   cancelled();
   const dispatch = () => {
     while (inFlight.size < 2 * workers && Atomics.load(next, 0) < total && failure === null) {
-      const task = { key, ref: run.ref, plan: run.plan, total, chunk, claim, cancel };
+      const task = { key, ref: run.ref, plan: run.plan, indexes: run.indexes, chunk, claim, cancel };
       const job: Promise<void> = runPoolTask(workers, task)
         .then((res) => res.forEach(keep))
         .catch((e: unknown) => {
@@ -69,9 +73,9 @@ export async function sharedStarts(run: SharedStartsRun): Promise<StartOutcome[]
   dispatch();
   if (run.callerWorks) {
     while (failure === null) {
-      const index = Atomics.add(next, 0, 1);
-      if (index >= total) break;
-      runStarts(run.problem, [index], run.plan, cancelled, keep);
+      const k = Atomics.add(next, 0, 1);
+      if (k >= total) break;
+      runStarts(run.problem, [run.indexes[k]], run.plan, cancelled, keep);
       // yield so that finished pool tasks are collected and new ones dispatched promptly
       await new Promise<void>((resolve) => setImmediate(resolve));
     }

@@ -11,11 +11,11 @@
 import type * as Plot from '@observablehq/plot';
 import type { FigureSpec } from '@/src/web/charts/figure-spec';
 import { CONVERGED_REASONS, type StopReason } from '@/src/engine/optim/types';
-import type { InversionResult } from '@/src/engine/inverse/types';
+import type { InversionResult, StartStop } from '@/src/engine/inverse/types';
 import { FIGURE } from '@/src/design/tokens';
 
 /** Our words for why a start stopped. */
-export const STOP_WORDS: Record<StopReason, string> = {
+export const STOP_WORDS: Record<StartStop, string> = {
   'misfit-change': 'misfit stopped falling',
   'step-size': 'steps became negligible',
   gradient: 'gradient vanished',
@@ -23,7 +23,11 @@ export const STOP_WORDS: Record<StopReason, string> = {
   'max-evaluations': 'ran out of misfit evaluations',
   'non-finite': 'misfit not finite',
   cancelled: 'cancelled',
+  'early-stop': 'stopped early',
+  clustered: 'stopped early: close to a minimum an earlier start had found',
 };
+
+const reachedMinimum = (r: StartStop) => r !== 'clustered' && CONVERGED_REASONS.includes(r as StopReason);
 
 export const REACHED = FIGURE.reached;
 export const STOPPED_SHORT = FIGURE.stoppedShort; // a triangle too, so it reads apart without colour
@@ -67,7 +71,7 @@ function dotsOf(result: InversionResult): { dots: Dot[]; notDrawn: number } {
         notDrawn++;
         return;
       }
-      const reached = CONVERGED_REASONS.includes(reason);
+      const reached = reachedMinimum(reason);
       dots.push({
         x: spread(rank, k, m.startIndexes.length),
         misfit,
@@ -85,8 +89,12 @@ function captionOf(result: InversionResult, notDrawn: number): string {
   if (!result.startEnds) {
     return `This result was stored before each start's own misfit was kept: every start is drawn at its minimum's misfit, and which starts converged is not known (${result.unconverged} of ${result.starts} did not).`;
   }
-  const short = result.startEnds.stopReason.filter((r) => !CONVERGED_REASONS.includes(r)).length;
-  return `Each mark is one start at its own final misfit, in the column of the minimum it is counted in (the selected one shaded). ${short ? `${short} of ${result.starts} starts stopped without converging and are counted with the nearest minimum.` : `All ${result.starts} starts converged.`}${notDrawn ? ` ${notDrawn} ${notDrawn === 1 ? 'start ended without a finite misfit and is' : 'starts ended without a finite misfit and are'} not drawn.` : ''}`;
+  const short = result.startEnds.stopReason.filter((r) => r !== 'clustered' && !reachedMinimum(r)).length;
+  const clustered = result.startEnds.stopReason.filter((r) => r === 'clustered').length;
+  const notSearched = clustered
+    ? ` ${clustered} of ${result.starts} starts were stopped early, close to a minimum an earlier start had found, and are counted in it (drawn at the misfit where they stopped).`
+    : '';
+  return `Each mark is one start at its own final misfit, in the column of the minimum it is counted in (the selected one shaded). ${short ? `${short} of ${result.starts} starts stopped without converging and are counted with the nearest minimum.` : `All ${result.starts - clustered} searched starts converged.`}${notSearched}${notDrawn ? ` ${notDrawn} ${notDrawn === 1 ? 'start ended without a finite misfit and is' : 'starts ended without a finite misfit and are'} not drawn.` : ''}`;
 }
 
 export function startsFigure(result: InversionResult, selected: number): FigureSpec {
