@@ -7,7 +7,13 @@ import { fileURLToPath } from 'node:url';
 //   starts a throwaway PostgreSQL when DATABASE_URL is unset (`npm test` sets it itself), and its
 //   files run one at a time so a file may truncate tables with test/helpers/db.ts resetDatabase().
 const root = fileURLToPath(new URL('../', import.meta.url));
-const pure = ['test/engine/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/design/**/*.test.ts', 'test/web/ui/**/*.test.ts', 'test/runs/confidence.test.ts'];
+const pure = [
+  'test/engine/**/*.test.ts',
+  'test/cli/**/*.test.ts',
+  'test/design/**/*.test.ts',
+  'test/web/ui/**/*.test.ts',
+  'test/runs/confidence.test.ts',
+];
 
 export default defineConfig({
   resolve: { alias: { '@': root } },

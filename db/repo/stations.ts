@@ -32,6 +32,7 @@ export interface Station extends StationInput {
 
 export interface StationSummary extends Station {
   intervalCount: number;
+  firstIntervalAt: Date | null;
   lastIntervalAt: Date | null;
 }
 
@@ -129,6 +130,7 @@ export async function listStations(networkId: string): Promise<StationSummary[]>
     .select({
       stationId: intervals.stationId,
       n: sql<number>`count(*)::int`,
+      first: sql<Date | null>`min(${intervals.startsAt})`,
       last: sql<Date | null>`max(${intervals.startsAt})`,
     })
     .from(intervals)
@@ -141,6 +143,7 @@ export async function listStations(networkId: string): Promise<StationSummary[]>
     return {
       ...toStation(r, allComps),
       intervalCount: c?.n ?? 0,
+      firstIntervalAt: c?.first ? new Date(c.first) : null,
       lastIntervalAt: c?.last ? new Date(c.last) : null,
     };
   });

@@ -29,6 +29,7 @@ describe('station registry', () => {
     const list = await stations.listStations(networkId);
     expect(list).toHaveLength(1);
     expect(list[0].intervalCount).toBe(0);
+    expect(list[0].firstIntervalAt).toBeNull();
   });
 
   it('refuses a second station with the same code in a network, naming the field', async () => {
@@ -217,6 +218,9 @@ describe('intervals', () => {
     expect(spectra[0].stationCode).toBe('TST1');
     const list = await stations.listStations(networkId);
     expect(list[0].intervalCount).toBe(4);
+    // the stored span, first and last interval start (the run set-up offers it)
+    expect(list[0].firstIntervalAt?.toISOString()).toBe('2026-03-01T00:00:00.000Z');
+    expect(list[0].lastIntervalAt?.toISOString()).toBe('2026-03-01T00:30:00.000Z');
   });
 });
 

@@ -59,9 +59,9 @@ describe('configure a model and a grid, run, and read the results', () => {
     await page.getByLabel('Run name').fill('E2E run');
     await page.getByLabel('Cavity model').selectOption({ label: 'E2E linear v1' });
     await page.getByLabel('Source grid').selectOption({ label: 'E2E grid v1' });
-    await page.getByLabel('First interval start (UT)').fill('2026-03-14T15:00');
-    await page.getByLabel('Last interval start (UT)').fill('2026-03-14T15:00');
-    await page.getByLabel('Use every k-th bin').fill('5');
+    await page.getByLabel(/^First interval start \(UTC/).fill('2026-03-14 15:00');
+    await page.getByLabel(/^Last interval start \(UTC/).fill('2026-03-14 15:00');
+    await page.getByLabel(/^Bins to use/).fill('5');
     await page.getByLabel('Starts').fill('2');
     await page.getByRole('button', { name: 'Check and preview' }).click();
     await page.getByTestId('run-preview').waitFor({ timeout: 30_000 });

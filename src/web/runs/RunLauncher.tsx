@@ -65,8 +65,21 @@ type Preview = {
 };
 type Problem = { field: string; message: string };
 
-const local = (iso: string | null) => (iso ? iso.slice(0, 16) : '');
-const utc = (s: string) => (s ? `${s}:00.000Z` : '');
+/** ISO 8601 date-time in UTC, 24-hour, as the form shows it: "2026-03-14 06:20". */
+export const local = (iso: string | null) => (iso ? iso.slice(0, 16).replace('T', ' ') : '');
+/** The form's "YYYY-MM-DD hh:mm" (space or T) as a UTC date-time for the API; anything else is passed on for the schema to name. */
+export const utc = (s: string) => {
+  const t = s.trim().replace(' ', 'T');
+  return /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/.test(t) ? `${t}:00.000Z` : s.trim();
+};
+
+/** The default span: the whole last stored UTC day (from its first stored interval, or midnight, to the last one). */
+export function defaultSpan(range: { first: string | null; last: string | null }): { from: string; to: string } {
+  if (!range.last) return { from: '', to: '' };
+  const midnight = `${range.last.slice(0, 10)}T00:00:00.000Z`;
+  const from = range.first && range.first > midnight ? range.first : midnight;
+  return { from: local(from), to: local(range.last) };
+}
 
 const list = (x: unknown): string[] => (Array.isArray(x) ? x : typeof x === 'string' && x ? [x] : []);
 
@@ -153,8 +166,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
       gridId: firstGrid?.id ?? '',
       stationIds: options.stations.map((s) => s.id),
       components: ['Ez', 'Bns', 'Bew'],
-      from: local(options.range.first),
-      to: local(options.range.first),
+      ...defaultSpan(options.range),
       includeFlagged: false,
       kind: 'spectrum',
       minHz: 6,
@@ -274,12 +286,28 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
         <FieldError message={err('components')} />
         <div className="grid gap-3 md:grid-cols-3">
           <label className="block text-sm font-medium">
-            First interval start (UT)
-            <input type="datetime-local" step={600} className={inputClass} {...register('from')} />
+            First interval start (UTC, YYYY-MM-DD hh:mm)
+            <input
+              type="text"
+              inputMode="numeric"
+              placeholder="2026-03-14 00:00"
+              autoComplete="off"
+              spellCheck={false}
+              className={`${inputClass} num`}
+              {...register('from')}
+            />
           </label>
           <label className="block text-sm font-medium">
-            Last interval start (UT)
-            <input type="datetime-local" step={600} className={inputClass} {...register('to')} />
+            Last interval start (UTC, YYYY-MM-DD hh:mm)
+            <input
+              type="text"
+              inputMode="numeric"
+              placeholder="2026-03-14 23:50"
+              autoComplete="off"
+              spellCheck={false}
+              className={`${inputClass} num`}
+              {...register('to')}
+            />
           </label>
           <label className="mt-6 flex items-center gap-2 text-sm">
             <input type="checkbox" {...register('includeFlagged')} />
@@ -289,11 +317,8 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
         <FieldError message={err('from')} />
         <FieldError message={err('to')} />
         <p className="text-xs text-muted">
-          Stored data:{' '}
-          {options.range.first
-            ? `${options.range.first.slice(0, 16).replace('T', ' ')} to ${options.range.last?.slice(0, 16).replace('T', ' ')} UT`
-            : 'none yet'}
-          . Same start and end: one interval.
+          Stored data: {options.range.first ? `${local(options.range.first)} to ${local(options.range.last)} UTC` : 'none yet'}.
+          Times are UTC on a 24-hour clock. The same start and end take one interval.
         </p>
       </fieldset>
 
@@ -320,8 +345,8 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
               <input type="number" step="any" className={inputClass} {...register('maxHz', { valueAsNumber: true })} />
             </label>
             <label className="block text-sm font-medium">
-              Use every k-th bin
-              <input type="number" className={inputClass} {...register('every', { valueAsNumber: true })} />
+              Bins to use (1 = every bin, 2 = every 2nd, …)
+              <input type="number" min={1} className={inputClass} {...register('every', { valueAsNumber: true })} />
             </label>
           </div>
         ) : (

@@ -124,7 +124,7 @@ export function RunMap({ frame, regions, cellSizeDeg, minimum, stations }: RunMa
         />
       ) : null}
       <p className="mt-1 text-xs text-muted">
-        Moving regions: dashed circle = the region's spread; ellipses = joint 68 % (solid) and 95 % (dotted) confidence regions of
+        Moving regions: dashed circle = the region’s spread; ellipses = joint 68 % (solid) and 95 % (dotted) confidence regions of
         the centre (Δχ² = 2.30 and 6.18)
         {magnified > 1 ? <strong className="text-fg">, drawn enlarged ×{magnified} to be visible</strong> : null}. Squares:
         stations, filled violet when chi-square per bin ≤ 2, red above

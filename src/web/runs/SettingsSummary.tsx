@@ -1,6 +1,7 @@
 /** What a run asked for: data, observables, model, grid, regions and bounds, damping, starts, seed, engine version. */
 import type { RunView } from '@/src/runs/results';
 import { fmt } from './types';
+import { ordinal } from '@/src/web/ui/format';
 
 function Row({ label, children }: { label: string; children: React.ReactNode }) {
   return (
@@ -26,7 +27,7 @@ export function SettingsSummary({ view, stationCodes, networkId }: { view: RunVi
       </Row>
       <Row label="Observables">
         {o.kind === 'spectrum'
-          ? `log power, ${o.minHz}–${o.maxHz} Hz${o.every > 1 ? `, every ${o.every}th bin` : ''}`
+          ? `log power, ${o.minHz}–${o.maxHz} Hz${o.every > 1 ? `, every ${ordinal(o.every)} bin` : ''}`
           : `peak power of the first ${o.modes} fitted modes`}
       </Row>
       <Row label="Cavity model">

@@ -12,7 +12,7 @@ import { Badge, Button, DataTable, EmptyState, FormField, Notice, inputClass } f
 import { api, ApiFailure, displayUnit, fetcher, toDisplayPower } from './api';
 import { FitSettings } from './FitSettings';
 import { RAMPS } from '@/src/design/tokens';
-import { fittedCurve } from './fit-curve';
+import { fittedCurve, qFactorError } from './fit-curve';
 
 interface Mode {
   frequency: number;
@@ -102,7 +102,9 @@ export function DayView({
           f: m.frequency,
           df: m.errors.frequency,
           q: m.q,
+          dq: qFactorError(m),
           a: toDisplayPower(component, m.amplitude),
+          da: toDisplayPower(component, m.errors.amplitude),
           flagged: !!iv.flagReason,
         })),
       ),
@@ -245,6 +247,7 @@ export function DayView({
         <div className="grid gap-6 lg:grid-cols-3">
           <PlotFigure
             title="Mode frequencies"
+            caption="Bars: ±1 standard error from each interval's mode fit."
             xLabel="Interval start (UTC)"
             yLabel="Frequency (Hz)"
             height={240}
@@ -258,7 +261,7 @@ export function DayView({
                   y1: (d: { f: number; df: number }) => d.f - d.df,
                   y2: (d: { f: number; df: number }) => d.f + d.df,
                   stroke: 'mode',
-                  strokeOpacity: 0.4,
+                  strokeOpacity: 0.7,
                 }),
                 Plot.dot(modePoints, { x: 't', y: 'f', fill: 'mode', r: 2 }),
               ],
@@ -266,13 +269,31 @@ export function DayView({
           />
           <PlotFigure
             title="Q-factors"
+            caption="Bars: ±1 standard error from each interval's mode fit."
             xLabel="Interval start (UTC)"
             yLabel="Q (dimensionless)"
             height={240}
-            options={{ marginBottom: 40, x: timeX, marks: [Plot.dot(modePoints, { x: 't', y: 'q', fill: 'mode', r: 2 })] }}
+            options={{
+              marginBottom: 40,
+              x: timeX,
+              marks: [
+                Plot.ruleX(
+                  modePoints.filter((d) => Number.isFinite(d.dq)),
+                  {
+                    x: 't',
+                    y1: (d: { q: number; dq: number }) => d.q - d.dq,
+                    y2: (d: { q: number; dq: number }) => d.q + d.dq,
+                    stroke: 'mode',
+                    strokeOpacity: 0.7,
+                  },
+                ),
+                Plot.dot(modePoints, { x: 't', y: 'q', fill: 'mode', r: 2 }),
+              ],
+            }}
           />
           <PlotFigure
             title="Mode intensities"
+            caption="Bars: ±1 standard error from each interval's mode fit."
             xLabel="Interval start (UTC)"
             yLabel={`Peak amplitude (${unit})`}
             height={240}
@@ -281,6 +302,17 @@ export function DayView({
               x: timeX,
               y: { type: 'log' },
               marks: [
+                // on the log axis a bar reaching zero or below is cut at a hundredth of the value
+                Plot.ruleX(
+                  modePoints.filter((d) => d.a > 0 && Number.isFinite(d.da)),
+                  {
+                    x: 't',
+                    y1: (d: { a: number; da: number }) => Math.max(d.a - d.da, d.a / 100),
+                    y2: (d: { a: number; da: number }) => d.a + d.da,
+                    stroke: 'mode',
+                    strokeOpacity: 0.7,
+                  },
+                ),
                 Plot.dot(
                   modePoints.filter((d) => d.a > 0),
                   { x: 't', y: 'a', fill: 'mode', r: 2 },

@@ -35,3 +35,17 @@ export function fittedCurve(fit: CurveFit, frequencies: number[]): { f: number; 
     .map((f) => ({ f, p: fitModel(fit, f) }))
     .filter((d) => d.p > 0);
 }
+
+/**
+ * Standard error of Q = f / (2 g) from those of the mode frequency f and half-width g by first-order
+ * propagation, their correlation neglected: sigma_Q = Q sqrt((sigma_f / f)^2 + (sigma_g / g)^2)
+ * (common practice; e.g. Taylor, An Introduction to Error Analysis, §3.8). NaN when an error is missing.
+ */
+export function qFactorError(m: {
+  frequency: number;
+  halfWidth: number;
+  errors: { frequency: number; halfWidth: number };
+}): number {
+  const q = m.frequency / (2 * m.halfWidth);
+  return q * Math.hypot(m.errors.frequency / m.frequency, m.errors.halfWidth / m.halfWidth);
+}

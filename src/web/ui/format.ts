@@ -18,6 +18,14 @@ export function formatUtc(value: Date | string | number | null | undefined, with
   return `${iso.slice(0, 10)} ${iso.slice(11, withSeconds ? 19 : 16)} UTC`;
 }
 
+/** 1st, 2nd, 3rd, 4th, 11th, 12th, 13th, 21st, 102nd, … (English ordinal of a whole number). */
+export function ordinal(n: number): string {
+  const tens = Math.abs(n) % 100;
+  const last = Math.abs(n) % 10;
+  const suffix = tens >= 11 && tens <= 13 ? 'th' : last === 1 ? 'st' : last === 2 ? 'nd' : last === 3 ? 'rd' : 'th';
+  return `${n}${suffix}`;
+}
+
 /** "2026-03-14" (UTC date). */
 export function formatUtcDate(value: Date | string | number | null | undefined): string {
   return formatUtc(value).slice(0, 10);

@@ -16,7 +16,13 @@ export default async function NewRunPage({ params }: { params: Promise<{ network
     withData
       .map((s) => s.lastIntervalAt?.toISOString() ?? '')
       .sort()
-      .at(-1) ?? null;
+      .at(-1) || null;
+  const first =
+    withData
+      .map((s) => s.firstIntervalAt?.toISOString() ?? '')
+      .filter(Boolean)
+      .sort()
+      .at(0) ?? null;
   const missing = !models.length
     ? 'a cavity model'
     : !grids.length
@@ -67,7 +73,7 @@ export default async function NewRunPage({ params }: { params: Promise<{ network
               name: s.name,
               components: s.components.map((c) => c.component),
             })),
-            range: { first: last, last },
+            range: { first, last },
           }}
         />
       )}
