@@ -20,22 +20,22 @@ import { invertModes } from '@/src/engine/inverse/invert';
 import { invertAnyCaseSchema, modeInputFromCase } from '@/src/engine/case/mode-input';
 import { readFileSync } from 'node:fs';
 
-const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
-const band = { minHz: 5, maxHz: 40, stepHz: 0.25 };
+export const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
+export const band = { minHz: 5, maxHz: 40, stepHz: 0.25 };
 const freqs = bandFrequencies(band);
 // Invented station layout for the benchmark.
-const stations = Array.from({ length: 12 }, (_, i) => ({
+export const stations = Array.from({ length: 12 }, (_, i) => ({
   code: `B${String(i + 1).padStart(2, '0')}`,
   lat: -55 + ((i * 37) % 110),
   lon: -170 + i * 29,
 }));
-const unknowns = [
+export const unknowns = [
   { name: 'R1', intensity: { min: 1e3, max: 1e6 }, lat: { min: -25, max: 25 }, lon: { min: -90, max: -40 } },
   { name: 'R2', intensity: { min: 1e3, max: 1e6 }, lat: { min: -25, max: 25 }, lon: { min: -10, max: 40 } },
   { name: 'R3', intensity: { min: 1e3, max: 1e6 }, lat: { min: -25, max: 25 }, lon: { min: 90, max: 150 } },
 ];
 
-function synthetic(t: number, seed: number): SpectrumInversionInput {
+export function synthetic(t: number, seed: number): SpectrumInversionInput {
   // Three regions drifting slowly over the day (t in [0, 1)).
   const truth = [
     { lat: -5 + 6 * t, lon: -62 + 10 * t, intensity: 3e4 * (1 + Math.sin(2 * Math.PI * t)) + 5e3 },

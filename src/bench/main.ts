@@ -6,6 +6,7 @@
 const groups: Record<string, () => Promise<{ default: () => Promise<void> }>> = {
   engine: () => import('./engine'),
   inverse: () => import('./inverse'),
+  speed: () => import('./speed'),
   pipeline: () => import('./pipeline'),
   runs: () => import('./runs'),
   load: () => import('./load'),
