@@ -7,7 +7,7 @@
 import { and, asc, eq, gte, inArray, isNull, lt, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
 import { intervals, intervalSpectra, intervalFits, stations, type StoredMode } from '../schema/stations';
-import type { ComponentName } from './stations';
+import type { Component } from '@/src/engine/components';
 
 export type IntervalOrigin = 'upload' | 'push' | 'synthetic';
 
@@ -49,7 +49,7 @@ function fitOf(row: {
 export interface IntervalResultInput {
   networkId: string;
   stationId: string;
-  component: ComponentName;
+  component: Component;
   startsAt: Date;
   durationS: number;
   origin: IntervalOrigin;
@@ -66,7 +66,7 @@ export interface IntervalSummary {
   id: string;
   stationId: string;
   stationCode: string;
-  component: ComponentName;
+  component: Component;
   startsAt: Date;
   durationS: number;
   origin: IntervalOrigin;
@@ -83,7 +83,7 @@ export interface IntervalSpectrum {
   intervalId: string;
   stationId: string;
   stationCode: string;
-  component: ComponentName;
+  component: Component;
   startsAt: Date;
   frequencies: number[];
   power: number[];
@@ -99,7 +99,7 @@ export interface IntervalSpectrum {
 export interface IntervalFilter {
   networkId: string;
   stationIds?: string[];
-  components?: ComponentName[];
+  components?: Component[];
   from?: Date;
   to?: Date;
   includeFlagged?: boolean;
@@ -116,7 +116,7 @@ const BATCH = 400;
 export async function storedAt(
   stationId: string,
   startsAt: Date,
-): Promise<{ component: ComponentName; origin: IntervalOrigin; samplesSha256: string | null }[]> {
+): Promise<{ component: Component; origin: IntervalOrigin; samplesSha256: string | null }[]> {
   return getDb()
     .select({ component: intervals.component, origin: intervals.origin, samplesSha256: intervals.samplesSha256 })
     .from(intervals)

@@ -5,8 +5,8 @@
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { getDb } from '../client';
 import { stations, stationComponents, intervals, type Calibration, type InterferenceLine } from '../schema/stations';
+import { COMPONENTS, type Component } from '@/src/engine/components';
 
-export type ComponentName = 'Ez' | 'Bns' | 'Bew';
 export type StationStatus = 'operating' | 'paused' | 'retired';
 
 export interface StationInput {
@@ -20,7 +20,7 @@ export interface StationInput {
   sampleRateHz: number;
   notes: string;
   status: StationStatus;
-  components: { component: ComponentName; calibration: Calibration }[];
+  components: { component: Component; calibration: Calibration }[];
 }
 
 export interface Station extends StationInput {
@@ -39,7 +39,7 @@ export interface StationSummary extends Station {
 type StationRow = typeof stations.$inferSelect;
 type ComponentRow = typeof stationComponents.$inferSelect;
 
-const ORDER: ComponentName[] = ['Ez', 'Bns', 'Bew'];
+const ORDER: readonly Component[] = COMPONENTS;
 
 function toStation(row: StationRow, comps: ComponentRow[]): Station {
   return {

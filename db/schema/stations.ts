@@ -21,6 +21,7 @@ import {
   primaryKey,
   check,
 } from 'drizzle-orm/pg-core';
+import { COMPONENTS } from '../../src/engine/components';
 import { networks } from './networks';
 import { users } from './auth';
 
@@ -29,7 +30,7 @@ const bytea = customType<{ data: Buffer; driverData: Buffer }>({
   dataType: () => 'bytea',
 });
 
-export const stationComponent = pgEnum('station_component', ['Ez', 'Bns', 'Bew']);
+export const stationComponent = pgEnum('station_component', COMPONENTS);
 export const stationStatus = pgEnum('station_status', ['operating', 'paused', 'retired']);
 export const uploadFormat = pgEnum('upload_format', ['series-csv', 'spectra-csv', 'series-json']);
 export const uploadState = pgEnum('upload_state', ['queued', 'processing', 'done', 'failed']);

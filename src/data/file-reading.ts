@@ -14,11 +14,11 @@ import { parseJsonText } from '@/src/engine/formats/json-text';
 import { parseSeriesJson } from '@/src/engine/formats/pipeline-json';
 import { parseUtc } from '@/src/engine/formats/header-lines';
 import { splitIntervals } from '@/src/engine/pipeline/interval-splitter';
-import { getStationByCode, type ComponentName, type Station } from '@/db/repo/stations';
+import { getStationByCode, type Station } from '@/db/repo/stations';
 import type { UploadFormat } from '@/db/repo/uploads';
 import { textOf } from './text';
 import { INTERVAL_SECONDS, sampleUnitFactor, spectrumUnitFactor, type RawInterval } from './interval-processing';
-import { COMPONENTS } from './station-input';
+import { COMPONENTS, type Component } from '@/src/engine/components';
 import { outsideSampleWindow } from './limits';
 import { SIGNAL_SEGMENT_SECONDS } from '@/src/engine/tolerances';
 
@@ -70,8 +70,8 @@ async function checkStationCode(code: string, ctx: FileContext, field: string): 
   );
 }
 
-function checkComponent(c: string, ctx: FileContext, field: string): ComponentName {
-  if (!COMPONENTS.includes(c as ComponentName))
+function checkComponent(c: string, ctx: FileContext, field: string): Component {
+  if (!COMPONENTS.includes(c as Component))
     throw new FileProblem(`${ctx.fileName}: "${c}" is not a component (Ez, Bns or Bew)`, field);
   if (!ctx.station.components.some((x) => x.component === c)) {
     throw new FileProblem(
@@ -79,7 +79,7 @@ function checkComponent(c: string, ctx: FileContext, field: string): ComponentNa
       field,
     );
   }
-  return c as ComponentName;
+  return c as Component;
 }
 
 function checkRate(rate: number, ctx: FileContext, field: string) {
@@ -106,10 +106,10 @@ function checkLongEnough(samples: number, sampleRateHz: number, ctx: FileContext
     );
 }
 
-async function checkSeriesHeader(h: SeriesHeader, ctx: FileContext): Promise<Partial<Record<ComponentName, number>>> {
+async function checkSeriesHeader(h: SeriesHeader, ctx: FileContext): Promise<Partial<Record<Component, number>>> {
   await checkStationCode(h.station, ctx, 'station');
   checkRate(h.sampleRateHz, ctx, 'sample-rate-hz');
-  const factors: Partial<Record<ComponentName, number>> = {};
+  const factors: Partial<Record<Component, number>> = {};
   for (const c of h.components) {
     checkComponent(c, ctx, c);
     const f = sampleUnitFactor(h.units[c] ?? '');
@@ -119,7 +119,7 @@ async function checkSeriesHeader(h: SeriesHeader, ctx: FileContext): Promise<Par
 }
 
 interface JsonUpload {
-  component: ComponentName;
+  component: Component;
   startMs: number;
   sampleRateHz: number;
   samples: number[];

@@ -20,7 +20,8 @@ import {
 } from '@/src/engine/tolerances';
 import { MIN_MODES, USUAL_MODE_FREQUENCIES_HZ } from '@/src/engine/modes/usual-modes';
 import type { IntervalFit, IntervalResultInput } from '@/db/repo/intervals';
-import type { ComponentName, Station } from '@/db/repo/stations';
+import type { Station } from '@/db/repo/stations';
+import type { Component } from '@/src/engine/components';
 
 export const INTERVAL_SECONDS = SIGNAL_INTERVAL_SECONDS;
 /** Most modes fitted for stored intervals. */
@@ -32,7 +33,7 @@ export function modeCountBelow(topHz: number): number {
   return n >= MIN_MODES ? Math.min(STORED_MODE_COUNT, n) : 0;
 }
 
-export type RawInterval = { component: ComponentName; startsAt: Date; durationS: number } & (
+export type RawInterval = { component: Component; startsAt: Date; durationS: number } & (
   | {
       kind: 'samples';
       sampleRateHz: number;
@@ -72,7 +73,7 @@ const SPECTRUM_UNITS: Record<string, number> = {
 export const sampleUnitFactor = (unit: string): number | undefined => SAMPLE_UNITS[unit.trim()];
 export const spectrumUnitFactor = (unit: string): number | undefined => SPECTRUM_UNITS[unit.replace(/\s+/g, '')];
 
-function calibrationOf(station: Station, component: ComponentName): Calibration {
+function calibrationOf(station: Station, component: Component): Calibration {
   const c = station.components.find((x) => x.component === component);
   if (!c) throw new Error(`${station.code} has no ${component} component installed`);
   return c.calibration;
@@ -81,7 +82,7 @@ function calibrationOf(station: Station, component: ComponentName): Calibration 
 /** Processing settings of one station component (samples in physical units when siFactor is given). */
 export function processingConfigFor(
   station: Station,
-  component: ComponentName,
+  component: Component,
   sampleRateHz: number,
   siFactor?: number,
 ): ProcessingConfig {

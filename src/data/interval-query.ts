@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 import type { IntervalFilter } from '@/db/repo/intervals';
-import { COMPONENTS } from './station-input';
+import { COMPONENTS } from '@/src/engine/components';
 
 const list = <T extends z.ZodType>(item: T) =>
   z

@@ -11,7 +11,7 @@ import { getStation } from '@/db/repo/stations';
 import { listIntervals, saveIntervals, storedAt } from '@/db/repo/intervals';
 import { badRequest, conflict, notFound } from '@/src/server/errors';
 import { processRawInterval, INTERVAL_SECONDS } from './interval-processing';
-import { COMPONENTS } from './station-input';
+import { COMPONENTS } from '@/src/engine/components';
 import { outsideSampleWindow } from './limits';
 import { readLimitedText } from '@/src/server/body-limit';
 

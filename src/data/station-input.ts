@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 
-export const COMPONENTS = ['Ez', 'Bns', 'Bew'] as const;
+import { COMPONENTS } from '@/src/engine/components';
 
 const responsePoint = z.object({
   frequencyHz: z.number().finite().positive('must be a positive frequency in Hz'),

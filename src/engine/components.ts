@@ -1,7 +1,6 @@
-/** Field components a station records. */
-export type Component = 'Ez' | 'Bns' | 'Bew';
-
-export const COMPONENTS: readonly Component[] = ['Ez', 'Bns', 'Bew'] as const;
+/** Field components a station records: the one list every schema, table and form uses. */
+export const COMPONENTS = ['Ez', 'Bns', 'Bew'] as const;
+export type Component = (typeof COMPONENTS)[number];
 
 /** Human description and units of each component (SI and display). */
 export const COMPONENT_INFO: Record<Component, { label: string; siUnit: string; displayUnit: string }> = {

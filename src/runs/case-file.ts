@@ -11,8 +11,7 @@ import { badRequest, notFound } from '@/src/server/errors';
 import { loadRunContext } from './context';
 import { MODE_BAND, loadIntervalObservations } from './observations';
 import type { RunContext } from './types';
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+import { isId } from '@/src/server/ids';
 
 /** The case's unknowns: what `buildUnknowns` gives the run's solver, in the case file's terms. */
 export function caseUnknowns(ctx: RunContext): Record<string, unknown>[] {
@@ -44,7 +43,7 @@ async function pickInterval(runId: string, interval: string | undefined): Promis
       'interval',
     );
   }
-  const t = UUID.test(interval) ? null : Date.parse(interval);
+  const t = isId(interval) ? null : Date.parse(interval);
   const row = rows.find((r) => (t === null ? r.id === interval : r.startsAt.getTime() === t));
   if (!row) throw notFound(`This run has no finished interval "${interval}".`);
   return row.startsAt;

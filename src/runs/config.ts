@@ -4,6 +4,7 @@
  * worker and the run page.
  */
 import { z } from 'zod';
+import { COMPONENTS } from '@/src/engine/components';
 import { INVERSION_DEFAULTS } from '@/src/engine/inverse/defaults';
 import type { ObservedModes } from '@/src/engine/inverse/types';
 import type { ObservedSeries } from './types';
@@ -11,8 +12,6 @@ import type { ObservedSeries } from './types';
 const bounds = z
   .object({ min: z.number(), max: z.number() })
   .refine((b) => b.min < b.max, { message: 'the lower bound must be below the upper bound' });
-
-export const COMPONENTS = ['Ez', 'Bns', 'Bew'] as const;
 
 export const regionUnknownSchema = z.object({
   region: z.string().min(1),

@@ -9,16 +9,16 @@
  */
 import { buildIntervalProblem } from '@/src/engine/inverse/interval-problem';
 import type { InversionResult } from '@/src/engine/inverse/types';
-import { badRequest } from '@/src/server/errors';
+import type { Component } from '@/src/engine/components';
+import { badRequest, notFound } from '@/src/server/errors';
 import { getRun, getRunInterval } from '@/db/repo/runs';
-import { notFound } from '@/src/server/errors';
 import { loadRunContext } from './context';
 import { assumedExclusionSeries, loadModeObservations, loadObservations } from './observations';
 import { intervalInput } from './interval-input';
 
 export interface SeriesFit {
   station: string;
-  component: 'Ez' | 'Bns' | 'Bew';
+  component: Component;
   frequencies: number[];
   observed: number[];
   predicted: number[];
@@ -39,7 +39,7 @@ export interface StationFit {
 /** One observed mode of a mode-parameter run beside its prediction at the minimum. */
 export interface ModeFit {
   station: string;
-  component: 'Ez' | 'Bns' | 'Bew';
+  component: Component;
   mode: number; // 1-based, order of the observed modes
   observed: { frequency: number; intensity: number; halfWidth: number };
   sigma: { frequency: number; logIntensity: number; halfWidth: number };

@@ -3,22 +3,19 @@
  * Engine results are stored as plain JSON on `run_intervals.result`.
  */
 import type { CavityConfig } from '@/src/engine/cavity/types';
-import type { WelchStatistics } from '@/src/engine/stats/welch-statistics';
+import type { ObservedSeries as EngineObservedSeries } from '@/src/engine/inverse/types';
 import type { RunConfig } from './config';
 import type { Region } from './grid-spec';
 
-export type ComponentName = 'Ez' | 'Bns' | 'Bew';
-
-/** One observed series of one interval: power in SI units, sigma of ln(power). */
-export interface ObservedSeries {
-  station: string;
-  component: ComponentName;
+/**
+ * One observed series of one interval as a run keeps it: the engine's observed series in plain
+ * arrays (stored as JSON), with the sigma of ln(power) always given.
+ */
+export type ObservedSeries = Omit<EngineObservedSeries, 'frequencies' | 'power' | 'sigmaLog'> & {
   frequencies: number[];
   power: number[];
   sigmaLog: number;
-  /** Welch statistics of the spectrum (imported case files may carry them; they then win over sigmaLog). */
-  welch?: WelchStatistics;
-}
+};
 
 export interface RunStation {
   id: string;

@@ -6,6 +6,7 @@
  * match is refused before anything is looked up.
  */
 import { createHmac, timingSafeEqual } from 'node:crypto';
+import { isId } from '@/src/server/ids';
 
 const PURPOSE = 'cavitas-run-link-v1:';
 
@@ -26,8 +27,6 @@ export function signLinkToken(claims: LinkClaims, secret: string): string {
   return `${payload}.${sign(payload, secret).toString('base64url')}`;
 }
 
-const LINK_ID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
-
 /** The claims of a token signed with `secret`, or null when it is malformed or its signature does not match. */
 export function verifyLinkToken(token: string, secret: string): LinkClaims | null {
   const parts = token.split('.');
@@ -37,6 +36,6 @@ export function verifyLinkToken(token: string, secret: string): LinkClaims | nul
   const expected = sign(payload, secret);
   if (given.length !== expected.length || !timingSafeEqual(given, expected)) return null;
   const m = /^([0-9a-f-]{36}):(\d{1,12})$/.exec(Buffer.from(payload, 'base64url').toString('utf8'));
-  if (!m || !LINK_ID.test(m[1])) return null;
+  if (!m || !isId(m[1])) return null;
   return { linkId: m[1], expiresAt: new Date(Number(m[2]) * 1000) };
 }

@@ -12,7 +12,7 @@
 import { z } from 'zod';
 import { caseSchema, type CaseFile } from './schema';
 import type { CavityConfig } from '@/src/engine/cavity';
-import type { Component } from '@/src/engine/components';
+import { COMPONENTS, type Component } from '@/src/engine/components';
 import { MAX_MODES, MIN_MODES } from '@/src/engine/modes/usual-modes';
 import { unknownsFromCase } from './spectrum-input';
 import { caseSolveSchema } from './solve-options';
@@ -31,7 +31,7 @@ export const observedModeSchema = z.looseObject({
 
 export const observedModesSchema = z.looseObject({
   station: z.string().min(1),
-  component: z.enum(['Ez', 'Bns', 'Bew']),
+  component: z.enum(COMPONENTS),
   modes: z.array(observedModeSchema).min(1),
   fit: z
     .looseObject({

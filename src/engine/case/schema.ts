@@ -7,12 +7,13 @@
 import { z } from 'zod';
 import { bandProblem, bandSize } from '../band';
 import { cavityConfigSchema } from '../cavity/schema';
+import { COMPONENTS } from '../components';
 import { cellRegion } from '../sources/cell-region';
 import { welchStatisticsProblem } from '../stats/welch-statistics';
 
 const latitude = z.number().min(-90).max(90);
 const longitude = z.number().min(-360).max(360);
-const component = z.enum(['Ez', 'Bns', 'Bew']);
+const component = z.enum(COMPONENTS);
 
 export const bandSchema = z
   .looseObject({ minHz: z.number().positive(), maxHz: z.number().positive(), stepHz: z.number().positive() })

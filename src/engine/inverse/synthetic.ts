@@ -5,7 +5,7 @@
  * noise of standard deviation sigma in ln(power).
  */
 import type { CavityConfig } from '../cavity/types';
-import type { Component } from '../components';
+import { COMPONENTS, type Component } from '../components';
 import { greatCircle } from '../geometry/great-circle';
 import { mulberry32 } from '../random';
 import { engineKernel } from './kernel-sampler';
@@ -40,7 +40,7 @@ export function syntheticObserved(
         sums.Bew[k] += s.intensity * buf.bh[k] * ew;
       }
     }
-    return (['Ez', 'Bns', 'Bew'] as Component[]).map((c) => ({
+    return COMPONENTS.map((c: Component) => ({
       station: st.code,
       component: c,
       frequencies: freqs,

@@ -13,6 +13,7 @@ import { apiSend } from '@/src/web/swr';
 import { INVERSION_DEFAULTS } from '@/src/engine/inverse/defaults';
 import { runConfigSchema } from '@/src/runs/config';
 import type { Region } from '@/src/runs/grid-spec';
+import { COMPONENTS } from '@/src/engine/components';
 
 export interface LauncherOptions {
   models: { id: string; name: string; version: number }[];
@@ -165,7 +166,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
       modelId: options.models[0]?.id ?? '',
       gridId: firstGrid?.id ?? '',
       stationIds: options.stations.map((s) => s.id),
-      components: ['Ez', 'Bns', 'Bew'],
+      components: [...COMPONENTS],
       ...defaultSpan(options.range),
       includeFlagged: false,
       kind: 'spectrum',
@@ -276,7 +277,7 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
         </div>
         <FieldError message={err('stationIds')} />
         <div className="flex gap-4 text-sm">
-          {['Ez', 'Bns', 'Bew'].map((c) => (
+          {COMPONENTS.map((c) => (
             <label key={c} className="flex items-center gap-1">
               <input type="checkbox" value={c} {...register('components')} />
               {c}

@@ -8,8 +8,8 @@ import { useState, type FormEvent } from 'react';
 import { useRouter } from 'next/navigation';
 import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
 import { api, ApiFailure } from './api';
+import { COMPONENTS, type Component } from '@/src/engine/components';
 
-type Comp = 'Ez' | 'Bns' | 'Bew';
 type Cal =
   { kind: 'gain'; gain: number } | { kind: 'response'; points: { frequencyHz: number; amplitude: number; phaseDeg: number }[] };
 
@@ -24,10 +24,10 @@ export interface StationFormValue {
   notes: string;
   status: 'operating' | 'paused' | 'retired';
   interferenceLines: { frequencyHz: number; label: string }[];
-  components: { component: Comp; calibration: Cal }[];
+  components: { component: Component; calibration: Cal }[];
 }
 
-const COMP_LABEL: Record<Comp, string> = {
+const COMP_LABEL: Record<Component, string> = {
   Ez: 'Ez (vertical electric)',
   Bns: 'Bns (north–south coil)',
   Bew: 'Bew (east–west coil)',
@@ -68,11 +68,11 @@ export function StationForm({
   const [comps, setComps] = useState(
     () =>
       Object.fromEntries(
-        (['Ez', 'Bns', 'Bew'] as Comp[]).map((c) => {
+        COMPONENTS.map((c) => {
           const have = initial?.components.find((x) => x.component === c);
           return [c, { on: initial ? !!have : true, ...calText(have?.calibration) }];
         }),
-      ) as Record<Comp, { on: boolean; kind: 'gain' | 'response'; gain: string; table: string }>,
+      ) as Record<Component, { on: boolean; kind: 'gain' | 'response'; gain: string; table: string }>,
   );
   const [error, setError] = useState<{ message: string; field?: string } | null>(null);
   const [busy, setBusy] = useState(false);
@@ -91,7 +91,7 @@ export function StationForm({
         const m = /^([0-9.]+)\s*(?:Hz)?\s*(.*)$/i.exec(l);
         return { frequencyHz: m ? Number(m[1]) : NaN, label: m?.[2]?.trim() || 'interference line' };
       });
-    const components = (Object.entries(comps) as [Comp, (typeof comps)[Comp]][])
+    const components = (Object.entries(comps) as [Component, (typeof comps)[Component]][])
       .filter(([, v]) => v.on)
       .map(([component, v]) => ({
         component,
@@ -192,7 +192,7 @@ export function StationForm({
       <fieldset className="space-y-3 rounded-[var(--radius-card)] border border-line p-3">
         <legend className="px-1 text-sm font-semibold">Installed components and calibration</legend>
         {err('components') ? <p className="text-xs font-medium text-danger">{err('components')}</p> : null}
-        {(['Ez', 'Bns', 'Bew'] as Comp[]).map((c) => {
+        {COMPONENTS.map((c) => {
           const v = comps[c];
           const upd = (p: Partial<typeof v>) => setComps({ ...comps, [c]: { ...v, ...p } });
           return (

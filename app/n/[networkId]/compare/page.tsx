@@ -3,10 +3,9 @@ import { listRuns } from '@/src/runs/control';
 import { getRunSummary, type RunView } from '@/src/runs/results';
 import { Button, Caution, EmptyState, Notice, Panel, inputClass } from '@/src/web/ui';
 import { CompareView } from '@/src/web/runs/CompareView';
+import { isId } from '@/src/server/ids';
 
 export const metadata = { title: 'Compare runs · Cavitas' };
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export default async function ComparePage({
   params,
@@ -20,7 +19,7 @@ export default async function ComparePage({
   await pageNetworkAction(networkId, 'network.read');
   const runs = await listRuns(networkId);
   const load = async (id?: string): Promise<RunView | null> =>
-    id && UUID.test(id) ? getRunSummary(networkId, id).catch(() => null) : null;
+    id && isId(id) ? getRunSummary(networkId, id).catch(() => null) : null;
   const [va, vb] = await Promise.all([load(a), load(b)]);
   return (
     <div className="space-y-6">

@@ -5,13 +5,14 @@ import { listGridVersions } from '@/src/runs/catalogue';
 import { regionSchema } from '@/src/runs/grid-spec';
 import { ButtonLink, Panel } from '@/src/web/ui';
 import { GridPreview } from '@/src/web/grids/GridPreview';
+import { isId } from '@/src/server/ids';
 
 export const metadata = { title: 'Source grid · Cavitas' };
 
 export default async function GridPage({ params }: { params: Promise<{ networkId: string; gridId: string }> }) {
   const { networkId, gridId } = await params;
   const { membership } = await pageNetworkAction(networkId, 'network.read');
-  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(gridId)) notFound();
+  if (!isId(gridId)) notFound();
   const versions = await listGridVersions(networkId, gridId);
   const grid = versions.find((v) => v.id === gridId);
   if (!grid) notFound();

@@ -5,15 +5,14 @@ import { listModelVersions } from '@/src/runs/catalogue';
 import { ButtonLink, Panel } from '@/src/web/ui';
 import { ModelCurves } from '@/src/web/models/ModelCurves';
 import type { CavityConfig } from '@/src/engine/cavity/types';
+import { isId } from '@/src/server/ids';
 
 export const metadata = { title: 'Cavity model · Cavitas' };
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export default async function ModelPage({ params }: { params: Promise<{ networkId: string; modelId: string }> }) {
   const { networkId, modelId } = await params;
   const { membership } = await pageNetworkAction(networkId, 'network.read');
-  if (!UUID.test(modelId)) notFound();
+  if (!isId(modelId)) notFound();
   const versions = await listModelVersions(networkId, modelId);
   const model = versions.find((v) => v.id === modelId);
   if (!model) notFound();

@@ -3,7 +3,7 @@ import { json, parseJson, route } from '@/src/server/route';
 import { listGridVersions, saveGrid } from '@/src/runs/catalogue';
 import { notFound } from '@/src/server/errors';
 import { gridInputSchema } from '@/src/runs/grid-spec';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 
 type P = { networkId: string; gridId: string };
 

@@ -3,7 +3,7 @@ import { json, parseJson, route } from '@/src/server/route';
 import { listModelVersions, saveModel } from '@/src/runs/catalogue';
 import { notFound } from '@/src/server/errors';
 import { modelInputSchema } from '@/src/runs/model-spec';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 
 type P = { networkId: string; modelId: string };
 

@@ -3,7 +3,7 @@ import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseQuery, route } from '@/src/server/route';
 import { getIntervalView, getRunSummary, getRunView } from '@/src/runs/results';
 import { removeRun } from '@/src/runs/control';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 
 type P = { networkId: string; runId: string };
 

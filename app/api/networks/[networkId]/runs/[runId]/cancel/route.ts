@@ -1,7 +1,7 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, route } from '@/src/server/route';
 import { cancelRun } from '@/src/runs/control';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 
 type P = { networkId: string; runId: string };
 

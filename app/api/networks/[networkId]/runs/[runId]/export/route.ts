@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseQuery, route } from '@/src/server/route';
 import { getRunView, minimaRows, seriesRows, toCsv } from '@/src/runs/results';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 import { runCaseFile } from '@/src/runs/case-file';
 
 type P = { networkId: string; runId: string };

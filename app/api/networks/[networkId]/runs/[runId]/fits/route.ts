@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseQuery, route } from '@/src/server/route';
 import { fitsAt } from '@/src/runs/fits';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 
 type P = { networkId: string; runId: string };
 

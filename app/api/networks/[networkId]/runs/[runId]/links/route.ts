@@ -1,6 +1,6 @@
 import { can, requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseJson, requestOrigin, route } from '@/src/server/route';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 import { createRunLink, newLinkSchema, runLinks } from '@/src/sharing/links';
 
 type P = { networkId: string; runId: string };

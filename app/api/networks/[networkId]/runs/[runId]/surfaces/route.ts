@@ -1,7 +1,7 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseJson, route } from '@/src/server/route';
 import { requestSurface, surfaceSpecSchema } from '@/src/runs/surfaces';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 
 type P = { networkId: string; runId: string };
 

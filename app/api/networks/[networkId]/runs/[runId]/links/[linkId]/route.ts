@@ -1,6 +1,6 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, route } from '@/src/server/route';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 import { revokeLink } from '@/src/sharing/links';
 
 type P = { networkId: string; runId: string; linkId: string };
