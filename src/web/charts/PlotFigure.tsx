@@ -25,6 +25,7 @@ import { useEffect, useRef, useState } from 'react';
 import type * as Plot from '@observablehq/plot';
 import { loadPlot, type PlotModule } from './plot-module';
 import { finishFigure, plotOptions } from './figure-spec';
+import { savePng, saveSvg } from '@/src/web/ui/export';
 
 // A page with figures starts fetching the chart code while it hydrates, not after.
 if (typeof window !== 'undefined') loadPlot().catch(() => {});
@@ -122,7 +123,27 @@ export function PlotFigure({
 
   return (
     <figure className={className}>
-      <figcaption className="mb-1 text-sm font-semibold">{title}</figcaption>
+      <figcaption className="mb-1 flex items-baseline justify-between gap-3 text-sm font-semibold">
+        <span>{title}</span>
+        <span className="flex gap-1 text-xs font-normal">
+          {(['SVG', 'PNG'] as const).map((kind) => (
+            <button
+              key={kind}
+              type="button"
+              className="rounded px-1.5 py-0.5 text-muted hover:bg-raised hover:text-fg"
+              aria-label={`Download “${title}” as ${kind}`}
+              onClick={() => {
+                const svg = ref.current?.querySelector<SVGSVGElement>('svg.cv-plot');
+                if (!svg) return;
+                if (kind === 'SVG') saveSvg(title, svg);
+                else void savePng(title, svg);
+              }}
+            >
+              {kind}
+            </button>
+          ))}
+        </span>
+      </figcaption>
       <div
         ref={ref}
         className="w-full text-fg"

@@ -3,6 +3,7 @@
 import { useMemo, useState } from 'react';
 import { fmt, type InversionResult } from './types';
 import { formatEstimate } from '@/src/web/ui/format';
+import { saveCsv } from '@/src/web/ui/export';
 import type { RunConfig } from '@/src/runs/config';
 import type { Region } from '@/src/runs/grid-spec';
 
@@ -71,8 +72,56 @@ export function MinimaTable({
     const e = m.stdErrors[region]?.[kind as 'lat'];
     return formatEstimate(v, e, bounds[name]);
   };
+  const raw = (m: (typeof rows)[number]['m'], name: string) => {
+    const [region, kind] = name.split(/\.(?=[^.]+$)/);
+    const s = m.sources.find((x) => x.name === region);
+    return {
+      v: s ? (s as unknown as Record<string, number>)[kind] : m.params[name],
+      e: m.stdErrors[region]?.[kind as 'lat'],
+    };
+  };
+  const unitOf = (n: string) => (n.endsWith('.intensity') ? 'C² km²/s' : '°');
+  const downloadCsv = () =>
+    saveCsv(
+      'Minima',
+      [
+        { key: 'rank', header: 'Minimum' },
+        { key: 'misfit', header: 'Misfit chi2' },
+        { key: 'reduced', header: 'Reduced chi2' },
+        { key: 'count', header: 'Starts' },
+        ...names.flatMap((n) => [
+          { key: n, header: n, unit: unitOf(n) },
+          { key: `${n}.error`, header: `${n} standard error`, unit: unitOf(n) },
+          { key: `${n}.bound`, header: `${n} bound` },
+        ]),
+      ],
+      rows.map((r) => ({
+        rank: r.rank,
+        misfit: r.misfit,
+        reduced: r.reduced,
+        count: r.count,
+        ...Object.fromEntries(
+          names.flatMap((n) => {
+            const { v, e } = raw(r.m, n);
+            return [
+              [n, v],
+              [`${n}.error`, e],
+              [`${n}.bound`, value(r.m, n).flag],
+            ];
+          }),
+        ),
+      })),
+    );
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
+      <button
+        type="button"
+        className="absolute top-0 right-0 rounded px-1.5 py-0.5 text-xs text-muted hover:bg-raised hover:text-fg"
+        aria-label="Download the minima as CSV"
+        onClick={downloadCsv}
+      >
+        CSV
+      </button>
       <table className="w-full text-sm tabular-nums">
         <caption className="sr-only">Distinct minima of this interval; select a row to show it in every figure</caption>
         <thead className="border-b border-line text-muted">

@@ -20,6 +20,7 @@ import {
   useTable,
 } from '@tanstack/react-table';
 import { formatNumber, formatUtc } from './format';
+import { saveCsv } from './export';
 import { cx } from './cx';
 
 export type Row = Record<string, unknown>;
@@ -51,6 +52,8 @@ interface DataTableProps {
   rows: Row[];
   /** Property with a stable row id (defaults to "id", then the index). */
   rowKey?: string;
+  /** Offer the rows as a CSV file (default true). */
+  csv?: boolean;
   /** Shown instead of the table when there are no rows. */
   empty?: ReactNode;
   initialSort?: { key: string; desc?: boolean };
@@ -79,6 +82,7 @@ export function DataTable({
   empty,
   initialSort,
   className,
+  csv = true,
 }: DataTableProps) {
   const defs = useMemo(
     () =>
@@ -109,6 +113,22 @@ export function DataTable({
 
   return (
     <div className={cx('relative overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface', className)}>
+      {csv && rows.length ? (
+        <button
+          type="button"
+          className="absolute top-2 right-2 rounded px-1.5 py-0.5 text-xs text-muted hover:bg-raised hover:text-fg"
+          aria-label={`Download “${caption}” as CSV`}
+          onClick={() =>
+            saveCsv(
+              caption,
+              columns.filter((c) => c.header),
+              table.getRowModel().rows.map((r) => r.original as Row),
+            )
+          }
+        >
+          CSV
+        </button>
+      ) : null}
       <table className="w-full border-collapse text-sm">
         <caption className={captionHidden ? 'sr-only' : 'px-3 pt-3 pb-1 text-left text-sm font-semibold'}>{caption}</caption>
         <thead>
