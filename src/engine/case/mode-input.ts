@@ -10,6 +10,7 @@
  * cover the fitted band in the bins the observed spectrum had.
  */
 import { z } from 'zod';
+import { modeWhitener } from '@/src/engine/inverse/mode-whitening';
 import { caseSchema, type CaseFile } from './schema';
 import type { CavityConfig } from '@/src/engine/cavity';
 import { COMPONENTS, type Component } from '@/src/engine/components';
@@ -27,6 +28,15 @@ export const observedModeSchema = z.looseObject({
   sigmaFrequency: positive,
   sigmaLogIntensity: positive,
   sigmaHalfWidth: positive,
+  /** Correlation (3x3) of frequency, ln intensity and half-width, as `fit` reports it; the misfit then whitens the mode. */
+  correlation: z
+    .array(z.array(z.number().min(-1).max(1)).length(3))
+    .length(3)
+    .superRefine((r, ctx) => {
+      const problem = modeWhitener(r);
+      if (typeof problem === 'string') ctx.addIssue({ code: 'custom', message: `the correlation ${problem}` });
+    })
+    .optional(),
 });
 
 export const observedModesSchema = z.looseObject({
@@ -124,6 +134,7 @@ export function modeInputFromCase(c: CaseFile): ModeInversionInput {
         sigmaFrequency: m.sigmaFrequency,
         sigmaLogIntensity: m.sigmaLogIntensity,
         sigmaHalfWidth: m.sigmaHalfWidth,
+        ...(m.correlation ? { correlation: m.correlation.map((row) => [...row]) } : {}),
       })),
       ...(o.fit
         ? {

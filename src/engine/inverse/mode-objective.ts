@@ -3,7 +3,9 @@
  * half-width, each with its own sigma) came from a Lorentzian fit of an
  * observed spectrum; its prediction is the same fit of the predicted spectrum
  * (predicted-modes.ts), so that like is compared with like. Residuals per
- * mode: (f - f_obs)/sigma_f, (ln A - ln A_obs)/sigma_lnA, (g - g_obs)/sigma_g.
+ * mode: (f - f_obs)/sigma_f, (ln A - ln A_obs)/sigma_lnA, (g - g_obs)/sigma_g;
+ * a mode that carries the correlation of the three has them (and their
+ * Jacobian rows) whitened by it (mode-whitening.ts).
  * The Jacobian chains the fit's implicit derivative (fit-sensitivity.ts) with
  * dP/dp of the spectrum model (its 'power' variant with unit data gives P and
  * dP/dp directly). The fitted modes are bounded and the peak is floored
@@ -14,6 +16,7 @@ import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { COMPONENT_CODE, type DataLayout, type SeriesLayout } from './data-layout';
 import { InversionInputError } from './errors';
 import type { KernelSampler } from './kernel-sampler';
+import { modeWhitener, whitenTriple, whitenTripleRows, type ModeWhitener } from './mode-whitening';
 import type { Parameterisation } from './parameters';
 import {
   modeSeriesSetup,
@@ -36,7 +39,7 @@ export interface ModeComparison {
   observed: Triple;
   sigma: { frequency: number; logIntensity: number; halfWidth: number };
   predicted: Triple;
-  /** Weighted residuals, as in the misfit. */
+  /** Residuals divided by their sigmas (before a correlated mode's whitening). */
   residual: { frequency: number; logIntensity: number; halfWidth: number };
 }
 
@@ -55,7 +58,7 @@ export function modeProblem(
   const stationIndex = new Map(stations.map((s, i) => [s.code, i]));
   const setups: ModeSeriesSetup[] = [];
   const series: SeriesLayout[] = [];
-  const obs: { f: number; lnA: number; g: number; sf: number; sA: number; sg: number }[] = [];
+  const obs: { f: number; lnA: number; g: number; sf: number; sA: number; sg: number; white: ModeWhitener | null }[] = [];
   let offset = 0;
   modes.forEach((m, si) => {
     const where = `modes[${si}] (${m.station} ${m.component})`;
@@ -74,6 +77,8 @@ export function modeProblem(
       ] as const) {
         if (!(v > 0) || !Number.isFinite(v)) throw new InversionInputError(`${at}.${name} must be a positive number, got ${v}`);
       }
+      const white = md.correlation ? modeWhitener(md.correlation) : null;
+      if (typeof white === 'string') throw new InversionInputError(`${at}.correlation ${white}`);
       obs.push({
         f: md.frequency,
         lnA: Math.log(md.intensity),
@@ -81,6 +86,7 @@ export function modeProblem(
         sf: md.sigmaFrequency,
         sA: md.sigmaLogIntensity,
         sg: md.sigmaHalfWidth,
+        white,
       });
     });
     const setup = modeSeriesSetup(m, kernel.freqs, where);
@@ -117,7 +123,8 @@ export function modeProblem(
     return estimates;
   }
 
-  function residuals(p: Float64Array, out: Float64Array): void {
+  /** Residuals divided by their sigmas, before the per-mode whitening. */
+  function scaledResiduals(p: Float64Array, out: Float64Array): void {
     let i = 0;
     for (const e of estimateAt(p)) {
       for (let k = 0; k < e.values.length; k += 3, i++) {
@@ -127,6 +134,11 @@ export function modeProblem(
         out[3 * i + 2] = (e.values[k + 2] - o.g) / o.sg;
       }
     }
+  }
+
+  function residuals(p: Float64Array, out: Float64Array): void {
+    scaledResiduals(p, out);
+    for (let i = 0; i < nModes; i++) if (obs[i].white) whitenTriple(obs[i].white!, out, 3 * i);
   }
 
   function jacobian(p: Float64Array, out: Float64Array): void {
@@ -141,6 +153,7 @@ export function modeProblem(
         const o = obs[row / 3 + k];
         const sig = [o.sf, o.sA, o.sg];
         for (let q = 0; q < 3; q++) for (let j = 0; j < n; j++) rows[(3 * k + q) * n + j] /= sig[q];
+        if (o.white) whitenTripleRows(o.white, rows, 3 * k, n);
       }
       row += 3 * s.slots.length;
     });
@@ -148,7 +161,7 @@ export function modeProblem(
 
   function compare(p: Float64Array): ModeComparison[] {
     const r = new Float64Array(m);
-    residuals(p, r);
+    scaledResiduals(p, r);
     const out: ModeComparison[] = [];
     let i = 0;
     estimates.forEach((e, si) => {

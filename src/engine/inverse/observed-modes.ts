@@ -6,14 +6,14 @@
  * fit-sensitivity.ts, cov(q) = G V G^T by modes/bin-scatter.ts, the one
  * propagation fitModes' own errors go through (modes/fit-errors.ts); here
  * q holds the observables, ln peak among them.
- * Modes left out: a zero amplitude or a peak that is not positive, a frequency on the edge of
- * its window or a half-width on its bounds (the fit did not find a
- * resonance there).
+ * Modes left out, each with its reason in `leftOut`: a zero amplitude or a peak that is not positive, a
+ * frequency on the edge of its window or a half-width on its bounds (the fit did not find a resonance
+ * there), a Q-factor outside MODE_Q_MIN–MODE_Q_MAX; every mode of a fit that did not converge.
  */
 import { propagateBinScatter, type BinScatter } from '@/src/engine/modes/bin-scatter';
 import { fitModes } from '@/src/engine/modes/fit-modes';
 import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
-import { MODE_HALF_WIDTH_MAX_HZ, MODE_HALF_WIDTH_MIN_HZ } from '@/src/engine/tolerances';
+import { MODE_HALF_WIDTH_MAX_HZ, MODE_HALF_WIDTH_MIN_HZ, MODE_Q_MAX, MODE_Q_MIN } from '@/src/engine/tolerances';
 import { modeSeriesSetup, predictedModeDerivatives, predictedSeriesModes } from './predicted-modes';
 import type { ObservedMode, ObservedModes, ObservedSeries } from './types';
 
@@ -31,6 +31,8 @@ export interface PropagatedErrors {
   sigmas: [number, number, number][];
   /** Per observed mode: the fit holds its frequency or half-width on a bound, or found no amplitude. */
   onEdge: boolean[];
+  /** Per observed mode: correlation (3x3) of its frequency, ln peak and half-width (0 off the diagonal where a sigma is 0). */
+  correlations: number[][][];
 }
 
 /**
@@ -56,6 +58,15 @@ export function propagatedModeErrors(
   const q = est.fit.final.params;
   return {
     sigmas: modes.modes.map((_, k) => [sd(3 * k), sd(3 * k + 1), sd(3 * k + 2)]),
+    correlations: modes.modes.map((_, k) =>
+      [0, 1, 2].map((a) =>
+        [0, 1, 2].map((b) => {
+          if (a === b) return 1;
+          const s = sd(3 * k + a) * sd(3 * k + b);
+          return s > 0 ? cov[(3 * k + a) * nq + 3 * k + b] / s : 0;
+        }),
+      ),
+    ),
     onEdge: setup.slots.map((s) => {
       const f = q[3 * s],
         g = q[3 * s + 2];
@@ -104,12 +115,35 @@ export function observedModesOf(series: ObservedSeries, options: ObservedModeOpt
     })),
     fit: { modes: options.modes, ...fit.band },
   };
-  const { sigmas, onEdge } = propagatedModeErrors(all, grid, series.power, scatter);
+  // a fit that did not reach a minimum (or whose covariance is singular) is not trusted: every mode left out
+  if (fit.flags.includes('fit-failed'))
+    return { ...all, modes: [], leftOut: all.modes.map((_, k) => ({ mode: k + 1, reason: 'the fit did not converge' })) };
+  const { sigmas, onEdge, correlations } = propagatedModeErrors(all, grid, series.power, scatter);
   const keep: ObservedMode[] = [];
+  const leftOut: { mode: number; reason: string }[] = [];
   all.modes.forEach((m, k) => {
     const sigma = sigmas[k];
-    if (onEdge[k] || !(m.intensity > 0) || !sigma.every((v) => v > 0 && Number.isFinite(v))) return;
-    keep.push({ ...m, sigmaFrequency: sigma[0], sigmaLogIntensity: sigma[1], sigmaHalfWidth: sigma[2] });
+    const q = fit.modes[k].q;
+    const reason = onEdge[k]
+      ? 'frequency or half-width on a bound of the fit, or no amplitude'
+      : !(m.intensity > 0)
+        ? 'the peak is not positive'
+        : !sigma.every((v) => v > 0 && Number.isFinite(v))
+          ? 'no finite error'
+          : !(q >= MODE_Q_MIN && q <= MODE_Q_MAX)
+            ? `Q-factor ${q.toFixed(2)} outside ${MODE_Q_MIN}–${MODE_Q_MAX}`
+            : null;
+    if (reason) {
+      leftOut.push({ mode: k + 1, reason });
+      return;
+    }
+    keep.push({
+      ...m,
+      sigmaFrequency: sigma[0],
+      sigmaLogIntensity: sigma[1],
+      sigmaHalfWidth: sigma[2],
+      correlation: correlations[k],
+    });
   });
-  return { ...all, modes: keep };
+  return { ...all, modes: keep, ...(leftOut.length ? { leftOut } : {}) };
 }

@@ -86,6 +86,8 @@ export interface ObservedModes {
   station: string;
   component: Component;
   modes: ObservedMode[];
+  /** Fitted modes (1-based, in frequency order) that were not trusted and left out, with the reason. */
+  leftOut?: { mode: number; reason: string }[];
   /**
    * The mode fit these came from (modes fitted, band in Hz, default band when absent; lines whose bins it left out,
    * |f - frequencyHz| <= halfWidthHz, as line suppression marks them); the predicted modes go through the same fit.
