@@ -9,3 +9,4 @@ export * from './stations';
 export * from './runs';
 export * from './mail';
 export * from './sharing';
+export * from './comments';

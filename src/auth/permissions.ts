@@ -28,6 +28,7 @@ export type Action =
   | 'runs.cancel'
   | 'runs.delete'
   | 'runs.share'
+  | 'comments.write'
   | 'export'
   | 'admin.mail'
   | 'admin.settings';
@@ -40,6 +41,7 @@ const V: Role = 'viewer';
 export const GRANTS: Readonly<Record<Action, readonly Role[]>> = {
   'network.read': [O, A, V],
   export: [O, A, V],
+  'comments.write': [O, A, V],
   'data.upload': [O, A],
   'data.flag': [O, A],
   'models.edit': [O, A],
@@ -66,7 +68,7 @@ export const ROLE_LABEL: Record<Role, string> = { owner: 'Owner', analyst: 'Anal
 export const ROLE_SUMMARY: Record<Role, string> = {
   owner: 'Manages members, stations, push tokens and deletions, plus everything an analyst does.',
   analyst: 'Uploads data, flags intervals, edits cavity models and source grids, launches and cancels runs, shares runs by link.',
-  viewer: 'Reads everything in the network and exports results.',
+  viewer: 'Reads everything in the network, exports results and comments on runs.',
 };
 
 export async function requireUser(): Promise<User> {

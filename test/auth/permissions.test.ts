@@ -11,6 +11,7 @@ const admin: Action[] = ['admin.mail', 'admin.settings'];
 const analystActions: Action[] = [
   'network.read',
   'export',
+  'comments.write',
   'data.upload',
   'data.flag',
   'models.edit',
@@ -35,8 +36,8 @@ describe('can(role, action)', () => {
   it('analysts can do exactly the working actions', () => {
     for (const a of all) expect(can('analyst', a), a).toBe(analystActions.includes(a));
   });
-  it('viewers can only read and export', () => {
-    for (const a of all) expect(can('viewer', a), a).toBe(a === 'network.read' || a === 'export');
+  it('viewers can only read, export and comment', () => {
+    for (const a of all) expect(can('viewer', a), a).toBe(a === 'network.read' || a === 'export' || a === 'comments.write');
   });
   it('owner-only actions are denied to analysts and viewers', () => {
     for (const a of ownerOnly) expect([can('analyst', a), can('viewer', a)], a).toEqual([false, false]);

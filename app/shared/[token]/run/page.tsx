@@ -4,6 +4,8 @@ import { SharedRunView } from '@/src/web/sharing/SharedRunView';
 import { RunMapFrame } from '@/src/web/runs/RunMapFrame';
 import { openingInterval } from '@/src/runs/view-select';
 import { BrandMark } from '@/src/web/shell/Brand';
+import { CommentsPanel } from '@/src/web/sharing/CommentsPanel';
+import { Panel } from '@/src/web/ui/Card';
 
 export const metadata = { title: 'Shared run', robots: { index: false, follow: false }, referrer: 'no-referrer' as const };
 
@@ -36,7 +38,11 @@ export default async function SharedRunPage({ params }: { params: Promise<{ toke
         initial={plain}
         fits={open && fits ? { interval: open.startsAt, data: JSON.parse(JSON.stringify(fits)) } : null}
         map={<RunMapFrame />}
-      />
+      >
+        <Panel heading="Comments" description="What the network's members have noted about this run (read only).">
+          <CommentsPanel url={`/api/shared/${token}/comments`} canWrite={false} />
+        </Panel>
+      </SharedRunView>
     </main>
   );
 }

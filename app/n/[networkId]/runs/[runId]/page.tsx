@@ -13,6 +13,8 @@ import { openingInterval } from '@/src/runs/view-select';
 import { SettingsSummary } from '@/src/web/runs/SettingsSummary';
 import { RunMapFrame } from '@/src/web/runs/RunMapFrame';
 import { RunLinksPanel } from '@/src/web/sharing/RunLinksPanel';
+import { CommentsPanel } from '@/src/web/sharing/CommentsPanel';
+import { commentTargets } from '@/src/sharing/comment-targets';
 
 export const metadata = { title: 'Run · Cavitas' };
 
@@ -65,6 +67,13 @@ export default async function RunDetailPage({ params }: { params: Promise<{ netw
         description="Read-only links for people outside the network: they open this run's map, minima and fits, nothing else, until they expire or are revoked."
       >
         <RunLinksPanel base={runApi(networkId, view.run.id)} canShare={can(membership.role, 'runs.share')} />
+      </Panel>
+      <Panel heading="Comments" description="Notes on this run or on one of its minima, with who wrote them and when.">
+        <CommentsPanel
+          url={`${runApi(networkId, view.run.id)}/comments`}
+          canWrite={can(membership.role, 'comments.write')}
+          intervals={commentTargets(view.intervals)}
+        />
       </Panel>
     </div>
   );
