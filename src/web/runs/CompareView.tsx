@@ -1,11 +1,15 @@
 'use client';
-/** Two runs side by side: their settings in brief, the best minimum of each interval, and both intensity series on one UT axis. */
+/**
+ * Two runs side by side: their settings in brief, the best minimum of each interval, and both
+ * intensity series with their error bands on one UT axis, each region in its own colour in both.
+ */
 import { useMemo } from 'react';
-import * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import type { RunView } from '@/src/runs/results';
 import { fmt } from './types';
 import { goodnessOf } from '@/src/runs/goodness';
+import { compareSeriesFigure } from './figures/compare-series';
+import { regionColours } from '@/src/runs/view-select';
 
 function bestRows(v: RunView) {
   return v.intervals.flatMap((iv) => {
@@ -17,26 +21,10 @@ function bestRows(v: RunView) {
 
 export function CompareView({ a, b }: { a: RunView; b: RunView }) {
   const runs = [a, b];
-  const options = useMemo(() => {
-    const pts = runs.flatMap((v, k) =>
-      bestRows(v).flatMap((r) =>
-        r.sources.map((s) => ({
-          t: new Date(r.t),
-          I: s.intensity,
-          series: `${k === 0 ? 'A' : 'B'} · ${s.name}`,
-        })),
-      ),
-    );
-    return {
-      x: { type: 'utc', tickFormat: '%H:%M' },
-      y: { type: 'log' },
-      color: { legend: true },
-      marks: [
-        Plot.line(pts, { x: 't', y: 'I', stroke: 'series' }),
-        Plot.dot(pts, { x: 't', y: 'I', fill: 'series', r: 2.5, tip: true }),
-      ],
-    } as unknown as Plot.PlotOptions;
-  }, [a, b]); // eslint-disable-line react-hooks/exhaustive-deps
+  const spec = useMemo(
+    () => compareSeriesFigure(a.intervals, b.intervals, { ...regionColours(b.grid.regions), ...regionColours(a.grid.regions) }),
+    [a, b],
+  );
   return (
     <div className="space-y-6">
       <div className="grid gap-6 lg:grid-cols-2">
@@ -79,13 +67,7 @@ export function CompareView({ a, b }: { a: RunView; b: RunView }) {
           </section>
         ))}
       </div>
-      <PlotFigure
-        title="Best-minimum intensities of both runs"
-        xLabel="Time (UT)"
-        yLabel="Intensity (C² km²/s)"
-        options={options}
-        height={300}
-      />
+      <PlotFigure {...spec} options={spec.build} />
     </div>
   );
 }

@@ -1,63 +1,130 @@
 import { pageNetworkAction } from '@/src/auth/pages';
 import { listRuns } from '@/src/runs/control';
-import { getRunSummary, type RunView } from '@/src/runs/results';
+import { loadComparison, type PickedMinimum } from '@/src/runs/compare-load';
 import { Button, Caution, EmptyState, Notice, Panel, inputClass } from '@/src/web/ui';
 import { CompareView } from '@/src/web/runs/CompareView';
+import { ParameterTable, SettingsDiffTable } from '@/src/web/runs/CompareTables';
+import { solvedIntervals } from '@/src/runs/view-select';
 import { isId } from '@/src/server/ids';
 
 export const metadata = { title: 'Compare runs · Cavitas' };
+
+type Query = { a?: string; b?: string; ai?: string; bi?: string; am?: string; bm?: string };
+
+const minimumOf = (s: string | undefined) => (s !== undefined && /^\d{1,4}$/.test(s) ? Number(s) : undefined);
+
+function label(k: 'A' | 'B', p: PickedMinimum): string {
+  const at = p.interval ? `, ${p.interval.slice(0, 16).replace('T', ' ')} UT, minimum ${p.index + 1}` : '';
+  return `${k}: ${p.view.run.name}${at}`;
+}
+
+/** Interval and minimum choices for one side, as fields of the page's GET form. */
+function MinimumPicker({ side, p }: { side: 'a' | 'b'; p: PickedMinimum }) {
+  const solved = solvedIntervals(p.view.intervals);
+  return (
+    <div className="flex flex-wrap gap-3">
+      <label className="block text-sm font-medium">
+        Interval of {side.toUpperCase()} (UT)
+        <select name={`${side}i`} defaultValue={p.interval ?? undefined} className={inputClass}>
+          {solved.map((i) => (
+            <option key={i.startsAt} value={i.startsAt}>
+              {i.startsAt.slice(0, 16).replace('T', ' ')}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label className="block text-sm font-medium">
+        Minimum of {side.toUpperCase()}
+        <select name={`${side}m`} defaultValue={String(p.index)} className={inputClass}>
+          {Array.from({ length: Math.max(1, p.minimaCount) }, (_, k) => (
+            <option key={k} value={k}>
+              {k + 1}
+              {k === 0 ? ' (best)' : ''}
+            </option>
+          ))}
+        </select>
+      </label>
+    </div>
+  );
+}
 
 export default async function ComparePage({
   params,
   searchParams,
 }: {
   params: Promise<{ networkId: string }>;
-  searchParams: Promise<{ a?: string; b?: string }>;
+  searchParams: Promise<Query>;
 }) {
   const { networkId } = await params;
-  const { a, b } = await searchParams;
+  const q = await searchParams;
   await pageNetworkAction(networkId, 'network.read');
   const runs = await listRuns(networkId);
-  const load = async (id?: string): Promise<RunView | null> =>
-    id && isId(id) ? getRunSummary(networkId, id).catch(() => null) : null;
-  const [va, vb] = await Promise.all([load(a), load(b)]);
+  const valid = q.a && q.b && isId(q.a) && isId(q.b);
+  const cmp = valid
+    ? await loadComparison(
+        networkId,
+        { runId: q.a!, interval: q.ai, minimum: minimumOf(q.am) },
+        { runId: q.b!, interval: q.bi, minimum: minimumOf(q.bm) },
+      ).catch(() => null)
+    : null;
   return (
     <div className="space-y-6">
       <Panel
-        heading="Compare two runs"
-        description="Pick two runs of this network to see their settings and results side by side."
+        heading="Compare side by side"
+        description="Two runs, or two minima of one run (pick the same run twice): settings, parameters and their agreement, and the daily curves."
       >
-        {runs.length < 2 ? (
-          <EmptyState title="Fewer than two runs">
-            Launch another run to compare, for example with another cavity model or grid.
-          </EmptyState>
+        {runs.length < 1 ? (
+          <EmptyState title="No runs yet">Launch a run first; then compare it with another, or two of its minima.</EmptyState>
         ) : (
-          <form method="get" className="flex flex-wrap items-end gap-3">
-            {(['a', 'b'] as const).map((k) => (
-              <label key={k} className="block text-sm font-medium">
-                Run {k.toUpperCase()}
-                <select name={k} defaultValue={(k === 'a' ? a : b) ?? runs[k === 'a' ? 0 : 1]?.id} className={inputClass}>
-                  {runs.map((r) => (
-                    <option key={r.id} value={r.id}>
-                      {r.name} ({r.state})
-                    </option>
-                  ))}
-                </select>
-              </label>
-            ))}
+          <form method="get" className="space-y-3">
+            <div className="flex flex-wrap items-end gap-3">
+              {(['a', 'b'] as const).map((k) => (
+                <label key={k} className="block text-sm font-medium">
+                  Run {k.toUpperCase()}
+                  <select
+                    name={k}
+                    defaultValue={q[k] ?? runs[k === 'a' ? 0 : Math.min(1, runs.length - 1)]?.id}
+                    className={inputClass}
+                  >
+                    {runs.map((r) => (
+                      <option key={r.id} value={r.id}>
+                        {r.name} ({r.state})
+                      </option>
+                    ))}
+                  </select>
+                </label>
+              ))}
+            </div>
+            {cmp ? (
+              <div className="flex flex-wrap gap-6">
+                <MinimumPicker side="a" p={cmp.a} />
+                <MinimumPicker side="b" p={cmp.b} />
+              </div>
+            ) : null}
             <Button type="submit">Compare</Button>
           </form>
         )}
-        {(a || b) && (!va || !vb) ? (
+        {(q.a || q.b) && !cmp ? (
           <Notice tone="error" className="mt-3" title="Cannot compare">
             One of the chosen runs is not in this network.
           </Notice>
         ) : null}
       </Panel>
-      {va && vb ? (
-        <Panel heading="Side by side">
-          <CompareView a={JSON.parse(JSON.stringify(va))} b={JSON.parse(JSON.stringify(vb))} />
-        </Panel>
+      {cmp ? (
+        <>
+          <Panel heading="Settings" description="Rows that differ between the two are shaded.">
+            <SettingsDiffTable rows={cmp.settings} labels={[label('A', cmp.a), label('B', cmp.b)]} />
+          </Panel>
+          <Panel
+            heading="Parameters"
+            description="Each parameter of the two chosen minima with its 1σ error; σc = √(σA² + σB²) is the combined error of the difference."
+          >
+            <ParameterTable rows={cmp.parameters} />
+          </Panel>
+          <Panel heading="Best minimum of each interval">
+            <CompareView a={JSON.parse(JSON.stringify(cmp.a.view))} b={JSON.parse(JSON.stringify(cmp.b.view))} />
+          </Panel>
+        </>
       ) : null}
       <Caution topic="research" />
     </div>

@@ -29,7 +29,7 @@ export default async function RunsPage({ params }: { params: Promise<{ networkId
         description="Inversions of this network's stored spectra for regional thunderstorm intensities."
         actions={
           <>
-            {runs.length > 1 ? <ButtonLink href={`/n/${networkId}/compare`}>Compare two runs</ButtonLink> : null}
+            {runs.length > 0 ? <ButtonLink href={`/n/${networkId}/compare`}>Compare side by side</ButtonLink> : null}
             {launch ? <ImportCaseButton networkId={networkId} /> : null}
             {launch ? (
               <ButtonLink href={`/n/${networkId}/runs/new`} tone="primary">
