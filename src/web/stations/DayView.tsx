@@ -323,7 +323,18 @@ export function DayView({
         </div>
       ) : null}
       {selected && selectedSpectrum ? (
-        <SpectrumWithFit interval={selected} spectrum={selectedSpectrum} component={component} unit={unit} />
+        <>
+          <SpectrumWithFit interval={selected} spectrum={selectedSpectrum} component={component} unit={unit} />
+          <p className="text-sm">
+            <a
+              href={`${base}/intervals/${selected.id}/spectrum`}
+              download
+              className="text-accent underline-offset-2 hover:underline"
+            >
+              Download this spectrum (CSV, SI units)
+            </a>
+          </p>
+        </>
       ) : null}
       {flagging ? (
         <form
