@@ -1,6 +1,6 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { route } from '@/src/server/route';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 import { intervalSpectrumCsv } from '@/src/data/spectrum-export';
 
 type P = { networkId: string; intervalId: string };

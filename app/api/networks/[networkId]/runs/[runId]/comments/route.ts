@@ -1,6 +1,6 @@
 import { requireNetworkAction } from '@/src/auth/permissions';
 import { json, parseJson, route } from '@/src/server/route';
-import { requireId } from '@/src/runs/ids';
+import { requireId } from '@/src/server/ids';
 import { addRunComment, newCommentSchema, runComments } from '@/src/sharing/comments';
 
 type P = { networkId: string; runId: string };
