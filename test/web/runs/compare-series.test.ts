@@ -13,7 +13,11 @@ const iv = (t: string, I: number, e: number): IntervalView =>
     startsAt: t,
     nData: 10,
     seconds: 1,
-    result: { minima: [{ sources: [{ name: 'Middle belt', lat: 0, lon: 0, intensity: I }], stdErrors: { 'Middle belt': { intensity: e } } }] },
+    result: {
+      minima: [
+        { sources: [{ name: 'Middle belt', lat: 0, lon: 0, intensity: I }], stdErrors: { 'Middle belt': { intensity: e } } },
+      ],
+    },
   }) as unknown as IntervalView;
 
 describe('compareSeriesFigure', () => {
