@@ -276,29 +276,48 @@ export interface RunIntervalSummaryRow {
  * each result (every minimum's matrices, every start's end) never leaves the database.
  */
 export async function listRunIntervalSummaries(runId: string): Promise<RunIntervalSummaryRow[]> {
-  const r = runIntervals.result;
-  return getDb()
-    .select({
-      startsAt: runIntervals.startsAt,
-      nData: runIntervals.nData,
-      seconds: runIntervals.seconds,
-      skipped: sql<string | null>`${r} ->> 'skipped'`,
-      best: sql<Record<string, unknown> | null>`case when ${r} -> 'minima' -> 0 is not null then jsonb_build_object(
-        'misfit', ${r} -> 'minima' -> 0 -> 'misfit',
-        'reducedChi2', ${r} -> 'minima' -> 0 -> 'reducedChi2',
-        'count', ${r} -> 'minima' -> 0 -> 'count',
-        'sources', ${r} -> 'minima' -> 0 -> 'sources',
-        'stdErrors', ${r} -> 'minima' -> 0 -> 'stdErrors') end`,
-      minimaCount: sql<number>`coalesce(jsonb_array_length(case when jsonb_typeof(${r} -> 'minima') = 'array' then ${r} -> 'minima' end), 0)::int`,
-      starts: sql<number | null>`(${r} ->> 'starts')::int`,
-      unconverged: sql<number | null>`(${r} ->> 'unconverged')::int`,
-      nParams: sql<number | null>`(${r} ->> 'nParams')::int`,
-      errorBasis: sql<string | null>`${r} ->> 'errorBasis'`,
-      seriesMisfits: sql<unknown[] | null>`${r} -> 'seriesMisfits'`,
-    })
-    .from(runIntervals)
-    .where(eq(runIntervals.runId, runId))
-    .orderBy(asc(runIntervals.startsAt));
+  // jsonb_to_record reads each (TOASTed, compressed) result once; the operators then work on the
+  // minima array in memory instead of fetching and decompressing the whole result per operator.
+  const rows = await getDb().execute<{
+    starts_at: string | Date;
+    n_data: number;
+    seconds: number;
+    skipped: string | null;
+    best: Record<string, unknown> | string | null;
+    minima_count: number;
+    starts: number | null;
+    unconverged: number | null;
+    n_params: number | null;
+    error_basis: string | null;
+    series_misfits: unknown[] | string | null;
+  }>(sql`
+    select ri.starts_at, ri.n_data, ri.seconds, x.skipped,
+      case when x.minima -> 0 is not null then jsonb_build_object(
+        'misfit', x.minima -> 0 -> 'misfit',
+        'reducedChi2', x.minima -> 0 -> 'reducedChi2',
+        'count', x.minima -> 0 -> 'count',
+        'sources', x.minima -> 0 -> 'sources',
+        'stdErrors', x.minima -> 0 -> 'stdErrors') end as best,
+      coalesce(jsonb_array_length(case when jsonb_typeof(x.minima) = 'array' then x.minima end), 0)::int as minima_count,
+      x.starts, x.unconverged, x."nParams" as n_params, x."errorBasis" as error_basis, x."seriesMisfits" as series_misfits
+    from ${runIntervals} ri
+    cross join lateral jsonb_to_record(ri.result)
+      as x(skipped text, minima jsonb, starts int, unconverged int, "nParams" int, "errorBasis" text, "seriesMisfits" jsonb)
+    where ri.run_id = ${runId}
+    order by ri.starts_at`);
+  return rows.map((r) => ({
+    startsAt: new Date(r.starts_at),
+    nData: Number(r.n_data),
+    seconds: Number(r.seconds),
+    skipped: r.skipped,
+    best: typeof r.best === 'string' ? (JSON.parse(r.best) as Record<string, unknown>) : r.best,
+    minimaCount: Number(r.minima_count),
+    starts: r.starts === null ? null : Number(r.starts),
+    unconverged: r.unconverged === null ? null : Number(r.unconverged),
+    nParams: r.n_params === null ? null : Number(r.n_params),
+    errorBasis: r.error_basis,
+    seriesMisfits: typeof r.series_misfits === 'string' ? (JSON.parse(r.series_misfits) as unknown[]) : r.series_misfits,
+  }));
 }
 
 /** One stored interval of a run, or null. */
