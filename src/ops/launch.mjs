@@ -19,7 +19,7 @@ export const PROGRAMS = {
   worker: 'src/worker/main.ts',
   cli: 'src/cli/main.ts',
   bench: 'src/bench/main.ts',
-  'mail-catcher': 'src/mail/catcher.ts',
+  'mail-catcher': 'src/mail/catcher-main.ts',
   // loaded by the piscina pool in every inversion thread (src/engine/inverse/threads/pool.ts)
   'inversion-thread': 'src/engine/inverse/threads/pool-worker.ts',
 };

@@ -3,12 +3,13 @@
  * exactly one JSON document on stdout (progress on stderr), from a build made once; a source file newer
  * than the build makes it stale, and building again makes it current.
  */
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { build, ensureBuilt, staleness } from '@/src/ops/launch.mjs';
-import { projectRoot } from '@/src/ops/paths';
+import { programArgs, projectRoot } from '@/src/ops/paths';
+import { freePort } from '@/db/pglocal';
 
 describe('compiled programs', () => {
   it('npm run --silent cli prints only the JSON on stdout', async () => {
@@ -38,4 +39,24 @@ describe('compiled programs', () => {
     await build('test');
     expect(staleness()).toBeNull();
   });
+
+  it('the mail-catcher program stays up and listens (as npm start runs it)', async () => {
+    await ensureBuilt();
+    const port = await freePort();
+    const child = spawn(process.execPath, programArgs('mail-catcher'), {
+      cwd: projectRoot,
+      env: { ...process.env, SMTP_PORT: String(port) },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
+    let out = '';
+    child.stdout!.on('data', (b) => (out += b));
+    child.stderr!.on('data', (b) => (out += b));
+    const exited = new Promise<number | null>((r) => child.once('exit', (code) => r(code)));
+    const deadline = Date.now() + 60_000;
+    while (!out.includes('catcher listening') && child.exitCode === null && Date.now() < deadline)
+      await new Promise((r) => setTimeout(r, 50));
+    expect(out).toContain(`[mail] catcher listening on 127.0.0.1:${port}`);
+    child.kill('SIGTERM');
+    expect(await exited).toBe(0);
+  }, 90_000);
 });
