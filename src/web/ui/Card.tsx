@@ -40,18 +40,24 @@ interface PanelProps {
   actions?: ReactNode;
   children?: ReactNode;
   className?: string;
+  /** 1 for the page's own title (one per page), 2 (default) for its sections. */
+  level?: 1 | 2;
 }
 
 /** A titled page section (a landmark region) — the building block of detail pages. */
-export function Panel({ heading, id, description, actions, children, className }: PanelProps) {
+export function Panel({ heading, id, description, actions, children, className, level = 2 }: PanelProps) {
+  const Heading = level === 1 ? 'h1' : 'h2';
   const hid = `${id ?? heading.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-heading`;
   return (
     <section aria-labelledby={hid} className={cx('space-y-3', className)}>
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <h2 id={hid} className="text-base font-semibold tracking-tight">
+          <Heading
+            id={hid}
+            className={level === 1 ? 'text-xl font-semibold tracking-tight' : 'text-base font-semibold tracking-tight'}
+          >
             {heading}
-          </h2>
+          </Heading>
           {description ? <p className="mt-0.5 max-w-prose text-sm text-muted">{description}</p> : null}
         </div>
         {actions ? <div className="flex items-center gap-2">{actions}</div> : null}

@@ -70,6 +70,7 @@ export default async function ComparePage({
   return (
     <div className="space-y-6">
       <Panel
+        level={1}
         heading="Compare side by side"
         description="Two runs, or two minima of one run (pick the same run twice): settings, parameters and their agreement, and the daily curves."
       >

@@ -21,6 +21,7 @@ export default async function GridsPage({ params }: { params: Promise<{ networkI
   }));
   return (
     <Panel
+      level={1}
       heading="Source grids"
       description="Where thunderstorm activity may sit: a global grid of cells and the regions drawn on it. Editing makes a new version; runs keep the version they used."
       actions={

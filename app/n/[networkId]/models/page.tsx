@@ -25,6 +25,7 @@ export default async function ModelsPage({ params }: { params: Promise<{ network
   });
   return (
     <Panel
+      level={1}
       heading="Cavity models"
       description="How the Earth–ionosphere cavity propagates ELF waves: the propagation parameter ν(f), Earth radius and effective height. Editing makes a new version; runs keep the version they used."
       actions={

@@ -25,6 +25,7 @@ export default async function RunsPage({ params }: { params: Promise<{ networkId
   return (
     <div className="space-y-6">
       <Panel
+        level={1}
         heading="Runs"
         description="Inversions of this network's stored spectra for regional thunderstorm intensities."
         actions={

@@ -27,6 +27,7 @@ export default async function StationsPage({ params }: { params: Promise<{ netwo
   return (
     <div className="space-y-6">
       <Panel
+        level={1}
         heading="Stations"
         description="Where this network records the Earth–ionosphere cavity, and how much processed data each station holds."
         actions={

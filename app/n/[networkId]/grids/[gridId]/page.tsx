@@ -19,6 +19,7 @@ export default async function GridPage({ params }: { params: Promise<{ networkId
   return (
     <div className="space-y-6">
       <Panel
+        level={1}
         heading={`${grid.name} · version ${grid.version}`}
         description={`${grid.cellSizeDeg}° cells, ${grid.regions.length} regions.${grid.notes ? ` ${grid.notes}` : ''}`}
         actions={

@@ -8,7 +8,7 @@ export default async function NewGridPage({ params }: { params: Promise<{ networ
   const { networkId } = await params;
   await pageNetworkAction(networkId, 'grids.edit');
   return (
-    <Panel heading="Draw a source grid" description="Pick a cell size, add regions, and select their cells on the map.">
+    <Panel level={1} heading="Draw a source grid" description="Pick a cell size, add regions, and select their cells on the map.">
       <GridEditor networkId={networkId} />
     </Panel>
   );

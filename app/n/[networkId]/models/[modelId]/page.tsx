@@ -20,6 +20,7 @@ export default async function ModelPage({ params }: { params: Promise<{ networkI
   return (
     <div className="space-y-6">
       <Panel
+        level={1}
         heading={`${model.name} · version ${model.version}`}
         description={`ν from ${config.model}${config.table ? ` (${config.table.rows.length} rows, ${config.table.columns})` : ''}; Earth radius ${config.earthRadiusKm} km; effective height ${config.heightKm} km.`}
         actions={

@@ -8,7 +8,11 @@ export default async function NewModelPage({ params }: { params: Promise<{ netwo
   const { networkId } = await params;
   await pageNetworkAction(networkId, 'models.edit');
   return (
-    <Panel heading="Describe a cavity model" description="The figures below follow your entries; check them before saving.">
+    <Panel
+      level={1}
+      heading="Describe a cavity model"
+      description="The figures below follow your entries; check them before saving."
+    >
       <ModelEditor networkId={networkId} />
     </Panel>
   );

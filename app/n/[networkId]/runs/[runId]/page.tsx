@@ -48,6 +48,7 @@ export default async function RunDetailPage({ params }: { params: Promise<{ netw
   return (
     <div className="space-y-6">
       <Panel
+        level={1}
         heading={view.run.name}
         description="What was asked: the settings this run used, one click from the model and grid versions it pinned."
       >

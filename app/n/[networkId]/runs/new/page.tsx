@@ -32,6 +32,7 @@ export default async function NewRunPage({ params }: { params: Promise<{ network
         : null;
   return (
     <Panel
+      level={1}
       heading="Set up a run"
       description="Choose data, observables, a cavity model and source regions with bounds; check the preview, then launch. The run continues in the background."
     >

@@ -81,6 +81,7 @@ export default async function StationPage({ params }: { params: Promise<{ networ
   return (
     <div className="space-y-6">
       <Panel
+        level={1}
         heading={`${station.code} — ${station.name}`}
         description="Station details, its processed intervals by UTC day, and its files."
         actions={

@@ -10,6 +10,7 @@ export default async function NewStationPage({ params }: { params: Promise<{ net
   return (
     <div className="max-w-3xl space-y-6">
       <Panel
+        level={1}
         heading="Add a station"
         description="Position, installed components with their calibration, and the lines to suppress at this site."
       >

@@ -14,6 +14,7 @@ export default async function EditGridPage({ params }: { params: Promise<{ netwo
   if (!grid) notFound();
   return (
     <Panel
+      level={1}
       heading={`Edit ${grid.name}`}
       description={`Saving adds version ${grid.version + 1}; version ${grid.version} stays as it is for the runs that used it.`}
     >

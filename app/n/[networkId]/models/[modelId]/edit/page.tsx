@@ -14,6 +14,7 @@ export default async function EditModelPage({ params }: { params: Promise<{ netw
   if (!model) notFound();
   return (
     <Panel
+      level={1}
       heading={`Edit ${model.name}`}
       description={`Saving adds version ${model.version + 1}; version ${model.version} stays as it is for the runs that used it.`}
     >

@@ -15,7 +15,7 @@ export default async function EditStationPage({ params }: { params: Promise<{ ne
   const { id: _id, networkId: _n, createdAt: _c, updatedAt: _u, ...value } = station;
   return (
     <div className="max-w-3xl space-y-8">
-      <Panel heading={`Edit ${station.code}`}>
+      <Panel level={1} heading={`Edit ${station.code}`}>
         <StationForm networkId={networkId} stationId={station.id} initial={value} />
       </Panel>
       <Panel heading="Remove this station">
