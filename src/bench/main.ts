@@ -7,6 +7,7 @@ const groups: Record<string, () => Promise<{ default: () => Promise<void> }>> = 
   engine: () => import('./engine'),
   inverse: () => import('./inverse'),
   speed: () => import('./speed'),
+  statistics: () => import('./statistics'),
   pipeline: () => import('./pipeline'),
   runs: () => import('./runs'),
   load: () => import('./load'),

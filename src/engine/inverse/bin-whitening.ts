@@ -64,11 +64,13 @@ export function whitenRows(w: BandedWhitener, jac: Float64Array, offset: number,
     const inv = 1 / w.diag[k];
     const s1 = w.sub1[k];
     const s2 = w.sub2[k];
-    for (let j = 0; j < cols; j++) {
-      let v = jac[row + j];
-      if (k >= 1) v -= s1 * jac[row - cols + j];
-      if (k >= 2) v -= s2 * jac[row - 2 * cols + j];
-      jac[row + j] = v * inv;
+    if (s2 !== 0) {
+      for (let j = 0; j < cols; j++)
+        jac[row + j] = (jac[row + j] - s1 * jac[row - cols + j] - s2 * jac[row - 2 * cols + j]) * inv;
+    } else if (s1 !== 0) {
+      for (let j = 0; j < cols; j++) jac[row + j] = (jac[row + j] - s1 * jac[row - cols + j]) * inv;
+    } else if (inv !== 1) {
+      for (let j = 0; j < cols; j++) jac[row + j] *= inv;
     }
   }
 }
