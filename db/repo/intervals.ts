@@ -6,8 +6,10 @@
  */
 import { and, asc, eq, gte, inArray, isNull, lt, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
-import { intervals, intervalSpectra, intervalFits, stations, type StoredMode } from '../schema/stations';
+import { intervals, intervalSpectra, intervalFits, stations, type SpectrumStatistics, type StoredMode } from '../schema/stations';
 import type { Component } from '@/src/engine/components';
+
+export type { SpectrumStatistics };
 
 export type IntervalOrigin = 'upload' | 'push' | 'synthetic';
 
@@ -56,7 +58,8 @@ export interface IntervalResultInput {
   uploadId: string | null;
   rejectedShare: number;
   qualityFlags: string[];
-  spectrum: { frequencies: number[]; power: number[]; segments: number };
+  /** `statistics`: what the spectrum knows of its own scatter (see SpectrumStatistics); null when nothing is known. */
+  spectrum: { frequencies: number[]; power: number[]; segments: number; statistics?: SpectrumStatistics | null };
   fit: IntervalFit | null;
   /** Checksum of pushed samples (pushes only). */
   samplesSha256?: string | null;
@@ -88,6 +91,7 @@ export interface IntervalSpectrum {
   frequencies: number[];
   power: number[];
   segments: number;
+  statistics: SpectrumStatistics | null;
   rejectedShare: number;
 }
 
@@ -173,6 +177,7 @@ export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id:
             frequencies: i.spectrum.frequencies,
             power: i.spectrum.power,
             segments: i.spectrum.segments,
+            statistics: i.spectrum.statistics ?? null,
           })),
         )
         .onConflictDoUpdate({
@@ -181,6 +186,7 @@ export async function saveIntervals(items: IntervalResultInput[]): Promise<{ id:
             frequencies: sql`excluded.frequencies`,
             power: sql`excluded.power`,
             segments: sql`excluded.segments`,
+            statistics: sql`excluded.statistics`,
           },
         });
       const withFit = batch.map((i, k) => ({ i, id: ids[k].id })).filter((x) => x.i.fit);
@@ -324,6 +330,7 @@ export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpe
       startsAt: intervals.startsAt,
       rejectedShare: intervals.rejectedShare,
       segments: intervalSpectra.segments,
+      statistics: intervalSpectra.statistics,
       // A series' frequencies seldom change from one interval to the next: sent only when they differ
       // from the previous row's (the rows come in series order), reused here otherwise. The comparison is
       // of the binary forms, so the reused array is the row's own bit for bit.
@@ -348,9 +355,30 @@ export async function getIntervalSpectra(f: IntervalFilter): Promise<IntervalSpe
       frequencies: r.frequencies ? previous : previous.slice(),
       power: decodeFloat8Array(r.power, 'power'),
       segments: r.segments,
+      statistics: r.statistics,
       rejectedShare: r.rejectedShare,
     };
   });
+}
+
+/** The statistics stored with each selected spectrum and its number of bins (no arrays), same order as listIntervals. */
+export async function listSpectrumStatistics(
+  f: IntervalFilter,
+): Promise<{ stationCode: string; component: Component; startsAt: Date; bins: number; statistics: SpectrumStatistics | null }[]> {
+  return getDb()
+    .select({
+      stationCode: stations.code,
+      component: intervals.component,
+      startsAt: intervals.startsAt,
+      bins: sql<number>`cardinality(${intervalSpectra.power})`,
+      statistics: intervalSpectra.statistics,
+    })
+    .from(intervals)
+    .innerJoin(stations, eq(stations.id, intervals.stationId))
+    .innerJoin(intervalSpectra, eq(intervalSpectra.intervalId, intervals.id))
+    .where(where(f))
+    .orderBy(...SERIES_ORDER)
+    .limit(f.limit ?? Number.MAX_SAFE_INTEGER);
 }
 
 /** The same spectra through the plain query (the arrays as PostgreSQL's text form), to check getIntervalSpectra against. */
@@ -372,6 +400,7 @@ export async function getIntervalSpectraPlain(f: IntervalFilter): Promise<Interv
     frequencies: s.frequencies,
     power: s.power,
     segments: s.segments,
+    statistics: s.statistics,
     rejectedShare: i.rejectedShare,
   }));
 }

@@ -163,6 +163,24 @@ export const intervals = pgTable(
   ],
 );
 
+/**
+ * What a stored spectrum knows about its own scatter, and on what basis:
+ * - 'measured': the Welch statistics of the pipeline's own estimate from the samples (the segments actually
+ *   averaged after transient rejection, window, overlap, K_eff);
+ * - 'from-count': stored before the statistics were kept, samples not kept: K_eff from the stored count of
+ *   averaged segments taken as contiguous (the smallest K_eff for that count, so errors are not understated);
+ * - 'assumed': a spectrum file, which carries no statistics: 10-s Hann segments at 50 % overlap over the
+ *   interval assumed, as its mode fit assumes;
+ * - 'log-normal': synthetic spectra made with independent log-normal scatter of the stated sigma of ln P.
+ * Null: none recorded; a run refuses such a spectrum, naming it.
+ */
+export type SpectrumStatistics =
+  | {
+      basis: 'measured' | 'from-count' | 'assumed';
+      welch: { segments: number; window: 'hann'; overlap: number; effectiveAverages: number };
+    }
+  | { basis: 'log-normal'; sigmaLog: number };
+
 /** One-sided PSD of an interval in SI units ((V/m)^2/Hz for Ez, T^2/Hz for Bns/Bew). */
 export const intervalSpectra = pgTable('interval_spectra', {
   intervalId: uuid('interval_id')
@@ -171,6 +189,7 @@ export const intervalSpectra = pgTable('interval_spectra', {
   frequencies: doublePrecision('frequencies').array().notNull(),
   power: doublePrecision('power').array().notNull(),
   segments: integer('segments').notNull(),
+  statistics: jsonb('statistics').$type<SpectrumStatistics>(),
 });
 
 export type StoredMode = {
@@ -178,7 +197,12 @@ export type StoredMode = {
   amplitude: number;
   halfWidth: number;
   q: number;
-  errors: { frequency: number; amplitude: number; halfWidth: number };
+  /** Fitted model PSD at the mode's centre, amplitude plus background (absent from older fits). */
+  peak?: number;
+  /** lnPeak: sd of ln peak from the fit's full covariance, background included (absent from older fits). */
+  errors: { frequency: number; amplitude: number; halfWidth: number; lnPeak?: number };
+  /** Correlation of (frequency, ln peak, halfWidth), 3x3 (absent from older fits). */
+  correlation?: number[][];
 };
 
 /**

@@ -67,6 +67,7 @@ import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { launchBrowser } from '@/src/ops/browser';
 import { childEnv, setEnv, settings } from '@/src/settings';
 import { REGION_COLOURS } from '@/src/design/tokens';
+import { logNormalStatistics } from '@/src/data/spectrum-statistics';
 
 const BENCH = settings();
 const INTERVALS = BENCH.BENCH_RUN_INTERVALS;
@@ -180,6 +181,8 @@ export async function seed() {
           frequencies: sp.frequencies,
           power: sp.power.map((p) => (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS),
           segments: SEGMENTS,
+          // gamma deviates per bin, independent: ln P scatters by about 1/sqrt(K) (stated, as for synthetic data)
+          statistics: logNormalStatistics(1 / Math.sqrt(SEGMENTS)),
         },
         fit: null,
       })),
@@ -523,6 +526,7 @@ export async function seedDay(userId: string): Promise<{ networkId: string; conf
             frequencies: sp.frequencies,
             power: sp.power.map((p) => (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS),
             segments: SEGMENTS,
+            statistics: logNormalStatistics(1 / Math.sqrt(SEGMENTS)),
           },
           fit: null,
         })),

@@ -22,6 +22,7 @@ import { MIN_MODES, USUAL_MODE_FREQUENCIES_HZ } from '@/src/engine/modes/usual-m
 import type { IntervalFit, IntervalResultInput } from '@/db/repo/intervals';
 import type { Station } from '@/db/repo/stations';
 import type { Component } from '@/src/engine/components';
+import { assumedStatistics, measuredStatistics } from './spectrum-statistics';
 
 export const INTERVAL_SECONDS = SIGNAL_INTERVAL_SECONDS;
 /** Most modes fitted for stored intervals. */
@@ -129,7 +130,9 @@ export function processRawInterval(station: Station, raw: RawInterval): Processe
       ...base,
       rejectedShare: r.rejectedShare,
       qualityFlags: r.flags,
-      spectrum: r.spectrum ? { ...r.spectrum, segments: r.segments } : { frequencies: [], power: [], segments: 0 },
+      spectrum: r.spectrum
+        ? { ...r.spectrum, segments: r.segments, statistics: r.welch ? measuredStatistics(r.welch) : null }
+        : { frequencies: [], power: [], segments: 0, statistics: null },
       fit: r.fit ? storedFit(r.fit) : null,
     };
   }
@@ -155,5 +158,6 @@ export function processRawInterval(station: Station, raw: RawInterval): Processe
       if (!(e instanceof ModeFitError) && !(e instanceof ModeFitOptionError)) throw e;
       flags.push('fit-failed');
     }
-  return { ...base, rejectedShare: 0, qualityFlags: flags, spectrum: { frequencies, power, segments }, fit };
+  const statistics = assumedStatistics(raw.durationS);
+  return { ...base, rejectedShare: 0, qualityFlags: flags, spectrum: { frequencies, power, segments, statistics }, fit };
 }

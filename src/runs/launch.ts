@@ -9,12 +9,13 @@
 import { getModel } from '@/db/repo/models';
 import { getGrid } from '@/db/repo/grids';
 import { createRun, measuredCostPerUnit, type RunRow } from '@/db/repo/runs';
-import { listIntervals } from '@/db/repo/intervals';
+import { listIntervals, listSpectrumStatistics } from '@/db/repo/intervals';
+import { statisticsProblem } from '@/src/data/spectrum-statistics';
 import { listStations } from '@/db/repo/stations';
 import { badRequest } from '@/src/server/errors';
 import { countParameters, type RunConfig } from './config';
 import { regionSchema, type Region } from './grid-spec';
-import { countIntervalData, loadIntervalObservations } from './observations';
+import { countIntervalData, loadIntervalObservations, RunDataError } from './observations';
 import { engineVersion } from './engine-version';
 import { enqueueRun } from './queues';
 
@@ -127,8 +128,36 @@ export async function checkLaunch(
       message: `the range holds ${starts.length} intervals; at most ${MAX_INTERVALS} (one week) per run`,
     });
   }
+  if (config.observables.kind === 'spectrum' && starts.length) {
+    // Every spectrum the run would use must say how much its bins scatter, consistently; else the run is
+    // refused before anything is stored, naming the series and the field.
+    const stats = await listSpectrumStatistics({
+      networkId,
+      stationIds: config.data.stationIds.filter((id) => known.has(id)),
+      components: config.data.components,
+      from: new Date(config.data.from),
+      to,
+      includeFlagged: config.data.includeFlagged,
+      limit: 50_000,
+    });
+    const bad = stats.flatMap((s) => {
+      const p = s.bins > 0 ? statisticsProblem(s.statistics) : null; // an empty spectrum gives no data anyway
+      return p ? [`${s.stationCode} ${s.component} ${s.startsAt.toISOString().slice(0, 16).replace('T', ' ')} UT: ${p}`] : [];
+    });
+    if (bad.length)
+      problems.push({
+        field: 'data',
+        message: `${bad.length} stored spectra cannot be used as they are: ${bad.slice(0, 3).join('; ')}${bad.length > 3 ? '; …' : ''}`,
+      });
+  }
   if (problems.length || !model || !grid) return { problems, preview: null };
-  const obs = await loadIntervalObservations(networkId, config, new Date(starts[0]));
+  let obs;
+  try {
+    obs = await loadIntervalObservations(networkId, config, new Date(starts[0]));
+  } catch (e) {
+    if (!(e instanceof RunDataError)) throw e;
+    return { problems: [{ field: 'data', message: e.message }], preview: null };
+  }
   const nData = countIntervalData(obs);
   const nParams = countParameters(config);
   if (nData === 0)

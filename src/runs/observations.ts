@@ -1,11 +1,12 @@
 /**
  * Turns stored interval spectra into the observations of one run interval:
  * the chosen stations and components, bins inside the band (every k-th),
- * sigma of ln(power) from the Welch segment count; or the fitted modes.
- *
- * A Welch estimate averaged over K segments scatters by about 1/sqrt(K)
- * relative per bin (Welch 1967, IEEE Trans. Audio Electroacoust. 15, 70;
- * common practice), so sigmaLog = 1/sqrt(K).
+ * each with the statistics stored with its spectrum (Welch statistics: sigma
+ * from K_eff, log bias removed, neighbouring bins correlated; or a stated
+ * sigma of ln P for synthetic spectra, src/data/spectrum-statistics.ts); or
+ * the fitted modes with the covariance of (frequency, ln peak, half-width)
+ * their fit reports. A spectrum whose statistics are missing or contradictory
+ * stops the run with a RunDataError naming the series and the field.
  */
 import { getIntervalSpectra, listIntervals, type IntervalFit, type IntervalSpectrum } from '@/db/repo/intervals';
 import { listStations } from '@/db/repo/stations';
@@ -13,9 +14,9 @@ import { listedLines, mainsLines, type SpectralLine } from '@/src/engine/signal/
 import type { RunConfig } from './config';
 import type { ObservedModes } from '@/src/engine/inverse/types';
 import { SPECTRUM_BAND_MAX_HZ, SPECTRUM_BAND_MIN_HZ } from '@/src/engine/tolerances';
-import { hannWelchScatter } from '@/src/engine/modes/bin-scatter';
 import { InversionInputError } from '@/src/engine/inverse/errors';
-import { propagatedModeErrors } from '@/src/engine/inverse/observed-modes';
+import { propagatedModeErrors, seriesScatter } from '@/src/engine/inverse/observed-modes';
+import { seriesScatterOf, statisticsProblem } from '@/src/data/spectrum-statistics';
 import type { ObservedSeries } from './types';
 
 const TEN_MINUTES_MS = 600_000;
@@ -26,6 +27,27 @@ const TEN_MINUTES_MS = 600_000;
  * the same bins and band as the observed ones.
  */
 export const MODE_BAND = { minHz: SPECTRUM_BAND_MIN_HZ, maxHz: SPECTRUM_BAND_MAX_HZ, stepHz: 0.1 };
+
+/** Stored data a run cannot use as they are; `field` names what is wrong (e.g. "statistics.welch.segments"). */
+export class RunDataError extends Error {
+  constructor(
+    message: string,
+    readonly field: string,
+  ) {
+    super(message);
+    this.name = 'RunDataError';
+  }
+}
+
+/** The stored spectrum's statistics as the inverter takes them, or a RunDataError naming the series and field. */
+function checkedScatter(s: Pick<IntervalSpectrum, 'stationCode' | 'component' | 'startsAt' | 'statistics'>) {
+  const problem = statisticsProblem(s.statistics);
+  if (problem) {
+    const when = s.startsAt.toISOString().slice(0, 16).replace('T', ' ');
+    throw new RunDataError(`${s.stationCode} ${s.component} ${when} UT: ${problem}`, problem.split(':')[0]);
+  }
+  return seriesScatterOf(s.statistics!);
+}
 
 function bandSeries(s: IntervalSpectrum, minHz: number, maxHz: number, every: number): ObservedSeries | null {
   const frequencies: number[] = [];
@@ -41,7 +63,7 @@ function bandSeries(s: IntervalSpectrum, minHz: number, maxHz: number, every: nu
     power.push(p);
   }
   if (frequencies.length === 0) return null;
-  return { station: s.stationCode, component: s.component, frequencies, power, sigmaLog: 1 / Math.sqrt(Math.max(1, s.segments)) };
+  return { station: s.stationCode, component: s.component, frequencies, power, ...checkedScatter(s) };
 }
 
 /** Observations of the interval starting at `startsAt` (spectrum observables). */
@@ -138,9 +160,12 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
       .sort((a, b) => a.frequency - b.frequency)
       .slice(0, o.modes)
       .flatMap((m) => {
-        const peak = m.amplitude + r.fit!.background.b0 + r.fit!.background.b1 * m.frequency;
+        const peak = m.peak ?? m.amplitude + r.fit!.background.b0 + r.fit!.background.b1 * m.frequency;
         const e = m.errors;
         if (!(peak > 0) || !(e?.frequency > 0) || !(e?.amplitude > 0) || !(e?.halfWidth > 0)) return [];
+        // The fit's own covariance of (frequency, ln peak, half-width), background included, where it reports it.
+        const own =
+          e.lnPeak !== undefined && e.lnPeak > 0 && m.correlation ? { lnPeak: e.lnPeak, correlation: m.correlation } : null;
         // A mode whose half-width reaches outside the model grid is no usable resonance (observed
         // Schumann modes have Q about 4-6, Sentman 1995); it is left out rather than failing the run.
         if (m.frequency - m.halfWidth < MODE_BAND.minHz || m.frequency + m.halfWidth > MODE_BAND.maxHz) return [];
@@ -150,8 +175,9 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
             intensity: peak,
             halfWidth: m.halfWidth,
             sigmaFrequency: e.frequency,
-            sigmaLogIntensity: e.amplitude / peak,
+            sigmaLogIntensity: own ? own.lnPeak : e.amplitude / peak,
             sigmaHalfWidth: e.halfWidth,
+            ...(own ? { correlation: own.correlation.map((row) => [...row]) } : {}),
           },
         ];
       });
@@ -166,7 +192,9 @@ export async function loadModeObservations(networkId: string, config: RunConfig,
       fit: { modes: r.fit.modes.length, ...band, ...fitExclusions(r.fit, lines.get(r.stationCode) ?? []) },
     };
     const sp = spectra.get(r.id);
-    out.push(sp ? withPropagatedErrors(om, sp, r.fit) : om);
+    // Fits that report their covariance are used as they are; older ones get their errors propagated afresh.
+    const reported = modes.every((m) => m.correlation);
+    out.push(sp && !reported ? withPropagatedErrors(om, sp, r.fit) : om);
   }
   return out;
 }
@@ -194,14 +222,14 @@ export function assumedExclusionSeries(modes: readonly ObservedModes[]): string[
  * observables, ln peak among them (observed-modes.ts; the stored errors cover frequency, amplitude and
  * half-width but not the peak's correlation with the background, and fits stored before the errors were
  * propagated came from the covariance (J^T W J)^-1, which understates them). The scatter is the one the
- * stored fit assumed (its averages and bin correlation), else the pipeline's Welch of the stored segment
- * count. Modes the fit holds on a bound keep the stored errors.
+ * stored fit assumed (its averages and bin correlation), else the statistics stored with the spectrum.
+ * Modes the fit holds on a bound keep the stored errors.
  */
 function withPropagatedErrors(om: ObservedModes, sp: IntervalSpectrum, fit: IntervalFit): ObservedModes {
   const scatter =
     fit.averages !== undefined
       ? { averages: fit.averages, lagCorrelation: fit.binCorrelation }
-      : hannWelchScatter(Math.max(1, sp.segments));
+      : seriesScatter({ station: sp.stationCode, component: sp.component, frequencies: [], power: [], ...checkedScatter(sp) });
   let prop;
   try {
     prop = propagatedModeErrors(om, Float64Array.from(sp.frequencies), sp.power, scatter);

@@ -21,7 +21,7 @@ import { engineVersion } from '@/src/runs/engine-version';
 import { fitsAt } from '@/src/runs/fits';
 import type { RunConfig } from '@/src/runs/config';
 import type { InversionResult } from '@/src/engine/inverse/types';
-import { CAVITY, makeRunWorld, SEGMENTS, TRUTH } from './world';
+import { CAVITY, makeRunWorld, SEGMENTS, STATISTICS, TRUTH } from './world';
 
 const GRID_BAND = { minHz: 3, maxHz: 48, stepHz: 0.1 };
 
@@ -56,7 +56,7 @@ describe('fits of a mode-parameter run', () => {
           uploadId: null,
           rejectedShare: 0,
           qualityFlags: [],
-          spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS },
+          spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS, statistics: STATISTICS },
           fit: { modes: fit.modes, background: fit.background, misfit: fit.misfit },
         };
       }),

@@ -12,7 +12,7 @@ import { predictSpectra } from '@/src/engine/forward/predict';
 import { gammaDeviate, mulberry32 } from '@/src/engine/random';
 import type { RunConfig } from '@/src/runs/config';
 import { intervalLoader } from '@/src/runs/observations';
-import { BAND, CAVITY, makeRunWorld, SEGMENTS, TRUTH } from './world';
+import { BAND, CAVITY, makeRunWorld, SEGMENTS, STATISTICS, TRUTH } from './world';
 
 // Which query the loader's getIntervalSpectra goes through: the binary one under test, or the plain text one.
 const via = vi.hoisted(() => ({ plain: false }));
@@ -70,6 +70,7 @@ describe('stored spectra read in binary form', () => {
             i === 0 && j === 0 && k < edges.length ? edges[k] : (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS,
           ),
           segments: SEGMENTS,
+          statistics: STATISTICS,
         },
         fit: null,
       })),

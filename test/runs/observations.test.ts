@@ -24,7 +24,7 @@ import {
   loadSpectrumObservationsOf,
   MODE_BAND,
 } from '@/src/runs/observations';
-import { CAVITY, makeRunWorld, SEGMENTS, TRUTH } from './world';
+import { CAVITY, makeRunWorld, SEGMENTS, STATISTICS, TRUTH } from './world';
 
 describe('observations of several intervals at once', () => {
   beforeAll(resetDatabase);
@@ -83,7 +83,7 @@ describe('exclusions of stored mode fits in a mode run', () => {
         uploadId: null,
         rejectedShare: 0,
         qualityFlags: [],
-        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS },
+        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS, statistics: STATISTICS },
         fit: fits[k],
       })),
     );

@@ -12,12 +12,15 @@ import { predictSpectra } from '@/src/engine/forward/predict';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import type { GridInput } from '@/src/runs/grid-spec';
 import type { RunConfig } from '@/src/runs/config';
+import { logNormalStatistics } from '@/src/data/spectrum-statistics';
 
 export const TRUTH = { name: 'East basin', lat: -3, lon: 22, intensity: 3e4 };
 export const CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 export const BAND = { minHz: 6, maxHz: 30, stepHz: 0.5 };
 /** Welch segments per stored spectrum: sigma of ln P = 1/sqrt(K) = 0.1. */
 export const SEGMENTS = 100;
+/** Their stated scatter: independent, sigma of ln P = 1/sqrt(K) (spectra made by hand, not by Welch). */
+export const STATISTICS = logNormalStatistics(1 / Math.sqrt(SEGMENTS));
 
 const SITES = [
   { code: 'QX1', name: 'Northern ridge hut', latitude: 48.2, longitude: 10.5 },
@@ -93,7 +96,7 @@ export async function makeRunWorld(intervalCount = 4) {
         uploadId: null,
         rejectedShare: 0,
         qualityFlags: [],
-        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS },
+        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS, statistics: STATISTICS },
         fit: null,
       })),
     ),

@@ -10,6 +10,7 @@ import { createStation, getStationByCode, type StationInput } from '@/db/repo/st
 import { listIntervals, saveIntervals, type IntervalResultInput } from '@/db/repo/intervals';
 import { DEMO_BAND, DEMO_SEGMENTS, syntheticDay } from '@/src/data/synthetic-day';
 import { demoNetworkId } from './accounts';
+import { logNormalStatistics } from '@/src/data/spectrum-statistics';
 
 /** The UTC day the demo data covers. */
 export const DEMO_DAY = '2026-03-14';
@@ -153,7 +154,13 @@ export async function seedDemoStations(networkId: string): Promise<{ created: nu
     uploadId: null,
     rejectedShare: 0,
     qualityFlags: iv.flags,
-    spectrum: { frequencies: iv.frequencies, power: iv.power, segments: DEMO_SEGMENTS },
+    // The synthetic day's scatter: independent log-normal, sigma 1/sqrt(K) per bin (synthetic-day.ts).
+    spectrum: {
+      frequencies: iv.frequencies,
+      power: iv.power,
+      segments: DEMO_SEGMENTS,
+      statistics: logNormalStatistics(1 / Math.sqrt(DEMO_SEGMENTS)),
+    },
     fit: iv.fit,
   }));
   await saveIntervals(rows);

@@ -32,7 +32,7 @@ import * as exportRoute from '@/app/api/networks/[networkId]/runs/[runId]/export
 import * as fitsRoute from '@/app/api/networks/[networkId]/runs/[runId]/fits/route';
 import * as surfacesRoute from '@/app/api/networks/[networkId]/runs/[runId]/surfaces/route';
 import * as surfaceRoute from '@/app/api/networks/[networkId]/runs/[runId]/surfaces/[surfaceId]/route';
-import { CAVITY, GRID, BAND, TRUTH } from '@/test/runs/world';
+import { CAVITY, GRID, BAND, STATISTICS, TRUTH } from '@/test/runs/world';
 
 let w: AuthzWorld;
 let modelId = '';
@@ -81,7 +81,7 @@ beforeAll(async () => {
       uploadId: null,
       rejectedShare: 0,
       qualityFlags: [],
-      spectrum: { frequencies: s.frequencies, power: s.power, segments: 100 },
+      spectrum: { frequencies: s.frequencies, power: s.power, segments: 100, statistics: STATISTICS },
       fit: null,
     })),
   );
