@@ -15,7 +15,7 @@ import type { RunConfig } from '@/src/runs/config';
 import { executeRun } from '@/src/runs/execute';
 import { makeEngineSolver } from '@/src/runs/solver';
 import { setupCallers, type AuthzWorld } from '@/test/helpers/authz';
-import { BAND, CAVITY, GRID, SEGMENTS, TRUTH } from '@/test/runs/world';
+import { BAND, CAVITY, GRID, SEGMENTS, STATISTICS, TRUTH } from '@/test/runs/world';
 
 const SITES = [
   { code: 'LK1', name: 'Lakeside hut', latitude: 48.2, longitude: 10.5 },
@@ -78,6 +78,7 @@ export async function makeSharingWorld(tag: string, intervalCount = 1, noiseSeed
           frequencies: sp.frequencies,
           power: sp.power.map((p) => p * Math.exp(sigma * gaussian(rand))),
           segments: SEGMENTS,
+          statistics: STATISTICS,
         },
         fit: null,
       })),
