@@ -1,0 +1,1 @@
+ALTER TABLE "interval_spectra" ADD COLUMN "statistics" jsonb;
