@@ -17,6 +17,7 @@ export default defineConfig([
     'next-env.d.ts',
     'tmp/**',
     'test-results/**',
+    'dist/**',
   ]),
   {
     linterOptions: { reportUnusedDisableDirectives: 'error' },
