@@ -29,7 +29,7 @@ describe('configure a model and a grid, run, and read the results', () => {
     await page.getByText('Real part of ν').first().waitFor();
     await page.getByRole('button', { name: 'Save model' }).click();
     await page.waitForURL(/\/models\/[0-9a-f-]{36}$/, { timeout: 30_000 });
-    await page.getByText('E2E linear · version 1').waitFor();
+    await page.getByRole('heading', { name: 'E2E linear · version 1' }).waitFor();
 
     step('model saved');
     // A source grid: one moving region and one region of cells dragged as a box.
