@@ -5,6 +5,20 @@ const nextConfig = {
   poweredByHeader: false,
   serverExternalPackages: ['@node-rs/argon2', 'pg-boss', 'postgres', 'piscina', 'smtp-server', 'nodemailer'],
   typedRoutes: false,
+  // API answers (not passed through proxy.ts, so request bodies stream untouched).
+  async headers() {
+    return [
+      {
+        source: '/api/:path*',
+        headers: [
+          { key: 'X-Content-Type-Options', value: 'nosniff' },
+          { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
+          { key: 'X-Frame-Options', value: 'DENY' },
+          { key: 'Content-Security-Policy', value: "default-src 'none'; frame-ancestors 'none'" },
+        ],
+      },
+    ];
+  },
 };
 
 export default nextConfig;

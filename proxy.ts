@@ -28,5 +28,7 @@ export function proxy(request: NextRequest) {
 
 export const config = {
   // Not for the build's static files (hashed, served as they are) or the icon.
-  matcher: ['/((?!_next/static|_next/image|icon.svg|fonts/).*)'],
+  // Not for API routes either: a proxy buffers request bodies, which would undo the streamed upload limits;
+  // API answers get their headers from next.config.mjs.
+  matcher: ['/((?!api/|_next/static|_next/image|icon.svg|fonts/).*)'],
 };
