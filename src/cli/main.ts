@@ -10,6 +10,7 @@ const verbs: Record<string, () => Promise<{ default: Verb }>> = {
   invert: () => import('./invert'),
   spectrum: () => import('./spectrum'),
   fit: () => import('./fit'),
+  siting: () => import('./siting'),
 };
 
 function usage(): string {
@@ -19,6 +20,7 @@ function usage(): string {
     '  invert   <case.json> [--starts N] [--seed S] [--threads T]   multi-start inversion',
     '  spectrum <series.json>                               Welch power spectral density',
     '  fit      <spectrum.json> [--modes N]                 Lorentzian mode fit',
+    '  siting   <case.json> --candidates <sites.json>       standard errors with each candidate station added',
   ].join('\n');
 }
 

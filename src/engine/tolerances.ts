@@ -139,3 +139,13 @@ export const WELCH_CORRELATION_WINDOW_SAMPLES = 1024;
 export const CLUSTER_WAVE = 8;
 export const CLUSTER_JOIN_DIST = 0.02;
 export const CLUSTER_MIN_ITERATIONS = 2;
+
+// ── Studies (station siting, recovery) ───────────────────────────────────────
+/** A fixed coordinate of an unknown and the study's source must agree to this, degrees. */
+export const STUDY_PLACE_TOL_DEG = 1e-6;
+/** A candidate closer than this (great-circle degrees) to a station stands on that station's own site. */
+export const SITING_SAME_SITE_DEG = 0.1;
+/** A candidate closer than this to a source is refused: the kernels are not trusted nearer (KERNEL_ACCURATE_FROM_DEG). */
+export const SITING_SOURCE_CLEARANCE_DEG = 0.5;
+/** Welch noise of a recovery study: the sample rate is at least this multiple of the band's top frequency. */
+export const RECOVERY_SAMPLE_RATE_OVER_TOP = 2.5;

@@ -22,6 +22,8 @@ import numpy as np
 from scipy.optimize import least_squares
 from scipy.stats import qmc
 
+from peer_model import COMPONENT_CODE, model_power
+
 t0 = time.perf_counter()
 case = json.load(open(sys.argv[1]))
 kern = json.load(open(sys.argv[2]))
@@ -38,7 +40,7 @@ stations = {s["code"]: (np.radians(s["lat"]), np.radians(s["lon"])) for s in cas
 obs = case["observed"]
 st_lat = np.array([stations[o["station"]][0] for o in obs])
 st_lon = np.array([stations[o["station"]][1] for o in obs])
-comp = np.array([{"Ez": 0, "Bns": 1, "Bew": 2}[o["component"]] for o in obs])
+comp = np.array([COMPONENT_CODE[o["component"]] for o in obs])
 f_index = np.array([np.searchsorted(freqs, np.asarray(o["frequencies"]) - 1e-9) for o in obs])  # (n_series, n_bins)
 log_obs = np.log(np.array([o["power"] for o in obs]))
 inv_sigma = 1.0 / np.array([o["sigmaLog"] for o in obs])[:, None]
@@ -62,18 +64,7 @@ def kernels(th):
 
 
 def residuals(p):
-    q = p.reshape(-1, 3)
-    total = np.zeros(log_obs.shape)
-    for ln_i, lat, lon in q:
-        la, lo = np.radians(lat), np.radians(lon)
-        # great circle from each station to the source: distance and bearing at the station
-        cos_t = np.sin(st_lat) * np.sin(la) + np.cos(st_lat) * np.cos(la) * np.cos(lo - st_lon)
-        th = np.arccos(np.clip(cos_t, -1, 1))
-        bearing = np.arctan2(np.sin(lo - st_lon) * np.cos(la), np.cos(st_lat) * np.sin(la) - np.sin(st_lat) * np.cos(la) * np.cos(lo - st_lon))
-        ez, bh = kernels(th)
-        proj = np.where(comp == 0, 1.0, np.where(comp == 1, np.sin(bearing) ** 2, np.cos(bearing) ** 2))[:, None]
-        k = np.where((comp == 0)[:, None], ez, bh * proj)
-        total += np.exp(ln_i) * np.take_along_axis(k, f_index, axis=1)
+    total = np.take_along_axis(model_power(p, st_lat, st_lon, comp, kernels), f_index, axis=1)
     return ((np.log(np.maximum(total, 1e-300)) - log_obs) * inv_sigma).ravel()
 
 

@@ -6,9 +6,10 @@
  */
 import { covarianceFromJtJ } from '@/src/engine/optim/covariance';
 import { groupMinima } from './grouping';
+import { namedStdErrors } from './named-errors';
 import { physicalParams, sourcesOf, type Parameterisation } from './parameters';
 import type { StartOutcome } from './descents';
-import type { Minimum, ParamKind, StartEnds, StartStop } from './types';
+import type { Minimum, StartEnds, StartStop } from './types';
 
 function square(a: Float64Array, n: number): number[][] {
   return Array.from({ length: n }, (_, i) => Array.from(a.subarray(i * n, i * n + n)));
@@ -37,13 +38,7 @@ export function buildMinima(outcomes: StartOutcome[], par: Parameterisation, nDa
     const reducedChi2 = best.chi2 / dof;
     const cov = covarianceFromJtJ(best.jtj, n, { scale: scaleErrors ? reducedChi2 : 1 });
     const physical = physicalParams(par, best.params);
-    const stdErrors: Record<string, Partial<Record<ParamKind, number>>> = {};
-    par.slots.forEach((s, j) => {
-      const e = cov.stdErrors[j];
-      const region = par.regions[s.region].name;
-      // intensity is optimised as ln I: sigma_I = I sigma_lnI (delta method)
-      (stdErrors[region] ??= {})[s.kind] = s.kind === 'intensity' ? physical[s.name] * e : e;
-    });
+    const stdErrors = namedStdErrors(par, physical, cov.stdErrors);
     const stopReasons: Partial<Record<StartStop, number>> = {};
     for (const m of g.members) {
       const r = byIndex.get(m.index)!.stopReason;
