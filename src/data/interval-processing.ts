@@ -74,7 +74,10 @@ const SPECTRUM_UNITS: Record<string, number> = {
 export const sampleUnitFactor = (unit: string): number | undefined => SAMPLE_UNITS[unit.trim()];
 export const spectrumUnitFactor = (unit: string): number | undefined => SPECTRUM_UNITS[unit.replace(/\s+/g, '')];
 
-function calibrationOf(station: Station, component: Component): Calibration {
+/** What the processing needs of a station: registered or about to be. */
+type StationSettings = Pick<Station, 'code' | 'mainsHz' | 'interferenceLines' | 'components'>;
+
+function calibrationOf(station: StationSettings, component: Component): Calibration {
   const c = station.components.find((x) => x.component === component);
   if (!c) throw new Error(`${station.code} has no ${component} component installed`);
   return c.calibration;
@@ -82,7 +85,7 @@ function calibrationOf(station: Station, component: Component): Calibration {
 
 /** Processing settings of one station component (samples in physical units when siFactor is given). */
 export function processingConfigFor(
-  station: Station,
+  station: StationSettings,
   component: Component,
   sampleRateHz: number,
   siFactor?: number,

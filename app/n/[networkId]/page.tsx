@@ -6,6 +6,8 @@ import { listStations } from '@/src/data/stations';
 import { PageHeader } from '@/src/web/shell/PageHeader';
 import { ButtonLink, Card, Caution, Notice, Panel, formatUtc } from '@/src/web/ui';
 import { StationOverviewMap } from '@/src/web/networks/StationOverviewMap';
+import { DemoGuide } from '@/src/web/networks/DemoGuide';
+import { demoGuide } from '@/src/ops/seed/guide';
 
 export const metadata: Metadata = { title: 'Overview' };
 
@@ -19,7 +21,11 @@ export default async function NetworkOverview({
   const { networkId } = await params;
   const { denied } = await searchParams;
   const { membership } = await pageNetworkAction(networkId, 'network.read');
-  const [stations, members] = await Promise.all([listStations(networkId), listMembers(networkId)]);
+  const [stations, members, guide] = await Promise.all([
+    listStations(networkId),
+    listMembers(networkId),
+    demoGuide(networkId, membership.networkName),
+  ]);
   const points = stations.map((s) => ({
     id: s.id,
     code: s.code,
@@ -61,6 +67,7 @@ export default async function NetworkOverview({
           Your role in this network ({membership.role}) does not allow the page you tried to open. Ask an owner if you need it.
         </Notice>
       ) : null}
+      {guide ? <DemoGuide guide={guide} networkId={networkId} /> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,1fr)]">
         <Panel heading="Stations on the map" description="Equal-area projection; each dot is a station of this network.">
           <Card flush>

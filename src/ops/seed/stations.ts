@@ -92,7 +92,8 @@ export const DEMO_STATIONS: Demo[] = [
   },
 ];
 
-function input(d: Demo): StationInput {
+/** A demo station as registered: invented place, 200 Hz, raw counts with a flat gain. */
+export function demoStationInput(d: Demo): StationInput {
   return {
     code: d.code,
     name: d.name,
@@ -118,7 +119,7 @@ export async function seedDemoStations(networkId: string): Promise<{ created: nu
   for (const d of DEMO_STATIONS) {
     let s = await getStationByCode(networkId, d.code);
     if (!s) {
-      s = await createStation(networkId, input(d));
+      s = await createStation(networkId, demoStationInput(d));
       created++;
     }
     stations.push(s);
