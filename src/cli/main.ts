@@ -11,6 +11,7 @@ const verbs: Record<string, () => Promise<{ default: Verb }>> = {
   spectrum: () => import('./spectrum'),
   fit: () => import('./fit'),
   siting: () => import('./siting'),
+  recovery: () => import('./recovery'),
 };
 
 function usage(): string {
@@ -21,6 +22,7 @@ function usage(): string {
     '  spectrum <series.json>                               Welch power spectral density',
     '  fit      <spectrum.json> [--modes N]                 Lorentzian mode fit',
     '  siting   <case.json> --candidates <sites.json>       standard errors with each candidate station added',
+    '  recovery <case.json> --realisations N --seed S [--starts N] [--threads T]   recovery of a known truth',
   ].join('\n');
 }
 

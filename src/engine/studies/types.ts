@@ -83,6 +83,9 @@ export interface RecoveryResult {
   correlation: NamedMatrix;
   /** Realisations whose best minimum was singular (some combination unresolved); their pulls are left out. */
   singular: number;
+  /** Mean chi-square at the best minimum, and the data less the free parameters (about equal when all is well). */
+  meanMisfit: number;
+  degreesOfFreedom: number;
 }
 
 export interface StudyProgress {

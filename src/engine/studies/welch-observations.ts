@@ -19,6 +19,8 @@ export interface RawRecording {
   samples: number;
   /** Welch segment length in samples. */
   segmentLength: number;
+  /** Samples shared by neighbouring segments (default half a segment, the pipeline's). */
+  overlapLength?: number;
 }
 
 export interface TrueSpectrum {
@@ -34,7 +36,7 @@ export function welchObservations(truth: readonly TrueSpectrum[], rec: RawRecord
   const rand = mulberry32(seed);
   return truth.map((t) => {
     const x = gaussianSeriesWithSpectrum(logLinearSpectrum(t.frequencies, t.power), rec.samples, rec.sampleRateHz, rand);
-    const est = welch(x, { sampleRateHz: rec.sampleRateHz, segmentLength: rec.segmentLength });
+    const est = welch(x, { sampleRateHz: rec.sampleRateHz, segmentLength: rec.segmentLength, overlapLength: rec.overlapLength });
     const power = Array.from(t.frequencies, (f) => {
       const k = Math.round(f / df);
       if (Math.abs(k * df - f) > 1e-9 * f || k >= est.power.length)

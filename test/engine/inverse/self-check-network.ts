@@ -40,7 +40,4 @@ export function intensityPulls(best: Minimum): number[] {
   });
 }
 
-export function meanAndSpread(xs: number[]): { mean: number; spread: number } {
-  const mean = xs.reduce((a, b) => a + b, 0) / xs.length;
-  return { mean, spread: Math.sqrt(xs.reduce((a, b) => a + (b - mean) ** 2, 0) / (xs.length - 1)) };
-}
+export { meanAndSpread } from '@/src/engine/stats/mean-spread';
