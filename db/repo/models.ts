@@ -8,11 +8,4 @@ import { versionedRepo } from './versioned';
 export type ModelRow = typeof cavityModels.$inferSelect;
 export type ModelFields = { name: string; notes: string; config: Record<string, unknown> };
 
-const models = versionedRepo<ModelRow, ModelFields>(cavityModels);
-
-export const createModel = models.create;
-export const addModelVersion = models.addVersion;
-export const getModel = models.get;
-export const listModels = models.list;
-export const listModelVersions = models.listVersions;
-export const findModelByName = models.findByName;
+export const modelRepo = versionedRepo<ModelRow, ModelFields>(cavityModels);

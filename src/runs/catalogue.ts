@@ -2,16 +2,17 @@
  * Saving cavity models and source grids: validate, then store a new version.
  * Every problem names its field; nothing stored is changed by a bad edit.
  */
-import { addGridVersion, createGrid, type GridRow } from '@/db/repo/grids';
-import { addModelVersion, createModel, type ModelRow } from '@/db/repo/models';
+import { gridRepo, type GridRow } from '@/db/repo/grids';
+import { modelRepo, type ModelRow } from '@/db/repo/models';
 import { badRequest, notFound } from '@/src/server/errors';
 import { resolveCavity } from '@/src/engine/cavity/resolve';
 import { gridProblems, type GridInput } from './grid-spec';
 import { settings } from '@/src/settings';
 import type { ModelInput } from './model-spec';
 
-export { getGrid, listGrids, listGridVersions, type GridRow } from '@/db/repo/grids';
-export { getModel, listModels, listModelVersions, type ModelRow } from '@/db/repo/models';
+export type { GridRow, ModelRow };
+export const { get: getGrid, list: listGrids, listVersions: listGridVersions } = gridRepo;
+export const { get: getModel, list: listModels, listVersions: listModelVersions } = modelRepo;
 
 function checkModel(input: ModelInput): void {
   try {
@@ -30,8 +31,8 @@ function checkGrid(input: GridInput): void {
 export async function saveModel(networkId: string, userId: string | null, input: ModelInput, baseId?: string): Promise<ModelRow> {
   checkModel(input);
   const fields = { name: input.name, notes: input.notes, config: input.config as unknown as Record<string, unknown> };
-  if (!baseId) return createModel(networkId, userId, fields);
-  const row = await addModelVersion(networkId, baseId, userId, fields);
+  if (!baseId) return modelRepo.create(networkId, userId, fields);
+  const row = await modelRepo.addVersion(networkId, baseId, userId, fields);
   if (!row) throw notFound('That cavity model is not in this network.');
   return row;
 }
@@ -42,8 +43,8 @@ export async function saveGrid(networkId: string, userId: string | null, input: 
     r.kind === 'cells' ? { ...r, cells: [...new Set(r.cells)].sort((a, b) => a - b) } : r,
   );
   const fields = { name: input.name, notes: input.notes, cellSizeDeg: input.cellSizeDeg, regions };
-  if (!baseId) return createGrid(networkId, userId, fields);
-  const row = await addGridVersion(networkId, baseId, userId, fields);
+  if (!baseId) return gridRepo.create(networkId, userId, fields);
+  const row = await gridRepo.addVersion(networkId, baseId, userId, fields);
   if (!row) throw notFound('That source grid is not in this network.');
   return row;
 }

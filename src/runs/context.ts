@@ -2,8 +2,8 @@
  * Loads what a run needs once: its configuration, the pinned cavity model and
  * source grid versions, and the chosen stations' positions.
  */
-import { getModel } from '@/db/repo/models';
-import { getGrid } from '@/db/repo/grids';
+import { modelRepo } from '@/db/repo/models';
+import { gridRepo } from '@/db/repo/grids';
 import { listStations } from '@/db/repo/stations';
 import type { RunRow } from '@/db/repo/runs';
 import type { CavityConfig } from '@/src/engine/cavity/types';
@@ -13,9 +13,9 @@ import type { RunContext } from './types';
 
 export async function loadRunContext(run: RunRow): Promise<RunContext> {
   const config = runConfigSchema.parse(run.config);
-  const model = await getModel(run.networkId, run.modelId);
+  const model = await modelRepo.get(run.networkId, run.modelId);
   if (!model) throw new Error('the cavity model version this run pinned no longer exists');
-  const grid = await getGrid(run.networkId, run.gridId);
+  const grid = await gridRepo.get(run.networkId, run.gridId);
   if (!grid) throw new Error('the source grid version this run pinned no longer exists');
   const wanted = new Set(config.data.stationIds);
   const stations = (await listStations(run.networkId))

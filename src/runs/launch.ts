@@ -6,8 +6,8 @@
  * problems, stores the run with its full configuration and engine version,
  * and queues it — it returns as soon as the job is queued.
  */
-import { getModel } from '@/db/repo/models';
-import { getGrid } from '@/db/repo/grids';
+import { modelRepo } from '@/db/repo/models';
+import { gridRepo } from '@/db/repo/grids';
 import { createRun, measuredCostPerUnit, type RunRow } from '@/db/repo/runs';
 import { listIntervals, listSpectrumStatistics } from '@/db/repo/intervals';
 import { statisticsProblem } from '@/src/data/spectrum-statistics';
@@ -53,9 +53,9 @@ export async function checkLaunch(
   config: RunConfig,
 ): Promise<{ problems: LaunchProblem[]; preview: LaunchPreview | null }> {
   const problems: LaunchProblem[] = [];
-  const model = await getModel(networkId, config.modelId);
+  const model = await modelRepo.get(networkId, config.modelId);
   if (!model) problems.push({ field: 'modelId', message: 'that cavity model is not in this network' });
-  const grid = await getGrid(networkId, config.gridId);
+  const grid = await gridRepo.get(networkId, config.gridId);
   if (!grid) problems.push({ field: 'gridId', message: 'that source grid is not in this network' });
   const stations = await listStations(networkId);
   const known = new Set(stations.map((s) => s.id));

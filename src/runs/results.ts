@@ -3,8 +3,8 @@
  * progress, and the stored result of every finished interval. Shared by the
  * run page, the API and the exports.
  */
-import { getGrid } from '@/db/repo/grids';
-import { getModel } from '@/db/repo/models';
+import { gridRepo } from '@/db/repo/grids';
+import { modelRepo } from '@/db/repo/models';
 import { getRun, getRunInterval, listRunIntervals, listRunIntervalSummaries, type RunRow } from '@/db/repo/runs';
 import { notFound } from '@/src/server/errors';
 import type { InversionResult, Minimum } from '@/src/engine/inverse/types';
@@ -68,7 +68,7 @@ function scalingOf(config: RunConfig): Scaling {
 async function runHead(networkId: string, runId: string): Promise<{ row: RunRow; head: Head; scaling: Scaling }> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
-  const [model, grid] = await Promise.all([getModel(networkId, run.modelId), getGrid(networkId, run.gridId)]);
+  const [model, grid] = await Promise.all([modelRepo.get(networkId, run.modelId), gridRepo.get(networkId, run.gridId)]);
   if (!model || !grid) throw notFound('The model or grid of this run is gone.');
   const config = runConfigSchema.parse(run.config);
   const scaling = scalingOf(config);

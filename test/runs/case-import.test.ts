@@ -11,8 +11,8 @@ import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { CALLERS, call, errorOf, type CallerName } from '@/test/helpers/authz';
 import { stopBoss } from '@/db/jobs';
 import { listRunIntervals, listRuns } from '@/db/repo/runs';
-import { listModels } from '@/db/repo/models';
-import { listGrids } from '@/db/repo/grids';
+import { modelRepo } from '@/db/repo/models';
+import { gridRepo } from '@/db/repo/grids';
 import { executeRun } from '@/src/runs/execute';
 import { makeEngineSolver } from '@/src/runs/solver';
 import type { InversionResult } from '@/src/engine/inverse/types';
@@ -44,8 +44,8 @@ const copy = () => JSON.parse(JSON.stringify(caseFile)) as Record<string, any>; 
 async function stored() {
   return {
     runs: (await listRuns(w.networkId)).length,
-    models: (await listModels(w.networkId)).length,
-    grids: (await listGrids(w.networkId)).length,
+    models: (await modelRepo.list(w.networkId)).length,
+    grids: (await gridRepo.list(w.networkId)).length,
   };
 }
 

@@ -7,7 +7,7 @@ import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { stopBoss } from '@/db/jobs';
 import { createRun, getRunById, measuredCostPerUnit, saveRunInterval } from '@/db/repo/runs';
-import { listModelVersions } from '@/db/repo/models';
+import { modelRepo } from '@/db/repo/models';
 import { checkLaunch, launchRun } from '@/src/runs/launch';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import { AppError } from '@/src/server/errors';
@@ -131,7 +131,7 @@ describe('launch checks', () => {
     );
     expect(v2.version).toBe(2);
     expect(v2.lineageId).toBe(w.model.lineageId);
-    const versions = await listModelVersions(w.networkId, w.model.id);
+    const versions = await modelRepo.listVersions(w.networkId, w.model.id);
     expect(versions.map((v) => v.version)).toEqual([2, 1]);
     expect((versions[1].config as { heightKm: number }).heightKm).toBe(60);
     const g2 = await saveGrid(w.networkId, w.userId, { ...GRID, cellSizeDeg: 5, regions: [GRID.regions[0]] }, w.grid.id);

@@ -4,8 +4,8 @@ import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import * as accounts from '@/src/ops/seed/accounts';
 import * as stations from '@/src/ops/seed/stations';
 import * as runs from '@/src/ops/seed/runs';
-import { listModels } from '@/db/repo/models';
-import { listGrids } from '@/db/repo/grids';
+import { modelRepo } from '@/db/repo/models';
+import { gridRepo } from '@/db/repo/grids';
 import { listRunIntervals, listRuns } from '@/db/repo/runs';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import { createRun, getRunById } from '@/db/repo/runs';
@@ -42,8 +42,8 @@ describe('demo runs seeder', () => {
     await runs.seed();
     expect((await listRuns(net)).filter((r) => r.name === runs.DEMO_RUN)).toHaveLength(1);
     expect(await listRunIntervals(run.id)).toHaveLength(13);
-    expect(await listModels(net)).toHaveLength(2);
-    expect(await listGrids(net)).toHaveLength(1);
+    expect(await modelRepo.list(net)).toHaveLength(2);
+    expect(await gridRepo.list(net)).toHaveLength(1);
   });
 
   it("stores a finished mode-parameter run that keeps each start's own end", async () => {

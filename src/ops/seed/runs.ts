@@ -7,8 +7,8 @@
  * and grid are matched by name; a run is matched by name and resumed if a
  * previous seeding stopped half-way. Everything here is invented.
  */
-import { findModelByName } from '@/db/repo/models';
-import { findGridByName } from '@/db/repo/grids';
+import { modelRepo } from '@/db/repo/models';
+import { gridRepo } from '@/db/repo/grids';
 import { createRun, getRunById, listRuns } from '@/db/repo/runs';
 import { listStations } from '@/db/repo/stations';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
@@ -77,20 +77,20 @@ function demoGrid(): GridInput {
 
 export async function seedDemoRuns(networkId: string): Promise<void> {
   const model =
-    (await findModelByName(networkId, DEMO_MODEL)) ??
+    (await modelRepo.findByName(networkId, DEMO_MODEL)) ??
     (await saveModel(networkId, null, {
       name: DEMO_MODEL,
       notes: 'Demo model: Ishaq & Jones (1977) velocity and attenuation.',
       config: { model: 'ishaq-jones', earthRadiusKm: 6371, heightKm: 60 },
     }));
-  if (!(await findModelByName(networkId, DEMO_LINEAR_MODEL))) {
+  if (!(await modelRepo.findByName(networkId, DEMO_LINEAR_MODEL))) {
     await saveModel(networkId, null, {
       name: DEMO_LINEAR_MODEL,
       notes: 'Demo model: the linear propagation parameter.',
       config: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 },
     });
   }
-  const grid = (await findGridByName(networkId, DEMO_GRID)) ?? (await saveGrid(networkId, null, demoGrid()));
+  const grid = (await gridRepo.findByName(networkId, DEMO_GRID)) ?? (await saveGrid(networkId, null, demoGrid()));
   const stations = await listStations(networkId);
   const base: RunConfig = {
     name: DEMO_RUN,
