@@ -83,6 +83,8 @@ const schema = z.object({
   WORKER_CONCURRENCY: count.default(1),
   /** Threads per run; default the engine's own (all cores). 1 solves in the calling thread. */
   CAVITAS_RUN_THREADS: count.optional(),
+  /** Intervals per chunk of a run: each chunk is one job, so that several workers share a run. */
+  CAVITAS_RUN_CHUNK: count.default(6),
   /** Seconds a run job works before handing the run back to the queue. */
   CAVITAS_RUN_SLICE_S: positive.default(300),
   /** Seconds without a heartbeat after which a run's worker counts as gone. */
@@ -111,6 +113,10 @@ const schema = z.object({
   BENCH_RUN_DAY: flag.default(true),
   /** Measure the run page's load (false skips it). */
   BENCH_RUN_PAGE: flag.default(true),
+  /** `npm run bench -- fanout`: rounds of the day run with one worker and with several. */
+  BENCH_FANOUT_ROUNDS: count.default(1),
+  /** Worker processes of the larger side of the fan-out measurement. */
+  BENCH_FANOUT_WORKERS: count.default(2),
   /** `npm run bench -- load`: simulated users, each with a session of its own. */
   LOAD_USERS: count.default(50),
   /** Rounds each simulated user makes over the three addresses. */

@@ -20,6 +20,7 @@ describe('settings', () => {
     expect(s.CAVITAS_RUN_LEASE_S).toBe(30);
     expect(s.CAVITAS_RUN_SWEEP_S).toBe(30);
     expect(s.CAVITAS_RUN_SLICE_S).toBe(300);
+    expect(s.CAVITAS_RUN_CHUNK).toBe(6);
     expect(s.CAVITAS_RUN_WRITE_MS).toBeUndefined();
     expect(s.CAVITAS_RUN_THREADS).toBeUndefined();
     expect(s.APP_URL).toBeUndefined();
@@ -45,6 +46,7 @@ describe('settings', () => {
     expect(() => settings({ CAVITAS_RUN_LEASE_S: '0' })).toThrow(/CAVITAS_RUN_LEASE_S="0" must be greater than 0/);
     expect(() => settings({ PORT: '70000' })).toThrow(/PORT="70000"/);
     expect(() => settings({ WORKER_CONCURRENCY: '1.5' })).toThrow(/WORKER_CONCURRENCY="1.5" must be a whole number/);
+    expect(() => settings({ CAVITAS_RUN_CHUNK: '0' })).toThrow(/CAVITAS_RUN_CHUNK="0" must be at least 1/);
     expect(() => settings({ TRUST_PROXY: 'maybe' })).toThrow(/TRUST_PROXY="maybe" must be true or false/);
     expect(() => settings({ APP_URL: 'cavitas' })).toThrow(/APP_URL="cavitas"/);
     expect(() => settings({ PORT: 'x', SMTP_PORT: 'y' })).toThrow(/PORT="x".*SMTP_PORT="y"/);

@@ -8,7 +8,7 @@
  */
 import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
-import { cavityModels, runIntervals, runs, runSurfaces, sourceGrids, type RunProgress } from '../schema/runs';
+import { cavityModels, runChunks, runIntervals, runs, runSurfaces, sourceGrids, type RunProgress } from '../schema/runs';
 import { ENDED_STATES } from '@/src/runs/lifecycle';
 
 export type RunRow = typeof runs.$inferSelect;
@@ -150,37 +150,65 @@ export async function releaseRun(runId: string, workerId: string, progress: RunP
 }
 
 /**
- * Which run rows a write may touch: never an ended run; with a worker id, only while that
- * worker holds the run ('running' under its id), so a worker that lost its lease (the run was
- * swept, ended, handed on or re-queued meanwhile) writes nothing.
+ * Who writes to a run: a worker id holds the whole run ('running' under its id); a chunk holder
+ * holds one chunk of it (src/runs/chunks.ts), and any number of chunks may be held at once.
  */
-function writable(runId: string, workerId?: string): SQL {
+export type RunHolder = string | { workerId: string; chunk: number };
+
+const chunkOf = (holder: RunHolder | undefined) => (typeof holder === 'object' ? holder : null);
+
+/**
+ * Which run rows a write may touch: never an ended run; with a worker id, only while that
+ * worker holds the run ('running' under its id); with a chunk holder, only while that worker
+ * holds that chunk (not done). A worker that lost its lease (the run was swept, ended, handed on
+ * or re-queued meanwhile, or its chunk was taken over) writes nothing.
+ */
+function writable(runId: string, holder?: RunHolder): SQL {
+  const c = chunkOf(holder);
   return and(
     eq(runs.id, runId),
     sql`${runs.state} not in (${sql.join(
       ENDED_STATES.map((s) => sql`${s}`),
       sql`, `,
     )})`,
-    ...(workerId === undefined ? [] : [eq(runs.state, 'running'), eq(runs.workerId, workerId)]),
+    ...(holder === undefined
+      ? []
+      : c
+        ? [
+            sql`exists (select 1 from ${runChunks} c where c.run_id = ${runs.id} and c.first_index = ${c.chunk}
+              and c.worker_id = ${c.workerId} and c.done_at is null)`,
+          ]
+        : [eq(runs.state, 'running'), eq(runs.workerId, holder as string)]),
   )!;
 }
 
 /**
+ * The progress a write stores. A chunk writes the whole run's progress: its intervals done are
+ * the stored rows (`newRows` more than the statement sees), and the time left follows from the
+ * run's rate since it started, which every worker on it adds to.
+ */
+function progressValue(runId: string, progress: RunProgress, holder: RunHolder | undefined, newRows: SQL): SQL {
+  const given = sql`${JSON.stringify(progress)}::jsonb`;
+  if (!chunkOf(holder)) return given;
+  return sql`(select jsonb_set(jsonb_set(${given}, '{intervalsDone}', to_jsonb(d.n)), '{etaSeconds}',
+    case when d.n > 0 and ${runs.startedAt} is not null
+      then to_jsonb(round(extract(epoch from now() - ${runs.startedAt}) / d.n * (jsonb_array_length(${runs.intervalStarts}) - d.n)))
+      else 'null'::jsonb end)
+    from (select (select count(*) from ${runIntervals} where run_id = ${runId}) + ${newRows} as n) d)`;
+}
+
+/**
  * Writes progress and a heartbeat; returns whether someone asked to cancel and whether the
- * write was taken (`held`: the run has not ended and, with a worker id, that worker holds it).
+ * write was taken (`held`: the run has not ended and, with a holder, that holder holds it).
  * A refused write counts as a cancel request: the caller has nothing more to do on this run.
  */
 export async function reportProgress(
   runId: string,
   progress: RunProgress,
-  workerId?: string,
+  holder?: RunHolder,
 ): Promise<{ cancelRequested: boolean; held: boolean }> {
-  const [row] = await getDb()
-    .update(runs)
-    .set({ progress, heartbeatAt: new Date() })
-    .where(writable(runId, workerId))
-    .returning({ cancelRequested: runs.cancelRequested });
-  return row ? { cancelRequested: row.cancelRequested, held: true } : { cancelRequested: true, held: false };
+  const { cancelRequested, held } = await saveRunIntervals(runId, [], progress, holder);
+  return { cancelRequested, held };
 }
 
 export interface RunIntervalEntry {
@@ -192,25 +220,21 @@ export interface RunIntervalEntry {
 
 /**
  * Stores finished intervals (each once: insert-or-ignore on (run, start)) and the
- * run's progress and heartbeat in a single statement (one round trip: the insert
- * runs as a data-modifying CTE), and brings back how many rows were new and
- * whether someone asked to cancel. A cancel request does not refuse the write (the
- * worker keeps what it finished before it stops), but an ended run (finished,
- * failed, cancelled) takes nothing more, and with `workerId` only the worker that
- * holds the run may write: the run row is locked first (FOR UPDATE, so a concurrent
- * end or hand-over is seen after it commits) and a refused write stores nothing and
- * answers `held: false`.
+ * run's progress and heartbeat (also the chunk's, for a chunk holder) in a single statement
+ * (one round trip: the insert runs as a data-modifying CTE), and brings back how many rows
+ * were new and whether someone asked to cancel. A cancel request does not refuse the write (the
+ * worker keeps what it finished before it stops), but an ended run (finished, failed,
+ * cancelled) takes nothing more, and with a holder only that holder may write: the run row is
+ * locked first (FOR UPDATE, so a concurrent end or hand-over is seen after it commits) and a
+ * refused write stores nothing and answers `held: false`. With no entries it writes only the
+ * progress and heartbeat.
  */
 export async function saveRunIntervals(
   runId: string,
   entries: RunIntervalEntry[],
   progress: RunProgress,
-  workerId?: string,
+  holder?: RunHolder,
 ): Promise<{ inserted: number; cancelRequested: boolean; held: boolean }> {
-  if (entries.length === 0) {
-    const r = await reportProgress(runId, progress, workerId);
-    return { inserted: 0, ...r };
-  }
   const values = sql.join(
     entries.map(
       (e) =>
@@ -218,17 +242,26 @@ export async function saveRunIntervals(
     ),
     sql`, `,
   );
-  const rows = await getDb().execute<{ inserted: number; cancel_requested: boolean }>(sql`
-    with held as (
-      select ${runs.id} as id from ${runs} where ${writable(runId, workerId)} for update
-    ), ins as (
-      insert into ${runIntervals} (run_id, starts_at, n_data, result, seconds)
+  const insert =
+    entries.length === 0
+      ? sql`select 1 where false`
+      : sql`insert into ${runIntervals} (run_id, starts_at, n_data, result, seconds)
       select held.id, v.starts_at, v.n_data, v.result, v.seconds
       from held cross join (values ${values}) as v (starts_at, n_data, result, seconds)
       on conflict (run_id, starts_at) do nothing
-      returning 1
-    )
-    update ${runs} set progress = ${JSON.stringify(progress)}::jsonb, heartbeat_at = now()
+      returning 1`;
+  const c = chunkOf(holder);
+  const touch = c
+    ? sql`, touch as (
+      update ${runChunks} set heartbeat_at = now()
+      where run_id = ${runId} and first_index = ${c.chunk} and worker_id = ${c.workerId} and exists (select 1 from held)
+    )`
+    : sql``;
+  const rows = await getDb().execute<{ inserted: number; cancel_requested: boolean }>(sql`
+    with held as (
+      select ${runs.id} as id from ${runs} where ${writable(runId, holder)} for update
+    ), ins as (${insert})${touch}
+    update ${runs} set progress = ${progressValue(runId, progress, holder, sql`(select count(*) from ins)`)}, heartbeat_at = now()
     where id in (select id from held)
     returning (select count(*)::int from ins) as inserted, cancel_requested`);
   const row = rows[0];
@@ -242,9 +275,9 @@ export async function saveRunInterval(
   runId: string,
   entry: RunIntervalEntry,
   progress: RunProgress,
-  workerId?: string,
+  holder?: RunHolder,
 ): Promise<{ inserted: boolean; cancelRequested: boolean; held: boolean }> {
-  const r = await saveRunIntervals(runId, [entry], progress, workerId);
+  const r = await saveRunIntervals(runId, [entry], progress, holder);
   return { inserted: r.inserted > 0, cancelRequested: r.cancelRequested, held: r.held };
 }
 
@@ -337,7 +370,7 @@ export async function finishedIntervalStarts(runId: string): Promise<Set<string>
 
 /**
  * Ends a run (finished, failed or cancelled) with its last progress and, for a failure, why.
- * Like every write of a run's progress: never a run that has already ended, and with `workerId`
+ * Like every write of a run's progress: never a run that has already ended, and with a holder
  * only while that worker holds it. Returns whether the run was ended here.
  */
 export async function endRun(
@@ -345,7 +378,7 @@ export async function endRun(
   state: 'finished' | 'failed' | 'cancelled',
   progress: RunProgress | null,
   error: string | null = null,
-  workerId?: string,
+  holder?: RunHolder,
 ): Promise<boolean> {
   const rows = await getDb()
     .update(runs)
@@ -356,7 +389,7 @@ export async function endRun(
       heartbeatAt: new Date(),
       ...(progress ? { progress } : {}),
     })
-    .where(writable(runId, workerId))
+    .where(writable(runId, holder))
     .returning({ id: runs.id });
   return rows.length > 0;
 }
@@ -418,19 +451,25 @@ export async function staleRunningRuns(olderThanS: number): Promise<RunRow[]> {
  * hand-back — that have no pending (created or retry) job on `queue` in pg-boss's table, and
  * calls `send(runId)` for each while the lock is held. A lapsed running run whose cancel was
  * asked for is ended as cancelled instead (no worker will come back to stop it).
+ *
+ * A run worked in chunks is continued chunk by chunk: each chunk not done of a run that goes on,
+ * whose holder's heartbeat has lapsed (or that has no holder and has waited a lease) and that
+ * has no pending job, gets `sendChunk(runId, first)`.
  */
 export async function sweepLapsedRuns(
   leaseSeconds: number,
   queue: string,
   send: (runId: string) => Promise<void>,
+  sendChunk: (runId: string, first: number) => Promise<void>,
   cancelledPhase: string,
   bossSchema = 'pgboss',
-): Promise<{ continued: string[]; cancelled: string[] }> {
+): Promise<{ continued: string[]; cancelled: string[]; chunks: { runId: string; first: number }[] }> {
   return getDb().transaction(async (tx) => {
     await tx.execute(sql`select pg_advisory_xact_lock(hashtext('cavitas-run-sweep'))`);
+    const before = sql`now() - make_interval(secs => ${leaseSeconds})`;
     const lapsed = sql`(
-      (${runs.state} = 'running' and (${runs.heartbeatAt} is null or ${runs.heartbeatAt} < now() - make_interval(secs => ${leaseSeconds})))
-      or (${runs.state} = 'queued' and coalesce(${runs.heartbeatAt}, ${runs.createdAt}) < now() - make_interval(secs => ${leaseSeconds})))`;
+      (${runs.state} = 'running' and (${runs.heartbeatAt} is null or ${runs.heartbeatAt} < ${before}))
+      or (${runs.state} = 'queued' and coalesce(${runs.heartbeatAt}, ${runs.createdAt}) < ${before}))`;
     const ended = await tx
       .update(runs)
       .set({
@@ -441,7 +480,7 @@ export async function sweepLapsedRuns(
       })
       .where(and(eq(runs.cancelRequested, true), lapsed))
       .returning({ id: runs.id });
-    const pending = sql.raw(`${bossSchema}.job`);
+    const jobs = sql.raw(`${bossSchema}.job`);
     const rows = await tx
       .select({ id: runs.id })
       .from(runs)
@@ -449,12 +488,26 @@ export async function sweepLapsedRuns(
         and(
           eq(runs.cancelRequested, false),
           lapsed,
+          sql`not exists (select 1 from ${runChunks} c where c.run_id = ${runs.id})`,
           sql`not exists (
-      select 1 from ${pending} j where j.name = ${queue} and j.state in ('created', 'retry') and j.data->>'runId' = ${runs.id}::text)`,
+      select 1 from ${jobs} j where j.name = ${queue} and j.state in ('created', 'retry') and j.data->>'runId' = ${runs.id}::text)`,
         ),
       );
     for (const r of rows) await send(r.id);
-    return { continued: rows.map((r) => r.id), cancelled: ended.map((r) => r.id) };
+    // A chunk without a holder counts as lost only once its job is neither waiting nor being taken up.
+    const chunks = await tx.execute<{ run_id: string; first_index: number }>(sql`
+      select c.run_id, c.first_index from ${runChunks} c join ${runs} r on r.id = c.run_id
+      where c.done_at is null and r.state in ('queued', 'running') and not r.cancel_requested
+        and ((c.worker_id is not null and c.heartbeat_at < ${before})
+          or (c.worker_id is null and coalesce(c.heartbeat_at, r.created_at) < ${before}
+            and not exists (select 1 from ${jobs} j where j.name = ${queue} and j.state = 'active'
+              and j.data->>'runId' = c.run_id::text and (j.data->>'first')::int = c.first_index)))
+        and not exists (select 1 from ${jobs} j where j.name = ${queue} and j.state in ('created', 'retry')
+          and j.data->>'runId' = c.run_id::text and (j.data->>'first')::int = c.first_index)
+      order by c.run_id, c.first_index`);
+    const sent = chunks.map((c) => ({ runId: c.run_id, first: Number(c.first_index) }));
+    for (const c of sent) await sendChunk(c.runId, c.first);
+    return { continued: rows.map((r) => r.id), cancelled: ended.map((r) => r.id), chunks: sent };
   });
 }
 

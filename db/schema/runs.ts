@@ -17,6 +17,7 @@ import {
   uniqueIndex,
   index,
   check,
+  primaryKey,
 } from 'drizzle-orm/pg-core';
 import { networks } from './networks';
 import { users } from './auth';
@@ -155,4 +156,26 @@ export const runSurfaces = pgTable(
     finishedAt: timestamp('finished_at', { withTimezone: true }),
   },
   (t) => [uniqueIndex('run_surfaces_run_spec_uq').on(t.runId, t.specKey)],
+);
+
+/**
+ * A chunk of a run: a few consecutive intervals (indices `first` … `first + count - 1` of the
+ * run's interval starts) that one job solves. Any number of workers hold different chunks of
+ * one run at once; a chunk is held by one worker at a time through its heartbeat lease
+ * (`workerId`, `heartbeatAt`), and is done once its intervals are stored.
+ */
+export const runChunks = pgTable(
+  'run_chunks',
+  {
+    first: integer('first_index').notNull(),
+    count: integer('count').notNull(),
+    runId: uuid('run_id')
+      .notNull()
+      .references(() => runs.id, { onDelete: 'cascade' }),
+    workerId: text('worker_id'),
+    heartbeatAt: timestamp('heartbeat_at', { withTimezone: true }),
+    attempts: integer('attempts').notNull().default(0),
+    doneAt: timestamp('done_at', { withTimezone: true }),
+  },
+  (t) => [primaryKey({ columns: [t.runId, t.first] }), check('run_chunks_range_ck', sql`${t.first} >= 0 and ${t.count} >= 1`)],
 );

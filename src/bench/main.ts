@@ -10,6 +10,7 @@ const groups: Record<string, () => Promise<{ default: () => Promise<void> }>> = 
   statistics: () => import('./statistics'),
   pipeline: () => import('./pipeline'),
   runs: () => import('./runs'),
+  fanout: () => import('./fanout'),
   load: () => import('./load'),
 };
 

@@ -1,7 +1,9 @@
 /** A network's runs: listing, cancelling, re-running and deleting (the pages and route handlers call these). */
 import { deleteRun, endRun, getRun, requestCancel, requeueRun, type RunRow } from '@/db/repo/runs';
 import { conflict, notFound } from '@/src/server/errors';
-import { enqueueRun } from './queues';
+import { enqueueRunWork } from './queues';
+import { settleCancelledRun } from '@/db/repo/run-chunks';
+import { settings } from '@/src/settings';
 import { mayCancel, mayDelete, mayRerun, PHASE, RERUNNABLE_STATES } from './lifecycle';
 
 export { listRuns, type RunListEntry } from '@/db/repo/runs';
@@ -12,9 +14,12 @@ export async function cancelRun(networkId: string, runId: string): Promise<RunRo
   if (!mayCancel(run.state)) throw conflict(`The run has already ended (${run.state}).`);
   const row = await requestCancel(networkId, runId);
   if (!row) throw notFound('That run is not in this network.');
-  // No worker claims a run once it is asked to stop, so a queued run ends here and now;
-  // a running one is stopped by its worker at the next check.
+  // No worker claims a run (or a chunk of it) once it is asked to stop, so a queued run ends
+  // here and now, as does a running one none of whose chunks is in a worker's hands; otherwise
+  // each worker on it stops at its next check, and the last one ends the run.
   if (row.state === 'queued' && (await endRun(runId, 'cancelled', { ...row.progress, phase: PHASE.cancelledBeforeStart })))
+    return (await getRun(networkId, runId)) ?? row;
+  if (row.state === 'running' && (await settleCancelledRun(runId, settings().CAVITAS_RUN_LEASE_S, PHASE.cancelledAfter)))
     return (await getRun(networkId, runId)) ?? row;
   return row;
 }
@@ -26,7 +31,7 @@ export async function rerunRun(networkId: string, runId: string): Promise<RunRow
   if (!mayRerun(run.state)) throw conflict(`Only a failed or cancelled run can be run again; this one is ${run.state}.`);
   const row = await requeueRun(networkId, runId, RERUNNABLE_STATES, PHASE.waiting);
   if (!row) throw conflict(`Only a failed or cancelled run can be run again; this one is ${run.state}.`);
-  await enqueueRun(runId);
+  await enqueueRunWork(runId); // what is left: the chunks not done
   return row;
 }
 

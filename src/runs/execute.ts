@@ -23,9 +23,16 @@
  * ended or passed to another worker); a refused write ends the attempt
  * ('lost') without touching the run.
  *
+ * With `chunk` it works one chunk of the run (a few intervals; db/repo/run-chunks.ts) while other
+ * workers work the others: it holds the chunk, not the run, and its writes go through only
+ * while it does; the worker that finishes the run's last chunk ends the run ('finished'), the
+ * others answer 'chunk-done'. A cancelled run's chunks all stop at their next interval; the
+ * last one to stop ends the run ('cancelled'), the others answer 'stopped'.
+ *
  * The solver is passed in (src/runs/solver.ts binds the engine's multi-start
  * inverter), so the driver knows no physics.
  */
+import { claimChunk, completeChunk, releaseChunk } from '@/db/repo/run-chunks';
 import {
   claimRun,
   endRun,
@@ -33,8 +40,11 @@ import {
   releaseRun,
   reportProgress,
   saveRunIntervals,
+  type RunHolder,
   type RunProgress,
+  type RunRow,
 } from '@/db/repo/runs';
+import { PHASE } from './lifecycle';
 import { loadRunContext } from './context';
 import { countIntervalData, intervalLoader, type IntervalObservations } from './observations';
 import type { IntervalCase, IntervalSolver, RunContext } from './types';
@@ -61,6 +71,8 @@ export interface ExecuteOptions {
    * (afterInterval) each interval is written at once.
    */
   writeEveryMs?: number;
+  /** Works only the chunk of the run whose first interval has this index (see the top). */
+  chunk?: number;
 }
 
 /**
@@ -76,7 +88,24 @@ const MAX_BATCH = 64;
  * held by this worker (it ended, was swept or was taken over); nothing more is written, the run
  * is left as it is.
  */
-export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'yielded' | 'not-runnable' | 'lost';
+export type ExecuteOutcome = 'finished' | 'cancelled' | 'failed' | 'yielded' | 'not-runnable' | 'lost' | 'chunk-done' | 'stopped';
+
+/** What the driver holds: the whole run, or one chunk of it (indices `first` … `first + count - 1`). */
+async function claim(runId: string, opts: ExecuteOptions, lease: number) {
+  if (opts.chunk === undefined) {
+    const run = await claimRun(runId, opts.workerId, lease);
+    return run && { run, holder: opts.workerId as RunHolder, first: 0, count: run.intervalStarts.length };
+  }
+  const c = await claimChunk(runId, opts.chunk, opts.workerId, lease);
+  return (
+    c && {
+      run: c.run as RunRow,
+      holder: { workerId: opts.workerId, chunk: c.first } as RunHolder,
+      first: c.first,
+      count: c.count,
+    }
+  );
+}
 
 function eta(startedMs: number, done: number, total: number, doneThisAttempt: number): number | null {
   if (doneThisAttempt <= 0) return null;
@@ -101,8 +130,11 @@ export function nonFiniteBest(result: Record<string, unknown>): string | null {
 }
 
 export async function executeRun(runId: string, opts: ExecuteOptions): Promise<ExecuteOutcome> {
-  const run = await claimRun(runId, opts.workerId, opts.leaseSeconds ?? 30);
-  if (!run) return 'not-runnable';
+  const lease = opts.leaseSeconds ?? 30;
+  const held = await claim(runId, opts, lease);
+  if (!held) return 'not-runnable';
+  const { run, holder } = held;
+  const chunk = opts.chunk === undefined ? null : { first: held.first, count: held.count };
   const every = opts.progressEveryMs ?? 1000;
 
   const total = run.intervalStarts.length;
@@ -123,13 +155,15 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
       'failed',
       { ...progress, phase: 'failed' },
       `Could not prepare the run: ${(e as Error).message}`,
-      opts.workerId,
+      holder,
     ))
       ? 'failed'
       : 'lost';
   }
   const finished = await finishedIntervalStarts(runId);
-  const todo = run.intervalStarts.map((t, i) => ({ t, i })).filter(({ t }) => !finished.has(new Date(t).toISOString()));
+  const todo = run.intervalStarts
+    .map((t, i) => ({ t, i }))
+    .filter(({ t, i }) => i >= held.first && i < held.first + held.count && !finished.has(new Date(t).toISOString()));
   progress.intervalsDone = finished.size;
   const loader = intervalLoader(
     ctx.networkId,
@@ -164,7 +198,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
       runId,
       batch.map((b) => b.entry),
       { ...progress },
-      opts.workerId,
+      holder,
     ).then(async (r) => {
       heard(r);
       if (r.held) for (const b of batch) await opts.afterInterval?.(b.index);
@@ -176,7 +210,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     await flush(); // what finished before stays stored
     await writing;
     if (lost) return 'lost' as const;
-    return (await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg, opts.workerId))
+    return (await endRun(runId, 'failed', { ...progress, phase: 'failed' }, msg, holder))
       ? ('failed' as const)
       : ('lost' as const);
   };
@@ -208,7 +242,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
         // Progress and heartbeat on a timer (the solver may run on worker threads and
         // keep this event loop free); the same write brings back a cancel request.
         const timer = setInterval(() => {
-          reportProgress(runId, { ...progress }, opts.workerId).then(
+          reportProgress(runId, { ...progress }, holder).then(
             (r) => {
               heard(r);
               if (r.cancelRequested) stop = true;
@@ -260,13 +294,22 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
         cancelled = true;
         break;
       }
-      await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
+      if (chunk) await releaseChunk(runId, chunk.first, opts.workerId, lease, PHASE.cancelledAfter);
+      else await releaseRun(runId, opts.workerId, { ...progress, phase: 'waiting for the next time slice' });
       return 'yielded';
     }
   }
   await flush(); // every finished interval, also after a cancel request
   await writing;
   if (lost) return 'lost';
+  if (chunk) {
+    if (cancelled) {
+      const r = await releaseChunk(runId, chunk.first, opts.workerId, lease, PHASE.cancelledAfter);
+      return r === 'cancelled' ? 'cancelled' : 'stopped';
+    }
+    const r = await completeChunk(runId, chunk.first, opts.workerId, progress, lease, PHASE.cancelledAfter);
+    return r === 'done' ? 'chunk-done' : r;
+  }
   if (cancelled) {
     // The progress counts what is stored (a crashed attempt may have stored one more than it said).
     const kept = (await finishedIntervalStarts(runId)).size;
@@ -277,11 +320,11 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
         ...progress,
         intervalsDone: kept,
         startsDone: 0,
-        phase: `cancelled after ${kept} of ${total} intervals`,
+        phase: PHASE.cancelledAfter(kept, total),
         etaSeconds: null,
       },
       null,
-      opts.workerId,
+      holder,
     );
     return ended ? 'cancelled' : 'lost';
   }
@@ -291,7 +334,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     'finished',
     { ...progress, intervalsDone: stored.size, phase: 'finished', etaSeconds: 0 },
     null,
-    opts.workerId,
+    holder,
   );
   return ended ? 'finished' : 'lost'; // taken over between the last write and here: the holder ends it
 }

@@ -17,7 +17,8 @@ import { countParameters, type RunConfig } from './config';
 import { regionSchema, type Region } from './grid-spec';
 import { countIntervalData, loadIntervalObservations, RunDataError } from './observations';
 import { engineVersion } from './engine-version';
-import { enqueueRun } from './queues';
+import { enqueueRunWork } from './queues';
+import { splitRun } from './chunks';
 
 export type LaunchProblem = { field: string; message: string };
 export interface LaunchPreview {
@@ -205,6 +206,7 @@ export async function launchRun(networkId: string, userId: string | null, config
     startsPerInterval: config.starts,
     createdBy: userId,
   });
-  await enqueueRun(run.id);
+  await splitRun(run.id, run.intervalStarts.length);
+  await enqueueRunWork(run.id);
   return run;
 }

@@ -1,6 +1,6 @@
 /**
- * What a run may do next. A run is queued, then running (claimed by a worker, handed back to
- * the queue after each time slice), and ends finished, failed or cancelled; a failed or
+ * What a run may do next. A run is queued, then running (its chunks claimed by workers, each
+ * chunk handed back to the queue when its worker stops), and ends finished, failed or cancelled; a failed or
  * cancelled run may be put back in the queue, keeping its finished intervals. These rules are
  * declared here once; the queries in db/repo/runs.ts apply them, the pages show them.
  */
@@ -17,6 +17,7 @@ export const PHASE = {
   waiting: 'waiting for a worker',
   cancelledBeforeStart: 'cancelled before it started',
   cancelledWorkerGone: 'cancelled (its worker had stopped)',
+  cancelledAfter: (kept: number, total: number) => `cancelled after ${kept} of ${total} intervals`,
 } as const;
 
 export const hasEnded = (s: RunState): boolean => (ENDED_STATES as readonly RunState[]).includes(s);

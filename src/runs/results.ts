@@ -13,6 +13,8 @@ import { shownErrors } from './error-scaling';
 import { chiSquareTail } from '@/src/engine/stats/chi-square';
 import { IMPLAUSIBLE_FIT_P, runGoodness, type GoodnessSource, type RunGoodness, type SeriesMisfit } from './goodness';
 import { regionSchema, type Region } from './grid-spec';
+import { hasEnded } from './lifecycle';
+import { workersOnRun } from './chunks';
 
 export interface IntervalView {
   /** The stored interval's id (names it in `export?what=case&interval=`). */
@@ -38,6 +40,8 @@ export interface RunView {
     startedAt: string | null;
     finishedAt: string | null;
     intervalStarts: string[];
+    /** Worker processes on the run now (a live heartbeat on it or on one of its chunks). */
+    workers: number;
   };
   config: RunConfig;
   model: { id: string; name: string; version: number; config: Record<string, unknown> };
@@ -68,7 +72,11 @@ function scalingOf(config: RunConfig): Scaling {
 async function runHead(networkId: string, runId: string): Promise<{ row: RunRow; head: Head; scaling: Scaling }> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
-  const [model, grid] = await Promise.all([modelRepo.get(networkId, run.modelId), gridRepo.get(networkId, run.gridId)]);
+  const [model, grid, workers] = await Promise.all([
+    modelRepo.get(networkId, run.modelId),
+    gridRepo.get(networkId, run.gridId),
+    hasEnded(run.state) ? 0 : workersOnRun(run.id),
+  ]);
   if (!model || !grid) throw notFound('The model or grid of this run is gone.');
   const config = runConfigSchema.parse(run.config);
   const scaling = scalingOf(config);
@@ -89,6 +97,7 @@ async function runHead(networkId: string, runId: string): Promise<{ row: RunRow;
         startedAt: iso(run.startedAt),
         finishedAt: iso(run.finishedAt),
         intervalStarts: run.intervalStarts,
+        workers,
       },
       config,
       model: { id: model.id, name: model.name, version: model.version, config: model.config },

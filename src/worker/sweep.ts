@@ -1,6 +1,8 @@
 /**
  * Crash recovery for runs. A worker process sweeps when it starts and then every
- * CAVITAS_RUN_SWEEP_S seconds (default 30): every run still marked running or queued whose
+ * CAVITAS_RUN_SWEEP_S seconds (default 30): every chunk of a run that goes on whose holder's
+ * heartbeat lease has lapsed gets its job again (another worker takes it over), and every run
+ * without chunks still marked running or queued whose
  * heartbeat lease (CAVITAS_RUN_LEASE_S, default 30 s) has lapsed and that has no pending job
  * gets one continuation job. The continuation claims the run (the lease has passed), skips
  * the intervals already stored and solves the rest — so a killed worker costs about one lease
@@ -12,18 +14,20 @@
  */
 import { BOSS_SCHEMA } from '@/db/jobs';
 import { sweepLapsedRuns } from '@/db/repo/runs';
-import { enqueueRun, RUN_QUEUE } from '@/src/runs/queues';
+import { enqueueChunk, enqueueRun, RUN_QUEUE } from '@/src/runs/queues';
 import { PHASE } from '@/src/runs/lifecycle';
 import { settings } from '@/src/settings';
 
 export interface SweepOutcome {
   continued: string[];
   cancelled: string[];
+  /** Chunks whose holder's lease lapsed (or that lost their job), queued again. */
+  chunks: { runId: string; first: number }[];
 }
 
 /** One sweep: queues a continuation for each lapsed run without a pending job. */
 export async function sweepRuns(leaseSeconds = settings().CAVITAS_RUN_LEASE_S): Promise<SweepOutcome> {
-  return sweepLapsedRuns(leaseSeconds, RUN_QUEUE, enqueueRun, PHASE.cancelledWorkerGone, BOSS_SCHEMA);
+  return sweepLapsedRuns(leaseSeconds, RUN_QUEUE, enqueueRun, enqueueChunk, PHASE.cancelledWorkerGone, BOSS_SCHEMA);
 }
 
 export interface SweepHandle {
@@ -41,6 +45,7 @@ export function startRunSweep(
     running = sweepRuns().then(
       (r) => {
         for (const id of r.continued) log(`[worker] sweep: run ${id} had no live worker; queued a continuation`);
+        for (const c of r.chunks) log(`[worker] sweep: chunk ${c.first} of run ${c.runId} had no live worker; queued it again`);
         for (const id of r.cancelled)
           log(`[worker] sweep: run ${id} had no live worker and a cancel request; ended as cancelled`);
       },

@@ -1,13 +1,14 @@
 /**
- * Crash recovery with real worker processes: a worker is killed with SIGKILL in the middle of
- * a run (no shutdown, no hand-back, its pg-boss job left 'active' until it would expire), a new
- * worker process starts, its sweep finds the run's lapsed lease and queues a continuation,
- * and the run finishes with every interval stored exactly once.
+ * Runs shared by real worker processes, and crash recovery: two workers work the chunks of one
+ * run at once; one is killed with SIGKILL while it holds a chunk (no shutdown, no hand-back, its
+ * pg-boss job left 'active' until it would expire); the other's sweep finds that chunk's lapsed
+ * lease and queues it again, takes it over, and the run finishes with every interval stored
+ * exactly once.
  *
  * The checks are the run's own contract: one stored row per (run, interval start) for every
- * planned start, progress at 100 %, and — when the kill left the run marked running — the
- * new worker's sweep saying it queued the continuation. A first test sweeps three times at once
- * over a run whose lease has lapsed and counts the pending jobs: exactly one more.
+ * planned start, progress at 100 %, both processes holding a chunk at once, and the sweep
+ * saying it queued the orphaned chunk. A first test sweeps three times at once over a chunk
+ * whose lease has lapsed and counts the pending jobs: exactly one more.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawn, type ChildProcess } from 'node:child_process';
@@ -15,7 +16,9 @@ import { programArgs } from '@/src/ops/paths';
 import { fileURLToPath } from 'node:url';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { getBoss, stopBoss } from '@/db/jobs';
-import { claimRun, deleteRun, getRunById, listRunIntervals } from '@/db/repo/runs';
+import { deleteRun, getRunById, listRunIntervals } from '@/db/repo/runs';
+import { claimChunk, listRunChunks } from '@/db/repo/run-chunks';
+import { setEnv } from '@/src/settings';
 import { sweepRuns } from '@/src/worker/sweep';
 import { RUN_QUEUE } from '@/src/runs/queues';
 import { launchRun } from '@/src/runs/launch';
@@ -23,6 +26,7 @@ import { makeRunWorld } from '@/test/runs/world';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const children: ChildProcess[] = [];
+setEnv('CAVITAS_RUN_CHUNK', '4'); // 24 intervals in 6 chunks
 
 function startWorker(): { child: ChildProcess; out: () => string } {
   const child = spawn(process.execPath, programArgs('worker'), {
@@ -81,7 +85,7 @@ describe('crash recovery with real worker processes', () => {
     await closeDatabase();
   });
 
-  it('sweeps queue at most one continuation per lapsed run, however many sweep at once', async () => {
+  it('sweeps queue at most one job per lapsed chunk, however many sweep at once', async () => {
     const w = await makeRunWorld(1);
     const boss = await getBoss();
     // Earlier test files may leave run jobs queued in the shared test database: start from an empty queue.
@@ -89,58 +93,54 @@ describe('crash recovery with real worker processes', () => {
     const run = await launchRun(w.networkId, w.userId, w.config);
     // Drain the launch job so only the sweep's jobs are pending (no worker runs yet).
     const [launched] = await boss.fetch(RUN_QUEUE);
-    expect(launched.data).toEqual({ runId: run.id });
-    expect(await claimRun(run.id, 'vanished-worker', 1)).not.toBeNull();
-    expect(await sweepRuns(60)).toEqual({ continued: [], cancelled: [] }); // heartbeat still within a 60 s lease
+    expect(launched.data).toEqual({ runId: run.id, first: 0 });
+    expect(await claimChunk(run.id, 0, 'vanished-worker', 1)).not.toBeNull();
+    expect(await sweepRuns(60)).toEqual({ continued: [], cancelled: [], chunks: [] }); // heartbeat still within a 60 s lease
     await new Promise((r) => setTimeout(r, 1_200));
     const before = await boss.getQueueSize(RUN_QUEUE);
     const sweeps = await Promise.all([sweepRuns(1), sweepRuns(1), sweepRuns(1)]);
     const again = await sweepRuns(1);
-    expect(sweeps.flatMap((s) => s.continued).filter((id) => id === run.id)).toHaveLength(1);
-    expect(again.continued).not.toContain(run.id); // its continuation is still pending
+    expect(sweeps.flatMap((s) => s.chunks).filter((c) => c.runId === run.id)).toEqual([{ runId: run.id, first: 0 }]);
+    expect(sweeps.flatMap((s) => s.continued)).not.toContain(run.id); // a run in chunks is continued chunk by chunk
+    expect(again.chunks).toEqual([]); // its job is still pending
     expect(await boss.getQueueSize(RUN_QUEUE)).toBe(before + 1);
     expect(await deleteRun(w.networkId, run.id)).toBe(true); // the pending job will find no run
   });
 
-  it('a run whose worker is killed is continued by the next worker and stores every interval once', async () => {
-    // Enough intervals that a quiet machine cannot finish the run between two polls.
+  it('two worker processes share a run; one is killed and its chunk is taken over; every interval is stored once', async () => {
+    // Enough intervals and chunks that a quiet machine cannot finish the run between two polls.
     const w = await makeRunWorld(24);
+    const first = startWorker();
+    const second = startWorker();
+    for (const wk of [first, second])
+      await until('worker ready', async () => wk.out().includes('[worker] ready'), 40_000, wk.out);
     const run = await launchRun(w.networkId, w.userId, { ...w.config, starts: 16 });
     const total = run.intervalStarts.length;
     expect(total).toBe(24);
+    expect(await listRunChunks(run.id)).toHaveLength(6);
 
-    const first = startWorker();
-    // Kill mid-run: at least one interval stored, the run not yet over.
-    await until(
-      'first interval stored while the run is still going',
-      async () => {
-        const r = await getRunById(run.id);
-        return (
-          r &&
-          (r.state === 'running' || r.state === 'queued') &&
-          r.progress.intervalsDone >= 1 &&
-          r.progress.intervalsDone < total
-        );
-      },
-      40_000,
-      first.out,
-      25,
-    );
+    // Kill the first worker while both hold a chunk of the run at once, with at least one interval
+    // stored and the run not over.
+    const pidOf = (c: { workerId: string | null }) => c.workerId?.split(':')[1];
+    const bothAtWork = async () => {
+      const r = await getRunById(run.id);
+      if (!r || r.state !== 'running' || r.progress.intervalsDone < 1 || r.progress.intervalsDone >= total) return null;
+      const held = (await listRunChunks(run.id)).filter((c) => c.doneAt === null && c.workerId !== null);
+      const mine = held.find((c) => pidOf(c) === String(first.child.pid));
+      return mine && held.some((c) => pidOf(c) === String(second.child.pid)) ? mine : null;
+    };
+    const orphan = await until('both workers holding a chunk mid-run', bothAtWork, 40_000, first.out, 25);
     first.child.kill('SIGKILL');
     await exited(first.child);
-    const afterKill = await getRunById(run.id);
-    const storedAtKill = (await listRunIntervals(run.id)).length;
-    expect(storedAtKill).toBeGreaterThanOrEqual(1);
-    expect(storedAtKill).toBeLessThan(total);
+    expect(await listRunIntervals(run.id)).not.toHaveLength(total);
 
-    const second = startWorker();
     const done = await until(
       'run finished by the second worker',
       async () => {
         const r = await getRunById(run.id);
         return r && ['finished', 'failed', 'cancelled'].includes(r.state) ? r : null;
       },
-      45_000,
+      60_000,
       second.out,
     );
     expect(done.error).toBeNull();
@@ -152,10 +152,12 @@ describe('crash recovery with real worker processes', () => {
     expect([...starts].sort()).toEqual(run.intervalStarts.map((t) => new Date(t).toISOString()).sort()); // none missing
     expect(done.progress.intervalsDone).toBe(total);
     expect(done.progress.intervalsTotal).toBe(total);
-    expect(done.attempts).toBeGreaterThanOrEqual(2);
-    if (afterKill!.state === 'running') {
-      // Nothing but the sweep could have continued it: the dead worker's job stays 'active' for 20 minutes.
-      expect(second.out()).toContain(`[worker] sweep: run ${run.id} had no live worker; queued a continuation`);
-    }
-  }, 120_000);
+    // The killed worker's chunk was finished by the other after its lease lapsed: nothing but
+    // the sweep could have queued it (the dead worker's job stays 'active' for 20 minutes).
+    const chunks = await listRunChunks(run.id);
+    const taken = chunks.find((c) => c.first === orphan.first)!;
+    expect(taken.attempts).toBeGreaterThanOrEqual(2);
+    expect(pidOf(taken)).toBe(String(second.child.pid));
+    expect(second.out()).toContain(`[worker] sweep: chunk ${orphan.first} of run ${run.id} had no live worker; queued it again`);
+  }, 150_000);
 });

@@ -185,6 +185,9 @@ function RunPageBody({
             {STATE_WORDS[run.state]}
           </span>{' '}
           · {p.intervalsDone} of {p.intervalsTotal} intervals · attempt {run.attempts || 0}
+          {hasEnded(run.state) ? null : (
+            <span data-testid="run-workers"> · {run.workers === 1 ? '1 worker' : `${run.workers} workers`} on it now</span>
+          )}
         </p>
         <ProgressBar
           value={run.state === 'finished' ? 1 : fraction}
