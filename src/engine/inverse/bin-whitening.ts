@@ -6,9 +6,10 @@
  * c(2) the lag correlations, 0 beyond; bins missing from the list (left out,
  * e.g. mains lines) leave their neighbours at a larger distance, so the chain
  * breaks there. With the banded Cholesky factor C = L L^T (Golub & Van Loan,
- * Matrix Computations, §4.3, band Cholesky), residuals and Jacobian rows are
+ * Matrix Computations, §4.3, band Cholesky), residuals and Jacobian are
  * replaced by L^-1 r and L^-1 J (forward substitution, linear in the number of
- * bins), so that sum (L^-1 r)^2 = r^T C^-1 r, the generalised chi-square, and
+ * bins; on each Jacobian column, contiguous in a column-major Jacobian), so
+ * that sum (L^-1 r)^2 = r^T C^-1 r, the generalised chi-square, and
  * the optimiser works on independent unit-variance residuals without knowing
  * about the correlation.
  */
@@ -16,6 +17,8 @@
 /** The band Cholesky factor of one series: L_kk, L_k,k-1 and L_k,k-2 per bin. */
 export interface BandedWhitener {
   diag: Float64Array;
+  /** 1 / diag. */
+  invDiag: Float64Array;
   sub1: Float64Array;
   sub2: Float64Array;
 }
@@ -42,37 +45,19 @@ export function bandedWhitener(pos: ArrayLike<number>, lag: readonly [number, nu
     sub1[k] = l1;
     sub2[k] = l2;
   }
-  return { diag, sub1, sub2 };
+  return { diag, invDiag: diag.map((d) => 1 / d), sub1, sub2 };
 }
 
-/** r[offset + k] <- (L^-1 r)_k for the series' bins, in place. */
+/**
+ * r[offset + k] <- (L^-1 r)_k for the series' bins, in place: a residual vector, or one column of a column-major
+ * Jacobian (offset = column start + series offset), since L^-1 J is L^-1 applied to each column.
+ */
 export function whitenResiduals(w: BandedWhitener, r: Float64Array, offset: number): void {
   const n = w.diag.length;
-  for (let k = 0; k < n; k++) {
-    let v = r[offset + k];
-    if (k >= 1) v -= w.sub1[k] * r[offset + k - 1];
-    if (k >= 2) v -= w.sub2[k] * r[offset + k - 2];
-    r[offset + k] = v / w.diag[k];
-  }
-}
-
-/** Rows offset..offset+n-1 of a row-major Jacobian with `cols` columns <- L^-1 times them, in place. */
-export function whitenRows(w: BandedWhitener, jac: Float64Array, offset: number, cols: number): void {
-  const n = w.diag.length;
-  for (let k = 0; k < n; k++) {
-    const row = (offset + k) * cols;
-    const inv = 1 / w.diag[k];
-    const s1 = w.sub1[k];
-    const s2 = w.sub2[k];
-    if (s2 !== 0) {
-      for (let j = 0; j < cols; j++)
-        jac[row + j] = (jac[row + j] - s1 * jac[row - cols + j] - s2 * jac[row - 2 * cols + j]) * inv;
-    } else if (s1 !== 0) {
-      for (let j = 0; j < cols; j++) jac[row + j] = (jac[row + j] - s1 * jac[row - cols + j]) * inv;
-    } else if (inv !== 1) {
-      for (let j = 0; j < cols; j++) jac[row + j] *= inv;
-    }
-  }
+  const { invDiag, sub1, sub2 } = w;
+  if (n > 0) r[offset] *= invDiag[0];
+  if (n > 1) r[offset + 1] = (r[offset + 1] - sub1[1] * r[offset]) * invDiag[1];
+  for (let k = 2, i = offset + 2; k < n; k++, i++) r[i] = (r[i] - sub1[k] * r[i - 1] - sub2[k] * r[i - 2]) * invDiag[k];
 }
 
 /**

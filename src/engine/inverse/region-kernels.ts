@@ -4,11 +4,13 @@
  * E_c = sum_q w_q K_c(theta_q) proj_c(bearing_q) (Ez: ez; Bns: bh sin^2 b;
  * Bew: bh cos^2 b), and their derivatives with respect to the region's centre
  * through each node's own dependence on the centre (spotNodesInto) and
- * greatCircle's dtheta and dbearing. Allocation-free.
+ * greatCircle's dtheta and dbearing; the spread derivative of a spot by a
+ * central difference. Allocation-free after set-up.
  */
 import { greatCircleInto, type GreatCircle } from '@/src/engine/geometry/great-circle';
-import { SPOT_STRIDE } from '@/src/engine/sources/spot';
-import type { KernelBuffers, KernelSampler } from './kernel-sampler';
+import { SPOT_MAX_NODES, SPOT_STRIDE, spotNodesInto } from '@/src/engine/sources/spot';
+import { SPREAD_DIFF_STEP_DEG } from '@/src/engine/tolerances';
+import { createKernelBuffers, type KernelBuffers, type KernelSampler } from './kernel-sampler';
 
 /** Samples every node into bufs/gcs and writes E_Ez, E_Bns, E_Bew into out[0..2]. */
 export function effectiveKernels(
@@ -74,5 +76,46 @@ export function centreDerivatives(
       dLat[k] += w * (dK[k] * tLat * proj + K[k] * dProj * bLat);
       dLon[k] += w * (dK[k] * tLon * proj + K[k] * dProj * bLon);
     }
+  }
+}
+
+/** Scratch of spreadDerivative: one spot's nodes, kernel samples and geometry. */
+export interface SpotScratch {
+  nodes: Float64Array;
+  bufs: KernelBuffers[];
+  gcs: GreatCircle[];
+}
+
+export function createSpotScratch(nb: number): SpotScratch {
+  return {
+    nodes: new Float64Array(SPOT_MAX_NODES * SPOT_STRIDE),
+    bufs: Array.from({ length: SPOT_MAX_NODES }, () => createKernelBuffers(nb)),
+    gcs: Array.from({ length: SPOT_MAX_NODES }, () => ({}) as GreatCircle),
+  };
+}
+
+/**
+ * d E_c / d(spread) of a spot centred at (lat, lon) with the given spread, by a central difference of step
+ * SPREAD_DIFF_STEP_DEG (one-sided at spread 0): into plus[c]; minus[c] is overwritten as scratch.
+ */
+export function spreadDerivative(
+  kernel: KernelSampler,
+  station: { lat: number; lon: number },
+  lat: number,
+  lon: number,
+  spread: number,
+  s: SpotScratch,
+  plus: Float64Array[],
+  minus: Float64Array[],
+): void {
+  const lo = Math.max(0, spread - SPREAD_DIFF_STEP_DEG);
+  const hi = spread + SPREAD_DIFF_STEP_DEG;
+  effectiveKernels(kernel, station, s.nodes, spotNodesInto(lat, lon, hi, s.nodes), s.bufs, s.gcs, plus);
+  effectiveKernels(kernel, station, s.nodes, spotNodesInto(lat, lon, lo, s.nodes), s.bufs, s.gcs, minus);
+  const width = hi - lo;
+  for (let c = 0; c < 3; c++) {
+    const a = plus[c];
+    const b = minus[c];
+    for (let k = 0; k < a.length; k++) a[k] = (a[k] - b[k]) / width;
   }
 }

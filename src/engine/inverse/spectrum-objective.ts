@@ -17,15 +17,18 @@
  * sin(2b) for Bns and -sin(2b) for Bew. The spread derivative is a central
  * difference of the effective kernel (SPREAD_DIFF_STEP_DEG).
  * A series with correlated bins (Welch statistics) has its residuals and
- * Jacobian rows whitened (bin-whitening.ts): chi2 = r^T C^-1 r.
+ * Jacobian columns whitened (bin-whitening.ts): chi2 = r^T C^-1 r. The Jacobian
+ * is computed by columns (contiguous per series) from the samples the residuals
+ * left behind, so the optimiser needs no transpose; the row-major form is its
+ * transpose.
  */
 import type { GreatCircle } from '@/src/engine/geometry/great-circle';
 import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { SPOT_MAX_NODES, SPOT_STRIDE, spotNodesInto } from '@/src/engine/sources/spot';
-import { SPREAD_DIFF_STEP_DEG } from '@/src/engine/tolerances';
+import { transposeInto } from '@/src/engine/optim/normal-equations';
 import type { DataLayout } from './data-layout';
-import { whitenResiduals, whitenRows } from './bin-whitening';
-import { centreDerivatives, effectiveKernels } from './region-kernels';
+import { whitenResiduals } from './bin-whitening';
+import { centreDerivatives, createSpotScratch, effectiveKernels, spreadDerivative } from './region-kernels';
 import { InversionInputError } from './errors';
 import { createKernelBuffers, type KernelBuffers, type KernelSampler } from './kernel-sampler';
 import { regionValue, type Parameterisation } from './parameters';
@@ -86,11 +89,12 @@ export function spectrumProblem(
   const spread = new Float64Array(nR);
   const last = new Float64Array(n).fill(NaN);
   const predicted = new Float64Array(m);
-  const scratchNodes = new Float64Array(SPOT_MAX_NODES * SPOT_STRIDE);
-  const scratchBuf = Array.from({ length: SPOT_MAX_NODES }, () => createKernelBuffers(nb));
-  const scratchGc = Array.from({ length: SPOT_MAX_NODES }, () => ({}) as GreatCircle);
+  const spot = createSpotScratch(nb);
   const dLat = new Float64Array(nb);
   const dLon = new Float64Array(nb);
+  const dRdP = new Float64Array(Math.max(...layout.series.map((se) => se.bins.length)));
+  let rScratch: Float64Array | undefined;
+  let cScratch: Float64Array | undefined;
 
   function sampleAt(p: Float64Array): void {
     for (let r = 0; r < nR; r++) {
@@ -135,69 +139,47 @@ export function spectrumProblem(
     }
   }
 
-  function jacobian(p: Float64Array, out: Float64Array): void {
-    if (!same(p)) residuals(p, new Float64Array(m));
-    out.fill(0);
-    // spread: central differences of the effective kernels, once per station x region
+  /** Column-major Jacobian: every free parameter belongs to one region, whose loop writes its whole column. */
+  function jacobianColumns(p: Float64Array, out: Float64Array): void {
+    if (!same(p)) residuals(p, (rScratch ??= new Float64Array(m)));
     for (let r = 0; r < nR; r++) {
-      if (par.regions[r].index.spread < 0) continue;
       const reg = par.regions[r];
+      if (reg.index.spread < 0) continue;
       const lat = regionValue(reg, 'lat', p);
       const lon = regionValue(reg, 'lon', p);
-      const h = SPREAD_DIFF_STEP_DEG;
-      const lo = Math.max(0, spread[r] - h);
-      const hi = spread[r] + h;
       for (let s = 0; s < nS; s++) {
-        if (!used[s]) continue;
         const i = s * nR + r;
-        effectiveKernels(
-          kernel,
-          layout.stations[s],
-          scratchNodes,
-          spotNodesInto(lat, lon, hi, scratchNodes),
-          scratchBuf,
-          scratchGc,
-          effPlus[i],
-        );
-        effectiveKernels(
-          kernel,
-          layout.stations[s],
-          scratchNodes,
-          spotNodesInto(lat, lon, lo, scratchNodes),
-          scratchBuf,
-          scratchGc,
-          effMinus[i],
-        );
-        for (let c = 0; c < 3; c++)
-          for (let k = 0; k < nb; k++) effPlus[i][c][k] = (effPlus[i][c][k] - effMinus[i][c][k]) / (hi - lo);
+        if (used[s]) spreadDerivative(kernel, layout.stations[s], lat, lon, spread[r], spot, effPlus[i], effMinus[i]);
       }
     }
     for (const se of layout.series) {
       const { bins, component, offset } = se;
+      const len = bins.length;
+      // d r / d P per bin: log scale 1/(sigma P); otherwise 1/(sigma P_obs)
+      if (scale === 'log') for (let k = 0; k < len; k++) dRdP[k] = se.invSigma / predicted[offset + k];
+      else for (let k = 0; k < len; k++) dRdP[k] = se.invSigma / se.obs[k];
       for (let r = 0; r < nR; r++) {
-        const reg = par.regions[r];
+        const { intensity: jI, lat: jLat, lon: jLon, spread: jSp } = par.regions[r].index;
         const i = se.station * nR + r;
-        const jI = reg.index.intensity;
-        const jLat = reg.index.lat;
-        const jLon = reg.index.lon;
-        const jSp = reg.index.spread;
-        if (jLat >= 0 || jLon >= 0) centreDerivatives(nodes[r], nodeCount[r], gc[i], buf[i], component, dLat, dLon);
-        const E = eff[i][component];
-        const dSp = jSp >= 0 ? effPlus[i][component] : null;
         const I = inten[r];
-        for (let k = 0; k < bins.length; k++) {
-          const b = bins[k];
-          const row = (offset + k) * n;
-          // d r / d P: log scale 1/(sigma P); otherwise 1/(sigma P_obs)
-          const w = (I * se.invSigma) / (scale === 'log' ? predicted[offset + k] : se.obs[k]);
-          if (jI >= 0) out[row + jI] += w * E[b];
-          if (jLat >= 0) out[row + jLat] += w * dLat[b];
-          if (jLon >= 0) out[row + jLon] += w * dLon[b];
-          if (dSp) out[row + jSp] += w * dSp[b];
-        }
+        if (jI >= 0) columnInto(out, jI * m + offset, I, eff[i][component], bins);
+        if (jLat >= 0 || jLon >= 0) centreDerivatives(nodes[r], nodeCount[r], gc[i], buf[i], component, dLat, dLon);
+        if (jLat >= 0) columnInto(out, jLat * m + offset, I, dLat, bins);
+        if (jLon >= 0) columnInto(out, jLon * m + offset, I, dLon, bins);
+        if (jSp >= 0) columnInto(out, jSp * m + offset, I, effPlus[i][component], bins);
       }
-      if (se.whiten) whitenRows(se.whiten, out, offset, n);
+      if (se.whiten) for (let j = 0; j < n; j++) whitenResiduals(se.whiten, out, j * m + offset);
     }
+  }
+
+  /** out[at + k] = I dRdP[k] dE[bins[k]]: one series' stretch of one column. */
+  function columnInto(out: Float64Array, at: number, I: number, dE: Float64Array, bins: Int32Array): void {
+    for (let k = 0; k < bins.length; k++) out[at + k] = I * dRdP[k] * dE[bins[k]];
+  }
+
+  function jacobian(p: Float64Array, out: Float64Array): void {
+    jacobianColumns(p, (cScratch ??= new Float64Array(m * n)));
+    transposeInto(cScratch, n, m, out);
   }
 
   function refineStart(p: Float64Array): void {
@@ -205,5 +187,16 @@ export function spectrumProblem(
     linearStartIntensities(layout, par, (s, r, c) => eff[s * nR + r][c], inten, p);
   }
 
-  return { nParams: n, nResiduals: m, nData: m, lower: par.lower, upper: par.upper, residuals, jacobian, predicted, refineStart };
+  return {
+    nParams: n,
+    nResiduals: m,
+    nData: m,
+    lower: par.lower,
+    upper: par.upper,
+    residuals,
+    jacobian,
+    jacobianColumns,
+    predicted,
+    refineStart,
+  };
 }

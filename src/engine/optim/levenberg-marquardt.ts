@@ -10,7 +10,7 @@
  */
 import { choleskyFactor, choleskySolve } from './cholesky';
 import { OptimInputError } from './errors';
-import { accumulateNormalEquations, sumSquares } from './normal-equations';
+import { accumulateNormalEquations, normalEquationsFromColumns, sumSquares } from './normal-equations';
 import { resolveLmOptions } from './options';
 import {
   CONVERGED_REASONS,
@@ -58,6 +58,16 @@ export function levenbergMarquardt(
   const h = new Float64Array(n);
   const work = new Float64Array(n * n);
   const free = new Uint8Array(n);
+  /** J^T J and J^T r at p (by columns when the problem offers them). */
+  const linearise = () => {
+    if (problem.jacobianColumns) {
+      problem.jacobianColumns(p, jac);
+      normalEquationsFromColumns(jac, r, m, n, jtj, g);
+    } else {
+      problem.jacobian(p, jac);
+      accumulateNormalEquations(jac, r, m, n, jtj, g);
+    }
+  };
   for (let j = 0; j < n; j++) p[j] = Math.min(hi[j], Math.max(lo[j], start[j]));
 
   let evaluations = 1;
@@ -74,8 +84,7 @@ export function levenbergMarquardt(
     jtj: jtj.slice(),
   });
   if (!Number.isFinite(chi2)) return finish('non-finite');
-  problem.jacobian(p, jac);
-  accumulateNormalEquations(jac, r, m, n, jtj, g);
+  linearise();
   // With Marquardt scaling D = diag(J^T J), lambda is already relative to the curvature.
   let lambda = Math.min(o.dampingMax, Math.max(o.dampingMin, o.initialDamping));
   let nu = 2;
@@ -145,8 +154,7 @@ export function levenbergMarquardt(
         [p, pT] = [pT, p];
         [r, rT] = [rT, r];
         chi2 = chi2T;
-        problem.jacobian(p, jac);
-        accumulateNormalEquations(jac, r, m, n, jtj, g);
+        linearise();
         lambda = Math.max(o.dampingMin, lambda * Math.max(1 / 3, 1 - (2 * rho - 1) ** 3));
         nu = 2;
         if (relChange <= o.misfitTol && relPredicted <= o.misfitTol) return finish('misfit-change');

@@ -1,15 +1,25 @@
 /**
- * J^T J and J^T r from a row-major Jacobian, computing only the upper
- * triangle and mirroring it (common practice for the normal equations).
- * The Jacobian is first copied column by column, and each entry is then a
- * dot product of two contiguous columns with its own accumulator, four
- * entries per pass. Every sum still runs over the rows in order, as a
- * row-by-row accumulation would, so the values are the same bit for bit
- * (a zero term adds nothing to a finite sum); a Jacobian with non-finite
- * entries takes the row-by-row path, which skips exact zeros (0 x Infinity).
+ * J^T J and J^T r, computing only the upper triangle and mirroring it (common
+ * practice for the normal equations). The work is done on the Jacobian's
+ * columns (column-major, as a problem with jacobianColumns gives them; a
+ * row-major Jacobian is transposed first): each entry is a dot product of two
+ * contiguous columns with its own accumulator, four entries per pass. Every
+ * sum runs over the rows in order, as a row-by-row accumulation would, so the
+ * values are the same bit for bit (a zero term adds nothing to a finite sum);
+ * a Jacobian with non-finite entries takes the path that skips exact zeros
+ * (0 x Infinity adds nothing).
  */
-let cols = new Float64Array(0);
+let scratch = new Float64Array(0);
 
+/** dst (cols x rows, row-major) <- src (rows x cols, row-major) transposed. */
+export function transposeInto(src: Float64Array, rows: number, cols: number, dst: Float64Array): void {
+  for (let a = 0; a < cols; a++) {
+    const ca = a * rows;
+    for (let i = 0, ia = a; i < rows; i++, ia += cols) dst[ca + i] = src[ia];
+  }
+}
+
+/** The normal equations of a row-major Jacobian (m rows, n columns). */
 export function accumulateNormalEquations(
   jac: Float64Array,
   r: Float64Array,
@@ -18,12 +28,20 @@ export function accumulateNormalEquations(
   jtj: Float64Array,
   jtr: Float64Array,
 ): void {
-  if (cols.length < m * n) cols = new Float64Array(m * n);
-  const c = cols;
-  for (let a = 0; a < n; a++) {
-    const ca = a * m;
-    for (let i = 0, ia = a; i < m; i++, ia += n) c[ca + i] = jac[ia];
-  }
+  if (scratch.length < m * n) scratch = new Float64Array(m * n);
+  transposeInto(jac, m, n, scratch);
+  normalEquationsFromColumns(scratch, r, m, n, jtj, jtr);
+}
+
+/** The normal equations of a column-major Jacobian: column a is c[a * m .. a * m + m - 1]. */
+export function normalEquationsFromColumns(
+  c: Float64Array,
+  r: Float64Array,
+  m: number,
+  n: number,
+  jtj: Float64Array,
+  jtr: Float64Array,
+): void {
   let finite = true;
   for (let a = 0; a < n; a++) {
     const ca = a * m;
@@ -61,22 +79,22 @@ export function accumulateNormalEquations(
     if (!Number.isFinite(g)) finite = false;
     for (let k = a; k < n; k++) if (!Number.isFinite(jtj[a * n + k])) finite = false;
   }
-  if (!finite) rowByRow(jac, r, m, n, jtj, jtr);
+  if (!finite) skippingZeros(c, r, m, n, jtj, jtr);
   for (let a = 0; a < n; a++) for (let b = 0; b < a; b++) jtj[a * n + b] = jtj[b * n + a];
 }
 
-function rowByRow(jac: Float64Array, r: Float64Array, m: number, n: number, jtj: Float64Array, jtr: Float64Array): void {
-  jtj.fill(0);
-  jtr.fill(0);
-  for (let i = 0; i < m; i++) {
-    const row = i * n;
-    const ri = r[i];
-    for (let a = 0; a < n; a++) {
-      const ja = jac[row + a];
-      if (ja === 0) continue;
-      jtr[a] += ja * ri;
-      const base = a * n;
-      for (let b = a; b < n; b++) jtj[base + b] += ja * jac[row + b];
+/** The same sums in the same order, each term left out where the entry of column a is an exact zero. */
+function skippingZeros(c: Float64Array, r: Float64Array, m: number, n: number, jtj: Float64Array, jtr: Float64Array): void {
+  for (let a = 0; a < n; a++) {
+    const ca = a * m;
+    let g = 0;
+    for (let i = 0; i < m; i++) if (c[ca + i] !== 0) g += c[ca + i] * r[i];
+    jtr[a] = g;
+    for (let b = a; b < n; b++) {
+      const cb = b * m;
+      let s = 0;
+      for (let i = 0; i < m; i++) if (c[ca + i] !== 0) s += c[ca + i] * c[cb + i];
+      jtj[a * n + b] = s;
     }
   }
 }

@@ -13,6 +13,11 @@ export interface LeastSquaresProblem {
   residuals(p: Float64Array, out: Float64Array): void;
   /** Jacobian d r_i / d p_j, row-major nResiduals x nParams, written into out. */
   jacobian(p: Float64Array, out: Float64Array): void;
+  /**
+   * Optional: the same Jacobian column-major (out[j * nResiduals + i]), for a problem that computes it by columns;
+   * the optimiser then forms the normal equations without transposing.
+   */
+  jacobianColumns?(p: Float64Array, out: Float64Array): void;
   /** Optional: improve a quasi-random start point in place before a multi-start run uses it. */
   refineStart?(p: Float64Array): void;
 }

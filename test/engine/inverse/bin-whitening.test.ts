@@ -1,6 +1,6 @@
 import { Matrix, inverse } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { bandedWhitener, gridPositions, whitenResiduals, whitenRows } from '@/src/engine/inverse/bin-whitening';
+import { bandedWhitener, gridPositions, whitenResiduals } from '@/src/engine/inverse/bin-whitening';
 import { mulberry32 } from '@/src/engine/random';
 import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
 
@@ -27,8 +27,12 @@ describe('banded whitening of correlated bins', () => {
     const w = bandedWhitener(pos, lag);
     const z = Float64Array.from(r);
     whitenResiduals(w, z, 0);
-    const zj = Float64Array.from(jac);
-    whitenRows(w, zj, 0, cols);
+    // the Jacobian column by column (column-major copy, each column whitened like a residual vector)
+    const zj = new Float64Array(n * cols);
+    for (let a = 0; a < cols; a++) {
+      for (let k = 0; k < n; k++) zj[a * n + k] = jac[k * cols + a];
+      whitenResiduals(w, zj, a * n);
+    }
     const rm = Matrix.columnVector(Array.from(r));
     const chi2 = rm.transpose().mmul(cinv).mmul(rm).get(0, 0);
     expect(z.reduce((s, v) => s + v * v, 0)).toBeCloseTo(chi2, 10);
@@ -37,7 +41,7 @@ describe('banded whitening of correlated bins', () => {
     for (let a = 0; a < cols; a++)
       for (let b = 0; b < cols; b++) {
         let v = 0;
-        for (let k = 0; k < n; k++) v += zj[k * cols + a] * zj[k * cols + b];
+        for (let k = 0; k < n; k++) v += zj[a * n + k] * zj[b * n + k];
         expect(v).toBeCloseTo(ref.get(a, b), 10);
       }
   });
