@@ -4,6 +4,7 @@
  * and d_0 = 2 psi(1) - psi(-nu) - psi(1+nu) with psi(-nu) = psi(1+nu) + pi cot(pi nu) (A&S 6.3.7).
  */
 import { digammaInto } from './digamma';
+import { firstCoefficients, type SeriesCoefficients } from './legendre-coefficients';
 
 /** Per-degree constants, computed once per frequency. */
 export type LegendreDegree = {
@@ -22,6 +23,8 @@ export type LegendreDegree = {
   nMin: number;
   /** real non-negative integer degree: the Gauss series is a polynomial, used at every theta */
   polynomial: boolean;
+  /** The series coefficients c_n, d_n computed so far (legendre-coefficients.ts), shared by every theta. */
+  coef: SeriesCoefficients;
 };
 
 const EULER_GAMMA = 0.5772156649015329;
@@ -38,6 +41,8 @@ export function prepareDegree(nuRe: number, nuIm: number): LegendreDegree {
   // sin(pi nu) = sin(x) cosh(y) + i cos(x) sinh(y)
   const sx = Math.PI * nuRe;
   const sy = Math.PI * nuIm;
+  const d0Re = -2 * EULER_GAMMA - (psi[0] + pcRe) - psi[0];
+  const d0Im = -(psi[1] + pcIm) - psi[1];
   return {
     nuRe,
     nuIm,
@@ -45,9 +50,10 @@ export function prepareDegree(nuRe: number, nuIm: number): LegendreDegree {
     lamIm: nuIm * (2 * nuRe + 1),
     kRe: (-Math.sin(sx) * Math.cosh(sy)) / Math.PI,
     kIm: (-Math.cos(sx) * Math.sinh(sy)) / Math.PI,
-    d0Re: -2 * EULER_GAMMA - (psi[0] + pcRe) - psi[0],
-    d0Im: -(psi[1] + pcIm) - psi[1],
+    d0Re,
+    d0Im,
     nMin: Math.ceil(Math.hypot(nuRe, nuIm)) + 4,
     polynomial: nuIm === 0 && Number.isInteger(nuRe) && nuRe >= 0,
+    coef: firstCoefficients(d0Re, d0Im),
   };
 }

@@ -3,13 +3,13 @@
  * with its term-wise z-derivatives F', F'', F'''. Writes X, X', X'', Q, Q', Q'' (see legendre.ts).
  */
 import { LEGENDRE_MAX_TERMS, LEGENDRE_SERIES_REL_TOL } from '../tolerances';
+import { extendCoefficients } from './legendre-coefficients';
 import type { LegendreDegree } from './legendre-degree';
 
 /** z <= 1/2: F, F', F'', F''' in z, then chain rule with z' = -sin/2, z'' = -cos/2. */
 export function gaussSeries(deg: LegendreDegree, z: number, s: number, c: number, out: Float64Array): void {
-  const { lamRe, lamIm, nMin } = deg;
-  let tRe = 1,
-    tIm = 0; // t_n
+  const { nMin } = deg;
+  let co = deg.coef; // t_n = c_n
   let z0 = 1,
     zm1 = 0,
     zm2 = 0,
@@ -23,6 +23,9 @@ export function gaussSeries(deg: LegendreDegree, z: number, s: number, c: number
     f3Re = 0,
     f3Im = 0;
   for (let n = 0; n < LEGENDRE_MAX_TERMS; n++) {
+    if (n >= co.count) co = extendCoefficients(deg, co, Math.min(2 * n, LEGENDRE_MAX_TERMS));
+    const tRe = co.cRe[n],
+      tIm = co.cIm[n];
     const n1 = n * (n - 1);
     const n2 = n1 * (n - 2);
     f0Re += tRe * z0;
@@ -43,12 +46,6 @@ export function gaussSeries(deg: LegendreDegree, z: number, s: number, c: number
       )
         break;
     }
-    // t_{n+1} = t_n (n(n+1) - lambda) / (n+1)^2
-    const fRe = (n * (n + 1) - lamRe) / ((n + 1) * (n + 1));
-    const fIm = -lamIm / ((n + 1) * (n + 1));
-    const nr = tRe * fRe - tIm * fIm;
-    tIm = tRe * fIm + tIm * fRe;
-    tRe = nr;
     zm3 = zm2;
     zm2 = zm1;
     zm1 = z0;

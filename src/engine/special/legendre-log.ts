@@ -4,16 +4,14 @@
  * Legendre equation. Writes X, X', X'', Q, Q', Q'' (see legendre.ts).
  */
 import { LEGENDRE_MAX_TERMS, LEGENDRE_SERIES_REL_TOL } from '../tolerances';
+import { extendCoefficients } from './legendre-coefficients';
 import type { LegendreDegree } from './legendre-degree';
 
 /** w < 1/2: A&S 15.3.10 and its term-wise w-derivative; higher derivatives from the Legendre equation. */
 export function logSeries(deg: LegendreDegree, w: number, theta: number, s: number, c: number, out: Float64Array): void {
-  const { nuRe, nuIm, lamRe, lamIm, kRe, kIm, nMin } = deg;
+  const { lamRe, lamIm, kRe, kIm, nMin } = deg;
   const L = Math.log(w);
-  let cRe = 1,
-    cIm = 0; // c_n
-  let dRe = deg.d0Re,
-    dIm = deg.d0Im; // d_n
+  let co = deg.coef; // c_n, d_n
   let wn = 1,
     wm1 = 0; // w^n, w^(n-1)
   let s0Re = 0,
@@ -21,8 +19,11 @@ export function logSeries(deg: LegendreDegree, w: number, theta: number, s: numb
     s1Re = 0,
     s1Im = 0;
   for (let n = 0; n < LEGENDRE_MAX_TERMS; n++) {
-    const eRe = dRe - L; // d_n - ln w (ln w is real)
-    const eIm = dIm;
+    if (n >= co.count) co = extendCoefficients(deg, co, Math.min(2 * n, LEGENDRE_MAX_TERMS));
+    const cRe = co.cRe[n],
+      cIm = co.cIm[n];
+    const eRe = co.dRe[n] - L; // d_n - ln w (ln w is real)
+    const eIm = co.dIm[n];
     const pRe = cRe * eRe - cIm * eIm;
     const pIm = cRe * eIm + cIm * eRe;
     s0Re += pRe * wn;
@@ -41,21 +42,6 @@ export function logSeries(deg: LegendreDegree, w: number, theta: number, s: numb
       )
         break;
     }
-    // d_{n+1} = d_n + 2/(n+1) - 1/(n - nu) - 1/(n + 1 + nu)
-    const aRe = n - nuRe,
-      aIm = -nuIm;
-    const bRe = n + 1 + nuRe,
-      bIm = nuIm;
-    const ad = aRe * aRe + aIm * aIm;
-    const bd = bRe * bRe + bIm * bIm;
-    dRe += 2 / (n + 1) - aRe / ad - bRe / bd;
-    dIm += aIm / ad + bIm / bd;
-    // c_{n+1} = c_n (n(n+1) - lambda) / (n+1)^2
-    const fRe = (n * (n + 1) - lamRe) / ((n + 1) * (n + 1));
-    const fIm = -lamIm / ((n + 1) * (n + 1));
-    const nr = cRe * fRe - cIm * fIm;
-    cIm = cRe * fIm + cIm * fRe;
-    cRe = nr;
     wm1 = wn;
     wn *= w;
   }
