@@ -48,16 +48,28 @@ export function bandedWhitener(pos: ArrayLike<number>, lag: readonly [number, nu
   return { diag, invDiag: diag.map((d) => 1 / d), sub1, sub2 };
 }
 
-/**
- * r[offset + k] <- (L^-1 r)_k for the series' bins, in place: a residual vector, or one column of a column-major
- * Jacobian (offset = column start + series offset), since L^-1 J is L^-1 applied to each column.
- */
+/** r[offset + k] <- (L^-1 r)_k for the series' bins, in place. */
 export function whitenResiduals(w: BandedWhitener, r: Float64Array, offset: number): void {
+  whitenColumns(w, r, offset, 1, 1);
+}
+
+/**
+ * The series' rows of a column-major Jacobian (column j starts at j * stride) <- L^-1 times them, in place:
+ * L^-1 J is L^-1 applied to each column. The columns advance together, row by row, so that their independent
+ * recurrences overlap instead of each waiting on its own previous row.
+ */
+export function whitenColumns(w: BandedWhitener, jac: Float64Array, offset: number, stride: number, cols: number): void {
   const n = w.diag.length;
   const { invDiag, sub1, sub2 } = w;
-  if (n > 0) r[offset] *= invDiag[0];
-  if (n > 1) r[offset + 1] = (r[offset + 1] - sub1[1] * r[offset]) * invDiag[1];
-  for (let k = 2, i = offset + 2; k < n; k++, i++) r[i] = (r[i] - sub1[k] * r[i - 1] - sub2[k] * r[i - 2]) * invDiag[k];
+  const end = offset + cols * stride;
+  if (n > 0) for (let i = offset; i < end; i += stride) jac[i] *= invDiag[0];
+  if (n > 1) for (let i = offset + 1; i < end + 1; i += stride) jac[i] = (jac[i] - sub1[1] * jac[i - 1]) * invDiag[1];
+  for (let k = 2; k < n; k++) {
+    const s1 = sub1[k];
+    const s2 = sub2[k];
+    const inv = invDiag[k];
+    for (let i = offset + k; i < end + k; i += stride) jac[i] = (jac[i] - s1 * jac[i - 1] - s2 * jac[i - 2]) * inv;
+  }
 }
 
 /**

@@ -27,7 +27,7 @@ import type { LeastSquaresProblem } from '@/src/engine/optim/types';
 import { SPOT_MAX_NODES, SPOT_STRIDE, spotNodesInto } from '@/src/engine/sources/spot';
 import { transposeInto } from '@/src/engine/optim/normal-equations';
 import type { DataLayout } from './data-layout';
-import { whitenResiduals } from './bin-whitening';
+import { whitenColumns, whitenResiduals } from './bin-whitening';
 import { centreDerivatives, createSpotScratch, effectiveKernels, spreadDerivative } from './region-kernels';
 import { InversionInputError } from './errors';
 import { createKernelBuffers, type KernelBuffers, type KernelSampler } from './kernel-sampler';
@@ -39,6 +39,8 @@ export type MisfitScale = 'log' | 'linear' | 'power';
 
 export interface SpectrumProblem extends LeastSquaresProblem {
   nData: number;
+  /** The Jacobian column-major (out[j * nResiduals + i]), as the optimiser takes it. */
+  jacobianColumns(p: Float64Array, out: Float64Array): void;
   /** Predicted power per residual at the last evaluated point. */
   predicted: Float64Array;
   /**
@@ -168,7 +170,7 @@ export function spectrumProblem(
         if (jLon >= 0) columnInto(out, jLon * m + offset, I, dLon, bins);
         if (jSp >= 0) columnInto(out, jSp * m + offset, I, effPlus[i][component], bins);
       }
-      if (se.whiten) for (let j = 0; j < n; j++) whitenResiduals(se.whiten, out, j * m + offset);
+      if (se.whiten) whitenColumns(se.whiten, out, offset, m, n);
     }
   }
 
