@@ -19,29 +19,18 @@ export function transposeInto(src: Float64Array, rows: number, cols: number, dst
   }
 }
 
+/** J^T J (n x n) and J^T r (n) into jtj and jtr from the m x n Jacobian jac and the residuals r. */
+type NormalEquations = (jac: Float64Array, r: Float64Array, m: number, n: number, jtj: Float64Array, jtr: Float64Array) => void;
+
 /** The normal equations of a row-major Jacobian (m rows, n columns). */
-export function accumulateNormalEquations(
-  jac: Float64Array,
-  r: Float64Array,
-  m: number,
-  n: number,
-  jtj: Float64Array,
-  jtr: Float64Array,
-): void {
+export const accumulateNormalEquations: NormalEquations = (jac, r, m, n, jtj, jtr) => {
   if (scratch.length < m * n) scratch = new Float64Array(m * n);
   transposeInto(jac, m, n, scratch);
   normalEquationsFromColumns(scratch, r, m, n, jtj, jtr);
-}
+};
 
 /** The normal equations of a column-major Jacobian: column a is c[a * m .. a * m + m - 1]. */
-export function normalEquationsFromColumns(
-  c: Float64Array,
-  r: Float64Array,
-  m: number,
-  n: number,
-  jtj: Float64Array,
-  jtr: Float64Array,
-): void {
+export const normalEquationsFromColumns: NormalEquations = (c, r, m, n, jtj, jtr) => {
   let finite = true;
   for (let a = 0; a < n; a++) {
     const ca = a * m;
@@ -81,7 +70,7 @@ export function normalEquationsFromColumns(
   }
   if (!finite) skippingZeros(c, r, m, n, jtj, jtr);
   for (let a = 0; a < n; a++) for (let b = 0; b < a; b++) jtj[a * n + b] = jtj[b * n + a];
-}
+};
 
 /** The same sums in the same order, each term left out where the entry of column a is an exact zero. */
 function skippingZeros(c: Float64Array, r: Float64Array, m: number, n: number, jtj: Float64Array, jtr: Float64Array): void {
