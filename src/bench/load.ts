@@ -20,16 +20,14 @@ import { closeDatabase } from '@/db/lifecycle';
 import { stopBoss } from '@/db/jobs';
 import { insertUser } from '@/db/repo/users';
 import { createNetwork, upsertMembership } from '@/db/repo/networks';
-import { createStation } from '@/db/repo/stations';
 import { createRun, endRun, saveRunIntervals } from '@/db/repo/runs';
-import { saveGrid, saveModel } from '@/src/runs/catalogue';
-import type { RunConfig } from '@/src/runs/config';
 import { engineVersion } from '@/src/runs/engine-version';
 import { startSession } from '@/src/auth/session';
 import { nextBin, projectRoot } from '@/src/ops/paths';
 import { waitForHttp } from '@/src/ops/supervisor';
 import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { childEnv, setEnv, settings } from '@/src/settings';
+import { boxRegion, seedSyntheticNetwork, tenMinuteStarts } from '@/src/runs/synthetic-network';
 import { largeResult } from './large-result';
 
 const INTERVALS = 144;
@@ -50,65 +48,31 @@ const ms = (x: number) => `${x.toFixed(0)} ms`;
 /** A network with three invented huts, a model, a grid, the long run and OTHER_RUNS short ones. */
 async function seedNetwork(userId: string): Promise<{ networkId: string; runId: string }> {
   const network = await createNetwork('Load bench network', userId);
-  const stations = [];
-  for (let i = 0; i < 3; i++) {
-    stations.push(
-      await createStation(network.id, {
-        code: `LB${i + 1}`,
-        name: `Load bench hut ${i + 1}`,
-        latitude: -40 + 35 * i,
-        longitude: -150 + 110 * i,
-        elevationM: 100,
-        mainsHz: 50,
-        interferenceLines: [],
-        sampleRateHz: 200,
-        notes: '',
-        status: 'operating',
-        components: (['Ez', 'Bns', 'Bew'] as const).map((component) => ({
-          component,
-          calibration: { kind: 'gain' as const, gain: 1 },
-        })),
-      }),
-    );
-  }
-  const model = await saveModel(network.id, userId, {
-    name: 'Load linear',
-    notes: '',
-    config: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 },
-  });
-  const grid = await saveGrid(network.id, userId, {
-    name: 'Load cells',
-    notes: '',
-    cellSizeDeg: 10,
-    regions: REGIONS.map((r) => ({
-      key: r.key,
-      name: r.name,
-      colour: r.colour,
-      kind: 'moving' as const,
-      spreadDeg: 0,
-      centre: { lat: 0, lon: (r.lon.min + r.lon.max) / 2 },
-      bounds: { lat: r.lat, lon: r.lon },
-    })),
-  });
   const day = Date.UTC(2031, 6, 3);
-  const starts = Array.from({ length: INTERVALS }, (_, i) => new Date(day + i * 600_000));
-  const config: RunConfig = {
-    name: 'Load long run',
-    modelId: model.id,
-    gridId: grid.id,
-    data: {
-      stationIds: stations.map((s) => s.id),
-      components: ['Ez', 'Bns', 'Bew'],
-      from: starts[0].toISOString(),
-      to: starts.at(-1)!.toISOString(),
-      includeFlagged: false,
+  // No spectra: the runs' results are made up, so only the stations, model, grid and configuration are needed.
+  const { model, grid, config } = await seedSyntheticNetwork({
+    networkId: network.id,
+    userId,
+    sites: Array.from({ length: 3 }, (_, i) => ({
+      code: `LB${i + 1}`,
+      name: `Load bench hut ${i + 1}`,
+      latitude: -40 + 35 * i,
+      longitude: -150 + 110 * i,
+    })),
+    components: ['Ez', 'Bns', 'Bew'],
+    elevationM: 100,
+    model: { name: 'Load linear', cavity: { model: 'linear', earthRadiusKm: 6371, heightKm: 60 } },
+    grid: { name: 'Load cells', notes: '', cellSizeDeg: 10, regions: REGIONS.map(boxRegion) },
+    band: { minHz: 5, maxHz: 40, stepHz: 0.25 },
+    starts: tenMinuteStarts(day, INTERVALS),
+    run: {
+      name: 'Load long run',
+      regions: REGIONS.map((r) => ({ region: r.key, intensity: { min: 1e3, max: 1e6 }, lat: r.lat, lon: r.lon })),
+      scaleCovariance: false,
+      starts: STARTS,
+      seed: 5,
     },
-    observables: { kind: 'spectrum', minHz: 5, maxHz: 40, every: 1 },
-    regions: REGIONS.map((r) => ({ region: r.key, intensity: { min: 1e3, max: 1e6 }, lat: r.lat, lon: r.lon })),
-    damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
-    starts: STARTS,
-    seed: 5,
-  };
+  });
   const names = REGIONS.map((r) => r.name);
   const store = async (name: string, count: number, starts: number) => {
     const run = await createRun({

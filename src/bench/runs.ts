@@ -44,12 +44,8 @@ import { closeDatabase } from '@/db/lifecycle';
 import { stopBoss } from '@/db/jobs';
 import { insertUser } from '@/db/repo/users';
 import { createNetwork } from '@/db/repo/networks';
-import { createStation, type Station } from '@/db/repo/stations';
-import { saveIntervals } from '@/db/repo/intervals';
 import { createRun, getRunById, listRunIntervals, saveRunInterval } from '@/db/repo/runs';
-import { predictSpectra } from '@/src/engine/forward/predict';
 import { bandFrequencies } from '@/src/engine/band';
-import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import type { RunConfig } from '@/src/runs/config';
 import { launchRun } from '@/src/runs/launch';
 import { getRunView } from '@/src/runs/results';
@@ -57,7 +53,6 @@ import { executeRun } from '@/src/runs/execute';
 import { loadRunContext } from '@/src/runs/context';
 import { intervalLoader, loadIntervalObservations } from '@/src/runs/observations';
 import { engineSolver } from '@/src/runs/solver';
-import { gammaDeviate, mulberry32 } from '@/src/engine/random';
 import { engineVersion } from '@/src/runs/engine-version';
 import { startSession } from '@/src/auth/session';
 import { SESSION_COOKIE } from '@/src/auth/lucia';
@@ -67,7 +62,7 @@ import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { launchBrowser } from '@/src/ops/browser';
 import { childEnv, setEnv, settings } from '@/src/settings';
 import { REGION_COLOURS } from '@/src/design/tokens';
-import { logNormalStatistics } from '@/src/data/spectrum-statistics';
+import { boxRegion, seedSyntheticNetwork, tenMinuteStarts } from '@/src/runs/synthetic-network';
 
 const BENCH = settings();
 const INTERVALS = BENCH.BENCH_RUN_INTERVALS;
@@ -100,115 +95,49 @@ const median = (xs: number[]) => {
 };
 const ms = (x: number) => `${x.toFixed(x < 10 ? 2 : 0)} ms`;
 
-/** Invented bench huts with three components each, unit gain. */
-async function benchStations(
-  networkId: string,
-  sites: { code: string; name: string; latitude: number; longitude: number }[],
-): Promise<Station[]> {
-  const stations: Station[] = [];
-  for (const s of sites) {
-    stations.push(
-      await createStation(networkId, {
-        ...s,
-        elevationM: 200,
-        mainsHz: 50,
-        interferenceLines: [],
-        sampleRateHz: 200,
-        notes: '',
-        status: 'operating',
-        components: (['Ez', 'Bns', 'Bew'] as const).map((component) => ({
-          component,
-          calibration: { kind: 'gain' as const, gain: 1 },
-        })),
-      }),
-    );
-  }
-  return stations;
-}
-
 export async function seed() {
   const userId = `bench-${randomUUID()}`;
   await insertUser({ id: userId, email: `${userId}@example.test`, name: 'Bench analyst', passwordHash: 'x' });
   const network = await createNetwork('Bench network', userId);
-  const stations = await benchStations(network.id, SITES);
-  const model = await saveModel(network.id, userId, { name: 'Bench linear', notes: '', config: CAVITY });
-  const grid = await saveGrid(network.id, userId, {
-    name: 'Bench belts',
-    notes: '',
-    cellSizeDeg: 10,
-    regions: [
-      {
-        key: 'africa-belt',
-        name: 'Eastern belt',
-        colour: REGION_COLOURS[1],
-        kind: 'moving',
-        centre: { lat: 0, lon: 20 },
-        bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
-        spreadDeg: 0,
-      },
-      { key: 'america-belt', name: 'Western belt', colour: REGION_COLOURS[5], kind: 'cells', cells: [300, 301] },
-      { key: 'asia-belt', name: 'Far eastern belt', colour: REGION_COLOURS[2], kind: 'cells', cells: [317, 318] },
-    ],
-  });
-  const spectra = predictSpectra({
-    cavity: CAVITY,
-    band: BAND,
-    stations: stations.map((s) => ({
-      code: s.code,
-      lat: s.latitude,
-      lon: s.longitude,
-      components: ['Ez', 'Bns', 'Bew'] as const,
-    })),
-    sources: SOURCES,
-  });
-  const day = Date.UTC(2031, 6, 2, 0, 0, 0);
-  const starts = Array.from({ length: INTERVALS }, (_, i) => new Date(day + i * 600_000));
-  const SEGMENTS = 100;
-  const rand = mulberry32(20310702);
-  await saveIntervals(
-    starts.flatMap((t) =>
-      spectra.map((sp) => ({
-        networkId: network.id,
-        stationId: stations.find((s) => s.code === sp.station)!.id,
-        component: sp.component,
-        startsAt: t,
-        durationS: 600,
-        origin: 'synthetic' as const,
-        uploadId: null,
-        rejectedShare: 0,
-        qualityFlags: [],
-        spectrum: {
-          frequencies: sp.frequencies,
-          power: sp.power.map((p) => (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS),
-          segments: SEGMENTS,
-          // gamma deviates per bin, independent: ln P scatters by about 1/sqrt(K) (stated, as for synthetic data)
-          statistics: logNormalStatistics(1 / Math.sqrt(SEGMENTS)),
-        },
-        fit: null,
-      })),
-    ),
-  );
-  const config: RunConfig = {
-    name: 'Bench day',
-    modelId: model.id,
-    gridId: grid.id,
-    data: {
-      stationIds: stations.map((s) => s.id),
-      components: ['Ez', 'Bns', 'Bew'],
-      from: starts[0].toISOString(),
-      to: starts.at(-1)!.toISOString(),
-      includeFlagged: false,
+  const { config } = await seedSyntheticNetwork({
+    networkId: network.id,
+    userId,
+    sites: SITES,
+    components: ['Ez', 'Bns', 'Bew'],
+    elevationM: 200,
+    model: { name: 'Bench linear', cavity: CAVITY },
+    grid: {
+      name: 'Bench belts',
+      notes: '',
+      cellSizeDeg: 10,
+      regions: [
+        boxRegion({
+          key: 'africa-belt',
+          name: 'Eastern belt',
+          colour: REGION_COLOURS[1],
+          lat: { min: -20, max: 20 },
+          lon: { min: 0, max: 40 },
+        }),
+        { key: 'america-belt', name: 'Western belt', colour: REGION_COLOURS[5], kind: 'cells', cells: [300, 301] },
+        { key: 'asia-belt', name: 'Far eastern belt', colour: REGION_COLOURS[2], kind: 'cells', cells: [317, 318] },
+      ],
     },
-    observables: { kind: 'spectrum', minHz: BAND.minHz, maxHz: BAND.maxHz, every: 1 },
-    regions: [
-      { region: 'africa-belt', intensity: { min: 1e2, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 5, max: 35 } },
-      { region: 'america-belt', intensity: { min: 1e2, max: 1e6 } },
-      { region: 'asia-belt', intensity: { min: 1e2, max: 1e6 } },
-    ],
-    damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
-    starts: STARTS,
-    seed: 11,
-  };
+    band: BAND,
+    starts: tenMinuteStarts(Date.UTC(2031, 6, 2, 0, 0, 0), INTERVALS),
+    sources: SOURCES,
+    noise: { kind: 'gamma', seed: 20310702 },
+    run: {
+      name: 'Bench day',
+      regions: [
+        { region: 'africa-belt', intensity: { min: 1e2, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 5, max: 35 } },
+        { region: 'america-belt', intensity: { min: 1e2, max: 1e6 } },
+        { region: 'asia-belt', intensity: { min: 1e2, max: 1e6 } },
+      ],
+      scaleCovariance: false,
+      starts: STARTS,
+      seed: 11,
+    },
+  });
   return { userId, networkId: network.id, config };
 }
 
@@ -478,78 +407,26 @@ const dayTruth = (t: number) => [
 /** (c2)'s network: the inverter's day problem as stored spectra, in the same database as (a)–(c). */
 export async function seedDay(userId: string): Promise<{ networkId: string; config: RunConfig }> {
   const network = await createNetwork('Bench day network', userId);
-  const stations = await benchStations(network.id, DAY_SITES);
-  const model = await saveModel(network.id, userId, { name: 'Bench day linear', notes: '', config: CAVITY });
-  const grid = await saveGrid(network.id, userId, {
-    name: 'Bench day cells',
-    notes: '',
-    cellSizeDeg: 10,
-    regions: DAY_REGIONS.map((r) => ({
-      key: r.key,
-      name: r.name,
-      colour: r.colour,
-      kind: 'moving' as const,
-      spreadDeg: 0,
-      centre: { lat: (r.lat.min + r.lat.max) / 2, lon: (r.lon.min + r.lon.max) / 2 },
-      bounds: { lat: r.lat, lon: r.lon },
-    })),
-  });
-  const day = Date.UTC(2031, 6, 3, 0, 0, 0);
-  const starts = Array.from({ length: DAY_INTERVALS }, (_, i) => new Date(day + i * 600_000));
-  const SEGMENTS = 100;
-  const rand = mulberry32(20310703);
-  const sites = stations.map((s) => ({
-    code: s.code,
-    lat: s.latitude,
-    lon: s.longitude,
-    components: ['Ez', 'Bns', 'Bew'] as const,
-  }));
-  for (let i0 = 0; i0 < starts.length; i0 += 12) {
-    await saveIntervals(
-      starts.slice(i0, i0 + 12).flatMap((t, j) =>
-        predictSpectra({
-          cavity: CAVITY,
-          band: DAY_BAND,
-          stations: sites,
-          sources: dayTruth((i0 + j) / 144),
-        }).map((sp) => ({
-          networkId: network.id,
-          stationId: stations.find((s) => s.code === sp.station)!.id,
-          component: sp.component,
-          startsAt: t,
-          durationS: 600,
-          origin: 'synthetic' as const,
-          uploadId: null,
-          rejectedShare: 0,
-          qualityFlags: [],
-          spectrum: {
-            frequencies: sp.frequencies,
-            power: sp.power.map((p) => (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS),
-            segments: SEGMENTS,
-            statistics: logNormalStatistics(1 / Math.sqrt(SEGMENTS)),
-          },
-          fit: null,
-        })),
-      ),
-    );
-  }
-  const config: RunConfig = {
-    name: 'Bench inverter day',
-    modelId: model.id,
-    gridId: grid.id,
-    data: {
-      stationIds: stations.map((s) => s.id),
-      components: ['Ez', 'Bns', 'Bew'],
-      from: starts[0].toISOString(),
-      to: starts.at(-1)!.toISOString(),
-      includeFlagged: false,
+  const { config } = await seedSyntheticNetwork({
+    networkId: network.id,
+    userId,
+    sites: DAY_SITES,
+    components: ['Ez', 'Bns', 'Bew'],
+    elevationM: 200,
+    model: { name: 'Bench day linear', cavity: CAVITY },
+    grid: { name: 'Bench day cells', notes: '', cellSizeDeg: 10, regions: DAY_REGIONS.map(boxRegion) },
+    band: DAY_BAND,
+    starts: tenMinuteStarts(Date.UTC(2031, 6, 3, 0, 0, 0), DAY_INTERVALS),
+    sources: (i) => dayTruth(i / 144),
+    noise: { kind: 'gamma', seed: 20310703 },
+    run: {
+      name: 'Bench inverter day',
+      regions: DAY_REGIONS.map((r) => ({ region: r.key, intensity: { min: 1e3, max: 1e6 }, lat: r.lat, lon: r.lon })),
+      scaleCovariance: false,
+      starts: DAY_STARTS,
+      seed: 11,
     },
-    observables: { kind: 'spectrum', minHz: DAY_BAND.minHz, maxHz: DAY_BAND.maxHz, every: 1 },
-    regions: DAY_REGIONS.map((r) => ({ region: r.key, intensity: { min: 1e3, max: 1e6 }, lat: r.lat, lon: r.lon })),
-    damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
-    starts: DAY_STARTS,
-    seed: 11,
-  };
+  });
   return { networkId: network.id, config };
 }
 

@@ -5,13 +5,11 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { saveIntervals } from '@/db/repo/intervals';
-import { predictSpectra } from '@/src/engine/forward/predict';
 import { fitModes } from '@/src/engine/modes/fit-modes';
 import { storedFit } from '@/src/data/interval-processing';
 import { loadModeObservations } from '@/src/runs/observations';
 import type { RunConfig } from '@/src/runs/config';
-import { CAVITY, makeRunWorld, SEGMENTS, STATISTICS, TRUTH } from './world';
+import { makeRunWorld, SEGMENTS, storeSpectra, truthSpectra } from './world';
 
 describe('mode observations from stored fits', () => {
   beforeAll(resetDatabase);
@@ -20,28 +18,9 @@ describe('mode observations from stored fits', () => {
   it('carry each fit’s peak, sd of ln peak and (f, ln peak, g) correlation', async () => {
     const w = await makeRunWorld(1);
     const t = new Date(w.starts[0].getTime() + 3_600_000);
-    const spectra = predictSpectra({
-      cavity: CAVITY,
-      band: { minHz: 3, maxHz: 48, stepHz: 0.1 },
-      stations: w.stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez'] as const })),
-      sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
-    });
+    const spectra = truthSpectra(w, { minHz: 3, maxHz: 48, stepHz: 0.1 }, ['Ez']);
     const fits = spectra.map((sp) => storedFit(fitModes(sp.frequencies, sp.power, { modes: 5, averages: SEGMENTS })));
-    await saveIntervals(
-      spectra.map((sp, k) => ({
-        networkId: w.networkId,
-        stationId: w.stations.find((s) => s.code === sp.station)!.id,
-        component: sp.component,
-        startsAt: t,
-        durationS: 600,
-        origin: 'synthetic' as const,
-        uploadId: null,
-        rejectedShare: 0,
-        qualityFlags: [],
-        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS, statistics: STATISTICS },
-        fit: fits[k],
-      })),
-    );
+    await storeSpectra(w, spectra, t, { fit: (_, k) => fits[k] });
     const config: RunConfig = { ...w.config, observables: { kind: 'modes', modes: 3 } };
     const observed = await loadModeObservations(w.networkId, config, t);
     expect(observed).toHaveLength(3);

@@ -8,11 +8,11 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { saveIntervals } from '@/db/repo/intervals';
 import * as repo from '@/db/repo/intervals';
-import { predictSpectra } from '@/src/engine/forward/predict';
+import { syntheticRows, tenMinuteStarts } from '@/src/runs/synthetic-network';
 import { gammaDeviate, mulberry32 } from '@/src/engine/random';
 import type { RunConfig } from '@/src/runs/config';
 import { intervalLoader } from '@/src/runs/observations';
-import { BAND, CAVITY, makeRunWorld, SEGMENTS, STATISTICS, TRUTH } from './world';
+import { BAND, makeRunWorld, SEGMENTS, truthSpectra } from './world';
 
 // Which query the loader's getIntervalSpectra goes through: the binary one under test, or the plain text one.
 const via = vi.hoisted(() => ({ plain: false }));
@@ -34,18 +34,8 @@ describe('stored spectra read in binary form', () => {
   it('give the saved numbers and the same run observations as the text form, over a day', async () => {
     const w = await makeRunWorld(1);
     const day = Date.UTC(2031, 6, 3);
-    const starts = Array.from({ length: 144 }, (_, i) => new Date(day + i * 600_000));
-    const spectra = predictSpectra({
-      cavity: CAVITY,
-      band: BAND,
-      stations: w.stations.map((s) => ({
-        code: s.code,
-        lat: s.latitude,
-        lon: s.longitude,
-        components: ['Ez', 'Bns', 'Bew'] as const,
-      })),
-      sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
-    });
+    const starts = tenMinuteStarts(day, 144);
+    const spectra = truthSpectra(w, BAND, ['Ez', 'Bns', 'Bew']);
     // Welch-like scatter (power x Gamma(K, 1/K), K = SEGMENTS), so the doubles use all 17 digits; the first
     // spectrum of the day carries IEEE 754 edge values (IEEE 754-2008: 2^-1074, the largest finite double,
     // NaN), which the run leaves out as bins but which must still come back unchanged. (-0 is not among them:
@@ -53,28 +43,16 @@ describe('stored spectra read in binary form', () => {
     const rand = mulberry32(7);
     const edges = [5e-324, 1.7976931348623157e308, Number.NaN, 0.1 + 0.2];
     const saved = starts.flatMap((t, i) =>
-      spectra.map((sp, j) => ({
-        networkId: w.networkId,
-        stationId: w.stations.find((s) => s.code === sp.station)!.id,
-        component: sp.component,
-        startsAt: t,
-        durationS: 600,
-        origin: 'synthetic' as const,
-        uploadId: null,
-        rejectedShare: 0,
-        qualityFlags: [],
-        spectrum: {
-          // One interval of one series on another grid, so the frequencies change within the series and back.
-          frequencies: i === 50 && j === 4 ? sp.frequencies.map((f) => f + 0.25) : sp.frequencies,
-          power: sp.power.map((p, k) =>
+      syntheticRows(w.networkId, w.stations, spectra, t, SEGMENTS, {
+        power: (sp, j) =>
+          sp.power.map((p, k) =>
             i === 0 && j === 0 && k < edges.length ? edges[k] : (p * gammaDeviate(rand, SEGMENTS)) / SEGMENTS,
           ),
-          segments: SEGMENTS,
-          statistics: STATISTICS,
-        },
-        fit: null,
-      })),
+      }),
     );
+    // One interval of one series on another grid, so the frequencies change within the series and back.
+    const moved = saved[50 * spectra.length + 4].spectrum;
+    moved.frequencies = moved.frequencies.map((f) => f + 0.25);
     await saveIntervals(saved);
     const key = (stationId: string, component: string, t: Date) => `${stationId} ${component} ${t.getTime()}`;
     const byKey = new Map(saved.map((s) => [key(s.stationId, s.component, s.startsAt), s.spectrum]));

@@ -7,10 +7,9 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { listIntervals, saveIntervals, setIntervalFlag } from '@/db/repo/intervals';
+import { listIntervals, setIntervalFlag } from '@/db/repo/intervals';
 import { updateStation } from '@/db/repo/stations';
 import { bandFrequencies } from '@/src/engine/band';
-import { predictSpectra } from '@/src/engine/forward/predict';
 import { fitModes } from '@/src/engine/modes/fit-modes';
 import { modeSeriesSetup } from '@/src/engine/inverse/predicted-modes';
 import { listedLines, suppressLines } from '@/src/engine/signal/line-suppression';
@@ -24,7 +23,7 @@ import {
   loadSpectrumObservationsOf,
   MODE_BAND,
 } from '@/src/runs/observations';
-import { CAVITY, makeRunWorld, SEGMENTS, STATISTICS, TRUTH } from './world';
+import { makeRunWorld, SEGMENTS, storeSpectra, truthSpectra } from './world';
 
 describe('observations of several intervals at once', () => {
   beforeAll(resetDatabase);
@@ -57,12 +56,7 @@ describe('exclusions of stored mode fits in a mode run', () => {
     const w = await makeRunWorld(1);
     const t = w.starts[0];
     const grid = bandFrequencies(MODE_BAND);
-    const spectra = predictSpectra({
-      cavity: CAVITY,
-      band: MODE_BAND,
-      stations: w.stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez'] as const })),
-      sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
-    });
+    const spectra = truthSpectra(w, MODE_BAND, ['Ez']);
     // QX1: a time-series fit that left out 16.4–16.9 Hz; its station has since listed 11.05 Hz as well.
     // QX2: a fit stored before exclusions were recorded. QX3: a spectra-file fit that left out nothing.
     const line = listedLines([{ frequencyHz: 16.65 }]);
@@ -72,21 +66,7 @@ describe('exclusions of stored mode fits in a mode run', () => {
       if (sp.station === 'QX2') delete f.excluded;
       return f;
     });
-    await saveIntervals(
-      spectra.map((sp, k) => ({
-        networkId: w.networkId,
-        stationId: w.stations.find((s) => s.code === sp.station)!.id,
-        component: sp.component,
-        startsAt: t,
-        durationS: 600,
-        origin: 'synthetic' as const,
-        uploadId: null,
-        rejectedShare: 0,
-        qualityFlags: [],
-        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS, statistics: STATISTICS },
-        fit: fits[k],
-      })),
-    );
+    await storeSpectra(w, spectra, t, { fit: (_, k) => fits[k] });
     const lines = {
       QX1: [
         { frequencyHz: 16.65, label: 'rail' },

@@ -6,15 +6,26 @@
 import { randomUUID } from 'node:crypto';
 import { insertUser } from '@/db/repo/users';
 import { createNetwork } from '@/db/repo/networks';
-import { createStation, type Station, type StationInput } from '@/db/repo/stations';
-import { saveIntervals } from '@/db/repo/intervals';
-import { predictSpectra } from '@/src/engine/forward/predict';
-import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import type { GridInput } from '@/src/runs/grid-spec';
-import type { RunConfig } from '@/src/runs/config';
+import { saveIntervals } from '@/db/repo/intervals';
+import type { Band } from '@/src/engine/band';
+import type { Component } from '@/src/engine/components';
+import type { Spectrum } from '@/src/engine/forward/types';
+import {
+  seedSyntheticNetwork,
+  stationSpectra,
+  syntheticRows,
+  tenMinuteStarts,
+  type HutSite,
+  type SyntheticNetworkSpec,
+} from '@/src/runs/synthetic-network';
 import { logNormalStatistics } from '@/src/data/spectrum-statistics';
 
 export const TRUTH = { name: 'East basin', lat: -3, lon: 22, intensity: 3e4 };
+/** The true source as the forward model takes it. */
+export const TRUTH_SOURCE = { lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity };
+/** The first interval of every world: 2031-05-12 06:00 UTC (an invented day). */
+export const DAY = Date.UTC(2031, 4, 12, 6, 0, 0);
 export const CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 export const BAND = { minHz: 6, maxHz: 30, stepHz: 0.5 };
 /** Welch segments per stored spectrum: sigma of ln P = 1/sqrt(K) = 0.1. */
@@ -27,23 +38,6 @@ const SITES = [
   { code: 'QX2', name: 'Coastal plain hut', latitude: -30.4, longitude: 140.1 },
   { code: 'QX3', name: 'High desert hut', latitude: 35.3, longitude: -110.7 },
 ];
-
-function station(site: (typeof SITES)[number]): StationInput {
-  return {
-    ...site,
-    elevationM: 300,
-    mainsHz: 50,
-    interferenceLines: [],
-    sampleRateHz: 200,
-    notes: '',
-    status: 'operating',
-    components: [
-      { component: 'Ez', calibration: { kind: 'gain', gain: 1 } },
-      { component: 'Bns', calibration: { kind: 'gain', gain: 1 } },
-      { component: 'Bew', calibration: { kind: 'gain', gain: 1 } },
-    ],
-  };
-}
 
 export const GRID: GridInput = {
   name: 'Test grid',
@@ -63,60 +57,52 @@ export const GRID: GridInput = {
   ],
 };
 
+/** The east basin's unknowns in every world's run: intensity and a centre near the truth. */
+export const EAST_BASIN_UNKNOWNS = {
+  region: 'east-basin',
+  intensity: { min: 1e2, max: 1e6 },
+  lat: { min: -15, max: 15 },
+  lon: { min: 5, max: 35 },
+};
+
+/** The synthetic network of the test worlds: huts at `sites`, CAVITY, GRID, noise-free spectra of the truth from DAY. */
+export function worldSpec(
+  networkId: string,
+  userId: string,
+  sites: readonly HutSite[],
+  components: readonly Component[],
+  intervalCount: number,
+): SyntheticNetworkSpec {
+  return {
+    networkId,
+    userId,
+    sites,
+    components,
+    model: { name: 'Linear test', cavity: CAVITY },
+    grid: GRID,
+    band: BAND,
+    starts: tenMinuteStarts(DAY, intervalCount),
+    sources: [TRUTH_SOURCE],
+    segments: SEGMENTS,
+    run: { name: 'Round trip', regions: [EAST_BASIN_UNKNOWNS], scaleCovariance: false, starts: 4, seed: 7 },
+  };
+}
+
 export async function makeRunWorld(intervalCount = 4) {
   const userId = `u-${randomUUID()}`;
   await insertUser({ id: userId, email: `${userId}@example.test`, name: 'Run tester', passwordHash: 'x' });
   const network = await createNetwork(`runs ${userId}`, userId);
-  const stations: Station[] = [];
-  for (const s of SITES) stations.push(await createStation(network.id, station(s)));
-  const model = await saveModel(network.id, userId, { name: 'Linear test', notes: '', config: CAVITY });
-  const grid = await saveGrid(network.id, userId, GRID);
-  const spectra = predictSpectra({
-    cavity: CAVITY,
-    band: BAND,
-    stations: stations.map((s) => ({
-      code: s.code,
-      lat: s.latitude,
-      lon: s.longitude,
-      components: ['Ez', 'Bns', 'Bew'] as const,
-    })),
-    sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
-  });
-  const day = Date.UTC(2031, 4, 12, 6, 0, 0);
-  const starts = Array.from({ length: intervalCount }, (_, i) => new Date(day + i * 600_000));
-  await saveIntervals(
-    starts.flatMap((t) =>
-      spectra.map((sp) => ({
-        networkId: network.id,
-        stationId: stations.find((s) => s.code === sp.station)!.id,
-        component: sp.component,
-        startsAt: t,
-        durationS: 600,
-        origin: 'synthetic' as const,
-        uploadId: null,
-        rejectedShare: 0,
-        qualityFlags: [],
-        spectrum: { frequencies: sp.frequencies, power: sp.power, segments: SEGMENTS, statistics: STATISTICS },
-        fit: null,
-      })),
-    ),
-  );
-  const config: RunConfig = {
-    name: 'Round trip',
-    modelId: model.id,
-    gridId: grid.id,
-    data: {
-      stationIds: stations.map((s) => s.id),
-      components: ['Ez', 'Bns', 'Bew'],
-      from: starts[0].toISOString(),
-      to: starts.at(-1)!.toISOString(),
-      includeFlagged: false,
-    },
-    observables: { kind: 'spectrum', minHz: BAND.minHz, maxHz: BAND.maxHz, every: 1 },
-    regions: [{ region: 'east-basin', intensity: { min: 1e2, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 5, max: 35 } }],
-    damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: false },
-    starts: 4,
-    seed: 7,
-  };
-  return { userId, networkId: network.id, stations, model, grid, starts, config };
+  const made = await seedSyntheticNetwork(worldSpec(network.id, userId, SITES, ['Ez', 'Bns', 'Bew'], intervalCount));
+  return { userId, networkId: network.id, ...made };
+}
+
+export type RunWorld = Awaited<ReturnType<typeof makeRunWorld>>;
+
+/** Noise-free spectra of the true source at the world's stations. */
+export const truthSpectra = (w: RunWorld, band: Band, components: readonly Component[]): Spectrum[] =>
+  stationSpectra(w.stations, components, CAVITY, band, [TRUTH_SOURCE]);
+
+/** Stores spectra of the world's stations at `t` as processed intervals of SEGMENTS segments. */
+export async function storeSpectra(w: RunWorld, spectra: Spectrum[], t: Date, options: Parameters<typeof syntheticRows>[5] = {}) {
+  await saveIntervals(syntheticRows(w.networkId, w.stations, spectra, t, SEGMENTS, options));
 }

@@ -5,17 +5,14 @@
  * scatter (sigma of ln P = 1/sqrt(K) for K Welch segments; Welch 1967), run
  * through the real driver and engine solver.
  */
-import { saveIntervals } from '@/db/repo/intervals';
 import { createRun } from '@/db/repo/runs';
-import { createStation, type Station } from '@/db/repo/stations';
-import { predictSpectra } from '@/src/engine/forward/predict';
-import { gaussian, mulberry32 } from '@/src/engine/random';
-import { saveGrid, saveModel } from '@/src/runs/catalogue';
+import type { Station } from '@/db/repo/stations';
 import type { RunConfig } from '@/src/runs/config';
+import { seedSyntheticNetwork } from '@/src/runs/synthetic-network';
 import { executeRun } from '@/src/runs/execute';
 import { makeEngineSolver } from '@/src/runs/solver';
 import { setupCallers, type AuthzWorld } from '@/test/helpers/authz';
-import { BAND, CAVITY, GRID, SEGMENTS, STATISTICS, TRUTH } from '@/test/runs/world';
+import { EAST_BASIN_UNKNOWNS, worldSpec } from '@/test/runs/world';
 
 const SITES = [
   { code: 'LK1', name: 'Lakeside hut', latitude: 48.2, longitude: 10.5 },
@@ -33,77 +30,17 @@ export interface SharingWorld extends AuthzWorld {
 export async function makeSharingWorld(tag: string, intervalCount = 1, noiseSeed = 11): Promise<SharingWorld> {
   const w = await setupCallers(tag);
   const owner = w.callers.owner.userId!;
-  const stations: Station[] = [];
-  for (const s of SITES)
-    stations.push(
-      await createStation(w.networkId, {
-        ...s,
-        elevationM: 300,
-        mainsHz: 50,
-        interferenceLines: [],
-        sampleRateHz: 200,
-        notes: '',
-        status: 'operating',
-        components: [
-          { component: 'Ez', calibration: { kind: 'gain', gain: 1 } },
-          { component: 'Bns', calibration: { kind: 'gain', gain: 1 } },
-        ],
-      }),
-    );
-  const model = await saveModel(w.networkId, owner, { name: 'Linear test', notes: '', config: CAVITY });
-  const grid = await saveGrid(w.networkId, owner, GRID);
-  const spectra = predictSpectra({
-    cavity: CAVITY,
-    band: BAND,
-    stations: stations.map((s) => ({ code: s.code, lat: s.latitude, lon: s.longitude, components: ['Ez', 'Bns'] as const })),
-    sources: [{ lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.intensity }],
-  });
-  const rand = mulberry32(noiseSeed);
-  const sigma = 1 / Math.sqrt(SEGMENTS);
-  const day = Date.UTC(2031, 4, 12, 6, 0, 0);
-  const starts = Array.from({ length: intervalCount }, (_, i) => new Date(day + i * 600_000));
-  await saveIntervals(
-    starts.flatMap((t) =>
-      spectra.map((sp) => ({
-        networkId: w.networkId,
-        stationId: stations.find((s) => s.code === sp.station)!.id,
-        component: sp.component,
-        startsAt: t,
-        durationS: 600,
-        origin: 'synthetic' as const,
-        uploadId: null,
-        rejectedShare: 0,
-        qualityFlags: [],
-        spectrum: {
-          frequencies: sp.frequencies,
-          power: sp.power.map((p) => p * Math.exp(sigma * gaussian(rand))),
-          segments: SEGMENTS,
-          statistics: STATISTICS,
-        },
-        fit: null,
-      })),
-    ),
-  );
-  const config: RunConfig = {
-    name: 'Shared run',
-    modelId: model.id,
-    gridId: grid.id,
-    data: {
-      stationIds: stations.map((s) => s.id),
-      components: ['Ez', 'Bns'],
-      from: starts[0].toISOString(),
-      to: starts.at(-1)!.toISOString(),
-      includeFlagged: false,
+  const spec = worldSpec(w.networkId, owner, SITES, ['Ez', 'Bns'], intervalCount);
+  const { stations, model, grid, starts, config } = await seedSyntheticNetwork({
+    ...spec,
+    noise: { kind: 'log-normal', seed: noiseSeed },
+    run: {
+      ...spec.run,
+      name: 'Shared run',
+      regions: [EAST_BASIN_UNKNOWNS, { region: 'west-shelf', intensity: { min: 1, max: 1e6 } }],
+      scaleCovariance: true,
     },
-    observables: { kind: 'spectrum', minHz: BAND.minHz, maxHz: BAND.maxHz, every: 1 },
-    regions: [
-      { region: 'east-basin', intensity: { min: 1e2, max: 1e6 }, lat: { min: -15, max: 15 }, lon: { min: 5, max: 35 } },
-      { region: 'west-shelf', intensity: { min: 1, max: 1e6 } },
-    ],
-    damping: { initialLambda: 1e-2, maxIterations: 200, scaleCovariance: true },
-    starts: 4,
-    seed: 7,
-  };
+  });
   const run = await createRun({
     networkId: w.networkId,
     name: config.name,
