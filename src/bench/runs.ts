@@ -95,17 +95,23 @@ const median = (xs: number[]) => {
 };
 const ms = (x: number) => `${x.toFixed(x < 10 ? 2 : 0)} ms`;
 
+/** What both bench networks share: three-component huts at 200 m, the linear cavity, 100-segment Welch scatter (gamma). */
+const benchSpec = (networkId: string, userId: string, modelName: string, noiseSeed: number) => ({
+  networkId,
+  userId,
+  components: ['Ez', 'Bns', 'Bew'] as const,
+  elevationM: 200,
+  model: { name: modelName, cavity: CAVITY },
+  noise: { kind: 'gamma' as const, seed: noiseSeed },
+});
+
 export async function seed() {
   const userId = `bench-${randomUUID()}`;
   await insertUser({ id: userId, email: `${userId}@example.test`, name: 'Bench analyst', passwordHash: 'x' });
   const network = await createNetwork('Bench network', userId);
   const { config } = await seedSyntheticNetwork({
-    networkId: network.id,
-    userId,
+    ...benchSpec(network.id, userId, 'Bench linear', 20310702),
     sites: SITES,
-    components: ['Ez', 'Bns', 'Bew'],
-    elevationM: 200,
-    model: { name: 'Bench linear', cavity: CAVITY },
     grid: {
       name: 'Bench belts',
       notes: '',
@@ -125,7 +131,6 @@ export async function seed() {
     band: BAND,
     starts: tenMinuteStarts(Date.UTC(2031, 6, 2, 0, 0, 0), INTERVALS),
     sources: SOURCES,
-    noise: { kind: 'gamma', seed: 20310702 },
     run: {
       name: 'Bench day',
       regions: [
@@ -408,17 +413,12 @@ const dayTruth = (t: number) => [
 export async function seedDay(userId: string): Promise<{ networkId: string; config: RunConfig }> {
   const network = await createNetwork('Bench day network', userId);
   const { config } = await seedSyntheticNetwork({
-    networkId: network.id,
-    userId,
+    ...benchSpec(network.id, userId, 'Bench day linear', 20310703),
     sites: DAY_SITES,
-    components: ['Ez', 'Bns', 'Bew'],
-    elevationM: 200,
-    model: { name: 'Bench day linear', cavity: CAVITY },
     grid: { name: 'Bench day cells', notes: '', cellSizeDeg: 10, regions: DAY_REGIONS.map(boxRegion) },
     band: DAY_BAND,
     starts: tenMinuteStarts(Date.UTC(2031, 6, 3, 0, 0, 0), DAY_INTERVALS),
     sources: (i) => dayTruth(i / 144),
-    noise: { kind: 'gamma', seed: 20310703 },
     run: {
       name: 'Bench inverter day',
       regions: DAY_REGIONS.map((r) => ({ region: r.key, intensity: { min: 1e3, max: 1e6 }, lat: r.lat, lon: r.lon })),
