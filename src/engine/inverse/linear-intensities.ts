@@ -22,28 +22,36 @@ export function linearStartIntensities(
 ): void {
   const nR = par.regions.length;
   const freeOf = new Int32Array(nR).fill(-1);
-  const free: { r: number; j: number }[] = [];
+  const freeR: number[] = [];
+  const freeJ: number[] = [];
   par.regions.forEach((reg, r) => {
     if (reg.index.intensity >= 0) {
-      freeOf[r] = free.length;
-      free.push({ r, j: reg.index.intensity });
+      freeOf[r] = freeR.length;
+      freeR.push(r);
+      freeJ.push(reg.index.intensity);
     }
   });
-  if (free.length === 0) return;
-  const active = free.map(() => true);
-  const value = free.map(({ j }) => Math.exp(Math.min(par.upper[j], Math.max(par.lower[j], p[j]))));
-  for (let pass = 0; pass <= free.length; pass++) {
-    const idx = free.map((_, a) => a).filter((a) => active[a]);
-    if (idx.length === 0) break;
-    const k = idx.length;
-    const ata = new Float64Array(k * k);
-    const atb = new Float64Array(k);
+  const nF = freeR.length;
+  if (nF === 0) return;
+  const active = new Uint8Array(nF).fill(1);
+  const value = Float64Array.from(freeJ, (j) => Math.exp(Math.min(par.upper[j], Math.max(par.lower[j], p[j]))));
+  const idx = new Int32Array(nF); // region of each active free intensity
+  const ata = new Float64Array(nF * nF);
+  const atb = new Float64Array(nF);
+  const e = new Float64Array(nF); // one bin's row of the design matrix
+  const effs: Float64Array[] = new Array<Float64Array>(nR);
+  for (let pass = 0; pass <= nF; pass++) {
+    let k = 0;
+    for (let a = 0; a < nF; a++) if (active[a]) idx[k++] = freeR[a];
+    if (k === 0) break;
+    ata.fill(0);
+    atb.fill(0);
     for (const se of layout.series) {
-      const w = se.invSigma;
-      const effs = Array.from({ length: nR }, (_, r) => effective(se.station, r, se.component));
-      for (let q = 0; q < se.bins.length; q++) {
-        const b = se.bins[q];
-        const o = se.obs[q];
+      const { bins, obs, invSigma: w } = se;
+      for (let r = 0; r < nR; r++) effs[r] = effective(se.station, r, se.component);
+      for (let q = 0; q < bins.length; q++) {
+        const b = bins[q];
+        const o = obs[q];
         // known part: fixed-intensity regions and intensities held at a bound
         let known = 0;
         for (let r = 0; r < nR; r++) {
@@ -52,26 +60,28 @@ export function linearStartIntensities(
           else if (!active[fi]) known += value[fi] * effs[r][b];
         }
         const rhs = (1 - known / o) * w;
+        for (let a = 0; a < k; a++) e[a] = (effs[idx[a]][b] / o) * w;
         for (let a = 0; a < k; a++) {
-          const ea = (effs[free[idx[a]].r][b] / o) * w;
+          const ea = e[a];
           atb[a] += ea * rhs;
-          for (let c = 0; c < k; c++) ata[a * k + c] += ea * (effs[free[idx[c]].r][b] / o) * w;
+          for (let c = 0; c < k; c++) ata[a * k + c] += ea * e[c];
         }
       }
     }
     if (!choleskyFactor(ata, k)) return;
     choleskySolve(ata, k, atb);
     let clamped = false;
-    idx.forEach((a, c) => {
-      const { j } = free[a];
-      const lo = Math.exp(par.lower[j]);
-      if (!(atb[c] > lo)) {
+    for (let a = 0, c = 0; a < nF; a++) {
+      if (!active[a]) continue;
+      const lo = Math.exp(par.lower[freeJ[a]]);
+      const x = atb[c++];
+      if (!(x > lo)) {
         value[a] = lo;
-        active[a] = false;
+        active[a] = 0;
         clamped = true;
-      } else value[a] = Math.min(Math.exp(par.upper[j]), atb[c]);
-    });
+      } else value[a] = Math.min(Math.exp(par.upper[freeJ[a]]), x);
+    }
     if (!clamped) break;
   }
-  free.forEach(({ j }, a) => (p[j] = Math.log(value[a])));
+  for (let a = 0; a < nF; a++) p[freeJ[a]] = Math.log(value[a]);
 }
