@@ -494,13 +494,15 @@ export async function sweepLapsedRuns(
         ),
       );
     for (const r of rows) await send(r.id);
-    // A chunk without a holder counts as lost only once its job is neither waiting nor being taken up.
+    // A chunk without a holder counts as lost only once its job is neither waiting nor being
+    // taken up (fetched within the lease: a worker that died between fetching and claiming
+    // leaves its job 'active' until pg-boss expires it).
     const chunks = await tx.execute<{ run_id: string; first_index: number }>(sql`
       select c.run_id, c.first_index from ${runChunks} c join ${runs} r on r.id = c.run_id
       where c.done_at is null and r.state in ('queued', 'running') and not r.cancel_requested
         and ((c.worker_id is not null and c.heartbeat_at < ${before})
           or (c.worker_id is null and coalesce(c.heartbeat_at, r.created_at) < ${before}
-            and not exists (select 1 from ${jobs} j where j.name = ${queue} and j.state = 'active'
+            and not exists (select 1 from ${jobs} j where j.name = ${queue} and j.state = 'active' and j.started_on >= ${before}
               and j.data->>'runId' = c.run_id::text and (j.data->>'first')::int = c.first_index)))
         and not exists (select 1 from ${jobs} j where j.name = ${queue} and j.state in ('created', 'retry')
           and j.data->>'runId' = c.run_id::text and (j.data->>'first')::int = c.first_index)
