@@ -79,6 +79,18 @@ export async function enqueue<T extends object>(queue: string, data: T, options:
   return id;
 }
 
+/** Sends one job per item of `data` to one queue, in one statement (e.g. the chunks of a run). */
+export async function enqueueMany<T extends object>(
+  queue: string,
+  data: T[],
+  options: Omit<PgBoss.JobInsert, 'name' | 'data' | 'id'> = {},
+): Promise<void> {
+  if (data.length === 0) return;
+  await ensureQueue(queue);
+  const boss = await getBoss();
+  await boss.insert(data.map((d) => ({ ...options, name: queue, data: d })));
+}
+
 /** Cancels a queued or running job (a running handler is not interrupted; see its own checks). */
 export async function cancelJob(queue: string, id: string): Promise<void> {
   const boss = await getBoss();

@@ -7,7 +7,7 @@
  * after a crash (the driver resumes from the stored intervals); an attempt that stops
  * reporting expires and is retried.
  */
-import { enqueue } from '@/db/jobs';
+import { enqueue, enqueueMany } from '@/db/jobs';
 import { hasChunks, undoneChunks } from '@/db/repo/run-chunks';
 
 export const RUN_QUEUE = 'run-inversion';
@@ -39,7 +39,12 @@ export async function enqueueChunk(runId: string, first: number): Promise<void> 
  */
 export async function enqueueRunWork(runId: string): Promise<void> {
   if (!(await hasChunks(runId))) return enqueueRun(runId);
-  for (const first of await undoneChunks(runId, true)) await enqueueChunk(runId, first);
+  const firsts = await undoneChunks(runId, true);
+  await enqueueMany(
+    RUN_QUEUE,
+    firsts.map((first): RunJobData => ({ runId, first })),
+    RUN_JOB_OPTIONS,
+  );
 }
 
 /** Queues a job that computes a misfit surface. */

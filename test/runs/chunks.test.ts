@@ -138,20 +138,25 @@ describe('runs worked in chunks', () => {
     let cancelled = false;
     let started = 0;
     let bothAtWork = () => {};
-    const twoAtWork = { promise: new Promise<void>((r) => (bothAtWork = r)), resolve: () => bothAtWork() };
-    // Each interval waits until both workers are at work, then is solved by the engine.
+    const twoAtWork = new Promise<void>((r) => (bothAtWork = r));
+    let cancelAsked = () => {};
+    const asked = new Promise<void>((r) => (cancelAsked = r));
+    // Each worker's first interval waits until both workers are at work, every later one until
+    // the cancel has been asked for; then the engine solves it.
     const solve: IntervalSolver = async (ctx, c, h) => {
-      if (++started === 2) twoAtWork.resolve();
-      await twoAtWork.promise;
+      started++;
+      if (started === 2) bothAtWork();
+      await (started <= 2 ? twoAtWork : asked);
       if (cancelled) solvedAfterCancel++;
       return engineSolver(ctx, c, h);
     };
     const firsts = [0, 3, 6];
     const working = Promise.all([worker(run.id, 'worker-a', firsts, solve), worker(run.id, 'worker-b', firsts, solve)]);
-    await twoAtWork.promise;
+    await twoAtWork;
     expect((await getRunView(w.networkId, run.id)).run.workers).toBe(2); // what the run page shows
     await cancelRun(w.networkId, run.id);
     cancelled = true;
+    cancelAsked();
     const outcomes = (await working).flat();
     // Each worker stops its chunk at its next check (it may complete the interval in hand), and
     // the chunk left waiting is not taken up.
