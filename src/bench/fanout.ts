@@ -22,6 +22,7 @@ import { closeDatabase } from '@/db/lifecycle';
 import { stopBoss } from '@/db/jobs';
 import { insertUser } from '@/db/repo/users';
 import { getRunById, listRunIntervals } from '@/db/repo/runs';
+import { listRunChunks } from '@/db/repo/run-chunks';
 import { launchRun } from '@/src/runs/launch';
 import { hasEnded } from '@/src/runs/lifecycle';
 import { programArgs, projectRoot } from '@/src/ops/paths';
@@ -91,8 +92,15 @@ async function dayWith(n: number, url: string, networkId: string, userId: string
     const wallS = (performance.now() - t0) / 1000;
     const end = (await getRunById(run.id))!;
     if (end.state !== 'finished') throw new Error(`the run ended ${end.state}: ${end.error ?? ''}`);
+    const share = new Map<string, number>();
+    for (const c of await listRunChunks(run.id)) {
+      const pid = c.workerId!.split(':')[1];
+      share.set(pid, (share.get(pid) ?? 0) + 1);
+    }
+    const pids = [...share].map(([pid, k]) => `${pid}: ${k}`).join(', ');
     console.log(
-      `  ${n} worker(s): ${wallS.toFixed(1)} s wall for ${end.progress.intervalsDone} intervals (load before ${before}, after ${load()})`,
+      `  ${n} worker(s): ${wallS.toFixed(1)} s wall for ${end.progress.intervalsDone} intervals; chunks per worker process ${pids} ` +
+        `(load before ${before}, after ${load()})`,
     );
     return { wallS, results: resultsOf(await listRunIntervals(run.id)) };
   } finally {
