@@ -9,7 +9,7 @@ import { processInterval } from '@/src/engine/pipeline/process-interval';
 import type { ProcessingConfig } from '@/src/engine/pipeline/types';
 import { calibrateSpectrum, type Calibration } from '@/src/engine/signal/calibration';
 import { fitModes, ModeFitError } from '@/src/engine/modes/fit-modes';
-import { hannWelchScatter } from '@/src/engine/modes/bin-scatter';
+import { welchScatter } from '@/src/engine/modes/bin-scatter';
 import type { ModeFit } from '@/src/engine/modes/types';
 import { ModeFitOptionError } from '@/src/engine/modes/options';
 import {
@@ -146,8 +146,9 @@ export function processRawInterval(station: Station, raw: RawInterval): Processe
   const frequencies = Array.from(raw.frequencies);
   // A file's spectrum carries no segment count: assume the usual 10-s Hann segments with 50 % overlap
   // (their equivalent averages and correlated neighbouring bins, as for the pipeline's own spectra).
-  const segments = Math.max(1, Math.floor((2 * raw.durationS) / SIGNAL_SEGMENT_SECONDS) - 1);
-  const scatter = hannWelchScatter(segments);
+  const statistics = assumedStatistics(raw.durationS);
+  const segments = statistics.welch.segments;
+  const scatter = welchScatter(statistics.welch);
   const flags: string[] = [];
   let fit = null;
   const modes = modeCountBelow(frequencies[frequencies.length - 1] ?? 0);
@@ -161,6 +162,5 @@ export function processRawInterval(station: Station, raw: RawInterval): Processe
       if (!(e instanceof ModeFitError) && !(e instanceof ModeFitOptionError)) throw e;
       flags.push('fit-failed');
     }
-  const statistics = assumedStatistics(raw.durationS);
   return { ...base, rejectedShare: 0, qualityFlags: flags, spectrum: { frequencies, power, segments, statistics }, fit };
 }

@@ -19,7 +19,7 @@ export function measuredStatistics(welch: WelchStatistics): SpectrumStatistics {
 }
 
 /** A spectrum file's: the pipeline's 10-s Hann segments at 50 % overlap over the interval, contiguous (assumed). */
-export function assumedStatistics(durationS: number): SpectrumStatistics {
+export function assumedStatistics(durationS: number): Exclude<SpectrumStatistics, { basis: 'log-normal' }> {
   const segments = Math.max(1, Math.floor((2 * durationS) / SIGNAL_SEGMENT_SECONDS) - 1);
   return { basis: 'assumed', welch: hannWelchStatistics(segments, PIPELINE_OVERLAP) };
 }

@@ -10,9 +10,8 @@
  * frequency on the edge of its window or a half-width on its bounds (the fit did not find a resonance
  * there), a Q-factor outside MODE_Q_MIN–MODE_Q_MAX; every mode of a fit that did not converge.
  */
-import { propagateBinScatter, type BinScatter } from '@/src/engine/modes/bin-scatter';
+import { propagateBinScatter, welchScatter, type BinScatter } from '@/src/engine/modes/bin-scatter';
 import { fitModes } from '@/src/engine/modes/fit-modes';
-import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
 import { MODE_HALF_WIDTH_MAX_HZ, MODE_HALF_WIDTH_MIN_HZ, MODE_Q_MAX, MODE_Q_MIN } from '@/src/engine/tolerances';
 import { modeSeriesSetup, predictedModeDerivatives, predictedSeriesModes } from './predicted-modes';
 import type { ObservedMode, ObservedModes, ObservedSeries } from './types';
@@ -37,7 +36,7 @@ export interface PropagatedErrors {
 
 /**
  * Errors of the observed modes of `power` (on `grid`, the spectrum's own bins) propagated from the bins'
- * scatter (e.g. hannWelchScatter(segments) for the pipeline's spectra) through the fit described by
+ * scatter (e.g. welchScatter of the spectrum's Welch statistics) through the fit described by
  * `modes.fit` (the pipeline's estimator).
  */
 export function propagatedModeErrors(
@@ -83,11 +82,7 @@ export function propagatedModeErrors(
 
 /** The bins' scatter a series states: from its Welch statistics (K_eff and the Hann bin correlation), else 1/sigmaLog^2 independent averages. */
 export function seriesScatter(series: ObservedSeries): BinScatter {
-  if (series.welch)
-    return {
-      averages: series.welch.effectiveAverages,
-      lagCorrelation: hannWelchBinCorrelation(series.welch.segments, series.welch.overlap),
-    };
+  if (series.welch) return welchScatter(series.welch);
   if (!(series.sigmaLog! > 0)) throw new RangeError(`${series.station} ${series.component}: sigmaLog or welch is required`);
   return { averages: 1 / series.sigmaLog! ** 2 };
 }

@@ -17,6 +17,8 @@
  * First-order propagation (delta method, sandwich form): for quantities
  * q(y) with rows G = dq/dy, cov(q) = G V G^T.
  */
+import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
+import type { WelchStatistics } from '@/src/engine/stats/welch-statistics';
 import { HANN_BIN_POWER_CORRELATION, HANN_HALF_OVERLAP_CORRELATION } from '@/src/engine/tolerances';
 
 export interface BinScatter {
@@ -30,6 +32,14 @@ export interface BinScatter {
 export function welchEquivalentAverages(segments: number, rho = HANN_HALF_OVERLAP_CORRELATION): number {
   if (!(segments >= 1)) throw new RangeError(`segments must be at least 1, got ${segments}`);
   return segments / (1 + 2 * (1 - 1 / segments) * rho * rho);
+}
+
+/**
+ * The scatter a spectrum's own Welch statistics state: K_eff independent averages and the Hann bin
+ * correlation of the segments actually averaged at their overlap (stats/welch-bin-correlation.ts).
+ */
+export function welchScatter(w: WelchStatistics): BinScatter {
+  return { averages: w.effectiveAverages, lagCorrelation: hannWelchBinCorrelation(w.segments, w.overlap) };
 }
 
 /** The scatter of a spectrum of K periodic-Hann segments at 50 % overlap on its own bin grid (the pipeline's Welch). */

@@ -11,7 +11,7 @@ import { listedLines, mainsLines, suppressLines, type SpectralLine } from '@/src
 import { segmentLayout, segmentStats } from '@/src/engine/signal/segments';
 import { screenTransients } from '@/src/engine/signal/transients';
 import { welch, welchStatisticsOf } from '@/src/engine/signal/welch';
-import { hannWelchScatter } from '@/src/engine/modes/bin-scatter';
+import { welchScatter } from '@/src/engine/modes/bin-scatter';
 import { REJECTED_SHARE_LIMIT } from '@/src/engine/tolerances';
 import { clippedShare, hasGaps } from './sample-checks';
 import { resolveProcessingConfig } from './config';
@@ -50,7 +50,8 @@ export function processInterval(samples: Float64Array, config: ProcessingConfig)
   let fit = null;
   if (c.modes > 0) {
     try {
-      const scatter = hannWelchScatter(est.used);
+      // the Welch statistics of the segments actually averaged (K_eff and their bin correlation)
+      const scatter = welchScatter(welchStatisticsOf(est));
       fit = fitModes(frequencies, power, {
         modes: c.modes,
         exclude: clean.suppressed.subarray(lo, hi + 1),

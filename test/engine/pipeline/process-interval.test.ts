@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { processInterval } from '@/src/engine/pipeline/process-interval';
+import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
 import { lorentzSum, seriesWithPsd, type TrueModes } from '@/test/engine/modes/synthetic';
 import { gaussian, mulberry32 } from '@/src/engine/random';
 
@@ -46,6 +47,10 @@ describe('per-interval processing', () => {
       const k = r.spectrum!.frequencies.findIndex((f) => Math.abs(f - 16.7) < 0.05);
       expect(Math.abs(Math.log(r.spectrum!.power[k] / lorentzSum(TRUE, 16.7)))).toBeLessThan(0.3);
       const fit = r.fit!;
+      // the fit's errors assume the interval's own Welch statistics: K_eff of the 117 segments actually
+      // averaged and the Hann bin correlation of that many segments
+      expect(fit.averages).toBe(r.welch!.effectiveAverages);
+      expect(fit.binCorrelation).toEqual([...hannWelchBinCorrelation(r.welch!.segments, r.welch!.overlap)]);
       fit.modes.forEach((m, n) => {
         expect(Math.abs(m.frequency - TRUE.f[n])).toBeLessThan(4 * m.errors.frequency);
         expect(Math.abs(m.halfWidth - TRUE.g[n])).toBeLessThan(4 * m.errors.halfWidth);
