@@ -7,29 +7,12 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { getBoss, stopBoss } from '@/db/jobs';
-import { claimRun, createRun, endRun, getRunById } from '@/db/repo/runs';
+import { claimRun, endRun, getRunById } from '@/db/repo/runs';
 import { cancelRun, removeRun, rerunRun } from '@/src/runs/control';
-import { checkLaunch } from '@/src/runs/launch';
-import { engineVersion } from '@/src/runs/engine-version';
 import { PHASE, hasEnded, mayCancel, mayDelete, mayRerun } from '@/src/runs/lifecycle';
 import { RUN_QUEUE } from '@/src/runs/queues';
 import { AppError } from '@/src/server/errors';
-import { makeRunWorld } from './world';
-
-async function newRun(w: Awaited<ReturnType<typeof makeRunWorld>>) {
-  const { preview } = await checkLaunch(w.networkId, w.config);
-  return createRun({
-    networkId: w.networkId,
-    name: w.config.name,
-    config: w.config as never,
-    modelId: w.model.id,
-    gridId: w.grid.id,
-    engineVersion: engineVersion(),
-    intervalStarts: preview!.intervalStarts,
-    startsPerInterval: w.config.starts,
-    createdBy: w.userId,
-  });
-}
+import { makeRunWorld, newRun } from './world';
 
 const status = (e: unknown) => (e instanceof AppError ? e.status : e);
 

@@ -1,12 +1,11 @@
 /** Shared by the mode-run tests on the demo day: seeding the demo data and creating a mode run from the demo run's settings. */
-import { expect } from 'vitest';
 import { resetDatabase } from '@/test/helpers/db';
 import * as accounts from '@/src/ops/seed/accounts';
 import * as stations from '@/src/ops/seed/stations';
 import * as runs from '@/src/ops/seed/runs';
-import { createRun, listRuns } from '@/db/repo/runs';
+import { listRuns } from '@/db/repo/runs';
 import { getRunView } from '@/src/runs/results';
-import { checkLaunch } from '@/src/runs/launch';
+import { queueCheckedRun } from '@/test/helpers/runs';
 import type { RunConfig } from '@/src/runs/config';
 
 /** A fresh database with the demo accounts, stations (with their stored mode fits) and runs. */
@@ -32,18 +31,6 @@ export async function demoModeRun(name: string, from: string, to: string, starts
     starts,
     data: { ...view.config.data, from, to },
   };
-  const { problems, preview } = await checkLaunch(net, config);
-  expect(problems).toEqual([]);
-  const run = await createRun({
-    networkId: net,
-    name,
-    config: config as never,
-    modelId: view.model.id,
-    gridId: view.grid.id,
-    engineVersion: 'test',
-    intervalStarts: preview!.intervalStarts,
-    startsPerInterval: config.starts,
-    createdBy: null,
-  });
-  return { run, config, preview: preview! };
+  const { run, preview } = await queueCheckedRun(net, config, null, 'test');
+  return { run, config, preview };
 }

@@ -11,7 +11,6 @@ import { PHASE, RERUNNABLE_STATES } from '@/src/runs/lifecycle';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import {
   claimRun,
-  createRun,
   getRunById,
   listRunIntervals,
   reportProgress,
@@ -19,34 +18,16 @@ import {
   requeueRun,
   saveRunIntervals,
 } from '@/db/repo/runs';
-import { checkLaunch } from '@/src/runs/launch';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
-import { engineVersion } from '@/src/runs/engine-version';
 import type { InversionResult } from '@/src/engine/inverse/types';
 import { fitsAt } from '@/src/runs/fits';
 import { requestSurfaceRow } from './surface-helper';
 import { computeSurface } from '@/src/runs/surface-compute';
 import { getSurfaceById } from '@/db/repo/runs';
-import { makeRunWorld, TRUTH } from './world';
+import { makeRunWorld, newRun, TRUTH } from './world';
 
 process.env.CAVITAS_RUN_THREADS = '1';
-
-async function newRun(w: Awaited<ReturnType<typeof makeRunWorld>>) {
-  const { problems, preview } = await checkLaunch(w.networkId, w.config);
-  expect(problems).toEqual([]);
-  return createRun({
-    networkId: w.networkId,
-    name: w.config.name,
-    config: w.config as never,
-    modelId: w.model.id,
-    gridId: w.grid.id,
-    engineVersion: engineVersion(),
-    intervalStarts: preview!.intervalStarts,
-    startsPerInterval: w.config.starts,
-    createdBy: w.userId,
-  });
-}
 
 class SimulatedCrash extends Error {}
 

@@ -10,16 +10,14 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { createRun, listRunIntervals } from '@/db/repo/runs';
+import { listRunIntervals } from '@/db/repo/runs';
 import { fitModes } from '@/src/engine/modes/fit-modes';
-import { checkLaunch } from '@/src/runs/launch';
 import { executeRun } from '@/src/runs/execute';
 import { makeEngineSolver } from '@/src/runs/solver';
-import { engineVersion } from '@/src/runs/engine-version';
 import { fitsAt } from '@/src/runs/fits';
 import type { RunConfig } from '@/src/runs/config';
 import type { InversionResult } from '@/src/engine/inverse/types';
-import { makeRunWorld, SEGMENTS, storeSpectra, TRUTH, truthSpectra } from './world';
+import { makeRunWorld, newRun, SEGMENTS, storeSpectra, TRUTH, truthSpectra } from './world';
 
 const GRID_BAND = { minHz: 3, maxHz: 48, stepHz: 0.1 };
 
@@ -38,19 +36,7 @@ describe('fits of a mode-parameter run', () => {
       },
     });
     const config: RunConfig = { ...w.config, name: 'Mode fits', observables: { kind: 'modes', modes: 3 }, starts: 4 };
-    const { problems, preview } = await checkLaunch(w.networkId, config);
-    expect(problems).toEqual([]);
-    const run = await createRun({
-      networkId: w.networkId,
-      name: config.name,
-      config: config as never,
-      modelId: w.model.id,
-      gridId: w.grid.id,
-      engineVersion: engineVersion(),
-      intervalStarts: preview!.intervalStarts,
-      startsPerInterval: config.starts,
-      createdBy: w.userId,
-    });
+    const run = await newRun(w, config);
     expect(await executeRun(run.id, { solve: makeEngineSolver(1), workerId: 'mode-fits' })).toBe('finished');
     const [row] = await listRunIntervals(run.id);
     const best = (row.result as unknown as InversionResult).minima[0];

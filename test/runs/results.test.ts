@@ -7,15 +7,12 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { createRun } from '@/db/repo/runs';
-import { checkLaunch } from '@/src/runs/launch';
 import { executeRun } from '@/src/runs/execute';
-import { engineVersion } from '@/src/runs/engine-version';
 import { getIntervalView, getRunSummary, getRunView, minimaRows } from '@/src/runs/results';
 import type { RunConfig } from '@/src/runs/config';
 import type { IntervalSolver } from '@/src/runs/types';
 import type { ShownMinimum } from '@/src/runs/error-scaling';
-import { makeRunWorld } from './world';
+import { makeRunWorld, newRun } from './world';
 
 const STD_ERROR = 100;
 
@@ -65,19 +62,7 @@ function solverWith(reduced: number[], stated: boolean): IntervalSolver {
 }
 
 async function storedRun(w: Awaited<ReturnType<typeof makeRunWorld>>, config: RunConfig, solve: IntervalSolver) {
-  const { problems, preview } = await checkLaunch(w.networkId, config);
-  expect(problems).toEqual([]);
-  const run = await createRun({
-    networkId: w.networkId,
-    name: config.name,
-    config: config as never,
-    modelId: w.model.id,
-    gridId: w.grid.id,
-    engineVersion: engineVersion(),
-    intervalStarts: preview!.intervalStarts,
-    startsPerInterval: config.starts,
-    createdBy: w.userId,
-  });
+  const run = await newRun(w, config);
   expect(await executeRun(run.id, { solve, workerId: 'goodness' })).toBe('finished');
   return getRunView(w.networkId, run.id);
 }

@@ -8,9 +8,9 @@ import { modelRepo } from '@/db/repo/models';
 import { gridRepo } from '@/db/repo/grids';
 import { listRunIntervals, listRuns } from '@/db/repo/runs';
 import type { InversionResult } from '@/src/engine/inverse/types';
-import { createRun, getRunById } from '@/db/repo/runs';
+import { getRunById } from '@/db/repo/runs';
 import { getRunView } from '@/src/runs/results';
-import { checkLaunch } from '@/src/runs/launch';
+import { queueCheckedRun } from '@/test/helpers/runs';
 import { executeRun } from '@/src/runs/execute';
 import { makeEngineSolver } from '@/src/runs/solver';
 import type { RunConfig } from '@/src/runs/config';
@@ -76,26 +76,14 @@ describe('demo runs seeder', () => {
         { region: 'west-belt', intensity: { min: 1e3, max: 1e6 } },
       ],
     };
-    const { problems, preview } = await checkLaunch(net, config);
-    expect(problems).toEqual([]);
+    const { run, preview } = await queueCheckedRun(net, config, null, 'test');
     // Three data per observed mode (frequency, peak power, half-width).
-    expect(preview!.nData % 3).toBe(0);
-    const run = await createRun({
-      networkId: net,
-      name: 'Modes',
-      config: config as never,
-      modelId: view.model.id,
-      gridId: view.grid.id,
-      engineVersion: 'test',
-      intervalStarts: preview!.intervalStarts,
-      startsPerInterval: config.starts,
-      createdBy: null,
-    });
+    expect(preview.nData % 3).toBe(0);
     const outcome = await executeRun(run.id, { solve: makeEngineSolver(1), workerId: 'modes' });
     expect(outcome, (await getRunById(run.id))?.error ?? '').toBe('finished');
     const [row] = await listRunIntervals(run.id);
     const res = row.result as unknown as InversionResult;
-    expect(res.nData).toBe(preview!.nData);
+    expect(res.nData).toBe(preview.nData);
     expect(res.paramNames).toEqual(['Middle belt.intensity', 'West belt.intensity']);
     // Counts of starts per minimum add up to the number of starts.
     expect(res.minima.reduce((n, m) => n + m.count, 0)).toBe(config.starts);

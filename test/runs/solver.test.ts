@@ -5,31 +5,17 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { createRun } from '@/db/repo/runs';
-import { checkLaunch } from '@/src/runs/launch';
 import { loadRunContext } from '@/src/runs/context';
 import { loadIntervalObservations } from '@/src/runs/observations';
 import { engineSolver, interrupted } from '@/src/runs/solver';
-import { engineVersion } from '@/src/runs/engine-version';
 import type { InversionResult } from '@/src/engine/inverse/types';
-import { makeRunWorld } from './world';
+import { makeRunWorld, newRun } from './world';
 
 process.env.CAVITAS_RUN_THREADS = '1';
 
 async function oneInterval() {
   const w = await makeRunWorld(1);
-  const { preview } = await checkLaunch(w.networkId, w.config);
-  const run = await createRun({
-    networkId: w.networkId,
-    name: w.config.name,
-    config: w.config as never,
-    modelId: w.model.id,
-    gridId: w.grid.id,
-    engineVersion: engineVersion(),
-    intervalStarts: preview!.intervalStarts,
-    startsPerInterval: w.config.starts,
-    createdBy: w.userId,
-  });
+  const run = await newRun(w);
   const ctx = await loadRunContext(run);
   const startsAt = run.intervalStarts[0];
   return {

@@ -8,6 +8,7 @@ import { insertUser } from '@/db/repo/users';
 import { createNetwork } from '@/db/repo/networks';
 import type { GridInput } from '@/src/runs/grid-spec';
 import { saveIntervals } from '@/db/repo/intervals';
+import { queueCheckedRun } from '@/test/helpers/runs';
 import type { Band } from '@/src/engine/band';
 import type { Component } from '@/src/engine/components';
 import type { Spectrum } from '@/src/engine/forward/types';
@@ -97,6 +98,11 @@ export async function makeRunWorld(intervalCount = 4) {
 }
 
 export type RunWorld = Awaited<ReturnType<typeof makeRunWorld>>;
+
+/** A queued run of the world's configuration (or another one over the same network), checked as the launch route checks it. */
+export async function newRun(w: RunWorld, config = w.config) {
+  return (await queueCheckedRun(w.networkId, config, w.userId)).run;
+}
 
 /** Noise-free spectra of the true source at the world's stations. */
 export const truthSpectra = (w: RunWorld, band: Band, components: readonly Component[]): Spectrum[] =>
