@@ -9,6 +9,7 @@ import { closeDatabase } from '@/db/lifecycle';
 import { getRunById, listRunIntervals } from '@/db/repo/runs';
 import { launchRun } from '@/src/runs/launch';
 import { makeRunWorld } from '@/test/runs/world';
+import { runEnded, until } from '@/test/helpers/until';
 
 let app: TestApp;
 
@@ -29,21 +30,7 @@ afterAll(async () => {
   await closeDatabase();
 });
 
-async function until<T>(
-  what: string,
-  probe: () => Promise<T | null | undefined | false>,
-  timeoutMs: number,
-  everyMs = 100,
-): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const v = await probe();
-    if (v) return v;
-    if (Date.now() > deadline)
-      throw new Error(`${what}: not reached within ${timeoutMs / 1000} s\n${app.logs.slice(-40).join('\n')}`);
-    await new Promise((r) => setTimeout(r, everyMs));
-  }
-}
+const appLog = () => app.logs.slice(-40).join('\n');
 
 describe('worker crash under the supervisor', () => {
   it('restarts the killed worker, keeps the web answering, and the new worker finishes the run', async () => {
@@ -57,6 +44,7 @@ describe('worker crash under the supervisor', () => {
         return r && r.state === 'running' && r.progress.intervalsDone >= 1 && r.progress.intervalsDone < total;
       },
       60_000,
+      appLog,
       25,
     );
     const firstWorker = app.pid('worker')!;
@@ -73,19 +61,12 @@ describe('worker crash under the supervisor', () => {
         return p !== undefined && p !== firstWorker ? p : null;
       },
       60_000,
+      appLog,
     );
     expect(second).not.toBe(firstWorker);
     expect(app.logs.some((l) => /^worker\s*\| exited unexpectedly \(killed by SIGKILL\); restarting in/.test(l))).toBe(true);
 
-    const done = await until(
-      'run finished by the restarted worker',
-      async () => {
-        const r = await getRunById(run.id);
-        return r && ['finished', 'failed', 'cancelled'].includes(r.state) ? r : null;
-      },
-      90_000,
-      250,
-    );
+    const done = await until('run finished by the restarted worker', runEnded(run.id), 90_000, appLog, 250);
     expect(done.state).toBe('finished');
     expect(done.error).toBeNull();
     expect(done.attempts).toBeGreaterThanOrEqual(2);

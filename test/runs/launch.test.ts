@@ -11,7 +11,7 @@ import { modelRepo } from '@/db/repo/models';
 import { checkLaunch, launchRun } from '@/src/runs/launch';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import { AppError } from '@/src/server/errors';
-import { makeRunWorld, GRID } from './world';
+import { makeRunWorld, GRID, tableModel } from './world';
 
 async function problemsOf(w: Awaited<ReturnType<typeof makeRunWorld>>, patch: (c: typeof w.config) => void) {
   const c = structuredClone(w.config);
@@ -142,18 +142,10 @@ describe('launch checks', () => {
     const { modelInputSchema } = await import('@/src/runs/model-spec');
     const parsed = modelInputSchema.safeParse({
       name: 'Bad table',
-      config: {
-        model: 'table',
-        earthRadiusKm: 6371,
-        heightKm: 60,
-        table: {
-          columns: 'nu',
-          rows: [
-            [5, 0.5, -0.1],
-            [4, 1, -0.2],
-          ],
-        },
-      },
+      config: tableModel([
+        [5, 0.5, -0.1],
+        [4, 1, -0.2],
+      ]),
     });
     expect(parsed.success).toBe(false);
     expect(parsed.error!.issues[0].message).toMatch(/row 1: frequencies must be strictly increasing/);

@@ -29,6 +29,13 @@ export const TRUTH_SOURCE = { lat: TRUTH.lat, lon: TRUTH.lon, intensity: TRUTH.i
 export const DAY = Date.UTC(2031, 4, 12, 6, 0, 0);
 export const CAVITY = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
 export const BAND = { minHz: 6, maxHz: 30, stepHz: 0.5 };
+/** A table cavity model (rows of frequency, then the propagation parameter's parts) on the 60 km linear model's Earth. */
+export const tableModel = (rows: number[][]) => ({
+  model: 'table' as const,
+  earthRadiusKm: 6371,
+  heightKm: 60,
+  table: { columns: 'nu' as const, rows },
+});
 /** Welch segments per stored spectrum: sigma of ln P = 1/sqrt(K) = 0.1. */
 export const SEGMENTS = 100;
 /** Their stated scatter: independent, sigma of ln P = 1/sqrt(K) (spectra made by hand, not by Welch). */

@@ -23,6 +23,7 @@ import { sweepRuns } from '@/src/worker/sweep';
 import { RUN_QUEUE } from '@/src/runs/queues';
 import { launchRun } from '@/src/runs/launch';
 import { makeRunWorld } from '@/test/runs/world';
+import { runEnded, until } from '@/test/helpers/until';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const children: ChildProcess[] = [];
@@ -47,23 +48,6 @@ function startWorker(): { child: ChildProcess; out: () => string } {
   child.stdout!.on('data', (b) => (out += b));
   child.stderr!.on('data', (b) => (out += b));
   return { child, out: () => out };
-}
-
-async function until<T>(
-  what: string,
-  probe: () => Promise<T | null | undefined | false>,
-  timeoutMs: number,
-  log: () => string,
-  everyMs = 200,
-): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const v = await probe();
-    if (v) return v;
-    if (Date.now() > deadline)
-      throw new Error(`${what}: not reached within ${timeoutMs / 1000} s\n--- worker output ---\n${log().slice(-3000)}`);
-    await new Promise((r) => setTimeout(r, everyMs));
-  }
 }
 
 function exited(child: ChildProcess): Promise<void> {
@@ -134,15 +118,7 @@ describe('crash recovery with real worker processes', () => {
     await exited(first.child);
     expect(await listRunIntervals(run.id)).not.toHaveLength(total);
 
-    const done = await until(
-      'run finished by the second worker',
-      async () => {
-        const r = await getRunById(run.id);
-        return r && ['finished', 'failed', 'cancelled'].includes(r.state) ? r : null;
-      },
-      60_000,
-      second.out,
-    );
+    const done = await until('run finished by the second worker', runEnded(run.id), 60_000, second.out);
     expect(done.error).toBeNull();
     expect(done.state).toBe('finished');
 

@@ -14,7 +14,7 @@ import { stopBoss } from '@/db/jobs';
 import { createRun, endRun, listRunIntervals } from '@/db/repo/runs';
 import { createStation } from '@/db/repo/stations';
 import { saveIntervals } from '@/db/repo/intervals';
-import { predictSpectra } from '@/src/engine/forward/predict';
+import { hutInput, stationSpectra, syntheticRows } from '@/src/runs/synthetic-network';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import { executeRun } from '@/src/runs/execute';
 import { makeEngineSolver } from '@/src/runs/solver';
@@ -32,7 +32,7 @@ import * as exportRoute from '@/app/api/networks/[networkId]/runs/[runId]/export
 import * as fitsRoute from '@/app/api/networks/[networkId]/runs/[runId]/fits/route';
 import * as surfacesRoute from '@/app/api/networks/[networkId]/runs/[runId]/surfaces/route';
 import * as surfaceRoute from '@/app/api/networks/[networkId]/runs/[runId]/surfaces/[surfaceId]/route';
-import { CAVITY, GRID, BAND, STATISTICS, TRUTH } from '@/test/runs/world';
+import { CAVITY, GRID, BAND, SEGMENTS, TRUTH, tableModel } from '@/test/runs/world';
 
 let w: AuthzWorld;
 let modelId = '';
@@ -47,44 +47,13 @@ const MODEL = { name: 'Authz model', notes: '', config: CAVITY };
 beforeAll(async () => {
   await resetDatabase();
   w = await setupCallers('runs');
-  const st = await createStation(w.networkId, {
-    code: 'AZ1',
-    name: 'Authz hut',
-    latitude: 40,
-    longitude: -20,
-    elevationM: null,
-    mainsHz: 50,
-    interferenceLines: [],
-    sampleRateHz: 200,
-    notes: '',
-    status: 'operating',
-    components: [
-      { component: 'Ez', calibration: { kind: 'gain', gain: 1 } },
-      { component: 'Bns', calibration: { kind: 'gain', gain: 1 } },
-    ],
-  });
-  const [ez, bns] = predictSpectra({
-    cavity: CAVITY,
-    band: BAND,
-    stations: [{ code: 'AZ1', lat: 40, lon: -20, components: ['Ez', 'Bns'] }],
-    sources: [TRUTH],
-  });
-  interval = '2031-05-12T06:00:00.000Z';
-  await saveIntervals(
-    [ez, bns].map((s) => ({
-      networkId: w.networkId,
-      stationId: st.id,
-      component: s.component,
-      startsAt: new Date(interval),
-      durationS: 600,
-      origin: 'synthetic' as const,
-      uploadId: null,
-      rejectedShare: 0,
-      qualityFlags: [],
-      spectrum: { frequencies: s.frequencies, power: s.power, segments: 100, statistics: STATISTICS },
-      fit: null,
-    })),
+  const st = await createStation(
+    w.networkId,
+    hutInput({ code: 'AZ1', name: 'Authz hut', latitude: 40, longitude: -20 }, ['Ez', 'Bns'], null),
   );
+  interval = '2031-05-12T06:00:00.000Z';
+  const spectra = stationSpectra([st], ['Ez', 'Bns'], CAVITY, BAND, [TRUTH]);
+  await saveIntervals(syntheticRows(w.networkId, [st], spectra, new Date(interval), SEGMENTS));
   modelId = (await saveModel(w.networkId, w.callers.owner.userId, MODEL)).id;
   gridId = (await saveGrid(w.networkId, w.callers.owner.userId, GRID)).id;
   config = {
@@ -236,18 +205,10 @@ describe('runs API refuses bad input with the error shape', () => {
       params: P(),
       body: {
         name: 'T',
-        config: {
-          model: 'table',
-          earthRadiusKm: 6371,
-          heightKm: 60,
-          table: {
-            columns: 'nu',
-            rows: [
-              [8, 1, -0.1],
-              [7, 1.2, -0.2],
-            ],
-          },
-        },
+        config: tableModel([
+          [8, 1, -0.1],
+          [7, 1.2, -0.2],
+        ]),
       },
     });
     expect(res.status).toBe(400);

@@ -12,6 +12,7 @@ import { seriesFigure } from '@/src/web/runs/figures/series';
 import { correlationFigure } from '@/src/web/runs/figures/correlation';
 import { startsFigure } from '@/src/web/runs/figures/starts';
 import { fitFigures } from '@/src/web/runs/figures/fits';
+import { beltRegion } from './belt-region';
 
 // An invented two-station world with one source region; the result is the engine's own inversion of it.
 const cavity = { model: 'linear' as const, earthRadiusKm: 6371, heightKm: 60 };
@@ -43,17 +44,7 @@ function view(intervals: number): RunView {
       name: 'Grid',
       version: 1,
       cellSizeDeg: 10,
-      regions: [
-        {
-          key: 'belt',
-          name: 'Belt',
-          colour: '#eb476b',
-          kind: 'moving',
-          centre: { lat: 0, lon: 20 },
-          bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
-          spreadDeg: 0,
-        },
-      ],
+      regions: [beltRegion('#eb476b', 0)],
     },
     intervals: Array.from({ length: intervals }, (_, i) => ({
       startsAt: new Date(Date.UTC(2031, 6, 2) + i * 600_000).toISOString(),

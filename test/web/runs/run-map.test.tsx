@@ -11,6 +11,7 @@ import { RunMap, RunMapLayer, logTicks } from '@/src/web/runs/RunMap';
 import { extentOf, magnification } from '@/src/web/map/magnify';
 import type { Minimum } from '@/src/engine/inverse/types';
 import type { Region } from '@/src/runs/grid-spec';
+import { beltRegion } from './belt-region';
 
 describe('magnification', () => {
   it('picks the least of 1, 2, 5, 10, … that reaches the minimum size', () => {
@@ -36,17 +37,7 @@ describe('logTicks', () => {
   });
 });
 
-const regions: Region[] = [
-  {
-    key: 'belt',
-    name: 'Belt',
-    colour: '#425fe1',
-    kind: 'moving',
-    centre: { lat: 0, lon: 20 },
-    bounds: { lat: { min: -20, max: 20 }, lon: { min: 0, max: 40 } },
-    spreadDeg: 8,
-  },
-];
+const regions: Region[] = [beltRegion('#425fe1', 8)];
 const minimum = {
   misfit: 10,
   reducedChi2: 1,
