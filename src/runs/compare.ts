@@ -7,6 +7,8 @@
  */
 import type { Minimum } from '@/src/engine/inverse/types';
 import type { RunView } from './results';
+import type { Region } from './grid-spec';
+import { REGION_COLOURS, regionColour } from '@/src/design/tokens';
 
 export interface SettingRow {
   label: string;
@@ -113,4 +115,41 @@ export function parameterComparison(a: Minimum, b: Minimum): ParameterRow[] {
       });
     }
   return rows;
+}
+
+/**
+ * One colour per region name for both picks (maps, curves, tables): A's regions keep their own
+ * colours; B's regions of the same name take A's; B's other regions keep theirs unless A already
+ * uses that colour, in which case they take the next design-token region colour still free.
+ */
+export function comparisonColours(a: readonly Region[], b: readonly Region[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  const used = new Set<string>();
+  let next = 0;
+  const free = () => {
+    for (let k = 0; k < REGION_COLOURS.length; k++) {
+      const c = regionColour(next + k);
+      if (!used.has(c)) {
+        next += k + 1;
+        return c;
+      }
+    }
+    return regionColour(next++); // more regions than colours: wrap around
+  };
+  for (const r of [...a, ...b]) {
+    if (r.name in out) continue;
+    const colour = used.has(r.colour) ? free() : r.colour;
+    out[r.name] = colour;
+    used.add(colour);
+  }
+  return out;
+}
+
+/** log10 range of intensity covering the sources of every given minimum: the one colour scale of both maps. */
+export function sharedLogRange(minima: readonly (Minimum | null)[]): { lo: number; hi: number } | null {
+  const values = minima.flatMap((m) => (m?.sources ?? []).map((s) => Math.log10(Math.max(1, s.intensity))));
+  if (!values.length) return null;
+  const lo = Math.min(...values);
+  const hi = Math.max(...values);
+  return hi - lo < 1e-6 ? { lo: lo - 0.5, hi: hi + 0.5 } : { lo, hi };
 }

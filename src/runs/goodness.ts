@@ -99,16 +99,21 @@ export function seriesShares(misfits: readonly SeriesMisfit[], nParams: number):
   return misfits.map((s) => ({ ...s, dof: total > 0 ? s.n - (nParams * s.n) / total : 0 }));
 }
 
-/** Goodness per station and component of one interval's best minimum (empty when not recorded). */
-export function intervalSeriesGoodness(iv: GoodnessSource): SeriesGoodness[] {
-  const m = iv.result?.seriesMisfits;
-  if (!iv.result || !m) return [];
-  return seriesShares(m, iv.result.nParams).map((s) => ({
+/** Goodness per station and component of one minimum, from its series misfits. */
+export function seriesGoodness(misfits: readonly SeriesMisfit[], nParams: number): SeriesGoodness[] {
+  return seriesShares(misfits, nParams).map((s) => ({
     station: s.station,
     component: s.component,
     intervals: 1,
     ...goodnessOf(s.chi2, s.dof),
   }));
+}
+
+/** Goodness per station and component of one interval's best minimum (empty when not recorded). */
+export function intervalSeriesGoodness(iv: GoodnessSource): SeriesGoodness[] {
+  const m = iv.result?.seriesMisfits;
+  if (!iv.result || !m) return [];
+  return seriesGoodness(m, iv.result.nParams);
 }
 
 export function runGoodness(intervals: readonly GoodnessSource[]): RunGoodness {

@@ -6,7 +6,9 @@
  * triangles so the expected combined errors are exact by hand.
  */
 import { describe, expect, it } from 'vitest';
-import { agreementOf, parameterComparison, settingsDiff } from '@/src/runs/compare';
+import { agreementOf, comparisonColours, parameterComparison, settingsDiff, sharedLogRange } from '@/src/runs/compare';
+import { REGION_COLOURS } from '@/src/design/tokens';
+import type { Region } from '@/src/runs/grid-spec';
 import type { Minimum } from '@/src/engine/inverse/types';
 import type { RunView } from '@/src/runs/results';
 
@@ -79,5 +81,39 @@ describe('settingsDiff', () => {
     expect(rows.filter((r) => r.differs).map((r) => r.label)).toEqual(['Cavity model', 'Starts / seed']);
     expect(rows.find((r) => r.label === 'Stations')!.a).toBe('S1, S2');
     expect(settingsDiff(view(16, 'L'), view(16, 'L')).some((r) => r.differs)).toBe(false);
+  });
+});
+
+describe('comparisonColours', () => {
+  const region = (name: string, colour: string) => ({ name, colour }) as unknown as Region;
+  const [c0, c1, c2] = REGION_COLOURS;
+
+  it('a region named in both picks gets one colour; other regions never share a colour', () => {
+    // Both grids gave their first region the first colour: B's other region must not take A's.
+    const out = comparisonColours(
+      [region('East basin', c0), region('West shelf', c1)],
+      [region('Ridge', c0), region('East basin', c2)],
+    );
+    expect(out['East basin']).toBe(c0);
+    expect(out['West shelf']).toBe(c1);
+    expect(out['Ridge']).toBe(c2);
+    expect(new Set(Object.values(out)).size).toBe(3);
+  });
+
+  it('keeps a colour of B that A does not use', () => {
+    expect(comparisonColours([region('A1', c0)], [region('B1', c1)])).toEqual({ A1: c0, B1: c1 });
+  });
+});
+
+describe('sharedLogRange', () => {
+  const m = (...I: number[]) => ({ sources: I.map((intensity, k) => ({ name: `r${k}`, intensity })) }) as unknown as Minimum;
+
+  it('spans the log10 intensities of both minima', () => {
+    expect(sharedLogRange([m(1e3, 1e4), m(1e5)])).toEqual({ lo: 3, hi: 5 });
+  });
+
+  it('one value gives a decade around it; no minimum gives none', () => {
+    expect(sharedLogRange([m(1e4), null])).toEqual({ lo: 3.5, hi: 4.5 });
+    expect(sharedLogRange([null, null])).toBeNull();
   });
 });

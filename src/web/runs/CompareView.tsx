@@ -1,7 +1,7 @@
 'use client';
 /**
  * Two runs side by side: their settings in brief, the best minimum of each interval, and both
- * intensity series with their error bands on one UT axis, each region in its own colour in both.
+ * intensity series with their error bands on one UT axis, each region in one colour for both (`colours`).
  */
 import { useMemo } from 'react';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
@@ -9,7 +9,6 @@ import type { RunView } from '@/src/runs/results';
 import { fmt } from './types';
 import { goodnessOf } from '@/src/runs/goodness';
 import { compareSeriesFigure } from './figures/compare-series';
-import { regionColours } from '@/src/runs/view-select';
 
 function bestRows(v: RunView) {
   return v.intervals.flatMap((iv) => {
@@ -19,12 +18,9 @@ function bestRows(v: RunView) {
   });
 }
 
-export function CompareView({ a, b }: { a: RunView; b: RunView }) {
+export function CompareView({ a, b, colours }: { a: RunView; b: RunView; colours: Record<string, string> }) {
   const runs = [a, b];
-  const spec = useMemo(
-    () => compareSeriesFigure(a.intervals, b.intervals, { ...regionColours(b.grid.regions), ...regionColours(a.grid.regions) }),
-    [a, b],
-  );
+  const spec = useMemo(() => compareSeriesFigure(a.intervals, b.intervals, colours), [a, b, colours]);
   return (
     <div className="space-y-6">
       <div className="grid gap-6 lg:grid-cols-2">

@@ -74,6 +74,15 @@ function SeriesRows({ rows, withCount }: { rows: SeriesGoodness[]; withCount: bo
   ));
 }
 
+/** Goodness of one minimum per station and component: χ², dof, χ²/dof and P(≥ χ²), implausible fits marked. */
+export function SeriesGoodnessTable({ rows, caption }: { rows: SeriesGoodness[]; caption: string }) {
+  return (
+    <Table caption={caption} first={['Station', 'Component']}>
+      <SeriesRows rows={rows} withCount={false} />
+    </Table>
+  );
+}
+
 export function GoodnessTables({
   goodness,
   selected,
@@ -110,9 +119,7 @@ export function GoodnessTables({
         <div>
           <h4 className="mb-1 text-sm font-semibold">Selected interval ({when(selectedStartsAt)} UT), best minimum</h4>
           {selected.length ? (
-            <Table caption="Goodness of fit of the selected interval per station and component" first={['Station', 'Component']}>
-              <SeriesRows rows={selected} withCount={false} />
-            </Table>
+            <SeriesGoodnessTable rows={selected} caption="Goodness of fit of the selected interval per station and component" />
           ) : (
             <p className="text-sm text-muted">Not recorded for this interval (solved before per-series misfits were kept).</p>
           )}

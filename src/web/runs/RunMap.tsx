@@ -22,6 +22,7 @@ import { makeProjection } from '@/src/web/map/projection';
 import { cellBox } from '@/src/runs/grid-cells';
 import type { Region } from '@/src/runs/grid-spec';
 import { covarianceEllipse } from '@/src/runs/ellipse';
+import { sharedLogRange } from '@/src/runs/compare';
 import { centreCovariance, fmt, type Minimum } from './types';
 
 export interface StationMark {
@@ -77,11 +78,15 @@ function ellipseMagnification(
   return m;
 }
 
+type LogRange = { lo: number; hi: number };
+
 export interface RunMapState {
   regions: Region[];
   cellSizeDeg: number;
   minimum: Minimum | null;
   stations: StationMark[];
+  /** A log10 intensity range shared with other maps (compare page); default the minimum's own. */
+  logRange?: LogRange | null;
 }
 
 const Selection = createContext<(RunMapState & { magnified: number }) | null>(null);
@@ -90,25 +95,25 @@ function shade(t: number): string {
   return RAMPS.activity(RAMP_PART[0] + (RAMP_PART[1] - RAMP_PART[0]) * Math.min(1, Math.max(0, t)));
 }
 
-/** log10 intensity range of the minimum's sources and the position of one intensity in it (0..1). */
-function intensityScale(minimum: Minimum | null) {
-  const values = (minimum?.sources ?? []).map((s) => Math.log10(Math.max(1, s.intensity)));
-  let lo = values.length ? Math.min(...values) : 0;
-  let hi = values.length ? Math.max(...values) : 1;
-  if (hi - lo < 1e-6) [lo, hi] = [lo - 0.5, hi + 0.5]; // one value: a decade around it
+/**
+ * log10 intensity range (the minimum's sources, or `range` when several maps share one scale) and
+ * the position of one intensity in it (0..1).
+ */
+function intensityScale(minimum: Minimum | null, range?: LogRange | null) {
+  const { lo, hi } = range ?? sharedLogRange([minimum]) ?? { lo: 0, hi: 1 };
   return { lo, hi, t: (I: number) => (hi > lo ? (Math.log10(Math.max(1, I)) - lo) / (hi - lo) : 0.7) };
 }
 
 /** The map (`frame`, from the server, with a `RunMapLayer` inside) and its legend. */
-export function RunMap({ frame, regions, cellSizeDeg, minimum, stations }: RunMapState & { frame: ReactNode }) {
-  const { lo, hi } = intensityScale(minimum);
+export function RunMap({ frame, regions, cellSizeDeg, minimum, stations, logRange }: RunMapState & { frame: ReactNode }) {
+  const { lo, hi } = intensityScale(minimum, logRange);
   const magnified = useMemo(() => {
     const projection = makeProjection(MAP_SIZE.width, MAP_SIZE.height); // the frame's own drawing size
     return ellipseMagnification(minimum, regions, (p) => projection(p) as [number, number] | null);
   }, [minimum, regions]);
   const state = useMemo(
-    () => ({ regions, cellSizeDeg, minimum, stations, magnified }),
-    [regions, cellSizeDeg, minimum, stations, magnified],
+    () => ({ regions, cellSizeDeg, minimum, stations, magnified, logRange }),
+    [regions, cellSizeDeg, minimum, stations, magnified, logRange],
   );
   const noData = stations.filter((st) => !hasData(st)).length;
   return (
@@ -139,9 +144,9 @@ export function RunMapLayer({ width, height }: { width: number; height: number }
   const state = useContext(Selection);
   const projection = useMemo(() => makeProjection(width, height), [width, height]);
   if (!state) return null;
-  const { regions, cellSizeDeg, minimum, stations, magnified } = state;
+  const { regions, cellSizeDeg, minimum, stations, magnified, logRange } = state;
   const byName = new Map((minimum?.sources ?? []).map((s) => [s.name, s]));
-  const { t } = intensityScale(minimum);
+  const { t } = intensityScale(minimum, logRange);
   const path = geoPath(projection);
   return (
     <>

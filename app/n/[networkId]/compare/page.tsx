@@ -1,9 +1,13 @@
+import type { ReactNode } from 'react';
 import { pageNetworkAction } from '@/src/auth/pages';
 import { listRuns } from '@/src/runs/control';
-import { loadComparison, type PickedMinimum } from '@/src/runs/compare-load';
+import { loadComparison, type Comparison, type PickedMinimum } from '@/src/runs/compare-load';
 import { Button, Caution, EmptyState, Notice, Panel, inputClass } from '@/src/web/ui';
 import { CompareView } from '@/src/web/runs/CompareView';
 import { ParameterTable, SettingsDiffTable } from '@/src/web/runs/CompareTables';
+import { SeriesGoodnessTable } from '@/src/web/runs/GoodnessTables';
+import { RunMap } from '@/src/web/runs/RunMap';
+import { RunMapFrame } from '@/src/web/runs/RunMapFrame';
 import { solvedIntervals } from '@/src/runs/view-select';
 import { isId } from '@/src/server/ids';
 
@@ -45,6 +49,66 @@ function MinimumPicker({ side, p }: { side: 'a' | 'b'; p: PickedMinimum }) {
         </select>
       </label>
     </div>
+  );
+}
+
+/** One section per pick, A beside B, each headed by what it shows. */
+function SideBySide({
+  cmp,
+  what,
+  className,
+  children,
+}: {
+  cmp: Comparison;
+  what: 'map' | 'fit';
+  className: string;
+  children: (p: PickedMinimum, k: 'A' | 'B') => ReactNode;
+}) {
+  return (
+    <div className={className} data-testid={`compare-${what}s`}>
+      {(['A', 'B'] as const).map((k) => {
+        const p = k === 'A' ? cmp.a : cmp.b;
+        return (
+          <section key={k} aria-label={`${what === 'map' ? 'Map' : 'Fit'} of ${k}`} data-testid={`compare-${what}-${k}`}>
+            <h3 className="mb-2 text-sm font-semibold">{label(k, p)}</h3>
+            {children(p, k)}
+          </section>
+        );
+      })}
+    </div>
+  );
+}
+
+/** Both chosen minima on maps side by side: one intensity scale, each region in its one colour. */
+function Maps({ cmp }: { cmp: Comparison }) {
+  return (
+    <SideBySide cmp={cmp} what="map" className="grid gap-6 xl:grid-cols-2">
+      {(p) => (
+        <RunMap
+          frame={<RunMapFrame />}
+          regions={p.view.grid.regions.map((r) => ({ ...r, colour: cmp.colours[r.name] ?? r.colour }))}
+          cellSizeDeg={p.view.grid.cellSizeDeg}
+          minimum={p.minimum}
+          stations={p.stations}
+          logRange={cmp.logRange}
+        />
+      )}
+    </SideBySide>
+  );
+}
+
+/** Fit quality of each chosen minimum per station and component. */
+function Fits({ cmp }: { cmp: Comparison }) {
+  return (
+    <SideBySide cmp={cmp} what="fit" className="grid gap-6 lg:grid-cols-2">
+      {(p, k) =>
+        p.fit.length ? (
+          <SeriesGoodnessTable rows={p.fit} caption={`Goodness of fit of ${k} per station and component`} />
+        ) : (
+          <p className="text-sm text-muted">No solved minimum to judge.</p>
+        )
+      }
+    </SideBySide>
   );
 }
 
@@ -122,8 +186,24 @@ export default async function ComparePage({
           >
             <ParameterTable rows={cmp.parameters} />
           </Panel>
+          <Panel
+            heading="Maps"
+            description="Both chosen minima on one logarithmic intensity scale; a region has the same outline colour on both maps and in the curves below."
+          >
+            <Maps cmp={cmp} />
+          </Panel>
+          <Panel
+            heading="Fit per station and component"
+            description="How well each chosen minimum fits each station’s series: χ², its share of the degrees of freedom, and the probability of a χ² at least that large under the stated errors."
+          >
+            <Fits cmp={cmp} />
+          </Panel>
           <Panel heading="Best minimum of each interval">
-            <CompareView a={JSON.parse(JSON.stringify(cmp.a.view))} b={JSON.parse(JSON.stringify(cmp.b.view))} />
+            <CompareView
+              a={JSON.parse(JSON.stringify(cmp.a.view))}
+              b={JSON.parse(JSON.stringify(cmp.b.view))}
+              colours={cmp.colours}
+            />
           </Panel>
         </>
       ) : null}
