@@ -10,3 +10,4 @@ export * from './runs';
 export * from './mail';
 export * from './sharing';
 export * from './comments';
+export * from './audit';

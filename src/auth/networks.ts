@@ -3,17 +3,19 @@
  * Permission checks happen in the routes (permissions.ts); these functions
  * validate, call the repository and send the invitation e-mail.
  */
+import { record } from '@/src/audit';
+import { getUserById } from '@/db/repo/users';
 import { z } from 'zod';
 import {
   acceptInvitation,
-  changeMemberRole,
+  changeMemberRole as setMemberRole,
   createInvitation,
   createNetwork,
   findOpenInvitation,
   listMembers,
   listNetworksForUser,
   listOpenInvitations,
-  removeMember,
+  removeMember as deleteMembership,
   renameNetwork,
   revokeInvitation,
   type InvitationView,
@@ -50,7 +52,26 @@ export const acceptSchema = z.discriminatedUnion(
   { error: 'Say how to accept: mode "current", "sign-up" or "sign-in".' },
 );
 
-export { createNetwork, renameNetwork, listMembers, listNetworksForUser, changeMemberRole, removeMember, revokeInvitation };
+export { createNetwork, renameNetwork, listMembers, listNetworksForUser, revokeInvitation };
+
+async function memberLabel(userId: string): Promise<string> {
+  const u = await getUserById(userId);
+  return u ? `${u.name} <${u.email}>` : 'a former account';
+}
+
+/** A member's new role (the last owner stays an owner), recorded in the audit trail. */
+export async function changeMemberRole(networkId: string, userId: string, role: Role, actorId: string | null): Promise<void> {
+  await setMemberRole(networkId, userId, role);
+  const summary = `member ${await memberLabel(userId)} is now ${ROLE_LABEL[role].toLowerCase()}`;
+  await record({ networkId, actorId, action: 'changed', subject: 'member', subjectId: userId, summary });
+}
+
+/** Takes a member out of the network (never the last owner), recorded in the audit trail. */
+export async function removeMember(networkId: string, userId: string, actorId: string | null): Promise<void> {
+  const label = await memberLabel(userId);
+  await deleteMembership(networkId, userId);
+  await record({ networkId, actorId, action: 'deleted', subject: 'member', subjectId: userId, summary: `member ${label}` });
+}
 
 export async function membersOverview(networkId: string, includeInvitations: boolean) {
   const [members, invitations] = await Promise.all([

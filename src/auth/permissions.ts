@@ -3,7 +3,7 @@
  * here: who is asking (`requireUser`), may their role in this network do this
  * (`requireNetworkAction`), are they a site administrator (`requireAdmin`).
  *
- * Owners manage members, stations, tokens and deletion; analysts upload data,
+ * Owners manage members, stations, tokens and deletion, and read the audit trail; analysts upload data,
  * edit models and grids and launch/cancel runs; viewers read and export.
  */
 import { getMembership, type MembershipInfo } from '@/db/repo/networks';
@@ -30,6 +30,7 @@ export type Action =
   | 'runs.share'
   | 'comments.write'
   | 'export'
+  | 'audit.read'
   | 'admin.mail'
   | 'admin.settings';
 
@@ -55,6 +56,7 @@ export const GRANTS: Readonly<Record<Action, readonly Role[]>> = {
   'tokens.manage': [O],
   'data.delete': [O],
   'runs.delete': [O],
+  'audit.read': [O],
   'admin.mail': [],
   'admin.settings': [],
 };

@@ -1,6 +1,7 @@
 /**
  * Station registry service: validated input in, AppErrors naming the field out.
  */
+import { record } from '@/src/audit';
 import * as repo from '@/db/repo/stations';
 import { conflict, notFound } from '@/src/server/errors';
 import { isUniqueViolation } from './pg-errors';
@@ -16,16 +17,28 @@ function duplicate(code: string) {
   return conflict(`This network already has a station with code ${code}; choose another code.`, 'code');
 }
 
-export async function createStation(networkId: string, body: StationInputBody): Promise<repo.Station> {
+function recordStation(networkId: string, actorId: string | null, action: 'created' | 'changed' | 'deleted', s: repo.Station) {
+  return record({ networkId, actorId, action, subject: 'station', subjectId: s.id, summary: `station ${s.code} (${s.name})` });
+}
+
+export async function createStation(networkId: string, body: StationInputBody, actorId: string | null): Promise<repo.Station> {
+  let out: repo.Station;
   try {
-    return await repo.createStation(networkId, toInput(body));
+    out = await repo.createStation(networkId, toInput(body));
   } catch (e) {
     if (isUniqueViolation(e)) throw duplicate(body.code);
     throw e;
   }
+  await recordStation(networkId, actorId, 'created', out);
+  return out;
 }
 
-export async function updateStation(networkId: string, stationId: string, body: StationInputBody): Promise<repo.Station> {
+export async function updateStation(
+  networkId: string,
+  stationId: string,
+  body: StationInputBody,
+  actorId: string | null,
+): Promise<repo.Station> {
   let out: repo.Station | null;
   try {
     out = await repo.updateStation(networkId, stationId, toInput(body));
@@ -34,6 +47,7 @@ export async function updateStation(networkId: string, stationId: string, body: 
     throw e;
   }
   if (!out) throw notFound('No such station in this network.');
+  await recordStation(networkId, actorId, 'changed', out);
   return out;
 }
 
@@ -43,8 +57,10 @@ export async function requireStation(networkId: string, stationId: string): Prom
   return s;
 }
 
-export async function deleteStation(networkId: string, stationId: string): Promise<void> {
+export async function deleteStation(networkId: string, stationId: string, actorId: string | null): Promise<void> {
+  const s = await requireStation(networkId, stationId);
   if (!(await repo.deleteStation(networkId, stationId))) throw notFound('No such station in this network.');
+  await recordStation(networkId, actorId, 'deleted', s);
 }
 
 export const listStations = repo.listStations;

@@ -12,6 +12,7 @@ import { loadRunContext } from './context';
 import { MODE_BAND, loadIntervalObservations } from './observations';
 import type { RunContext } from './types';
 import { isId } from '@/src/server/ids';
+import { record } from '@/src/audit';
 
 /** The case's unknowns: what `buildUnknowns` gives the run's solver, in the case file's terms. */
 export function caseUnknowns(ctx: RunContext): Record<string, unknown>[] {
@@ -62,7 +63,7 @@ export interface RunCase {
   body: Record<string, unknown>;
 }
 
-export async function runCaseFile(networkId: string, runId: string, interval?: string): Promise<RunCase> {
+export async function runCaseFile(networkId: string, runId: string, actorId: string | null, interval?: string): Promise<RunCase> {
   const run = await getRun(networkId, runId);
   if (!run) throw notFound('That run is not in this network.');
   const startsAt = await pickInterval(runId, interval);
@@ -111,5 +112,7 @@ export async function runCaseFile(networkId: string, runId: string, interval?: s
     note: 'Research estimates of regional thunderstorm activity; not a lightning warning.',
   };
   const stamp = startsAt.toISOString().slice(0, 16).replace(/[-:]/g, '');
+  const summary = `case file of run "${run.name}", interval ${startsAt.toISOString()}`;
+  await record({ networkId, actorId, action: 'exported', subject: 'run', subjectId: run.id, summary });
   return { file: `cavitas-run-${run.id.slice(0, 8)}-${stamp}-case.json`, body };
 }

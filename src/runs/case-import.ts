@@ -24,6 +24,7 @@ import { gridInputSchema, gridProblems, type GridInput } from './grid-spec';
 import { regionColour } from '@/src/design/tokens';
 import { logPowerVariance } from '@/src/engine/stats/log-power';
 import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
+import { record } from '@/src/audit';
 import type { ObservedSeries } from './types';
 
 type Range = { min: number; max: number };
@@ -205,6 +206,14 @@ export async function importCase(networkId: string, userId: string, raw: unknown
     createdBy: userId,
   });
   await enqueue(RUN_QUEUE, { runId: run.id }, RUN_JOB_OPTIONS);
+  await record({
+    networkId,
+    actorId: userId,
+    action: 'imported',
+    subject: 'run',
+    subjectId: run.id,
+    summary: `case file as run "${run.name}"`,
+  });
   return { runId: run.id };
 }
 

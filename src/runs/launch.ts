@@ -6,6 +6,7 @@
  * problems, stores the run with its full configuration and engine version,
  * and queues it — it returns as soon as the job is queued.
  */
+import { record } from '@/src/audit';
 import { modelRepo } from '@/db/repo/models';
 import { gridRepo } from '@/db/repo/grids';
 import { createRun, measuredCostPerUnit, type RunRow } from '@/db/repo/runs';
@@ -208,5 +209,13 @@ export async function launchRun(networkId: string, userId: string | null, config
   });
   await splitRun(run.id, run.intervalStarts.length);
   await enqueueRunWork(run.id);
+  await record({
+    networkId,
+    actorId: userId,
+    action: 'created',
+    subject: 'run',
+    subjectId: run.id,
+    summary: `run "${run.name}"`,
+  });
   return run;
 }

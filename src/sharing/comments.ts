@@ -3,6 +3,7 @@
  * (shown as text, never as markup), at most MAX_COMMENT_CHARS characters,
  * with author and time. Members write them; link holders read them.
  */
+import { record } from '@/src/audit';
 import { z } from 'zod';
 import { getRun, getRunInterval } from '@/db/repo/runs';
 import { insertRunComment, listRunComments, type RunCommentEntry } from '@/db/repo/comments';
@@ -53,7 +54,8 @@ export async function runComments(networkId: string, runId: string): Promise<Com
 }
 
 export async function addRunComment(networkId: string, runId: string, authorId: string, c: NewComment): Promise<CommentView> {
-  if (!(await getRun(networkId, runId))) throw notFound('That run is not in this network.');
+  const run = await getRun(networkId, runId);
+  if (!run) throw notFound('That run is not in this network.');
   let at: Date | null = null;
   if (c.interval !== undefined && c.minimum !== undefined) {
     at = new Date(c.interval);
@@ -69,6 +71,15 @@ export async function addRunComment(networkId: string, runId: string, authorId: 
     body: c.body,
     intervalStartsAt: at,
     minimum: at ? c.minimum! : null,
+  });
+  const on = at ? `minimum ${c.minimum! + 1} of ${at.toISOString()} of ` : '';
+  await record({
+    networkId,
+    actorId: authorId,
+    action: 'created',
+    subject: 'comment',
+    subjectId: row.id,
+    summary: `comment on ${on}run "${run.name}"`,
   });
   return viewOf({ ...row, authorName: null });
 }

@@ -5,6 +5,7 @@
  * first (a tampered token is refused without a lookup), then that the link
  * still stands: revoked or expired links are "gone", never an error.
  */
+import { record } from '@/src/audit';
 import { z } from 'zod';
 import { getRun } from '@/db/repo/runs';
 import { getRunLink, insertRunLink, listRunLinks, revokeRunLink, type RunLinkEntry, type RunLinkRow } from '@/db/repo/sharing';
@@ -65,8 +66,10 @@ async function viewOf(l: RunLinkEntry, origin: string, withUrl: boolean, now: Da
   };
 }
 
-async function requireRun(networkId: string, runId: string): Promise<void> {
-  if (!(await getRun(networkId, runId))) throw notFound('That run is not in this network.');
+async function requireRun(networkId: string, runId: string): Promise<{ name: string }> {
+  const run = await getRun(networkId, runId);
+  if (!run) throw notFound('That run is not in this network.');
+  return run;
 }
 
 /** A new link to the run, valid for `expiresInDays` days from now (whole seconds). */
@@ -77,9 +80,11 @@ export async function createRunLink(
   expiresInDays: number,
   origin: string,
 ): Promise<{ id: string; url: string; expiresAt: string }> {
-  await requireRun(networkId, runId);
+  const run = await requireRun(networkId, runId);
   const expiresAt = new Date(Math.floor((Date.now() + expiresInDays * 86_400_000) / 1000) * 1000);
   const row = await insertRunLink({ networkId, runId, createdBy: userId, expiresAt });
+  const summary = `run "${run.name}" by a read-only link until ${row.expiresAt.toISOString()}`;
+  await record({ networkId, actorId: userId, action: 'shared', subject: 'link', subjectId: row.id, summary });
   return { id: row.id, url: origin + sharedPath(await tokenOf(row)), expiresAt: row.expiresAt.toISOString() };
 }
 
@@ -92,6 +97,14 @@ export async function runLinks(networkId: string, runId: string, origin: string,
 export async function revokeLink(networkId: string, runId: string, linkId: string, userId: string): Promise<void> {
   const row = await revokeRunLink(networkId, runId, linkId, userId);
   if (!row) throw notFound('That link is not on this run.');
+  await record({
+    networkId,
+    actorId: userId,
+    action: 'changed',
+    subject: 'link',
+    subjectId: linkId,
+    summary: 'withdrew a read-only link',
+  });
 }
 
 export type OpenedLink =

@@ -35,7 +35,7 @@ describe('station registry', () => {
   it('refuses a second station with the same code in a network, naming the field', async () => {
     const { networkId } = await makeWorld();
     const body = { ...stationInput(), elevationM: null };
-    await expect(createStationService(networkId, body)).rejects.toMatchObject({ status: 409, field: 'code' });
+    await expect(createStationService(networkId, body, null)).rejects.toMatchObject({ status: 409, field: 'code' });
     // The same code in another network is fine.
     const other = await makeWorld();
     expect(other.station.code).toBe('TST1');

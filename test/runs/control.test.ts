@@ -41,7 +41,7 @@ describe('cancelling, re-running and deleting runs', () => {
   it('ends a queued run at once, and no worker claims it afterwards', async () => {
     const w = await makeRunWorld(1);
     const run = await newRun(w);
-    const row = await cancelRun(w.networkId, run.id);
+    const row = await cancelRun(w.networkId, run.id, null);
     expect(row.state).toBe('cancelled');
     expect(row.progress.phase).toBe(PHASE.cancelledBeforeStart);
     expect(await claimRun(run.id, 'w1')).toBeNull();
@@ -51,29 +51,29 @@ describe('cancelling, re-running and deleting runs', () => {
     const w = await makeRunWorld(1);
     const run = await newRun(w);
     expect(await claimRun(run.id, 'w1')).not.toBeNull();
-    await expect(removeRun(w.networkId, run.id).catch(status)).resolves.toBe(409);
-    const row = await cancelRun(w.networkId, run.id);
+    await expect(removeRun(w.networkId, run.id, null).catch(status)).resolves.toBe(409);
+    const row = await cancelRun(w.networkId, run.id, null);
     expect(row.state).toBe('running');
     expect(row.cancelRequested).toBe(true);
     expect(await endRun(run.id, 'cancelled', null, null, 'w1')).toBe(true);
-    await expect(cancelRun(w.networkId, run.id).catch(status)).resolves.toBe(409);
+    await expect(cancelRun(w.networkId, run.id, null).catch(status)).resolves.toBe(409);
   });
 
   it('puts a cancelled run back in the queue with a job, but not a finished one; deletes an ended run', async () => {
     const w = await makeRunWorld(1);
     const run = await newRun(w);
-    await cancelRun(w.networkId, run.id);
+    await cancelRun(w.networkId, run.id, null);
     const boss = await getBoss();
     await boss.purgeQueue(RUN_QUEUE);
-    const again = await rerunRun(w.networkId, run.id);
+    const again = await rerunRun(w.networkId, run.id, null);
     expect(again.state).toBe('queued');
     expect(again.cancelRequested).toBe(false);
     expect(again.progress.phase).toBe(PHASE.waiting);
     expect(await boss.getQueueSize(RUN_QUEUE)).toBe(1);
 
     await endRun(run.id, 'finished', null);
-    await expect(rerunRun(w.networkId, run.id).catch(status)).resolves.toBe(409);
-    await removeRun(w.networkId, run.id);
+    await expect(rerunRun(w.networkId, run.id, null).catch(status)).resolves.toBe(409);
+    await removeRun(w.networkId, run.id, null);
     expect(await getRunById(run.id)).toBeNull();
   });
 });

@@ -5,6 +5,9 @@
  * scatter (sigma of ln P = 1/sqrt(K) for K Welch segments; Welch 1967), run
  * through the real driver and engine solver.
  */
+import { afterAll, beforeAll } from 'vitest';
+import { stopBoss } from '@/db/jobs';
+import { closeDatabase, resetDatabase } from '@/test/helpers/db';
 import { createRun } from '@/db/repo/runs';
 import type { Station } from '@/db/repo/stations';
 import type { RunConfig } from '@/src/runs/config';
@@ -55,4 +58,21 @@ export async function makeSharingWorld(tag: string, intervalCount = 1, noiseSeed
   const outcome = await executeRun(run.id, { solve: makeEngineSolver(1), workerId: `sharing-${tag}` });
   if (outcome !== 'finished') throw new Error(`the test run ended ${outcome}`);
   return { ...w, stations, runId: run.id, config, intervals: starts.map((t) => t.toISOString()) };
+}
+
+/**
+ * A fresh database with one sharing world for a test file: made before its tests, the job queue
+ * and the pool closed after them. Read `world()` inside the tests.
+ */
+export function useSharingWorld(tag: string, intervalCount = 1): () => SharingWorld {
+  let w: SharingWorld | null = null;
+  beforeAll(async () => {
+    await resetDatabase();
+    w = await makeSharingWorld(tag, intervalCount);
+  });
+  afterAll(async () => {
+    await stopBoss(5000);
+    await closeDatabase();
+  });
+  return () => w!;
 }

@@ -64,7 +64,14 @@ function twoRows(c: Float64Array, r: Float64Array, m: number, n: number, a: numb
       c1 = c0 + m,
       c2 = c1 + m,
       c3 = c2 + m;
-    let [s0, s1, s2, s3, t0, t1, t2, t3] = [0, 0, 0, 0, 0, 0, 0, 0];
+    let s0 = 0,
+      s1 = 0,
+      s2 = 0,
+      s3 = 0,
+      t0 = 0,
+      t1 = 0,
+      t2 = 0,
+      t3 = 0;
     for (let i = 0; i < m; i++) {
       const x = c[ca + i];
       const y = c[cx + i];

@@ -9,6 +9,7 @@ import { SkipLink } from './SkipLink';
 import { NavLinks, type NavItem } from './NavLinks';
 import { NetworkSwitcher, type SwitcherNetwork } from './NetworkSwitcher';
 import { AccountMenu } from './AccountMenu';
+import { can, type Role } from '@/src/auth/permissions';
 
 export interface ShellUser {
   name: string;
@@ -16,8 +17,10 @@ export interface ShellUser {
   isAdmin: boolean;
 }
 
-export function networkNav(networkId: string): NavItem[] {
+/** The network's sections; the audit trail only for roles that may read it. */
+export function networkNav(networkId: string, role?: Role): NavItem[] {
   const base = `/n/${networkId}`;
+  const audit = can(role, 'audit.read') ? [{ href: `${base}/audit`, label: 'Audit trail' }] : [];
   return [
     { href: base, label: 'Overview', exact: true },
     { href: `${base}/stations`, label: 'Stations' },
@@ -25,6 +28,7 @@ export function networkNav(networkId: string): NavItem[] {
     { href: `${base}/grids`, label: 'Source grids' },
     { href: `${base}/runs`, label: 'Runs' },
     { href: `${base}/members`, label: 'Members' },
+    ...audit,
   ];
 }
 
@@ -39,7 +43,7 @@ interface AppShellProps {
 }
 
 export function AppShell({ user, networks, current, nav, navLabel, children }: AppShellProps) {
-  const items = nav ?? (current ? networkNav(current.id) : undefined);
+  const items = nav ?? (current ? networkNav(current.id, current.role as Role) : undefined);
   return (
     <>
       <SkipLink />

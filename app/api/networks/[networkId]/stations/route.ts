@@ -11,7 +11,7 @@ export const GET = route<P>(async (_req, { params }) => {
 });
 
 export const POST = route<P>(async (req, { params }) => {
-  await requireNetworkAction(params.networkId, 'stations.manage');
+  const { user } = await requireNetworkAction(params.networkId, 'stations.manage');
   const body = await parseJson(req, stationInputSchema);
-  return json({ station: await createStation(params.networkId, body) }, 201);
+  return json({ station: await createStation(params.networkId, body, user.id) }, 201);
 });

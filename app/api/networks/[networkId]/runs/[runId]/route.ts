@@ -33,7 +33,7 @@ export const GET = route<P>(async (req, { params }) => {
 });
 
 export const DELETE = route<P>(async (_req, { params }) => {
-  await requireNetworkAction(params.networkId, 'runs.delete');
-  await removeRun(params.networkId, requireId(params.runId, 'run'));
+  const { user } = await requireNetworkAction(params.networkId, 'runs.delete');
+  await removeRun(params.networkId, requireId(params.runId, 'run'), user.id);
   return json({ deleted: true });
 });

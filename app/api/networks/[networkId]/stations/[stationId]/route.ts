@@ -12,13 +12,13 @@ export const GET = route<P>(async (_req, { params }) => {
 });
 
 export const PUT = route<P>(async (req, { params }) => {
-  await requireNetworkAction(params.networkId, 'stations.manage');
+  const { user } = await requireNetworkAction(params.networkId, 'stations.manage');
   const body = await parseJson(req, stationInputSchema);
-  return json({ station: await updateStation(params.networkId, requireId(params.stationId, 'station'), body) });
+  return json({ station: await updateStation(params.networkId, requireId(params.stationId, 'station'), body, user.id) });
 });
 
 export const DELETE = route<P>(async (_req, { params }) => {
-  await requireNetworkAction(params.networkId, 'stations.manage');
-  await deleteStation(params.networkId, requireId(params.stationId, 'station'));
+  const { user } = await requireNetworkAction(params.networkId, 'stations.manage');
+  await deleteStation(params.networkId, requireId(params.stationId, 'station'), user.id);
   return json({ ok: true });
 });

@@ -6,7 +6,7 @@ import { requireId } from '@/src/server/ids';
 type P = { networkId: string; runId: string };
 
 export const POST = route<P>(async (_req, { params }) => {
-  await requireNetworkAction(params.networkId, 'runs.cancel');
-  const run = await cancelRun(params.networkId, requireId(params.runId, 'run'));
+  const { user } = await requireNetworkAction(params.networkId, 'runs.cancel');
+  const run = await cancelRun(params.networkId, requireId(params.runId, 'run'), user.id);
   return json({ run: { id: run.id, state: run.state, cancelRequested: run.cancelRequested } });
 });

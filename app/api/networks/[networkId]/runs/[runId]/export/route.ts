@@ -19,10 +19,10 @@ const query = z.object({
  * or (what=case) one interval as a case file for the command line's `invert`.
  */
 export const GET = route<P>(async (req, { params }) => {
-  await requireNetworkAction(params.networkId, 'export');
+  const { user } = await requireNetworkAction(params.networkId, 'export');
   const q = parseQuery(req, query);
   if (q.what === 'case') {
-    const c = await runCaseFile(params.networkId, requireId(params.runId, 'run'), q.interval);
+    const c = await runCaseFile(params.networkId, requireId(params.runId, 'run'), user.id, q.interval);
     return json(c.body, 200, { 'content-disposition': `attachment; filename="${c.file}"`, 'cache-control': 'no-store' });
   }
   const view = await getRunView(params.networkId, requireId(params.runId, 'run'));

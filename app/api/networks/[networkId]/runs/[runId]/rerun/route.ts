@@ -7,7 +7,7 @@ type P = { networkId: string; runId: string };
 
 /** Queues a failed or cancelled run again; intervals it finished are kept and skipped. */
 export const POST = route<P>(async (_req, { params }) => {
-  await requireNetworkAction(params.networkId, 'runs.launch');
-  const run = await rerunRun(params.networkId, requireId(params.runId, 'run'));
+  const { user } = await requireNetworkAction(params.networkId, 'runs.launch');
+  const run = await rerunRun(params.networkId, requireId(params.runId, 'run'), user.id);
   return json({ run: { id: run.id, state: run.state } }, 202);
 });
