@@ -21,9 +21,9 @@ import * as cancelRoute from '@/app/api/networks/[networkId]/runs/[runId]/cancel
 import * as stationRoute from '@/app/api/networks/[networkId]/stations/[stationId]/route';
 import * as memberRoute from '@/app/api/networks/[networkId]/members/[userId]/route';
 import type { AuditEntry } from '@/src/audit';
-import { useSharingWorld } from '@/test/sharing/world';
+import { withSharingWorld } from '@/test/sharing/world';
 
-const world = useSharingWorld('audit');
+const world = withSharingWorld('audit');
 const N = () => ({ networkId: world().networkId });
 const R = () => ({ networkId: world().networkId, runId: world().runId });
 

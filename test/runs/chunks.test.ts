@@ -154,7 +154,7 @@ describe('runs worked in chunks', () => {
     const working = Promise.all([worker(run.id, 'worker-a', firsts, solve), worker(run.id, 'worker-b', firsts, solve)]);
     await twoAtWork;
     expect((await getRunView(w.networkId, run.id)).run.workers).toBe(2); // what the run page shows
-    await cancelRun(w.networkId, run.id);
+    await cancelRun(w.networkId, run.id, null);
     cancelled = true;
     cancelAsked();
     const outcomes = (await working).flat();
@@ -174,7 +174,7 @@ describe('runs worked in chunks', () => {
 
     const boss = await getBoss();
     await boss.purgeQueue(RUN_QUEUE);
-    await rerunRun(w.networkId, run.id);
+    await rerunRun(w.networkId, run.id, null);
     const left = (await listRunChunks(run.id)).filter((c) => c.doneAt === null).map((c) => c.first);
     const jobs = await boss.fetch<{ runId: string; first?: number }>(RUN_QUEUE, { batchSize: 100 });
     expect(jobs.map((j) => j.data.first).sort()).toEqual(left);
@@ -190,7 +190,7 @@ describe('runs worked in chunks', () => {
     const { run } = await launchDrained(w);
     expect(await worker(run.id, 'one-chunk', [0])).toEqual(['chunk-done']);
     expect((await getRunById(run.id))!.state).toBe('running');
-    const row = await cancelRun(w.networkId, run.id);
+    const row = await cancelRun(w.networkId, run.id, null);
     expect(row.state).toBe('cancelled');
     expect(row.progress.intervalsDone).toBe(3);
     expect(await executeRun(run.id, { solve: engineSolver, workerId: 'late', chunk: 3 })).toBe('not-runnable');

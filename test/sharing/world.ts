@@ -64,7 +64,7 @@ export async function makeSharingWorld(tag: string, intervalCount = 1, noiseSeed
  * A fresh database with one sharing world for a test file: made before its tests, the job queue
  * and the pool closed after them. Read `world()` inside the tests.
  */
-export function useSharingWorld(tag: string, intervalCount = 1): () => SharingWorld {
+export function withSharingWorld(tag: string, intervalCount = 1): () => SharingWorld {
   let w: SharingWorld | null = null;
   beforeAll(async () => {
     await resetDatabase();
