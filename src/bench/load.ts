@@ -10,11 +10,8 @@
  * request at a time. Measurements only; nothing passes or fails. Needs a production build in .next.
  */
 import { randomUUID } from 'node:crypto';
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync } from 'node:fs';
 import { loadavg } from 'node:os';
-import path from 'node:path';
-import { startThrowawayPostgres, freePort, type ThrowawayPg } from '@/db/pglocal';
+import { startThrowawayPostgres, type ThrowawayPg } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
 import { closeDatabase } from '@/db/lifecycle';
 import { stopBoss } from '@/db/jobs';
@@ -23,10 +20,8 @@ import { createNetwork, upsertMembership } from '@/db/repo/networks';
 import { createRun, endRun, saveRunIntervals } from '@/db/repo/runs';
 import { engineVersion } from '@/src/runs/engine-version';
 import { startSession } from '@/src/auth/session';
-import { nextBin, projectRoot } from '@/src/ops/paths';
-import { waitForHttp } from '@/src/ops/supervisor';
-import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
-import { childEnv, setEnv, settings } from '@/src/settings';
+import { setEnv, settings } from '@/src/settings';
+import { hasProductionBuild, startNextServer } from './next-server';
 import { boxRegion, seedSyntheticNetwork, tenMinuteStarts } from '@/src/runs/synthetic-network';
 import { largeResult } from './large-result';
 
@@ -111,7 +106,7 @@ async function timed(url: string, cookie: string): Promise<{ ms: number; status:
 }
 
 export default async function main(): Promise<void> {
-  if (!existsSync(path.join(projectRoot, '.next', 'BUILD_ID'))) {
+  if (!hasProductionBuild()) {
     console.log('load: skipped — no production build in .next (build with `npm run build` or `npm start`, then run again)');
     return;
   }
@@ -141,34 +136,7 @@ export default async function main(): Promise<void> {
       `seeded a ${INTERVALS}-interval x ${STARTS}-start run, ${OTHER_RUNS} short runs and ${users} users in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
     );
 
-    const stale = buildStaleness();
-    const release = await holdSharedBuildLock(); // no build replaces .next while we serve it
-    stop.push(release);
-    const port = await freePort();
-    const web: ChildProcess = spawn(process.execPath, [nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
-      cwd: projectRoot,
-      stdio: ['ignore', 'ignore', 'pipe'],
-      env: childEnv(
-        {
-          DATABASE_URL: pg.url,
-          PORT: String(port),
-          APP_URL: `http://127.0.0.1:${port}`,
-          COOKIE_SECURE: 'false',
-          NEXT_TELEMETRY_DISABLED: '1',
-        },
-        { dropNodeEnv: true },
-      ),
-    });
-    stop.push(
-      () =>
-        new Promise<void>((resolve) => {
-          if (web.exitCode !== null || web.signalCode !== null) return resolve();
-          web.once('exit', () => resolve());
-          web.kill('SIGTERM');
-        }),
-    );
-    const base = `http://127.0.0.1:${port}`;
-    await waitForHttp(`${base}/`, 60_000, () => web.exitCode === null);
+    const { base, stale } = await startNextServer(pg.url, stop);
     const targets = {
       overview: `${base}/n/${networkId}`,
       'run list': `${base}/n/${networkId}/runs`,

@@ -34,11 +34,9 @@
  * tell the loads and writes apart from the rest of the driver.
  */
 import { randomUUID } from 'node:crypto';
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { loadavg } from 'node:os';
-import path from 'node:path';
-import { startThrowawayPostgres, freePort, type ThrowawayPg } from '@/db/pglocal';
+import { startThrowawayPostgres, type ThrowawayPg } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
 import { closeDatabase } from '@/db/lifecycle';
 import { stopBoss } from '@/db/jobs';
@@ -56,11 +54,9 @@ import { engineSolver } from '@/src/runs/solver';
 import { engineVersion } from '@/src/runs/engine-version';
 import { startSession } from '@/src/auth/session';
 import { SESSION_COOKIE } from '@/src/auth/lucia';
-import { nextBin, projectRoot } from '@/src/ops/paths';
-import { waitForHttp } from '@/src/ops/supervisor';
-import { buildStaleness, holdSharedBuildLock } from '@/src/ops/build';
 import { launchBrowser } from '@/src/ops/browser';
-import { childEnv, setEnv, settings } from '@/src/settings';
+import { setEnv, settings } from '@/src/settings';
+import { hasProductionBuild, startNextServer } from './next-server';
 import { REGION_COLOURS } from '@/src/design/tokens';
 import { boxRegion, seedSyntheticNetwork, tenMinuteStarts } from '@/src/runs/synthetic-network';
 
@@ -528,40 +524,13 @@ async function measurePage(
   runId: string,
   stop: Array<() => Promise<void> | void>,
 ): Promise<void> {
-  if (!existsSync(path.join(projectRoot, '.next', 'BUILD_ID'))) {
+  if (!hasProductionBuild()) {
     console.log(
       '(b) page load: skipped — no production build in .next (build with `npm run build` or `npm start`, then run again)',
     );
     return;
   }
-  const stale = buildStaleness();
-  const release = await holdSharedBuildLock(); // no build replaces .next while we serve it
-  stop.push(release);
-  const port = await freePort();
-  const web: ChildProcess = spawn(process.execPath, [nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
-    cwd: projectRoot,
-    stdio: ['ignore', 'ignore', 'pipe'],
-    env: childEnv(
-      {
-        DATABASE_URL: databaseUrl,
-        PORT: String(port),
-        APP_URL: `http://127.0.0.1:${port}`,
-        COOKIE_SECURE: 'false',
-        NEXT_TELEMETRY_DISABLED: '1',
-      },
-      { dropNodeEnv: true },
-    ),
-  });
-  stop.push(
-    () =>
-      new Promise<void>((resolve) => {
-        if (web.exitCode !== null || web.signalCode !== null) return resolve();
-        web.once('exit', () => resolve());
-        web.kill('SIGTERM');
-      }),
-  );
-  const base = `http://127.0.0.1:${port}`;
-  await waitForHttp(`${base}/`, 60_000, () => web.exitCode === null);
+  const { base, stale } = await startNextServer(databaseUrl, stop);
   const cookie = await startSession(userId);
   const value = /^[^=]+=([^;]*)/.exec(cookie)?.[1] ?? '';
   const browser = await launchBrowser();

@@ -5,9 +5,8 @@
  * stored frequencies and power bit for bit, in SI units.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeDatabase, resetDatabase } from '@/test/helpers/db';
+import { closeQueueAndDatabase, resetDatabase } from '@/test/helpers/db';
 import { CALLERS, call } from '@/test/helpers/authz';
-import { stopBoss } from '@/db/jobs';
 import { getIntervalSpectra } from '@/db/repo/intervals';
 import { readSpectraCsv } from '@/src/engine/formats/spectra-csv';
 import * as spectrumRoute from '@/app/api/networks/[networkId]/intervals/[intervalId]/spectrum/route';
@@ -18,10 +17,7 @@ beforeAll(async () => {
   await resetDatabase();
   w = await makeSharingWorld('spectrum');
 });
-afterAll(async () => {
-  await stopBoss(5000);
-  await closeDatabase();
-});
+afterAll(() => closeQueueAndDatabase());
 
 describe('interval spectrum as CSV', () => {
   it('anonymous, viewer, analyst, owner, other network → 401, 200, 200, 200, 404', async () => {

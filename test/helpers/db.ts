@@ -7,6 +7,7 @@
  */
 import { truncateAppTables } from '@/db/reset';
 import { closeDatabase as closeDb } from '@/db/lifecycle';
+import { stopBoss } from '@/db/jobs';
 
 /** Truncates all application tables (not drizzle's journal, not pg-boss's schema). */
 export async function resetDatabase(): Promise<void> {
@@ -15,5 +16,11 @@ export async function resetDatabase(): Promise<void> {
 
 /** Closes this test file's pool; call in afterAll so the fork exits promptly. */
 export async function closeDatabase(): Promise<void> {
+  await closeDb();
+}
+
+/** Stops this file's queue client (pg-boss) and closes its pool; call in afterAll. */
+export async function closeQueueAndDatabase(timeoutMs = 5000): Promise<void> {
+  await stopBoss(timeoutMs);
   await closeDb();
 }

@@ -5,8 +5,8 @@
  * a job for it), and a run is deleted only once it has ended.
  */
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
-import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { getBoss, stopBoss } from '@/db/jobs';
+import { closeQueueAndDatabase, resetDatabase } from '@/test/helpers/db';
+import { getBoss } from '@/db/jobs';
 import { claimRun, endRun, getRunById } from '@/db/repo/runs';
 import { cancelRun, removeRun, rerunRun } from '@/src/runs/control';
 import { PHASE, hasEnded, mayCancel, mayDelete, mayRerun } from '@/src/runs/lifecycle';
@@ -33,10 +33,7 @@ describe('run lifecycle rules', () => {
 
 describe('cancelling, re-running and deleting runs', () => {
   beforeEach(resetDatabase);
-  afterAll(async () => {
-    await stopBoss();
-    await closeDatabase();
-  });
+  afterAll(() => closeQueueAndDatabase());
 
   it('ends a queued run at once, and no worker claims it afterwards', async () => {
     const w = await makeRunWorld(1);

@@ -31,6 +31,16 @@ process.env.CAVITAS_RUN_THREADS = '1';
 
 class SimulatedCrash extends Error {}
 
+/** Worker w1 runs the run with the engine and asks for it to be cancelled once its first interval is stored. */
+const cancelledAfterFirst = (networkId: string, runId: string) =>
+  executeRun(runId, {
+    solve: engineSolver,
+    workerId: 'w1',
+    afterInterval: async (i) => {
+      if (i === 0) await requestCancel(networkId, runId);
+    },
+  });
+
 describe('run driver', () => {
   beforeAll(resetDatabase);
   beforeEach(resetDatabase);
@@ -123,15 +133,7 @@ describe('run driver', () => {
   it('stops on cancel, keeps finished intervals, and a re-run completes the rest', async () => {
     const w = await makeRunWorld(4);
     const run = await newRun(w);
-    expect(
-      await executeRun(run.id, {
-        solve: engineSolver,
-        workerId: 'w1',
-        afterInterval: async (i) => {
-          if (i === 0) await requestCancel(w.networkId, run.id);
-        },
-      }),
-    ).toBe('cancelled');
+    expect(await cancelledAfterFirst(w.networkId, run.id)).toBe('cancelled');
     expect((await getRunById(run.id))!.state).toBe('cancelled');
     // The driver hears of the request with its next write (its result write of the interval in
     // hand, or the progress timer within a longer solve): the interval in hand is finished and
@@ -359,15 +361,7 @@ describe('run driver', () => {
   it('writes nothing to a run once it has ended, nor for a worker that no longer holds it', async () => {
     const w = await makeRunWorld(3);
     const run = await newRun(w);
-    expect(
-      await executeRun(run.id, {
-        solve: engineSolver,
-        workerId: 'w1',
-        afterInterval: async (i) => {
-          if (i === 0) await requestCancel(w.networkId, run.id);
-        },
-      }),
-    ).toBe('cancelled');
+    expect(await cancelledAfterFirst(w.networkId, run.id)).toBe('cancelled');
     const rows = await listRunIntervals(run.id);
     const ended = await getRunById(run.id);
     const late = { startsAt: new Date(run.intervalStarts[2]), nData: 1, result: { minima: [] }, seconds: 1 };

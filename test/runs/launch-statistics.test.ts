@@ -5,8 +5,7 @@
  */
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
-import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { stopBoss } from '@/db/jobs';
+import { closeQueueAndDatabase, resetDatabase } from '@/test/helpers/db';
 import { getDb } from '@/db/client';
 import { listRuns } from '@/db/repo/runs';
 import { checkLaunch, launchRun } from '@/src/runs/launch';
@@ -23,10 +22,7 @@ async function setStatistics(stationCode: string, component: string, statistics:
 
 describe('run launch and stored spectrum statistics', () => {
   beforeEach(resetDatabase);
-  afterAll(async () => {
-    await stopBoss();
-    await closeDatabase();
-  });
+  afterAll(() => closeQueueAndDatabase());
 
   it('refuses spectra without statistics, naming the series and field, and stores no run', async () => {
     const w = await makeRunWorld(2);

@@ -4,8 +4,7 @@
  * configuration and engine version. Grid and model edits make versions.
  */
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
-import { closeDatabase, resetDatabase } from '@/test/helpers/db';
-import { stopBoss } from '@/db/jobs';
+import { closeQueueAndDatabase, resetDatabase } from '@/test/helpers/db';
 import { createRun, getRunById, measuredCostPerUnit, saveRunInterval } from '@/db/repo/runs';
 import { modelRepo } from '@/db/repo/models';
 import { checkLaunch, launchRun } from '@/src/runs/launch';
@@ -21,10 +20,7 @@ async function problemsOf(w: Awaited<ReturnType<typeof makeRunWorld>>, patch: (c
 
 describe('launch checks', () => {
   beforeEach(resetDatabase);
-  afterAll(async () => {
-    await stopBoss();
-    await closeDatabase();
-  });
+  afterAll(() => closeQueueAndDatabase());
 
   it('previews data, parameters, starts and intervals of a good configuration', async () => {
     const w = await makeRunWorld(3);

@@ -6,9 +6,8 @@
  * in length; a comment on a minimum must name one that exists.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeDatabase, resetDatabase } from '@/test/helpers/db';
+import { closeQueueAndDatabase, resetDatabase } from '@/test/helpers/db';
 import { CALLERS, call, errorOf, type CallerName } from '@/test/helpers/authz';
-import { stopBoss } from '@/db/jobs';
 import * as commentsRoute from '@/app/api/networks/[networkId]/runs/[runId]/comments/route';
 import * as linksRoute from '@/app/api/networks/[networkId]/runs/[runId]/links/route';
 import * as linkRoute from '@/app/api/networks/[networkId]/runs/[runId]/links/[linkId]/route';
@@ -24,10 +23,7 @@ beforeAll(async () => {
   await resetDatabase();
   w = await makeSharingWorld('comments');
 });
-afterAll(async () => {
-  await stopBoss(5000);
-  await closeDatabase();
-});
+afterAll(() => closeQueueAndDatabase());
 
 describe('comments', () => {
   it('GET: anonymous, viewer, analyst, owner, other network → 401, 200, 200, 200, 404', async () => {

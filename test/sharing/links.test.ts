@@ -9,9 +9,8 @@
  */
 import { spawnSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeDatabase, resetDatabase } from '@/test/helpers/db';
+import { closeQueueAndDatabase, resetDatabase } from '@/test/helpers/db';
 import { CALLERS, call, errorOf, type CallerName } from '@/test/helpers/authz';
-import { stopBoss } from '@/db/jobs';
 import { insertRunLink } from '@/db/repo/sharing';
 import { signLinkToken, verifyLinkToken } from '@/src/sharing/tokens';
 import { linkSecret } from '@/src/sharing/secret';
@@ -39,10 +38,7 @@ beforeAll(async () => {
   await resetDatabase();
   w = await makeSharingWorld('links');
 });
-afterAll(async () => {
-  await stopBoss(5000);
-  await closeDatabase();
-});
+afterAll(() => closeQueueAndDatabase());
 
 describe('link routes: who may do what', () => {
   const rows: { name: string; expect: number[]; run: (c: CallerName) => Promise<Response> }[] = [
