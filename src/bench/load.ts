@@ -13,8 +13,6 @@ import { randomUUID } from 'node:crypto';
 import { loadavg } from 'node:os';
 import { startThrowawayPostgres, type ThrowawayPg } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
-import { closeDatabase } from '@/db/lifecycle';
-import { stopBoss } from '@/db/jobs';
 import { insertUser } from '@/db/repo/users';
 import { createNetwork, upsertMembership } from '@/db/repo/networks';
 import { createRun, endRun, saveRunIntervals } from '@/db/repo/runs';
@@ -22,6 +20,7 @@ import { engineVersion } from '@/src/runs/engine-version';
 import { startSession } from '@/src/auth/session';
 import { setEnv, settings } from '@/src/settings';
 import { hasProductionBuild, startNextServer } from './next-server';
+import { tearDownBench } from './teardown';
 import { boxRegion, seedSyntheticNetwork, tenMinuteStarts } from '@/src/runs/synthetic-network';
 import { largeResult } from './large-result';
 
@@ -210,13 +209,6 @@ export default async function main(): Promise<void> {
     }
     if (stale.stale) console.log(`note: the build in .next is older than the sources (${stale.reason})`);
   } finally {
-    for (const f of stop.reverse())
-      await Promise.resolve()
-        .then(f)
-        .catch(() => {});
-    await stopBoss(5_000).catch(() => {});
-    await closeDatabase().catch(() => {});
-    await pg?.stop().catch(() => {});
-    setEnv('DATABASE_URL', previousUrl);
+    await tearDownBench(stop, pg, previousUrl);
   }
 }

@@ -38,8 +38,6 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import { startThrowawayPostgres, type ThrowawayPg } from '@/db/pglocal';
 import { migrate } from '@/db/migrate';
-import { closeDatabase } from '@/db/lifecycle';
-import { stopBoss } from '@/db/jobs';
 import { insertUser } from '@/db/repo/users';
 import { createNetwork } from '@/db/repo/networks';
 import { createRun, getRunById, listRunIntervals, saveRunInterval } from '@/db/repo/runs';
@@ -57,6 +55,7 @@ import { SESSION_COOKIE } from '@/src/auth/lucia';
 import { launchBrowser } from '@/src/ops/browser';
 import { setEnv, settings } from '@/src/settings';
 import { hasProductionBuild, startNextServer } from './next-server';
+import { tearDownBench } from './teardown';
 import { REGION_COLOURS } from '@/src/design/tokens';
 import { boxRegion, seedSyntheticNetwork, tenMinuteStarts } from '@/src/runs/synthetic-network';
 
@@ -623,13 +622,6 @@ export default async function main(): Promise<void> {
     if (!BENCH.BENCH_RUN_PAGE) console.log('(b) page load: skipped (BENCH_RUN_PAGE=0)');
     else await measurePage(pg.url, networkId, userId, runId, stop);
   } finally {
-    for (const s of stop.reverse())
-      await Promise.resolve()
-        .then(s)
-        .catch(() => {});
-    await stopBoss(5_000).catch(() => {});
-    await closeDatabase().catch(() => {});
-    await pg?.stop().catch(() => {});
-    setEnv('DATABASE_URL', previousUrl);
+    await tearDownBench(stop, pg, previousUrl);
   }
 }
