@@ -1,6 +1,6 @@
 import { Matrix, inverse } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { bandedWhitener, gridPositions, whitenResiduals } from '@/src/engine/inverse/bin-whitening';
+import { bandedWhitener, gridPositions, whitenColumns, whitenResiduals } from '@/src/engine/inverse/bin-whitening';
 import { mulberry32 } from '@/src/engine/random';
 import { hannWelchBinCorrelation } from '@/src/engine/stats/welch-bin-correlation';
 
@@ -27,11 +27,15 @@ describe('banded whitening of correlated bins', () => {
     const w = bandedWhitener(pos, lag);
     const z = Float64Array.from(r);
     whitenResiduals(w, z, 0);
-    // the Jacobian column by column (column-major copy, each column whitened like a residual vector)
-    const zj = new Float64Array(n * cols);
+    // the Jacobian as the objective holds it: column-major, the series at an offset inside each column
+    const offset = 2;
+    const stride = n + 5;
+    const zj = new Float64Array(cols * stride).fill(7);
+    for (let a = 0; a < cols; a++) for (let k = 0; k < n; k++) zj[a * stride + offset + k] = jac[k * cols + a];
+    whitenColumns(w, zj, offset, stride, cols);
     for (let a = 0; a < cols; a++) {
-      for (let k = 0; k < n; k++) zj[a * n + k] = jac[k * cols + a];
-      whitenResiduals(w, zj, a * n);
+      expect(zj[a * stride + offset - 1]).toBe(7); // rows outside the series untouched
+      expect(zj[a * stride + offset + n]).toBe(7);
     }
     const rm = Matrix.columnVector(Array.from(r));
     const chi2 = rm.transpose().mmul(cinv).mmul(rm).get(0, 0);
@@ -41,7 +45,7 @@ describe('banded whitening of correlated bins', () => {
     for (let a = 0; a < cols; a++)
       for (let b = 0; b < cols; b++) {
         let v = 0;
-        for (let k = 0; k < n; k++) v += zj[a * n + k] * zj[b * n + k];
+        for (let k = 0; k < n; k++) v += zj[a * stride + offset + k] * zj[b * stride + offset + k];
         expect(v).toBeCloseTo(ref.get(a, b), 10);
       }
   });
