@@ -50,25 +50,60 @@ export function bandedWhitener(pos: ArrayLike<number>, lag: readonly [number, nu
 
 /** r[offset + k] <- (L^-1 r)_k for the series' bins, in place. */
 export function whitenResiduals(w: BandedWhitener, r: Float64Array, offset: number): void {
-  whitenColumns(w, r, offset, 1, 1);
+  oneColumn(w, r, offset);
 }
 
 /**
  * The series' rows of a column-major Jacobian (column j starts at j * stride) <- L^-1 times them, in place:
- * L^-1 J is L^-1 applied to each column. The columns advance together, row by row, so that their independent
+ * L^-1 J is L^-1 applied to each column. Three columns advance together down the rows, so that their independent
  * recurrences overlap instead of each waiting on its own previous row.
  */
 export function whitenColumns(w: BandedWhitener, jac: Float64Array, offset: number, stride: number, cols: number): void {
+  let j = 0;
+  for (; j + 2 < cols; j += 3) threeColumns(w, jac, offset + j * stride, stride);
+  for (; j < cols; j++) oneColumn(w, jac, offset + j * stride);
+}
+
+function oneColumn(w: BandedWhitener, r: Float64Array, at: number): void {
   const n = w.diag.length;
   const { invDiag, sub1, sub2 } = w;
-  const end = offset + cols * stride;
-  if (n > 0) for (let i = offset; i < end; i += stride) jac[i] *= invDiag[0];
-  if (n > 1) for (let i = offset + 1; i < end + 1; i += stride) jac[i] = (jac[i] - sub1[1] * jac[i - 1]) * invDiag[1];
-  for (let k = 2; k < n; k++) {
+  let v1 = 0;
+  let v2 = 0;
+  for (let k = 0; k < n; k++) {
+    const v = (r[at + k] - sub1[k] * v1 - sub2[k] * v2) * invDiag[k];
+    r[at + k] = v;
+    v2 = v1;
+    v1 = v;
+  }
+}
+
+function threeColumns(w: BandedWhitener, jac: Float64Array, a: number, stride: number): void {
+  const n = w.diag.length;
+  const { invDiag, sub1, sub2 } = w;
+  const b = a + stride;
+  const c = b + stride;
+  let a1 = 0,
+    a2 = 0,
+    b1 = 0,
+    b2 = 0,
+    c1 = 0,
+    c2 = 0;
+  for (let k = 0; k < n; k++) {
     const s1 = sub1[k];
     const s2 = sub2[k];
-    const inv = invDiag[k];
-    for (let i = offset + k; i < end + k; i += stride) jac[i] = (jac[i] - s1 * jac[i - 1] - s2 * jac[i - 2]) * inv;
+    const d = invDiag[k];
+    const va = (jac[a + k] - s1 * a1 - s2 * a2) * d;
+    const vb = (jac[b + k] - s1 * b1 - s2 * b2) * d;
+    const vc = (jac[c + k] - s1 * c1 - s2 * c2) * d;
+    jac[a + k] = va;
+    jac[b + k] = vb;
+    jac[c + k] = vc;
+    a2 = a1;
+    a1 = va;
+    b2 = b1;
+    b1 = vb;
+    c2 = c1;
+    c1 = vc;
   }
 }
 
