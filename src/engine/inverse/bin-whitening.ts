@@ -82,12 +82,7 @@ function threeColumns(w: BandedWhitener, jac: Float64Array, a: number, stride: n
   const { invDiag, sub1, sub2 } = w;
   const b = a + stride;
   const c = b + stride;
-  let a1 = 0,
-    a2 = 0,
-    b1 = 0,
-    b2 = 0,
-    c1 = 0,
-    c2 = 0;
+  let [a1, a2, b1, b2, c1, c2] = [0, 0, 0, 0, 0, 0];
   for (let k = 0; k < n; k++) {
     const s1 = sub1[k];
     const s2 = sub2[k];
