@@ -82,8 +82,8 @@ function threeColumns(w: BandedWhitener, jac: Float64Array, a: number, stride: n
   const { invDiag, sub1, sub2 } = w;
   const b = a + stride;
   const c = b + stride;
-  let [a1, a2, b1, b2, c1, c2] = [0, 0, 0, 0, 0, 0];
-  for (let k = 0; k < n; k++) {
+  // a1, a2: the last two whitened values of the first column (b, c: of the others)
+  for (let k = 0, a1 = 0, a2 = 0, b1 = 0, b2 = 0, c1 = 0, c2 = 0; k < n; k++) {
     const s1 = sub1[k];
     const s2 = sub2[k];
     const d = invDiag[k];
