@@ -1,8 +1,9 @@
 'use client';
 /**
- * Client data fetching. `useApi(url)` is SWR over our JSON API; failures
+ * The one client data layer. `useApi(url)` is SWR over our JSON API; failures
  * surface as `ApiError` carrying the API's `{ error: { code, message, field } }`.
- * `apiSend(method, url, body)` performs a write and throws the same error.
+ * `apiSend(method, url, body)` performs a write and `apiUpload(url, file)`
+ * streams a file with progress; both throw the same error.
  */
 import useSWR, { type SWRConfiguration } from 'swr';
 
@@ -19,14 +20,15 @@ export class ApiError extends Error {
   }
 }
 
-async function toApiError(res: Response): Promise<ApiError> {
+/** The error for a failed answer: the server's `{ error }` when the body carries one, else its status. */
+function apiErrorOf(status: number, statusText: string, body: string): ApiError {
   try {
-    const body = (await res.json()) as { error?: { code?: string; message?: string; field?: string } };
-    if (body?.error?.message) return new ApiError(res.status, body.error.code ?? 'error', body.error.message, body.error.field);
+    const e = (JSON.parse(body) as { error?: { code?: string; message?: string; field?: string } } | null)?.error;
+    if (e?.message) return new ApiError(status, e.code ?? 'error', e.message, e.field);
   } catch {
     // not JSON: fall through
   }
-  return new ApiError(res.status, 'http_error', `The server answered ${res.status} ${res.statusText || ''}`.trim() + '.');
+  return new ApiError(status, 'http_error', `The server answered ${status} ${statusText || ''}`.trim() + '.');
 }
 
 export async function fetchJson<T>(url: string, init?: RequestInit): Promise<T> {
@@ -40,7 +42,7 @@ export async function fetchJson<T>(url: string, init?: RequestInit): Promise<T> 
   } catch {
     throw new ApiError(0, 'network', 'Cavitas could not be reached. Check your connection and try again.');
   }
-  if (!res.ok) throw await toApiError(res);
+  if (!res.ok) throw apiErrorOf(res.status, res.statusText, await res.text());
   if (res.status === 204) return undefined as T;
   return (await res.json()) as T;
 }
@@ -50,6 +52,29 @@ export function apiSend<T = unknown>(method: 'POST' | 'PUT' | 'PATCH' | 'DELETE'
     method,
     headers: body === undefined ? {} : { 'content-type': 'application/json' },
     body: body === undefined ? undefined : JSON.stringify(body),
+  });
+}
+
+/** Sends a file as the raw request body, reporting the bytes sent so far; resolves with the JSON answer. */
+export function apiUpload<T>(url: string, file: Blob, onProgress: (sent: number) => void): Promise<T> {
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest(); // fetch cannot report upload progress
+    xhr.open('POST', url);
+    xhr.setRequestHeader('content-type', 'application/octet-stream');
+    xhr.setRequestHeader('accept', 'application/json');
+    xhr.upload.onprogress = (e) => onProgress(e.loaded);
+    xhr.onerror = () => reject(new ApiError(0, 'network', 'The connection broke while sending; try again.'));
+    xhr.onload = () => {
+      if (xhr.status < 200 || xhr.status >= 300) reject(apiErrorOf(xhr.status, xhr.statusText, xhr.responseText));
+      else {
+        try {
+          resolve(JSON.parse(xhr.responseText) as T);
+        } catch {
+          reject(new ApiError(xhr.status, 'http_error', 'The server answered with something other than JSON.'));
+        }
+      }
+    };
+    xhr.send(file);
   });
 }
 

@@ -5,11 +5,12 @@
  * flags and flagging, and the spectrum of a chosen interval with its fit.
  */
 import { useMemo, useState } from 'react';
-import useSWR from 'swr';
 import * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import { Badge, Button, DataTable, EmptyState, FormField, Notice, inputClass } from '@/src/web/ui';
-import { api, ApiFailure, displayUnit, fetcher, toDisplayPower } from './api';
+import { apiSend, ApiError, useApi } from '@/src/web/swr';
+import { COMPONENT_INFO, type Component } from '@/src/engine/components';
+import { displayFactor } from '@/src/engine/forward/units';
 import { FitSettings } from './FitSettings';
 import { RAMPS } from '@/src/design/tokens';
 import { fittedCurve, qFactorError } from './fit-curve';
@@ -48,6 +49,9 @@ interface Spectrum {
 
 const SLOT_MS = 600_000;
 
+/** SI power in the display units of a component ((mV/m)^2/Hz for Ez, pT^2/Hz for the coils). */
+const toDisplayPower = (component: string, p: number) => p * displayFactor(component as Component);
+
 /** The fitted model P(f) = sum A_n / (1 + ((f - f_n)/g_n)^2) + b0 + b1 f (Lorentzian modes plus linear background). */
 
 export function DayView({
@@ -69,9 +73,9 @@ export function DayView({
   const [show, setShow] = useState<'all' | 'clean' | 'quality' | 'flagged'>('all');
   const q = `station=${stationId}&day=${day}&component=${component}&flagged=include`;
   const base = `/api/networks/${networkId}`;
-  const list = useSWR<{ intervals: Interval[] }>(day ? `${base}/intervals?${q}` : null, fetcher);
-  const spec = useSWR<{ spectra: Spectrum[] }>(day ? `${base}/intervals/spectra?${q}&minHz=3&maxHz=45` : null, fetcher);
-  const unit = displayUnit(component);
+  const list = useApi<{ intervals: Interval[] }>(day ? `${base}/intervals?${q}` : null);
+  const spec = useApi<{ spectra: Spectrum[] }>(day ? `${base}/intervals/spectra?${q}&minHz=3&maxHz=45` : null);
+  const unit = COMPONENT_INFO[component as Component].displayUnit;
   const dayStart = Date.parse(`${day}T00:00:00Z`);
   const intervals = useMemo(() => list.data?.intervals ?? [], [list.data]);
 
@@ -120,11 +124,11 @@ export function DayView({
   async function setFlag(id: string, body: { flagged: true; reason: string } | { flagged: false }) {
     setFlagError(null);
     try {
-      await api(`${base}/intervals/${id}`, { method: 'PATCH', jsonBody: body });
+      await apiSend('PATCH', `${base}/intervals/${id}`, body);
       setFlagging(null);
       await list.mutate();
     } catch (e) {
-      setFlagError(e instanceof ApiFailure ? e.message : String(e));
+      setFlagError(e instanceof ApiError ? e.message : String(e));
     }
   }
 

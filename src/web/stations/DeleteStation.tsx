@@ -4,18 +4,18 @@ import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { Notice } from '@/src/web/ui/Notice';
 import { ConfirmAction } from '@/src/web/ui/ConfirmAction';
-import { api, ApiFailure } from './api';
+import { apiSend, ApiError } from '@/src/web/swr';
 
 export function DeleteStation({ networkId, stationId, code }: { networkId: string; stationId: string; code: string }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   async function remove() {
     try {
-      await api(`/api/networks/${networkId}/stations/${stationId}`, { method: 'DELETE' });
+      await apiSend('DELETE', `/api/networks/${networkId}/stations/${stationId}`);
       router.push(`/n/${networkId}/stations`);
       router.refresh();
     } catch (e) {
-      setError(e instanceof ApiFailure ? e.message : String(e));
+      setError(e instanceof ApiError ? e.message : String(e));
     }
   }
   return (

@@ -7,7 +7,7 @@
 import { useState, type FormEvent } from 'react';
 import { useRouter } from 'next/navigation';
 import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
-import { api, ApiFailure } from './api';
+import { apiSend, ApiError } from '@/src/web/swr';
 import { COMPONENTS, type Component } from '@/src/engine/components';
 
 type Cal =
@@ -126,11 +126,11 @@ export function StationForm({
     setBusy(true);
     try {
       const url = stationId ? `/api/networks/${networkId}/stations/${stationId}` : `/api/networks/${networkId}/stations`;
-      const out = await api<{ station: { id: string } }>(url, { method: stationId ? 'PUT' : 'POST', jsonBody: body });
+      const out = await apiSend<{ station: { id: string } }>(stationId ? 'PUT' : 'POST', url, body);
       router.push(`/n/${networkId}/stations/${out.station.id}`);
       router.refresh();
     } catch (x) {
-      setError(x instanceof ApiFailure ? { message: x.message, field: x.field } : { message: String(x) });
+      setError(x instanceof ApiError ? { message: x.message, field: x.field } : { message: String(x) });
     } finally {
       setBusy(false);
     }

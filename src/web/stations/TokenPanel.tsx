@@ -4,9 +4,8 @@
  * see when each was last used, revoke.
  */
 import { useState, type FormEvent } from 'react';
-import useSWR from 'swr';
 import { Badge, Button, DataTable, EmptyState, FormField, Notice, inputClass } from '@/src/web/ui';
-import { api, ApiFailure, fetcher } from './api';
+import { apiSend, ApiError, useApi } from '@/src/web/swr';
 
 interface TokenInfo {
   id: string;
@@ -20,7 +19,7 @@ interface TokenInfo {
 
 export function TokenPanel({ networkId, stationId, pushUrl }: { networkId: string; stationId: string; pushUrl: string }) {
   const url = `/api/networks/${networkId}/stations/${stationId}/tokens`;
-  const { data, mutate } = useSWR<{ tokens: TokenInfo[] }>(url, fetcher);
+  const { data, mutate } = useApi<{ tokens: TokenInfo[] }>(url);
   const [label, setLabel] = useState('');
   const [days, setDays] = useState('365');
   const [secret, setSecret] = useState<string | null>(null);
@@ -30,20 +29,20 @@ export function TokenPanel({ networkId, stationId, pushUrl }: { networkId: strin
     e.preventDefault();
     setError(null);
     try {
-      const out = await api<{ secret: string }>(url, {
-        method: 'POST',
-        jsonBody: { label, expiresInDays: days === 'never' ? null : Number(days) },
+      const out = await apiSend<{ secret: string }>('POST', url, {
+        label,
+        expiresInDays: days === 'never' ? null : Number(days),
       });
       setSecret(out.secret);
       setLabel('');
       await mutate();
     } catch (x) {
-      setError(x instanceof ApiFailure ? { message: x.message, field: x.field } : { message: String(x) });
+      setError(x instanceof ApiError ? { message: x.message, field: x.field } : { message: String(x) });
     }
   }
 
   async function revoke(id: string) {
-    await api(`${url}/${id}`, { method: 'DELETE' });
+    await apiSend('DELETE', `${url}/${id}`);
     await mutate();
   }
 

@@ -5,9 +5,8 @@
  * be queued again.
  */
 import { useState } from 'react';
-import useSWR from 'swr';
 import { Badge, Button, DataTable, EmptyState, Notice, ProgressBar } from '@/src/web/ui';
-import { api, ApiFailure, fetcher } from './api';
+import { apiSend, apiUpload, useApi } from '@/src/web/swr';
 
 interface UploadItem {
   id: string;
@@ -26,30 +25,6 @@ interface UploadItem {
 }
 
 type Sending = { name: string; sent: number; total: number; error?: string; note?: string };
-
-function send(url: string, file: File, onProgress: (sent: number) => void): Promise<{ upload: UploadItem; duplicate: boolean }> {
-  return new Promise((resolve, reject) => {
-    const xhr = new XMLHttpRequest();
-    xhr.open('POST', url);
-    xhr.setRequestHeader('content-type', 'application/octet-stream');
-    xhr.upload.onprogress = (e) => onProgress(e.loaded);
-    xhr.onerror = () => reject(new ApiFailure(0, 'network', 'The connection broke while sending; try again.'));
-    xhr.onload = () => {
-      let data: unknown = null;
-      try {
-        data = JSON.parse(xhr.responseText);
-      } catch {
-        /* not JSON */
-      }
-      if (xhr.status >= 200 && xhr.status < 300) resolve(data as { upload: UploadItem; duplicate: boolean });
-      else {
-        const e = (data as { error?: { code: string; message: string; field?: string } } | null)?.error;
-        reject(new ApiFailure(xhr.status, e?.code ?? 'http_error', e?.message ?? `The server answered ${xhr.status}.`, e?.field));
-      }
-    };
-    xhr.send(file);
-  });
-}
 
 /** Time left from the pace so far (elapsed × (1 − p) / p), once a little progress is made. */
 function remaining(u: UploadItem): number | null {
@@ -75,7 +50,7 @@ export function UploadPanel({
   maxBytesLabel: string;
 }) {
   const listUrl = `/api/networks/${networkId}/uploads?station=${stationId}`;
-  const { data, mutate } = useSWR<{ uploads: UploadItem[] }>(listUrl, fetcher, {
+  const { data, mutate } = useApi<{ uploads: UploadItem[] }>(listUrl, {
     refreshInterval: (d) => (d?.uploads.some((u) => u.state === 'queued' || u.state === 'processing') ? 1000 : 0),
   });
   const [sending, setSending] = useState<Sending[]>([]);
@@ -89,7 +64,7 @@ export function UploadPanel({
         const patch = (p: Partial<Sending>) => setSending((s) => s.map((x, k) => (k === i ? { ...x, ...p } : x)));
         const url = `/api/networks/${networkId}/uploads?station=${stationId}&name=${encodeURIComponent(file.name)}`;
         try {
-          const out = await send(url, file, (sent) => patch({ sent }));
+          const out = await apiUpload<{ upload: UploadItem; duplicate: boolean }>(url, file, (sent) => patch({ sent }));
           patch({ sent: file.size, note: out.duplicate ? 'already uploaded before — the earlier copy is kept' : 'received' });
         } catch (e) {
           patch({ error: e instanceof Error ? e.message : String(e) });
@@ -100,7 +75,7 @@ export function UploadPanel({
   }
 
   async function retry(id: string) {
-    await api(`/api/networks/${networkId}/uploads/${id}/retry`, { method: 'POST' });
+    await apiSend('POST', `/api/networks/${networkId}/uploads/${id}/retry`);
     await mutate();
   }
 
