@@ -3,17 +3,24 @@
  * made on (a fit says nothing outside it; beyond the band a linear background can even fall below
  * zero), and only where the model power is positive (a log axis cannot show the rest).
  */
+import { lorentzianModel } from '@/src/engine/modes/lorentzian';
+
 export interface CurveFit {
   modes: { frequency: number; amplitude: number; halfWidth: number }[];
   background: { b0: number; b1: number };
   band?: { minHz: number; maxHz: number };
 }
 
-/** Model power at f: b0 + b1 f + sum of A / (1 + ((f - f_n) / g_n)^2). */
-export function fitModel(fit: CurveFit, f: number): number {
-  let p = fit.background.b0 + fit.background.b1 * f;
-  for (const m of fit.modes) p += m.amplitude / (1 + ((f - m.frequency) / m.halfWidth) ** 2);
-  return p;
+/** The engine's parameter vector [f_1, A_1, g_1, ..., b0, b1] of a stored fit. */
+function fitParams(fit: CurveFit): number[] {
+  return [...fit.modes.flatMap((m) => [m.frequency, m.amplitude, m.halfWidth]), fit.background.b0, fit.background.b1];
+}
+
+/** Model power at each frequency, b0 + b1 f + sum of A / (1 + ((f - f_n) / g_n)^2), by the engine's own function. */
+export function fitModel(fit: CurveFit, frequencies: readonly number[]): Float64Array {
+  const out = new Float64Array(frequencies.length);
+  lorentzianModel(fitParams(fit), fit.modes.length, frequencies, out);
+  return out;
 }
 
 /** The band the curve is drawn over: the recorded one, else the modes' frequencies ± 3 half-widths (older fits). */
@@ -30,10 +37,9 @@ export function fittedBand(fit: CurveFit): { minHz: number; maxHz: number } | nu
 export function fittedCurve(fit: CurveFit, frequencies: number[]): { f: number; p: number }[] {
   const band = fittedBand(fit);
   if (!band) return [];
-  return frequencies
-    .filter((f) => f >= band.minHz && f <= band.maxHz)
-    .map((f) => ({ f, p: fitModel(fit, f) }))
-    .filter((d) => d.p > 0);
+  const inside = frequencies.filter((f) => f >= band.minHz && f <= band.maxHz);
+  const power = fitModel(fit, inside);
+  return inside.map((f, i) => ({ f, p: power[i] })).filter((d) => d.p > 0);
 }
 
 /**

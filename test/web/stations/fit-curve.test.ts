@@ -19,8 +19,9 @@ describe('fitted curve', () => {
   it('evaluates the Lorentzian sum plus the linear background', () => {
     const bg = (f: number) => 0.5 - 0.02 * f;
     const other = (f: number) => 2 / (1 + ((f - 14.1) / 1.5) ** 2);
-    expect(fitModel(fit, 7.8)).toBeCloseTo(4 + bg(7.8) + other(7.8), 12);
-    expect(fitModel(fit, 8.8) - bg(8.8) - other(8.8)).toBeCloseTo(2, 12);
+    const [atPeak, atHalf] = fitModel(fit, [7.8, 8.8]);
+    expect(atPeak).toBeCloseTo(4 + bg(7.8) + other(7.8), 12);
+    expect(atHalf - bg(8.8) - other(8.8)).toBeCloseTo(2, 12);
   });
 
   it('stays inside the recorded band', () => {
