@@ -3,12 +3,13 @@
  * first line names the layout and its version ("# cavitas-series 1").
  */
 import { FormatError } from './format-error';
+import type { TextLine } from './lines';
 
 export interface HeaderBlock {
   values: Map<string, { value: string; line: number }>;
 }
 
-export function parseSignature(text: string, file: string, line: number, expected: string): void {
+function parseSignature(text: string, file: string, line: number, expected: string): void {
   const m = /^#\s*(\S+)\s+(\d+)\s*$/.exec(text);
   if (!m || m[1] !== expected)
     throw new FormatError(file, line, null, `the first line must read "# ${expected} 1" (got "${text.slice(0, 40)}")`);
@@ -16,13 +17,37 @@ export function parseSignature(text: string, file: string, line: number, expecte
     throw new FormatError(file, line, null, `layout version ${m[2]} is not supported (this reader knows version 1)`);
 }
 
-export function parseHeaderLine(text: string, file: string, line: number, block: HeaderBlock): void {
+function parseHeaderLine(text: string, file: string, line: number, block: HeaderBlock): void {
   const m = /^#\s*([A-Za-z][\w-]*)\s*:\s*(.*?)\s*$/.exec(text);
   if (!m) throw new FormatError(file, line, null, `header lines look like "# key: value" (got "${text.slice(0, 40)}")`);
   const key = m[1].toLowerCase();
   if (block.values.has(key))
     throw new FormatError(file, line, key, `appears twice in the header (first on line ${block.values.get(key)!.line})`);
   block.values.set(key, { value: m[2], line });
+}
+
+/**
+ * Reads the layout's first line and the header block, up to the column line; `lines` is left at
+ * the first data row. Blank lines in the header are passed over.
+ */
+export async function readHeaderBlock(
+  lines: AsyncGenerator<TextLine>,
+  file: string,
+  signature: string,
+): Promise<{ block: HeaderBlock; columnsLine: TextLine }> {
+  const first = await lines.next();
+  if (first.done) throw new FormatError(file, 1, null, 'the file is empty');
+  parseSignature(first.value.text, file, 1, signature);
+  const block: HeaderBlock = { values: new Map() };
+  for (;;) {
+    const next = await lines.next();
+    if (next.done)
+      throw new FormatError(file, first.value.number, null, 'the file ends inside the header (no column line and no data)');
+    const { text } = next.value;
+    if (text.trim() === '') continue;
+    if (!text.startsWith('#')) return { block, columnsLine: next.value };
+    parseHeaderLine(text, file, next.value.number, block);
+  }
 }
 
 export function requireValue(block: HeaderBlock, key: string, file: string, headerEnd: number): { value: string; line: number } {

@@ -17,15 +17,7 @@
  */
 import { COMPONENTS, type Component } from '@/src/engine/components';
 import { FormatError } from './format-error';
-import {
-  parseHeaderLine,
-  parseNumberCell,
-  parseSignature,
-  parseUtc,
-  requireValue,
-  unknownKeys,
-  type HeaderBlock,
-} from './header-lines';
+import { parseNumberCell, readHeaderBlock, parseUtc, requireValue, unknownKeys, type HeaderBlock } from './header-lines';
 import { linesOf, type TextLine } from './lines';
 
 export const SERIES_SIGNATURE = 'cavitas-series';
@@ -125,23 +117,7 @@ export async function openSeriesCsv(
   options: { blockSamples?: number } = {},
 ): Promise<SeriesReader> {
   const lines = linesOf(chunks);
-  const first = await lines.next();
-  if (first.done) throw new FormatError(file, 1, null, 'the file is empty');
-  parseSignature(first.value.text, file, 1, SERIES_SIGNATURE);
-  const block: HeaderBlock = { values: new Map() };
-  let columnsLine: TextLine | null = null;
-  for (;;) {
-    const next = await lines.next();
-    if (next.done)
-      throw new FormatError(file, first.value.number, null, 'the file ends inside the header (no column line and no data)');
-    const { text } = next.value;
-    if (text.trim() === '') continue;
-    if (text.startsWith('#')) parseHeaderLine(text, file, next.value.number, block);
-    else {
-      columnsLine = next.value;
-      break;
-    }
-  }
+  const { block, columnsLine } = await readHeaderBlock(lines, file, SERIES_SIGNATURE);
   const header = parseHeader(block, columnsLine, file);
   const blockSamples = options.blockSamples ?? 65536;
   return { header, blocks: readBlocks(lines, header, file, blockSamples, columnsLine.number) };

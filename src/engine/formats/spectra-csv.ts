@@ -17,16 +17,8 @@
  */
 import { COMPONENTS, type Component } from '@/src/engine/components';
 import { FormatError } from './format-error';
-import {
-  parseHeaderLine,
-  parseNumberCell,
-  parseSignature,
-  parseUtc,
-  requireValue,
-  unknownKeys,
-  type HeaderBlock,
-} from './header-lines';
-import { linesOf, type TextLine } from './lines';
+import { parseNumberCell, readHeaderBlock, parseUtc, requireValue, unknownKeys } from './header-lines';
+import { linesOf } from './lines';
 
 export const SPECTRA_SIGNATURE = 'cavitas-spectra';
 export const SPECTRA_FREQUENCY_COLUMN = 'frequency-hz';
@@ -49,22 +41,7 @@ export async function readSpectraCsv(
   file: string,
 ): Promise<SpectraFile> {
   const lines = linesOf(chunks);
-  const first = await lines.next();
-  if (first.done) throw new FormatError(file, 1, null, 'the file is empty');
-  parseSignature(first.value.text, file, 1, SPECTRA_SIGNATURE);
-  const block: HeaderBlock = { values: new Map() };
-  let columnsLine: TextLine | null = null;
-  for (;;) {
-    const next = await lines.next();
-    if (next.done)
-      throw new FormatError(file, first.value.number, null, 'the file ends inside the header (no column line and no data)');
-    if (next.value.text.trim() === '') continue;
-    if (next.value.text.startsWith('#')) parseHeaderLine(next.value.text, file, next.value.number, block);
-    else {
-      columnsLine = next.value;
-      break;
-    }
-  }
+  const { block, columnsLine } = await readHeaderBlock(lines, file, SPECTRA_SIGNATURE);
   const end = columnsLine.number;
   const station = requireValue(block, 'station', file, end).value;
   const comp = requireValue(block, 'component', file, end);
