@@ -3,27 +3,23 @@
  * length-limited where they are written (src/sharing/comments.ts).
  */
 import { sql } from 'drizzle-orm';
-import { check, index, integer, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { users } from './auth';
+import { check, index, integer, pgTable, text } from 'drizzle-orm/pg-core';
 import { networks } from './networks';
 import { runs } from './runs';
+import { at, byUser, createdAt, parent, uuidId } from './columns';
 
 export const runComments = pgTable(
   'run_comments',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
-    runId: uuid('run_id')
-      .notNull()
-      .references(() => runs.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
+    runId: parent('run_id', () => runs.id),
     /** With `minimum`: the comment is on that minimum (0 = best) of the interval starting here. */
-    intervalStartsAt: timestamp('interval_starts_at', { withTimezone: true, mode: 'date' }),
+    intervalStartsAt: at('interval_starts_at'),
     minimum: integer('minimum'),
-    authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+    authorId: byUser('author_id'),
     body: text('body').notNull(),
-    createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (t) => [
     index('run_comments_run_idx').on(t.runId, t.createdAt),

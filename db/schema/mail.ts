@@ -2,12 +2,13 @@
  * Outgoing mail as caught by the local SMTP catcher (src/mail/catcher.ts): every message the
  * app sends on this installation, readable by administrators in the mailbox page.
  */
-import { index, pgTable, text, timestamp, uuid, jsonb, integer } from 'drizzle-orm/pg-core';
+import { index, pgTable, text, jsonb, integer } from 'drizzle-orm/pg-core';
+import { at, uuidId } from './columns';
 
 export const mailMessages = pgTable(
   'mail_messages',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
+    id: uuidId(),
     /** Envelope sender (MAIL FROM), or the From header when the envelope had none. */
     from: text('from').notNull(),
     /** Envelope recipients (RCPT TO). */
@@ -18,7 +19,7 @@ export const mailMessages = pgTable(
     /** The whole message as received (RFC 5322). */
     raw: text('raw').notNull(),
     sizeBytes: integer('size_bytes').notNull(),
-    receivedAt: timestamp('received_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    receivedAt: at('received_at').notNull().defaultNow(),
   },
   (t) => [index('mail_messages_received_idx').on(t.receivedAt)],
 );

@@ -1,29 +1,28 @@
 /**
  * Networks (team spaces), their memberships with a role, and invitations.
  */
-import { index, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, pgEnum, pgTable, primaryKey, text } from 'drizzle-orm/pg-core';
 import { users } from './auth';
+import { at, byUser, createdAt, parent, uuidId } from './columns';
 
 export const networkRole = pgEnum('network_role', ['owner', 'analyst', 'viewer']);
 
 export const networks = pgTable('networks', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: uuidId(),
   name: text('name').notNull(),
-  createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-  createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+  createdBy: byUser('created_by'),
+  createdAt: createdAt(),
 });
 
 export const memberships = pgTable(
   'memberships',
   {
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
+    networkId: parent('network_id', () => networks.id),
     userId: text('user_id')
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
     role: networkRole('role').notNull(),
-    createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.networkId, t.userId] }), index('memberships_user_idx').on(t.userId)],
 );
@@ -32,19 +31,17 @@ export const memberships = pgTable(
 export const invitations = pgTable(
   'invitations',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
     email: text('email').notNull(),
     role: networkRole('role').notNull(),
     tokenHash: text('token_hash').notNull().unique(),
-    invitedBy: text('invited_by').references(() => users.id, { onDelete: 'set null' }),
-    expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull(),
-    acceptedAt: timestamp('accepted_at', { withTimezone: true, mode: 'date' }),
-    acceptedBy: text('accepted_by').references(() => users.id, { onDelete: 'set null' }),
-    revokedAt: timestamp('revoked_at', { withTimezone: true, mode: 'date' }),
-    createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    invitedBy: byUser('invited_by'),
+    expiresAt: at('expires_at').notNull(),
+    acceptedAt: at('accepted_at'),
+    acceptedBy: byUser('accepted_by'),
+    revokedAt: at('revoked_at'),
+    createdAt: createdAt(),
   },
   (t) => [index('invitations_network_idx').on(t.networkId)],
 );

@@ -11,7 +11,6 @@ import {
   text,
   integer,
   doublePrecision,
-  timestamp,
   jsonb,
   boolean,
   uniqueIndex,
@@ -20,7 +19,7 @@ import {
   primaryKey,
 } from 'drizzle-orm/pg-core';
 import { networks } from './networks';
-import { users } from './auth';
+import { at, byUser, createdAt, parent, uuidId } from './columns';
 
 export const runState = pgEnum('run_state', ['queued', 'running', 'finished', 'failed', 'cancelled']);
 export const surfaceState = pgEnum('surface_state', ['queued', 'running', 'ready', 'failed']);
@@ -32,17 +31,15 @@ export const surfaceState = pgEnum('surface_state', ['queued', 'running', 'ready
 export const cavityModels = pgTable(
   'cavity_models',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
     lineageId: uuid('lineage_id').notNull(),
     version: integer('version').notNull(),
     name: text('name').notNull(),
     notes: text('notes').notNull().default(''),
     config: jsonb('config').$type<Record<string, unknown>>().notNull(),
-    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    createdBy: byUser('created_by'),
+    createdAt: createdAt(),
   },
   (t) => [
     uniqueIndex('cavity_models_lineage_version_uq').on(t.lineageId, t.version),
@@ -58,18 +55,16 @@ export const cavityModels = pgTable(
 export const sourceGrids = pgTable(
   'source_grids',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
     lineageId: uuid('lineage_id').notNull(),
     version: integer('version').notNull(),
     name: text('name').notNull(),
     notes: text('notes').notNull().default(''),
     cellSizeDeg: doublePrecision('cell_size_deg').notNull(),
     regions: jsonb('regions').$type<unknown[]>().notNull(),
-    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    createdBy: byUser('created_by'),
+    createdAt: createdAt(),
   },
   (t) => [
     uniqueIndex('source_grids_lineage_version_uq').on(t.lineageId, t.version),
@@ -91,20 +86,14 @@ export type RunProgress = {
 export const runs = pgTable(
   'runs',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
     name: text('name').notNull(),
     state: runState('state').notNull().default('queued'),
     /** The full launch configuration (src/runs/config.ts RunConfig). */
     config: jsonb('config').$type<Record<string, unknown>>().notNull(),
-    modelId: uuid('model_id')
-      .notNull()
-      .references(() => cavityModels.id, { onDelete: 'restrict' }),
-    gridId: uuid('grid_id')
-      .notNull()
-      .references(() => sourceGrids.id, { onDelete: 'restrict' }),
+    modelId: parent('model_id', () => cavityModels.id, 'restrict'),
+    gridId: parent('grid_id', () => sourceGrids.id, 'restrict'),
     engineVersion: text('engine_version').notNull(),
     /** The interval start times (ISO) the run covers, fixed at launch. */
     intervalStarts: jsonb('interval_starts').$type<string[]>().notNull(),
@@ -113,11 +102,11 @@ export const runs = pgTable(
     error: text('error'),
     attempts: integer('attempts').notNull().default(0),
     workerId: text('worker_id'),
-    heartbeatAt: timestamp('heartbeat_at', { withTimezone: true }),
-    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    startedAt: timestamp('started_at', { withTimezone: true }),
-    finishedAt: timestamp('finished_at', { withTimezone: true }),
+    heartbeatAt: at('heartbeat_at'),
+    createdBy: byUser('created_by'),
+    createdAt: createdAt(),
+    startedAt: at('started_at'),
+    finishedAt: at('finished_at'),
   },
   (t) => [index('runs_network_created_idx').on(t.networkId, t.createdAt)],
 );
@@ -126,15 +115,13 @@ export const runs = pgTable(
 export const runIntervals = pgTable(
   'run_intervals',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    runId: uuid('run_id')
-      .notNull()
-      .references(() => runs.id, { onDelete: 'cascade' }),
-    startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
+    id: uuidId(),
+    runId: parent('run_id', () => runs.id),
+    startsAt: at('starts_at').notNull(),
     nData: integer('n_data').notNull(),
     result: jsonb('result').$type<Record<string, unknown>>().notNull(),
     seconds: doublePrecision('seconds').notNull(),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (t) => [uniqueIndex('run_intervals_run_start_uq').on(t.runId, t.startsAt)],
 );
@@ -143,17 +130,15 @@ export const runIntervals = pgTable(
 export const runSurfaces = pgTable(
   'run_surfaces',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    runId: uuid('run_id')
-      .notNull()
-      .references(() => runs.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    runId: parent('run_id', () => runs.id),
     specKey: text('spec_key').notNull(),
     spec: jsonb('spec').$type<Record<string, unknown>>().notNull(),
     state: surfaceState('state').notNull().default('queued'),
     result: jsonb('result').$type<Record<string, unknown>>(),
     error: text('error'),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    finishedAt: timestamp('finished_at', { withTimezone: true }),
+    createdAt: createdAt(),
+    finishedAt: at('finished_at'),
   },
   (t) => [uniqueIndex('run_surfaces_run_spec_uq').on(t.runId, t.specKey)],
 );
@@ -169,13 +154,11 @@ export const runChunks = pgTable(
   {
     first: integer('first_index').notNull(),
     count: integer('count').notNull(),
-    runId: uuid('run_id')
-      .notNull()
-      .references(() => runs.id, { onDelete: 'cascade' }),
+    runId: parent('run_id', () => runs.id),
     workerId: text('worker_id'),
-    heartbeatAt: timestamp('heartbeat_at', { withTimezone: true }),
+    heartbeatAt: at('heartbeat_at'),
     attempts: integer('attempts').notNull().default(0),
-    doneAt: timestamp('done_at', { withTimezone: true }),
+    doneAt: at('done_at'),
   },
   (t) => [primaryKey({ columns: [t.runId, t.first] }), check('run_chunks_range_ck', sql`${t.first} >= 0 and ${t.count} >= 1`)],
 );

@@ -12,7 +12,6 @@ import {
   doublePrecision,
   integer,
   bigint,
-  timestamp,
   jsonb,
   real,
   customType,
@@ -23,7 +22,7 @@ import {
 } from 'drizzle-orm/pg-core';
 import { COMPONENTS } from '../../src/engine/components';
 import { networks } from './networks';
-import { users } from './auth';
+import { at, byUser, createdAt, parent, uuidId } from './columns';
 
 /** Raw bytes (PostgreSQL bytea); postgres.js hands them over as Buffer. */
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({
@@ -46,10 +45,8 @@ export type Calibration =
 export const stations = pgTable(
   'stations',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
     code: text('code').notNull(),
     name: text('name').notNull(),
     latitude: doublePrecision('latitude').notNull(),
@@ -60,8 +57,8 @@ export const stations = pgTable(
     sampleRateHz: doublePrecision('sample_rate_hz').notNull(),
     notes: text('notes').notNull().default(''),
     status: stationStatus('status').notNull().default('operating'),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
+    updatedAt: at('updated_at').notNull().defaultNow(),
   },
   (t) => [
     uniqueIndex('stations_network_code_uq').on(t.networkId, t.code),
@@ -75,9 +72,7 @@ export const stations = pgTable(
 export const stationComponents = pgTable(
   'station_components',
   {
-    stationId: uuid('station_id')
-      .notNull()
-      .references(() => stations.id, { onDelete: 'cascade' }),
+    stationId: parent('station_id', () => stations.id),
     component: stationComponent('component').notNull(),
     calibration: jsonb('calibration').$type<Calibration>().notNull(),
   },
@@ -87,14 +82,10 @@ export const stationComponents = pgTable(
 export const uploads = pgTable(
   'uploads',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
-    stationId: uuid('station_id')
-      .notNull()
-      .references(() => stations.id, { onDelete: 'cascade' }),
-    uploadedBy: text('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
+    stationId: parent('station_id', () => stations.id),
+    uploadedBy: byUser('uploaded_by'),
     fileName: text('file_name').notNull(),
     format: uploadFormat('format').notNull(),
     sizeBytes: bigint('size_bytes', { mode: 'number' }).notNull(),
@@ -107,9 +98,9 @@ export const uploads = pgTable(
     intervalCount: integer('interval_count').notNull().default(0),
     /** What the intake noticed but did not refuse (e.g. header keys the layout does not define). */
     warnings: jsonb('warnings').$type<string[]>().notNull().default([]),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    startedAt: timestamp('started_at', { withTimezone: true }),
-    finishedAt: timestamp('finished_at', { withTimezone: true }),
+    createdAt: createdAt(),
+    startedAt: at('started_at'),
+    finishedAt: at('finished_at'),
   },
   (t) => [
     uniqueIndex('uploads_network_sha_uq').on(t.networkId, t.sha256),
@@ -120,9 +111,7 @@ export const uploads = pgTable(
 export const uploadChunks = pgTable(
   'upload_chunks',
   {
-    uploadId: uuid('upload_id')
-      .notNull()
-      .references(() => uploads.id, { onDelete: 'cascade' }),
+    uploadId: parent('upload_id', () => uploads.id),
     seq: integer('seq').notNull(),
     data: bytea('data').notNull(),
   },
@@ -133,15 +122,11 @@ export const uploadChunks = pgTable(
 export const intervals = pgTable(
   'intervals',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
-    stationId: uuid('station_id')
-      .notNull()
-      .references(() => stations.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
+    stationId: parent('station_id', () => stations.id),
     component: stationComponent('component').notNull(),
-    startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
+    startsAt: at('starts_at').notNull(),
     durationS: integer('duration_s').notNull().default(600),
     origin: intervalOrigin('origin').notNull(),
     uploadId: uuid('upload_id').references(() => uploads.id, { onDelete: 'set null' }),
@@ -151,11 +136,11 @@ export const intervals = pgTable(
       .notNull()
       .default(sql`'{}'::text[]`),
     flagReason: text('flag_reason'),
-    flaggedBy: text('flagged_by').references(() => users.id, { onDelete: 'set null' }),
-    flaggedAt: timestamp('flagged_at', { withTimezone: true }),
+    flaggedBy: byUser('flagged_by'),
+    flaggedAt: at('flagged_at'),
     /** SHA-256 of the pushed samples (float64, little-endian; null as NaN); null for other origins. */
     samplesSha256: text('samples_sha256'),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (t) => [
     uniqueIndex('intervals_station_component_start_uq').on(t.stationId, t.component, t.startsAt),
@@ -228,23 +213,19 @@ export const intervalFits = pgTable('interval_fits', {
 export const pushTokens = pgTable(
   'push_tokens',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    networkId: uuid('network_id')
-      .notNull()
-      .references(() => networks.id, { onDelete: 'cascade' }),
-    stationId: uuid('station_id')
-      .notNull()
-      .references(() => stations.id, { onDelete: 'cascade' }),
+    id: uuidId(),
+    networkId: parent('network_id', () => networks.id),
+    stationId: parent('station_id', () => stations.id),
     label: text('label').notNull(),
     /** SHA-256 (hex) of the secret; the secret itself is shown once and never stored. */
     secretHash: text('secret_hash').notNull(),
     hint: text('hint').notNull(),
-    createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    expiresAt: timestamp('expires_at', { withTimezone: true }),
-    revokedAt: timestamp('revoked_at', { withTimezone: true }),
-    lastUsedAt: timestamp('last_used_at', { withTimezone: true }),
-    windowStartedAt: timestamp('window_started_at', { withTimezone: true }).notNull().defaultNow(),
+    createdBy: byUser('created_by'),
+    createdAt: createdAt(),
+    expiresAt: at('expires_at'),
+    revokedAt: at('revoked_at'),
+    lastUsedAt: at('last_used_at'),
+    windowStartedAt: at('window_started_at').notNull().defaultNow(),
     windowCount: integer('window_count').notNull().default(0),
   },
   (t) => [uniqueIndex('push_tokens_secret_uq').on(t.secretHash)],
