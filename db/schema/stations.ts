@@ -23,6 +23,7 @@ import {
 import { COMPONENTS } from '../../src/engine/components';
 import { networks } from './networks';
 import { at, byUser, createdAt, parent, uuidId } from './columns';
+import type { FittedMode } from '../../src/engine/modes/types';
 
 /** Raw bytes (PostgreSQL bytea); postgres.js hands them over as Buffer. */
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({
@@ -177,18 +178,8 @@ export const intervalSpectra = pgTable('interval_spectra', {
   statistics: jsonb('statistics').$type<SpectrumStatistics>(),
 });
 
-export type StoredMode = {
-  frequency: number;
-  amplitude: number;
-  halfWidth: number;
-  q: number;
-  /** Fitted model PSD at the mode's centre, amplitude plus background (absent from older fits). */
-  peak?: number;
-  /** lnPeak: sd of ln peak from the fit's full covariance, background included (absent from older fits). */
-  errors: { frequency: number; amplitude: number; halfWidth: number; lnPeak?: number };
-  /** Correlation of (frequency, ln peak, halfWidth), 3x3 (absent from older fits). */
-  correlation?: number[][];
-};
+/** A mode as a stored fit keeps it: the engine's fitted mode, plain JSON. */
+export type StoredMode = FittedMode;
 
 /**
  * An interval's mode fit. `band` (the fitted band), `averages` (equivalent independent averages behind each
