@@ -4,6 +4,7 @@
  * difference and whether they agree within the combined one-sigma error.
  */
 import type { ParameterRow, SettingRow } from '@/src/runs/compare';
+import type { ReactNode } from 'react';
 import { Badge } from '@/src/web/ui/Badge';
 import { fmt } from './types';
 
@@ -14,6 +15,16 @@ const VERDICT = {
   'no error': { tone: 'neutral', words: 'no error stated' },
 } as const;
 
+/** A column heading: numeric columns align right; the last one keeps no gap on its right. */
+function Col({ children, numeric = false, last = false }: { children: ReactNode; numeric?: boolean; last?: boolean }) {
+  const cls = ['py-1', last ? '' : 'pr-3', numeric ? 'text-right' : '', 'font-medium'].filter(Boolean).join(' ');
+  return (
+    <th scope="col" className={cls}>
+      {children}
+    </th>
+  );
+}
+
 const withError = (v: number | null, e: number | null) => (v === null ? '—' : e === null ? fmt(v) : `${fmt(v)} ± ${fmt(e, 2)}`);
 
 export function SettingsDiffTable({ rows, labels }: { rows: SettingRow[]; labels: [string, string] }) {
@@ -21,15 +32,9 @@ export function SettingsDiffTable({ rows, labels }: { rows: SettingRow[]; labels
     <table className="w-full text-left text-sm" data-testid="settings-diff">
       <thead className="text-muted">
         <tr>
-          <th scope="col" className="py-1 pr-3 font-medium">
-            Setting
-          </th>
-          <th scope="col" className="py-1 pr-3 font-medium">
-            {labels[0]}
-          </th>
-          <th scope="col" className="py-1 font-medium">
-            {labels[1]}
-          </th>
+          <Col>Setting</Col>
+          <Col>{labels[0]}</Col>
+          <Col last>{labels[1]}</Col>
         </tr>
       </thead>
       <tbody>
@@ -58,24 +63,12 @@ export function ParameterTable({ rows }: { rows: ParameterRow[] }) {
     <table className="w-full text-sm tabular-nums" data-testid="parameter-table">
       <thead className="text-left text-muted">
         <tr>
-          <th scope="col" className="py-1 pr-3 font-medium">
-            Parameter
-          </th>
-          <th scope="col" className="py-1 pr-3 text-right font-medium">
-            A
-          </th>
-          <th scope="col" className="py-1 pr-3 text-right font-medium">
-            B
-          </th>
-          <th scope="col" className="py-1 pr-3 text-right font-medium">
-            B − A
-          </th>
-          <th scope="col" className="py-1 pr-3 text-right font-medium">
-            |B − A| / σc
-          </th>
-          <th scope="col" className="py-1 font-medium">
-            Verdict
-          </th>
+          <Col>Parameter</Col>
+          <Col numeric>A</Col>
+          <Col numeric>B</Col>
+          <Col numeric>B − A</Col>
+          <Col numeric>|B − A| / σc</Col>
+          <Col last>Verdict</Col>
         </tr>
       </thead>
       <tbody>

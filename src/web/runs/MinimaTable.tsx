@@ -1,9 +1,10 @@
 'use client';
 /** The distinct minima of one interval, sortable; clicking a row selects that minimum everywhere on the page. */
-import { useMemo, useState } from 'react';
+import { useMemo } from 'react';
 import { fmt, type InversionResult } from './types';
 import { formatEstimate } from '@/src/web/ui/format';
 import { saveCsv } from '@/src/web/ui/export';
+import { SortHeader, useSort } from '@/src/web/ui/SortHeader';
 import type { RunConfig } from '@/src/runs/config';
 import type { Region } from '@/src/runs/grid-spec';
 
@@ -40,7 +41,7 @@ export function MinimaTable({
   /** Allowed ranges (`parameterBounds`): an estimate on a bound is flagged instead of given a symmetric error. */
   bounds?: Record<string, Bounds>;
 }) {
-  const [sort, setSort] = useState<{ key: Key; desc: boolean }>({ key: 'rank', desc: false });
+  const [sort, toggleSort] = useSort<Key>({ key: 'rank', desc: false });
   const names = result.paramNames;
   const dof = result.nData - result.nParams;
   const scaleOf = (m: unknown) => (m as { errorScale?: number }).errorScale;
@@ -50,20 +51,9 @@ export function MinimaTable({
     return r;
   }, [result, sort]);
   const head = (key: Key, label: string) => (
-    <th
-      scope="col"
-      className="px-2 py-1.5 text-right font-medium"
-      aria-sort={sort.key === key ? (sort.desc ? 'descending' : 'ascending') : 'none'}
-    >
-      <button
-        type="button"
-        className="hover:text-accent"
-        onClick={() => setSort((s) => ({ key, desc: s.key === key ? !s.desc : false }))}
-      >
-        {label}
-        {sort.key === key ? (sort.desc ? ' ▾' : ' ▴') : ''}
-      </button>
-    </th>
+    <SortHeader column={key} sort={sort} onSort={toggleSort}>
+      {label}
+    </SortHeader>
   );
   const value = (m: (typeof rows)[number]['m'], name: string) => {
     const [region, kind] = name.split(/\.(?=[^.]+$)/);

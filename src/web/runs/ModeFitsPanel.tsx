@@ -10,6 +10,7 @@ import type * as Plot from '@observablehq/plot';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import type { PlotModule } from '@/src/web/charts/plot-module';
 import { Notice } from '@/src/web/ui';
+import { SortHeader, useSort } from '@/src/web/ui/SortHeader';
 import type { ModeFit } from '@/src/runs/fits';
 import { fmt } from './types';
 import { FIGURE } from '@/src/design/tokens';
@@ -70,7 +71,7 @@ function figure(pts: Point[], log: boolean) {
 }
 
 function ResidualTable({ modes }: { modes: ModeFit[] }) {
-  const [sort, setSort] = useState<{ key: SortKey; desc: boolean }>({ key: 'chi2', desc: true });
+  const [sort, toggleSort] = useSort<SortKey>({ key: 'chi2', desc: true });
   const rows = useMemo(() => {
     const r: Row[] = modes.map((m) => ({
       key: `${m.station}/${m.component}/${m.mode}`,
@@ -90,20 +91,9 @@ function ResidualTable({ modes }: { modes: ModeFit[] }) {
     });
   }, [modes, sort]);
   const head = (key: SortKey, label: string, left = false) => (
-    <th
-      scope="col"
-      className={`px-2 py-1.5 font-medium ${left ? 'text-left' : 'text-right'}`}
-      aria-sort={sort.key === key ? (sort.desc ? 'descending' : 'ascending') : 'none'}
-    >
-      <button
-        type="button"
-        className="hover:text-accent"
-        onClick={() => setSort((s) => ({ key, desc: s.key === key ? !s.desc : false }))}
-      >
-        {label}
-        {sort.key === key ? (sort.desc ? ' ▾' : ' ▴') : ''}
-      </button>
-    </th>
+    <SortHeader column={key} sort={sort} onSort={toggleSort} align={left ? 'left' : 'right'}>
+      {label}
+    </SortHeader>
   );
   // |r| above 2 means more than two standard deviations off (common practice)
   const cell = (v: number) => (

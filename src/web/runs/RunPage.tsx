@@ -23,6 +23,7 @@ import { Caution, Notice } from '@/src/web/ui/Notice';
 import { ProgressBar } from '@/src/web/ui/ProgressBar';
 import { apiSend, useApi } from '@/src/web/swr';
 import { RunMap } from './RunMap';
+import { IntervalPicker } from './IntervalPicker';
 import { MinimaTable, parameterBounds } from './MinimaTable';
 import { FitsPanel, useFits } from './FitsPanel';
 import { CorrelationHeatmap } from './CorrelationHeatmap';
@@ -222,22 +223,7 @@ function RunPageBody({
               </>
             }
           >
-            {solved.length > 1 ? (
-              <label className="mb-3 block text-sm">
-                Interval (UT){' '}
-                <select
-                  className="ml-2 rounded border border-line-strong bg-surface px-2 py-1"
-                  value={interval.startsAt}
-                  onChange={(e) => pickInterval(e.target.value)}
-                >
-                  {solved.map((i) => (
-                    <option key={i.startsAt} value={i.startsAt}>
-                      {i.startsAt.slice(0, 16).replace('T', ' ')}
-                    </option>
-                  ))}
-                </select>
-              </label>
-            ) : null}
+            <IntervalPicker intervals={solved} value={interval.startsAt} onChange={pickInterval} />
             <RunMap
               frame={map}
               regions={view.grid.regions}

@@ -12,6 +12,7 @@ import { Panel } from '@/src/web/ui/Card';
 import { Caution, Notice } from '@/src/web/ui/Notice';
 import { useApi } from '@/src/web/swr';
 import { RunMap } from '@/src/web/runs/RunMap';
+import { IntervalPicker } from '@/src/web/runs/IntervalPicker';
 import { MinimaTable } from '@/src/web/runs/MinimaTable';
 import { FitsPanel, useFits } from '@/src/web/runs/FitsPanel';
 import { fitsUrl, intervalUrl, type RunJson } from '@/src/web/runs/types';
@@ -76,25 +77,14 @@ function Body({ token, initial, map, children }: Omit<Props, 'fits'>) {
             heading="What came out"
             description="The selected minimum of the selected interval. Select another minimum in the table to update the map and the fits."
           >
-            {solved.length > 1 ? (
-              <label className="mb-3 block text-sm">
-                Interval (UT){' '}
-                <select
-                  className="ml-2 rounded border border-line-strong bg-surface px-2 py-1"
-                  value={interval.startsAt}
-                  onChange={(e) => {
-                    setPick(e.target.value);
-                    setMinimum(0);
-                  }}
-                >
-                  {solved.map((i) => (
-                    <option key={i.startsAt} value={i.startsAt}>
-                      {i.startsAt.slice(0, 16).replace('T', ' ')}
-                    </option>
-                  ))}
-                </select>
-              </label>
-            ) : null}
+            <IntervalPicker
+              intervals={solved}
+              value={interval.startsAt}
+              onChange={(startsAt) => {
+                setPick(startsAt);
+                setMinimum(0);
+              }}
+            />
             <RunMap
               frame={map}
               regions={view.grid.regions}

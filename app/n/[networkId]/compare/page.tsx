@@ -4,6 +4,7 @@ import { listRuns } from '@/src/runs/control';
 import { loadComparison, type Comparison, type PickedMinimum } from '@/src/runs/compare-load';
 import { Button, Caution, EmptyState, Notice, Panel, inputClass } from '@/src/web/ui';
 import { CompareView } from '@/src/web/runs/CompareView';
+import { IntervalOptions } from '@/src/web/runs/IntervalPicker';
 import { ParameterTable, SettingsDiffTable } from '@/src/web/runs/CompareTables';
 import { SeriesGoodnessTable } from '@/src/web/runs/GoodnessTables';
 import { RunMap } from '@/src/web/runs/RunMap';
@@ -30,11 +31,7 @@ function MinimumPicker({ side, p }: { side: 'a' | 'b'; p: PickedMinimum }) {
       <label className="block text-sm font-medium">
         Interval of {side.toUpperCase()} (UT)
         <select name={`${side}i`} defaultValue={p.interval ?? undefined} className={inputClass}>
-          {solved.map((i) => (
-            <option key={i.startsAt} value={i.startsAt}>
-              {i.startsAt.slice(0, 16).replace('T', ' ')}
-            </option>
-          ))}
+          <IntervalOptions intervals={solved} />
         </select>
       </label>
       <label className="block text-sm font-medium">
