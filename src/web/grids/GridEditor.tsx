@@ -10,10 +10,11 @@ import { useMemo, useRef, useState, type MouseEvent } from 'react';
 import { useRouter } from 'next/navigation';
 import { geoGraticule, geoPath, type GeoProjection } from 'd3-geo';
 import { WorldMap } from '@/src/web/map/WorldMap';
+import { RegionShapes, lonLatBox } from '@/src/web/map/RegionShapes';
 import { Button, FormField, Notice, inputClass } from '@/src/web/ui';
 import { apiSend } from '@/src/web/swr';
 import { REGION_COLOURS } from '@/src/design/tokens';
-import { CELL_SIZES, cellAt, cellBox, cellsInBox, gridProblems, type Region } from '@/src/runs/grid-spec';
+import { CELL_SIZES, cellAt, cellsInBox, gridProblems, type Region } from '@/src/runs/grid-spec';
 import { makeGlobalGrid } from '@/src/engine/sources/grid';
 import { landCellsInBox } from '@/src/engine/sources/land-mask';
 
@@ -219,84 +220,18 @@ export function GridEditor({ networkId, initial, baseId }: { networkId: string; 
             return (
               <>
                 <path d={path(lines) ?? ''} fill="none" className="stroke-line" strokeWidth={0.3} />
-                {regions.map((r, i) =>
-                  r.kind === 'cells'
-                    ? r.cells.map((c) => {
-                        const b = cellBox(cell, c);
-                        return (
-                          <path
-                            key={`${r.key}-${c}`}
-                            d={
-                              path({
-                                type: 'Polygon',
-                                coordinates: [
-                                  [
-                                    [b.west, b.south],
-                                    [b.west, b.north],
-                                    [b.east, b.north],
-                                    [b.east, b.south],
-                                    [b.west, b.south],
-                                  ],
-                                ],
-                              }) ?? ''
-                            }
-                            fill={r.colour}
-                            fillOpacity={i === active ? 0.75 : 0.45}
-                            stroke={r.colour}
-                            strokeWidth={0.5}
-                          />
-                        );
-                      })
-                    : (() => {
-                        const b = r.bounds;
-                        const [x, y] = projection([r.centre.lon, r.centre.lat]) ?? [0, 0];
-                        return (
-                          <g key={r.key}>
-                            <path
-                              d={
-                                path({
-                                  type: 'Polygon',
-                                  coordinates: [
-                                    [
-                                      [b.lon.min, b.lat.min],
-                                      [b.lon.min, b.lat.max],
-                                      [b.lon.max, b.lat.max],
-                                      [b.lon.max, b.lat.min],
-                                      [b.lon.min, b.lat.min],
-                                    ],
-                                  ],
-                                }) ?? ''
-                              }
-                              fill={r.colour}
-                              fillOpacity={0.15}
-                              stroke={r.colour}
-                              strokeWidth={1.5}
-                              strokeDasharray="4 3"
-                            />
-                            <circle cx={x} cy={y} r={5} fill={r.colour} stroke="white" />
-                          </g>
-                        );
-                      })(),
-                )}
+                <RegionShapes
+                  projection={projection}
+                  regions={regions}
+                  cellSizeDeg={cell}
+                  cellOpacity={(i) => (i === active ? 0.75 : 0.45)}
+                />
                 {drag
                   ? (() => {
                       const [a, b] = [drag.a, drag.b];
                       return (
                         <path
-                          d={
-                            path({
-                              type: 'Polygon',
-                              coordinates: [
-                                [
-                                  [a[0], a[1]],
-                                  [a[0], b[1]],
-                                  [b[0], b[1]],
-                                  [b[0], a[1]],
-                                  [a[0], a[1]],
-                                ],
-                              ],
-                            }) ?? ''
-                          }
+                          d={path(lonLatBox(a[0], a[1], b[0], b[1])) ?? ''}
                           fill="none"
                           stroke="currentColor"
                           strokeDasharray="3 3"

@@ -19,7 +19,7 @@ import { JOINT_2D } from '@/src/runs/confidence';
 import { extentOf, magnification } from '@/src/web/map/magnify';
 import { MAP_SIZE } from './map-size';
 import { makeProjection } from '@/src/web/map/projection';
-import { cellBox } from '@/src/runs/grid-cells';
+import { cellPath } from '@/src/web/map/RegionShapes';
 import type { Region } from '@/src/runs/grid-spec';
 import { covarianceEllipse } from '@/src/runs/ellipse';
 import { sharedLogRange } from '@/src/runs/compare';
@@ -154,23 +154,11 @@ export function RunMapLayer({ width, height }: { width: number; height: number }
         const s = byName.get(r.name);
         if (r.kind === 'cells') {
           return r.cells.map((c) => {
-            const b = cellBox(cellSizeDeg, c);
-            const d = path({
-              type: 'Polygon',
-              coordinates: [
-                [
-                  [b.west, b.south],
-                  [b.west, b.north],
-                  [b.east, b.north],
-                  [b.east, b.south],
-                  [b.west, b.south],
-                ],
-              ],
-            });
+            const d = cellPath(path, cellSizeDeg, c);
             return (
               <path
                 key={`${r.key}-${c}`}
-                d={d ?? ''}
+                d={d}
                 fill={s ? shade(t(s.intensity)) : 'none'}
                 fillOpacity={0.85}
                 stroke={r.colour}
