@@ -5,8 +5,8 @@
  * worked by one single-threaded worker process, then by two (CAVITAS_RUN_THREADS=1,
  * WORKER_CONCURRENCY=1 each). The workers are started and ready before the launch; the wall
  * time runs from the launch to the run's end. Prints both walls, their ratio (the goal on a
- * 2-core machine: two workers at least 1.6 times as fast as one), the load averages, and
- * whether every interval's result (minima, start ends, counts; not the time it took) is the
+ * 2-core machine: two workers at least 1.6 times as fast as one), the load averages, the CPU
+ * seconds of the workers and the database, the chunks each worker took, and whether every interval's result (minima, start ends, counts; not the time it took) is the
  * same in both runs.
  *
  * BENCH_RUN_DAY_INTERVALS / BENCH_RUN_DAY_STARTS scale the day, BENCH_FANOUT_ROUNDS (default 1)
@@ -27,7 +27,8 @@ import { launchRun } from '@/src/runs/launch';
 import { hasEnded } from '@/src/runs/lifecycle';
 import { programArgs, projectRoot } from '@/src/ops/paths';
 import { childEnv, setEnv, settings } from '@/src/settings';
-import { seedDay } from './runs';
+import { pgCpuSeconds, seedDay } from './runs';
+import { readFileSync } from 'node:fs';
 
 const load = () =>
   loadavg()
@@ -44,6 +45,10 @@ function startWorker(url: string): Worker {
     cwd: projectRoot,
     env: childEnv({ DATABASE_URL: url, CAVITAS_RUN_THREADS: '1', WORKER_CONCURRENCY: '1' }),
     stdio: ['ignore', 'pipe', 'pipe'],
+    // A session of its own, as a worker started from its own terminal or machine: Linux's
+    // scheduler (autogroup) shares the CPU between sessions first, so workers started from one
+    // session would split one session's share on a busy machine.
+    detached: true,
   });
   let out = '';
   child.stdout!.on('data', (b) => (out += b));
@@ -86,10 +91,14 @@ async function dayWith(n: number, url: string, networkId: string, userId: string
   try {
     for (const w of workers) await waitFor('worker ready', () => w.out().includes('[worker] ready'), 60_000);
     const before = load();
+    const cpu0 = workers.map((w) => cpuSeconds(w.child.pid!));
+    const pg0 = pgCpuSeconds();
     const t0 = performance.now();
     const run = await launchRun(networkId, userId, { ...config, name: `Bench day, ${n} worker(s)` });
     await waitFor('the run to end', async () => hasEnded((await getRunById(run.id))!.state), 30 * 60_000, 50);
     const wallS = (performance.now() - t0) / 1000;
+    const cpu = workers.map((w, i) => cpuSeconds(w.child.pid!) - cpu0[i]);
+    const pg1 = pgCpuSeconds();
     const end = (await getRunById(run.id))!;
     if (end.state !== 'finished') throw new Error(`the run ended ${end.state}: ${end.error ?? ''}`);
     const share = new Map<string, number>();
@@ -99,13 +108,21 @@ async function dayWith(n: number, url: string, networkId: string, userId: string
     }
     const pids = [...share].map(([pid, k]) => `${pid}: ${k}`).join(', ');
     console.log(
-      `  ${n} worker(s): ${wallS.toFixed(1)} s wall for ${end.progress.intervalsDone} intervals; chunks per worker process ${pids} ` +
+      `  ${n} worker(s): ${wallS.toFixed(1)} s wall for ${end.progress.intervalsDone} intervals; chunks per worker process ${pids}; ` +
+        `CPU of the workers ${cpu.map((c) => c.toFixed(1)).join(' + ')} s, of the database ${pg0 === null || pg1 === null ? '?' : (pg1 - pg0).toFixed(1)} s ` +
         `(load before ${before}, after ${load()})`,
     );
     return { wallS, results: resultsOf(await listRunIntervals(run.id)) };
   } finally {
     await stopWorkers(workers);
   }
+}
+
+/** CPU seconds (user + system) a running process has used so far (Linux /proc; USER_HZ 100). */
+function cpuSeconds(pid: number): number {
+  const f = readFileSync(`/proc/${pid}/stat`, 'utf8');
+  const fields = f.slice(f.lastIndexOf(')') + 2).split(' ');
+  return (Number(fields[11]) + Number(fields[12])) / 100;
 }
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];

@@ -155,7 +155,7 @@ async function measureLaunch(networkId: string, userId: string, config: RunConfi
 }
 
 /** CPU seconds (user + system) of the database server: the postmaster, its reaped and its live backends. */
-function pgCpuSeconds(): number | null {
+export function pgCpuSeconds(): number | null {
   try {
     const port = new URL(settings().DATABASE_URL ?? '').port;
     const tick = 100; // USER_HZ on Linux
