@@ -570,25 +570,31 @@ export async function resetSurface(surfaceId: string): Promise<void> {
 }
 
 /**
- * Measured seconds per (datum x parameter x start) over this network's recent
- * finished intervals, or null when there are none (for the launch preview).
+ * Timings of recently finished intervals (30 days, newest first, at most `limit`) of this
+ * network's runs of one kind (every network's on this server when `networkId` is null): the
+ * raw material of the launch preview's time estimate (src/runs/time-estimate.ts).
  */
-export async function measuredCostPerUnit(networkId: string, observables: 'spectrum' | 'modes'): Promise<number | null> {
-  const [row] = await getDb()
+export async function recentIntervalTimings(networkId: string | null, observables: 'spectrum' | 'modes', limit = 400) {
+  const rows = await getDb()
     .select({
-      cost: sql<number | null>`percentile_cont(0.5) within group (order by ${runIntervals.seconds} /
-      nullif(${runIntervals.nData} * ((${runIntervals.result}->>'nParams')::float8) * ((${runIntervals.result}->>'starts')::float8), 0))`,
+      runId: runIntervals.runId,
+      startsAt: runIntervals.startsAt,
+      seconds: runIntervals.seconds,
+      nData: runIntervals.nData,
+      nParams: sql<number | null>`(${runIntervals.result}->>'nParams')::float8`,
+      starts: sql<number | null>`(${runIntervals.result}->>'starts')::float8`,
     })
     .from(runIntervals)
     .innerJoin(runs, eq(runs.id, runIntervals.runId))
     .where(
       and(
-        eq(runs.networkId, networkId),
+        networkId === null ? undefined : eq(runs.networkId, networkId),
         sql`${runIntervals.nData} > 0 and ${runIntervals.seconds} > 0`,
         sql`coalesce(${runs.config}->'observables'->>'kind', 'spectrum') = ${observables}`,
         sql`${runIntervals.createdAt} > now() - interval '30 days'`,
       ),
-    );
-  const v = row?.cost === null || row?.cost === undefined ? null : Number(row.cost);
-  return v !== null && Number.isFinite(v) && v > 0 ? v : null;
+    )
+    .orderBy(desc(runIntervals.createdAt))
+    .limit(limit);
+  return rows.map((r) => ({ ...r, nParams: Number(r.nParams ?? 0), starts: Number(r.starts ?? 0) }));
 }

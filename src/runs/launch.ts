@@ -9,7 +9,7 @@
 import { record } from '@/src/audit';
 import { modelRepo } from '@/db/repo/models';
 import { gridRepo } from '@/db/repo/grids';
-import { createRun, measuredCostPerUnit, type RunRow } from '@/db/repo/runs';
+import { createRun, recentIntervalTimings, type RunRow } from '@/db/repo/runs';
 import { listIntervals, listSpectrumStatistics } from '@/db/repo/intervals';
 import { statisticsProblem } from '@/src/data/spectrum-statistics';
 import { listStations } from '@/db/repo/stations';
@@ -20,6 +20,7 @@ import { countIntervalData, loadIntervalObservations, RunDataError } from './obs
 import { engineVersion } from './engine-version';
 import { enqueueRunWork } from './queues';
 import { splitRun } from './chunks';
+import { estimateRunSeconds, measureSpeed } from './time-estimate';
 
 export type LaunchProblem = { field: string; message: string };
 export interface LaunchPreview {
@@ -29,6 +30,8 @@ export interface LaunchPreview {
   intervals: number;
   series: number;
   estimateSeconds: number;
+  /** Where the estimate's speed comes from: finished intervals on this server, or the built-in figure. */
+  estimateBasis: 'measured' | 'built-in';
   intervalStarts: string[];
 }
 
@@ -169,13 +172,19 @@ export async function checkLaunch(
       field: 'regions',
       message: `too many free parameters (${nParams}) for the data (${nData} values per interval)`,
     });
-  // Prefer this network's own measured cost (median over recent intervals) to the built-in figure.
-  // Spectrum and mode runs cost very differently per datum: each is measured on its own kind.
+  // The engine's measured speed on this server (src/runs/time-estimate.ts): this network's own
+  // finished intervals first, else every network's here; the built-in figure only on a server
+  // that has finished nothing yet. Spectrum and mode runs cost very differently per datum: each
+  // is measured on its own kind.
   const kind = config.observables.kind;
-  const measured = await measuredCostPerUnit(networkId, kind);
-  const perUnit =
-    measured ?? (kind === 'modes' ? MODE_SECONDS_PER_DATUM_PARAM_START : EVALS_PER_START * SECONDS_PER_DATUM_PARAM_EVAL);
-  const estimateSeconds = starts.length * config.starts * nData * Math.max(1, nParams) * perUnit;
+  const measured =
+    measureSpeed(await recentIntervalTimings(networkId, kind)) ?? measureSpeed(await recentIntervalTimings(null, kind));
+  const builtIn = kind === 'modes' ? MODE_SECONDS_PER_DATUM_PARAM_START : EVALS_PER_START * SECONDS_PER_DATUM_PARAM_EVAL;
+  const estimateSeconds = estimateRunSeconds(
+    measured ?? { secondsPerUnit: builtIn, startupSeconds: 0 },
+    starts.length,
+    config.starts * nData * Math.max(1, nParams),
+  );
   return {
     problems,
     preview: {
@@ -185,6 +194,7 @@ export async function checkLaunch(
       intervals: starts.length,
       series: obs.observed.length + (obs.modes?.length ?? 0),
       estimateSeconds,
+      estimateBasis: measured === null ? 'built-in' : 'measured',
       intervalStarts: starts,
     },
   };

@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeQueueAndDatabase, resetDatabase } from '@/test/helpers/db';
-import { createRun, getRunById, measuredCostPerUnit, saveRunInterval } from '@/db/repo/runs';
+import { createRun, getRunById, recentIntervalTimings, saveRunInterval } from '@/db/repo/runs';
 import { modelRepo } from '@/db/repo/models';
 import { checkLaunch, launchRun } from '@/src/runs/launch';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
@@ -56,8 +56,9 @@ describe('launch checks', () => {
     const again = await checkLaunch(w.networkId, w.config);
     expect(again.preview!.estimateSeconds).toBeCloseTo(1 * 4 * (3 * 3 * 49) * 3 * 0.01, 6);
     // A spectrum run's cost says nothing about a mode run's (each predicted spectrum is fitted).
-    expect(await measuredCostPerUnit(w.networkId, 'spectrum')).toBeCloseTo(0.01, 12);
-    expect(await measuredCostPerUnit(w.networkId, 'modes')).toBeNull();
+    expect(again.preview!.estimateBasis).toBe('measured');
+    expect(await recentIntervalTimings(w.networkId, 'spectrum')).toHaveLength(1);
+    expect(await recentIntervalTimings(w.networkId, 'modes')).toEqual([]);
   });
 
   it('refuses a centre range outside the region bounds of the grid', async () => {

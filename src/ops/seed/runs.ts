@@ -14,7 +14,7 @@ import { listStations } from '@/db/repo/stations';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import { checkLaunch } from '@/src/runs/launch';
 import { executeRun } from '@/src/runs/execute';
-import { makeEngineSolver } from '@/src/runs/solver';
+import { engineSolver } from '@/src/runs/solver';
 import { engineVersion } from '@/src/runs/engine-version';
 import type { RunConfig } from '@/src/runs/config';
 import type { GridInput } from '@/src/runs/grid-spec';
@@ -146,7 +146,8 @@ async function ensureRun(networkId: string, config: RunConfig): Promise<void> {
   }
   const run = await getRunById(runId);
   if (run && run.state !== 'finished') {
-    await executeRun(runId, { solve: makeEngineSolver(1), workerId: 'demo-seeder', leaseSeconds: 0 });
+    // Solved as the worker solves (same threads), so its timings calibrate the set-up's time estimate.
+    await executeRun(runId, { solve: engineSolver, workerId: 'demo-seeder', leaseSeconds: 0 });
   }
 }
 

@@ -61,6 +61,7 @@ type Preview = {
   intervals: number;
   series: number;
   estimateSeconds: number;
+  estimateBasis: 'measured' | 'built-in';
   firstInterval?: string;
   lastInterval?: string;
 };
@@ -507,7 +508,10 @@ export function RunLauncher({ networkId, options }: { networkId: string; options
           <p className="text-sm tabular-nums" data-testid="run-preview">
             {preview.intervals} interval{preview.intervals === 1 ? '' : 's'} · {preview.series} series · {preview.nData} data per
             interval · {preview.nParams} free parameters · {preview.starts} starts · about{' '}
-            {formatDuration(Math.max(1, preview.estimateSeconds))} (rough)
+            {formatDuration(Math.max(1, preview.estimateSeconds))}{' '}
+            {preview.estimateBasis === 'measured'
+              ? '(from the speed measured on this server)'
+              : '(rough: nothing has run on this server yet)'}
           </p>
         ) : null}
         {problems.length ? (
