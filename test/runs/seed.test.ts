@@ -44,7 +44,7 @@ describe('demo runs seeder', () => {
     expect(await listRunIntervals(run.id)).toHaveLength(13);
     expect(await modelRepo.list(net)).toHaveLength(2);
     expect(await gridRepo.list(net)).toHaveLength(1);
-  });
+  }, 600_000); // the seeder solves both demo runs; minutes on a busy machine
 
   it("stores a finished mode-parameter run that keeps each start's own end", async () => {
     const net = await accounts.demoNetworkId();
