@@ -9,7 +9,7 @@ export default function NotFound() {
         This page does not exist, or it belongs to a network you are not a member of. Check the address, or ask an owner of the
         network to invite you.
       </p>
-      <Link href="/networks" className="text-sm text-accent">
+      <Link href="/networks" className="text-sm text-accent underline underline-offset-2">
         Go to my networks
       </Link>
     </main>

@@ -45,7 +45,7 @@ describe("a mode-parameter run's page", () => {
     await starts.waitFor();
     expect(await starts.getAttribute('data-own-misfits')).toBe('yes');
     await starts.locator('svg[aria-label^="Where the "]').waitFor({ state: 'attached', timeout: 30_000 });
-    expect(await starts.locator('svg[aria-label^="Where the "] g[aria-label="dot"] > *').count()).toBeGreaterThan(0);
+    expect(await starts.locator('svg[aria-label^="Where the "] g[data-mark="dot"] > *').count()).toBeGreaterThan(0);
     expect(errors).toEqual([]);
     await context.close();
   }, 300_000);

@@ -13,7 +13,7 @@ export default function ForgotPasswordPage() {
       </div>
       <ForgotPasswordForm />
       <p className="text-sm">
-        <Link href="/sign-in" className="text-accent">
+        <Link href="/sign-in" className="text-accent underline underline-offset-2">
           Back to sign in
         </Link>
       </p>

@@ -27,10 +27,10 @@ export function SignInForm({ next }: { next?: string }) {
         Sign in
       </Button>
       <p className="flex justify-between text-sm">
-        <Link href="/forgot-password" className="text-accent">
+        <Link href="/forgot-password" className="text-accent underline underline-offset-2">
           Forgot the password?
         </Link>
-        <Link href="/sign-up" className="text-accent">
+        <Link href="/sign-up" className="text-accent underline underline-offset-2">
           Create an account
         </Link>
       </p>

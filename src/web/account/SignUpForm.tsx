@@ -49,7 +49,7 @@ export function SignUpForm() {
       </Button>
       <p className="text-sm">
         Already have an account?{' '}
-        <Link href="/sign-in" className="text-accent">
+        <Link href="/sign-in" className="text-accent underline underline-offset-2">
           Sign in
         </Link>
       </p>

@@ -72,6 +72,14 @@ export function finishFigure<T extends Element>(node: T): T {
     }
     el.removeAttribute('style');
     if (el.getAttribute('font-family') === 'system-ui, sans-serif') el.removeAttribute('font-family');
+    // Plot names each mark's element ("line", "frame"); on an element without a role ARIA forbids a
+    // name (WAI-ARIA 1.2, naming prohibited). The figure is named on its <svg>; the mark's kind
+    // stays as data-mark.
+    const mark = el.tagName.toLowerCase() !== 'svg' && !el.hasAttribute('role') ? el.getAttribute('aria-label') : null;
+    if (mark !== null) {
+      el.setAttribute('data-mark', mark);
+      el.removeAttribute('aria-label');
+    }
   }
   return node;
 }

@@ -288,12 +288,17 @@ export function GridEditor({ networkId, initial, baseId }: { networkId: string; 
                   value={r.name}
                   onChange={(e) => update(i, { name: e.target.value })}
                 />
+                {/* The colour shows in a swatch; the select's words stay in ink (WCAG 1.4.3 contrast). */}
+                <span
+                  aria-hidden
+                  className="inline-block size-4 rounded-sm border border-line-strong"
+                  style={{ background: r.colour }}
+                />
                 <select
                   aria-label={`Region ${i + 1} colour`}
                   className="rounded border border-line-strong bg-surface px-2 py-1"
                   value={r.colour}
                   onChange={(e) => update(i, { colour: e.target.value })}
-                  style={{ color: r.colour }}
                 >
                   {REGION_COLOURS.map((c) => (
                     <option key={c} value={c} style={{ color: c }}>

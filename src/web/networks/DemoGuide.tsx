@@ -2,7 +2,7 @@ import Link from 'next/link';
 import type { DemoGuide as Guide } from '@/src/ops/seed/guide';
 import { Card } from '@/src/web/ui';
 
-const linkClass = 'font-medium text-accent underline-offset-2 hover:underline';
+const linkClass = 'font-medium text-accent underline underline-offset-2';
 
 /** The demo network's introduction on its overview: what it is, what is finished, where to start. */
 export function DemoGuide({ guide, networkId }: { guide: Guide; networkId: string }) {

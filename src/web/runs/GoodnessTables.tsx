@@ -33,7 +33,8 @@ function Cells({ g }: { g: Goodness }) {
 
 function Table({ caption, first, children }: { caption: string; first: string[]; children: ReactNode }) {
   return (
-    <div className="max-h-80 overflow-auto">
+    // A scrolling box takes the focus, so it scrolls by keyboard too (WCAG 2.1.1).
+    <div className="max-h-80 overflow-auto" tabIndex={0} role="region" aria-label={caption}>
       <table className="w-full text-sm tabular-nums">
         <caption className="sr-only">{caption}</caption>
         <thead className="sticky top-0 border-b border-line bg-surface text-muted">

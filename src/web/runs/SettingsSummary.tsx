@@ -31,14 +31,14 @@ export function SettingsSummary({ view, stationCodes, networkId }: { view: RunVi
           : `peak power of the first ${o.modes} fitted modes`}
       </Row>
       <Row label="Cavity model">
-        <a className="text-accent underline-offset-2 hover:underline" href={`/n/${networkId}/models/${model.id}`}>
+        <a className="text-accent underline underline-offset-2" href={`/n/${networkId}/models/${model.id}`}>
           {model.name} v{model.version}
         </a>{' '}
         · {m.model}
         {m.table ? ` (${m.table.rows.length} rows)` : ''}, a = {m.earthRadiusKm} km, h = {m.heightKm} km
       </Row>
       <Row label="Source grid">
-        <a className="text-accent underline-offset-2 hover:underline" href={`/n/${networkId}/grids/${grid.id}`}>
+        <a className="text-accent underline underline-offset-2" href={`/n/${networkId}/grids/${grid.id}`}>
           {grid.name} v{grid.version}
         </a>{' '}
         · {grid.cellSizeDeg}° cells

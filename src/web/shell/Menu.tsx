@@ -41,11 +41,10 @@ export function Menu({
   }, []);
   return (
     <details ref={ref} className={cx('group relative', className)}>
-      <summary
-        aria-label={label}
-        className="flex cursor-pointer list-none items-center gap-1.5 rounded-md px-2 py-1.5 text-sm text-chrome-fg hover:bg-raised [&::-webkit-details-marker]:hidden"
-      >
+      <summary className="flex cursor-pointer list-none items-center gap-1.5 rounded-md px-2 py-1.5 text-sm text-chrome-fg hover:bg-raised [&::-webkit-details-marker]:hidden">
         {summary}
+        {/* Named by its visible text plus this hint: a name that repeats what is shown (WCAG 2.5.3). */}
+        <span className="sr-only">{label}</span>
         <svg aria-hidden viewBox="0 0 12 12" className="size-3 text-chrome-muted transition-transform group-open:rotate-180">
           <path d="M2.5 4.5 6 8l3.5-3.5" fill="none" stroke="currentColor" strokeWidth="1.5" />
         </svg>

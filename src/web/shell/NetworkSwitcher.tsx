@@ -10,7 +10,7 @@ export interface SwitcherNetwork {
 export function NetworkSwitcher({ current, networks }: { current?: SwitcherNetwork; networks: SwitcherNetwork[] }) {
   return (
     <Menu
-      label={current ? `Current network: ${current.name}. Switch network` : 'Choose a network'}
+      label={current ? ', switch network' : ', choose a network'}
       summary={
         <span className="flex max-w-[14rem] flex-col items-start leading-tight">
           <span className="text-2xs tracking-wider text-chrome-muted uppercase">Network</span>

@@ -81,11 +81,7 @@ export function DayView({
         <>
           <SpectrumWithFit interval={selected} spectrum={selectedSpectrum} component={component} />
           <p className="text-sm">
-            <a
-              href={`${base}/intervals/${selected.id}/spectrum`}
-              download
-              className="text-accent underline-offset-2 hover:underline"
-            >
+            <a href={`${base}/intervals/${selected.id}/spectrum`} download className="text-accent underline underline-offset-2">
               Download this spectrum (CSV, SI units)
             </a>
           </p>

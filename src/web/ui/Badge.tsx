@@ -6,7 +6,7 @@ type Tone = 'neutral' | 'accent' | 'storm' | 'danger' | 'ok';
 const tones: Record<Tone, string> = {
   neutral: 'bg-raised text-muted border-line',
   accent: 'bg-accent-soft text-accent-strong border-accent/30',
-  storm: 'bg-storm-soft text-storm border-storm/40',
+  storm: 'bg-storm-soft text-storm-ink border-storm/40',
   danger: 'bg-danger-soft text-danger border-danger/40',
   ok: 'bg-accent-soft text-ok border-ok/40',
 };

@@ -66,7 +66,7 @@ export function Tabs({ items, initial, label }: { items: TabItem[]; initial?: st
           aria-labelledby={`${base}-tab-${t.id}`}
           hidden={t.id !== active}
           tabIndex={0}
-          className="pt-4 focus-visible:outline-none"
+          className="pt-4"
         >
           {t.id === active ? t.content : null}
         </div>

@@ -87,7 +87,7 @@ describe('chart style', () => {
   const markup = renderFigureSvg(spec, 640)!;
   const doc = parse(markup);
   const tickPaths = (axis: 'x' | 'y') =>
-    Array.from(doc.querySelectorAll(`[aria-label="${axis}-axis tick"] path`)).map((p) => p.getAttribute('d'));
+    Array.from(doc.querySelectorAll(`[data-mark="${axis}-axis tick"] path`)).map((p) => p.getAttribute('d'));
 
   it('draws ticks inward: up from the x axis, right from the y axis', () => {
     expect(tickPaths('x').length).toBeGreaterThan(2);
@@ -98,11 +98,11 @@ describe('chart style', () => {
 
   it('puts numbers on both axes and both axis lines in, and labels without arrows', () => {
     for (const axis of ['x', 'y']) {
-      const labels = Array.from(doc.querySelectorAll(`[aria-label="${axis}-axis tick label"] text`)).map((t) => t.textContent);
+      const labels = Array.from(doc.querySelectorAll(`[data-mark="${axis}-axis tick label"] text`)).map((t) => t.textContent);
       expect(labels.length, axis).toBeGreaterThan(1);
       for (const l of labels) expect(l).toMatch(/\d/);
     }
-    expect(doc.querySelectorAll('[aria-label="frame"]').length).toBe(2); // Plot draws each axis line as an anchored frame
+    expect(doc.querySelectorAll('[data-mark="frame"]').length).toBe(2); // Plot draws each axis line as an anchored frame
     expect(markup).not.toMatch(/[↑↓→←]/);
   });
 

@@ -39,8 +39,8 @@ describe('correlation matrix', () => {
   const doc = parse(renderFigureSvg(correlationFigure(minimum(names, matrix)), 580)!);
 
   it('writes every value on its cell with at least 4.5:1 contrast', () => {
-    const cells = Array.from(doc.querySelectorAll('[aria-label="cell"] rect'));
-    const texts = Array.from(doc.querySelectorAll('[aria-label="text"] text'));
+    const cells = Array.from(doc.querySelectorAll('[data-mark="cell"] rect'));
+    const texts = Array.from(doc.querySelectorAll('[data-mark="text"] text'));
     expect(cells.length).toBe(names.length ** 2);
     expect(texts.length).toBe(names.length ** 2);
     texts.forEach((t, i) => {
@@ -70,7 +70,7 @@ describe('starts figure', () => {
         },
       } as unknown as InversionResult;
       const doc = parse(renderFigureSvg(startsFigure(result, 0), 580)!);
-      const labels = Array.from(doc.querySelectorAll('[aria-label="y-axis tick label"] text')).map((t) => t.textContent ?? '');
+      const labels = Array.from(doc.querySelectorAll('[data-mark="y-axis tick label"] text')).map((t) => t.textContent ?? '');
       expect(labels.filter((l) => /\d/.test(l)).length).toBeGreaterThanOrEqual(2); // (a log axis leaves minor ticks blank)
     });
   }

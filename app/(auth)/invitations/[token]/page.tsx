@@ -21,7 +21,7 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
         <div className="space-y-6">
           <h1 className="text-2xl font-semibold tracking-tight">Invitation</h1>
           <Notice tone="error">{e.message}</Notice>
-          <Link href="/sign-in" className="text-sm text-accent">
+          <Link href="/sign-in" className="text-sm text-accent underline underline-offset-2">
             Go to sign in
           </Link>
         </div>

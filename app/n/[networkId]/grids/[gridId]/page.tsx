@@ -36,7 +36,7 @@ export default async function GridPage({ params }: { params: Promise<{ networkId
         <ul className="text-sm">
           {versions.map((v) => (
             <li key={v.id}>
-              <a className="text-accent hover:underline" href={`/n/${networkId}/grids/${v.id}`}>
+              <a className="text-accent underline underline-offset-2" href={`/n/${networkId}/grids/${v.id}`}>
                 v{v.version}
               </a>{' '}
               · saved {v.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UT{v.id === grid.id ? ' (shown)' : ''}

@@ -38,7 +38,7 @@ export default async function ModelPage({ params }: { params: Promise<{ networkI
         <ul className="text-sm">
           {versions.map((v) => (
             <li key={v.id}>
-              <a className="text-accent hover:underline" href={`/n/${networkId}/models/${v.id}`}>
+              <a className="text-accent underline underline-offset-2" href={`/n/${networkId}/models/${v.id}`}>
                 v{v.version}
               </a>{' '}
               · saved {v.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UT{v.id === model.id ? ' (shown)' : ''}
