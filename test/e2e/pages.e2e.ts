@@ -55,20 +55,26 @@ describe('every page: accessibility scan and screenshots', () => {
       });
   }
 
+  /** A signed-in owner of the demo network, and a reader of the network's API as that owner. */
+  async function asOwner() {
+    const networkId = await demoNetworkId();
+    const owner = env.app.signIns.find((s) => s.role === 'owner')!;
+    const context = await env.browser.newContext({ viewport: VIEWPORT });
+    const page = await context.newPage();
+    await signInAs(page, env.app.baseUrl, owner);
+    const api = async <T>(p: string) =>
+      (await (await page.request.get(`${env.app.baseUrl}/api/networks/${networkId}${p}`)).json()) as T;
+    return { networkId, context, page, api };
+  }
+
   function expectClean(group: string): void {
     const failing = audits.filter((a) => a.page.startsWith(group)).flatMap((a) => a.failing);
     expect(failing, describeFindings(failing)).toEqual([]);
   }
 
   it('signed-out pages and a shared run link', async () => {
-    const networkId = await demoNetworkId();
-    const owner = env.app.signIns.find((s) => s.role === 'owner')!;
-    const member = await env.browser.newContext({ viewport: VIEWPORT });
-    const ownerPage = await member.newPage();
-    await signInAs(ownerPage, env.app.baseUrl, owner);
-    const { runs } = (await (await ownerPage.request.get(`${env.app.baseUrl}/api/networks/${networkId}/runs`)).json()) as {
-      runs: { id: string; name: string }[];
-    };
+    const { networkId, context: member, page: ownerPage, api } = await asOwner();
+    const { runs } = await api<{ runs: { id: string; name: string }[] }>('/runs');
     const runId = runs.find((r) => r.name === DEMO_RUN)!.id;
     const made = await ownerPage.request.post(`${env.app.baseUrl}/api/networks/${networkId}/runs/${runId}/links`, {
       data: { expiresInDays: 2 },
@@ -92,13 +98,7 @@ describe('every page: accessibility scan and screenshots', () => {
   }, 300_000);
 
   it('every page of the demo network, as its owner', async () => {
-    const networkId = await demoNetworkId();
-    const owner = env.app.signIns.find((s) => s.role === 'owner')!;
-    const context = await env.browser.newContext({ viewport: VIEWPORT });
-    const page = await context.newPage();
-    await signInAs(page, env.app.baseUrl, owner);
-    const api = async <T>(p: string) =>
-      (await (await page.request.get(`${env.app.baseUrl}/api/networks/${networkId}${p}`)).json()) as T;
+    const { networkId, context, page, api } = await asOwner();
     const { runs } = await api<{ runs: { id: string; name: string }[] }>('/runs');
     const { stations } = await api<{ stations: { id: string }[] }>('/stations');
     const { grids } = await api<{ grids: { id: string }[] }>('/grids');
@@ -202,14 +202,8 @@ describe('every page: accessibility scan and screenshots', () => {
   });
 
   it('by keyboard: station tabs move with the arrow keys; a removal question closes with Escape', async () => {
-    const networkId = await demoNetworkId();
-    const owner = env.app.signIns.find((s) => s.role === 'owner')!;
-    const context = await env.browser.newContext({ viewport: VIEWPORT });
-    const page = await context.newPage();
-    await signInAs(page, env.app.baseUrl, owner);
-    const { stations } = (await (await page.request.get(`${env.app.baseUrl}/api/networks/${networkId}/stations`)).json()) as {
-      stations: { id: string }[];
-    };
+    const { networkId, context, page, api } = await asOwner();
+    const { stations } = await api<{ stations: { id: string }[] }>('/stations');
     await page.goto(`${env.app.baseUrl}/n/${networkId}/stations/${stations[0].id}`);
     await page.getByRole('tab', { name: 'Day view' }).focus();
     await page.keyboard.press('ArrowRight');
