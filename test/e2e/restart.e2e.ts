@@ -1,12 +1,14 @@
 /**
  * The running stack survives a worker crash: the worker is killed with SIGKILL in the middle of
  * a run; the supervisor restarts it, the web server answers throughout, and the new worker
- * continues the run (its sweep finds the lapsed lease) until every interval is stored once.
+ * continues the run (its sweep finds the lapsed lease of the chunk the killed worker held) until
+ * every interval is stored once.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type TestApp } from './harness';
 import { closeDatabase } from '@/db/lifecycle';
 import { getRunById, listRunIntervals } from '@/db/repo/runs';
+import { listRunChunks } from '@/db/repo/run-chunks';
 import { launchRun } from '@/src/runs/launch';
 import { makeRunWorld } from '@/test/runs/world';
 import { runEnded, until } from '@/test/helpers/until';
@@ -37,11 +39,16 @@ describe('worker crash under the supervisor', () => {
     const w = await makeRunWorld(24);
     const run = await launchRun(w.networkId, w.userId, { ...w.config, starts: 16 });
     const total = run.intervalStarts.length;
+    // Killed while it holds a chunk of the run, so that the chunk must be taken over.
+    const holdsChunk = async () =>
+      (await listRunChunks(run.id)).some((c) => c.doneAt === null && c.workerId?.split(':')[1] === String(app.pid('worker')));
     await until(
-      'first interval stored while the run is still going',
+      'first interval stored while the run is still going, a chunk in the worker hands',
       async () => {
         const r = await getRunById(run.id);
-        return r && r.state === 'running' && r.progress.intervalsDone >= 1 && r.progress.intervalsDone < total;
+        return (
+          r && r.state === 'running' && r.progress.intervalsDone >= 1 && r.progress.intervalsDone < total && (await holdsChunk())
+        );
       },
       60_000,
       appLog,
@@ -69,7 +76,7 @@ describe('worker crash under the supervisor', () => {
     const done = await until('run finished by the restarted worker', runEnded(run.id), 90_000, appLog, 250);
     expect(done.state).toBe('finished');
     expect(done.error).toBeNull();
-    expect(done.attempts).toBeGreaterThanOrEqual(2);
+    expect(done.attempts).toBeGreaterThanOrEqual(2); // the killed worker's chunk was tried again
     const starts = (await listRunIntervals(run.id)).map((r) => r.startsAt.toISOString());
     expect(new Set(starts).size).toBe(total); // every interval, none twice
     expect(starts.length).toBe(total);
