@@ -5,7 +5,8 @@
  * with its own components and noise (fisher.ts). A log-power Jacobian does not
  * depend on the observed power, so a candidate needs no data, only its place.
  * A candidate on a station's own site, or on a source (where the kernels are
- * not trusted), is refused naming it.
+ * not trusted), is refused naming it. Rows add, so a candidate's information is
+ * its own J_c^T W_c J_c added to the network's.
  */
 import { greatCircle } from '@/src/engine/geometry/great-circle';
 import { InversionInputError } from '@/src/engine/inverse/errors';
@@ -28,16 +29,24 @@ export function siteProblem(site: { lat: number; lon: number }, input: StudyInpu
   return null;
 }
 
-/** The standard errors of the network with one more station at `site` (prepared once per study). */
-export function errorsWithSite(input: StudyInput, prepared: PreparedStudy, site: SiteCandidate) {
-  const codes = new Set(input.stations.map((s) => s.code));
-  let code = 'candidate';
-  while (codes.has(code)) code += '+';
-  const station: StudyStation = { code, lat: site.lat, lon: site.lon, components: site.components };
+/** The information of the network as it is. */
+export const baselineInformation = (input: StudyInput, prepared: PreparedStudy): Float64Array =>
+  fisherInformation(studySpectrumInput(input, input.stations, prepared.series), prepared.truth);
+
+/** The network's information `base` plus that of one more station at `site` (its own J_c^T W_c J_c). */
+export function informationWithSite(
+  input: StudyInput,
+  prepared: PreparedStudy,
+  base: Float64Array,
+  site: SiteCandidate,
+): Float64Array {
+  const station: StudyStation = { code: 'candidate', lat: site.lat, lon: site.lon, components: site.components };
   const noise = site.sigmaLog !== undefined ? { sigmaLog: site.sigmaLog } : input.noise;
-  const series = [...prepared.series, ...noiseSeries([station], prepared.freqs, noise)];
-  const information = fisherInformation(studySpectrumInput(input, [...input.stations, station], series), prepared.truth);
-  return errorsOfInformation(prepared.par, prepared.truth, information);
+  const own = fisherInformation(
+    studySpectrumInput(input, [station], noiseSeries([station], prepared.freqs, noise)),
+    prepared.truth,
+  );
+  return own.map((v, k) => v + base[k]);
 }
 
 export function sitingStudy(input: StudyInput, candidates: readonly SiteCandidate[]): SitingResult {
@@ -48,13 +57,13 @@ export function sitingStudy(input: StudyInput, candidates: readonly SiteCandidat
     if (c.sigmaLog !== undefined && !(c.sigmaLog > 0))
       throw new InversionInputError(`candidates[${i}].sigmaLog must be above 0, got ${c.sigmaLog}`);
   });
-  const baseline = errorsOfInformation(
-    prepared.par,
-    prepared.truth,
-    fisherInformation(studySpectrumInput(input, input.stations, prepared.series), prepared.truth),
-  );
+  const { par, truth } = prepared;
+  const base = baselineInformation(input, prepared);
   return {
-    baseline: { stdErrors: baseline },
-    candidates: candidates.map((c) => ({ ...c, stdErrors: errorsWithSite(input, prepared, c) })),
+    baseline: { stdErrors: errorsOfInformation(par, truth, base) },
+    candidates: candidates.map((c) => ({
+      ...c,
+      stdErrors: errorsOfInformation(par, truth, informationWithSite(input, prepared, base, c)),
+    })),
   };
 }
