@@ -8,7 +8,6 @@
  * Every refusal names the case's field; nothing is stored unless all is well.
  */
 import type { ZodError } from 'zod';
-import { createRun } from '@/db/repo/runs';
 import { listStations } from '@/db/repo/stations';
 import { enqueue } from '@/db/jobs';
 import { caseSolveSchema } from '@/src/engine/case/solve-options';
@@ -19,13 +18,13 @@ import { LM_INITIAL_DAMPING, LM_MAX_ITERATIONS } from '@/src/engine/tolerances';
 import { badRequest } from '@/src/server/errors';
 import { saveGrid, saveModel } from './catalogue';
 import { runConfigSchema, type RunConfig } from './config';
-import { engineVersion } from './engine-version';
 import { gridInputSchema, gridProblems, type GridInput } from './grid-spec';
 import { regionColour } from '@/src/design/tokens';
 import { logPowerVariance } from '@/src/engine/stats/log-power';
 import { RUN_JOB_OPTIONS, RUN_QUEUE } from './queues';
 import { record } from '@/src/audit';
 import type { ObservedSeries } from './types';
+import { storeRun } from './launch';
 
 type Range = { min: number; max: number };
 type RawUnknown = {
@@ -194,17 +193,7 @@ export async function importCase(networkId: string, userId: string, raw: unknown
   });
   const savedGrid = await saveGrid(networkId, userId, gridParsed.data);
   const config: RunConfig = { ...parsed.data, modelId: model.id, gridId: savedGrid.id };
-  const run = await createRun({
-    networkId,
-    name: config.name,
-    config: config as unknown as Record<string, unknown>,
-    modelId: model.id,
-    gridId: savedGrid.id,
-    engineVersion: engineVersion(),
-    intervalStarts: [at],
-    startsPerInterval: config.starts,
-    createdBy: userId,
-  });
+  const run = await storeRun(networkId, userId, config, [at]);
   await enqueue(RUN_QUEUE, { runId: run.id }, RUN_JOB_OPTIONS);
   await record({
     networkId,

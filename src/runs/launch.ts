@@ -200,23 +200,28 @@ export async function checkLaunch(
   };
 }
 
-export async function launchRun(networkId: string, userId: string | null, config: RunConfig): Promise<RunRow> {
-  const { problems, preview } = await checkLaunch(networkId, config);
-  if (problems.length || !preview) {
-    const p = problems[0] ?? { field: 'data', message: 'the run cannot start' };
-    throw badRequest(`${p.field}: ${p.message}`, p.field);
-  }
-  const run = await createRun({
+/** Stores a new run of `config` over the given interval starts (queued, pinned to this engine version). */
+export function storeRun(networkId: string, userId: string | null, config: RunConfig, intervalStarts: string[]): Promise<RunRow> {
+  return createRun({
     networkId,
     name: config.name,
     config: config as unknown as Record<string, unknown>,
     modelId: config.modelId,
     gridId: config.gridId,
     engineVersion: engineVersion(),
-    intervalStarts: preview.intervalStarts,
+    intervalStarts,
     startsPerInterval: config.starts,
     createdBy: userId,
   });
+}
+
+export async function launchRun(networkId: string, userId: string | null, config: RunConfig): Promise<RunRow> {
+  const { problems, preview } = await checkLaunch(networkId, config);
+  if (problems.length || !preview) {
+    const p = problems[0] ?? { field: 'data', message: 'the run cannot start' };
+    throw badRequest(`${p.field}: ${p.message}`, p.field);
+  }
+  const run = await storeRun(networkId, userId, config, preview.intervalStarts);
   await splitRun(run.id, run.intervalStarts.length);
   await enqueueRunWork(run.id);
   await record({

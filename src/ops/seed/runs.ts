@@ -9,13 +9,12 @@
  */
 import { modelRepo } from '@/db/repo/models';
 import { gridRepo } from '@/db/repo/grids';
-import { createRun, getRunById, listRuns } from '@/db/repo/runs';
+import { getRunById, listRuns } from '@/db/repo/runs';
 import { listStations } from '@/db/repo/stations';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
-import { checkLaunch } from '@/src/runs/launch';
+import { checkLaunch, storeRun } from '@/src/runs/launch';
 import { executeRun } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
-import { engineVersion } from '@/src/runs/engine-version';
 import type { RunConfig } from '@/src/runs/config';
 import type { GridInput } from '@/src/runs/grid-spec';
 import { makeGlobalGrid } from '@/src/engine/sources/grid';
@@ -131,17 +130,7 @@ async function ensureRun(networkId: string, config: RunConfig): Promise<void> {
     const { problems, preview } = await checkLaunch(networkId, config);
     if (problems.length || !preview)
       throw new Error(`demo run "${config.name}" cannot start: ${problems.map((p) => `${p.field}: ${p.message}`).join('; ')}`);
-    const run = await createRun({
-      networkId,
-      name: config.name,
-      config: config as unknown as Record<string, unknown>,
-      modelId: config.modelId,
-      gridId: config.gridId,
-      engineVersion: engineVersion(),
-      intervalStarts: preview.intervalStarts,
-      startsPerInterval: config.starts,
-      createdBy: null,
-    });
+    const run = await storeRun(networkId, null, config, preview.intervalStarts);
     runId = run.id;
   }
   const run = await getRunById(runId);
