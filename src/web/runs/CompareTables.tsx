@@ -6,7 +6,7 @@
 import type { ParameterRow, SettingRow } from '@/src/runs/compare';
 import type { ReactNode } from 'react';
 import { Badge } from '@/src/web/ui/Badge';
-import { fmt } from './types';
+import { formatMeasured, formatValue } from '@/src/web/ui/format';
 
 const VERDICT = {
   agree: { tone: 'ok', words: 'agree (≤ 1σ)' },
@@ -24,8 +24,6 @@ function Col({ children, numeric = false, last = false }: { children: ReactNode;
     </th>
   );
 }
-
-const withError = (v: number | null, e: number | null) => (v === null ? '—' : e === null ? fmt(v) : `${fmt(v)} ± ${fmt(e, 2)}`);
 
 export function SettingsDiffTable({ rows, labels }: { rows: SettingRow[]; labels: [string, string] }) {
   return (
@@ -77,10 +75,10 @@ export function ParameterTable({ rows }: { rows: ParameterRow[] }) {
             <th scope="row" className="py-1 pr-3 text-left font-medium">
               {r.name} {r.name.endsWith('intensity') ? '(C² km²/s)' : '(°)'}
             </th>
-            <td className="py-1 pr-3 text-right">{withError(r.a, r.errorA)}</td>
-            <td className="py-1 pr-3 text-right">{withError(r.b, r.errorB)}</td>
-            <td className="py-1 pr-3 text-right">{withError(r.difference, r.combinedError)}</td>
-            <td className="py-1 pr-3 text-right">{r.z === null ? '—' : fmt(r.z, 2)}</td>
+            <td className="py-1 pr-3 text-right">{formatMeasured(r.a, r.errorA)}</td>
+            <td className="py-1 pr-3 text-right">{formatMeasured(r.b, r.errorB)}</td>
+            <td className="py-1 pr-3 text-right">{formatMeasured(r.difference, r.combinedError)}</td>
+            <td className="py-1 pr-3 text-right">{formatValue(r.z, '', 2)}</td>
             <td className="py-1">
               {r.agreement ? <Badge tone={VERDICT[r.agreement].tone}>{VERDICT[r.agreement].words}</Badge> : 'only in one'}
             </td>

@@ -6,7 +6,7 @@
 import { useMemo } from 'react';
 import { PlotFigure } from '@/src/web/charts/PlotFigure';
 import type { RunView } from '@/src/runs/results';
-import { fmt } from './types';
+import { formatMeasured, formatValue } from '@/src/web/ui/format';
 import { goodnessOf } from '@/src/runs/goodness';
 import { compareSeriesFigure } from './figures/compare-series';
 
@@ -47,14 +47,14 @@ export function CompareView({ a, b, colours }: { a: RunView; b: RunView; colours
                 {bestRows(v).map((r) => (
                   <tr key={r.t} className="border-t border-line/60">
                     <td>{r.t.slice(0, 16).replace('T', ' ')}</td>
-                    <td className="text-right">{fmt(r.misfit, 5)}</td>
-                    <td className="text-right">{fmt(r.reduced)}</td>
+                    <td className="text-right">{formatValue(r.misfit, '', 5)}</td>
+                    <td className="text-right">{formatValue(r.reduced)}</td>
                     <td className="text-right">
-                      {fmt(r.g?.p, 2)}
+                      {formatValue(r.g?.p, '', 2)}
                       {r.g?.implausible ? <span className="ml-1 text-xs font-semibold text-danger">implausible</span> : null}
                     </td>
                     <td className="text-right">
-                      {r.sources.map((s) => `${s.name} ${fmt(s.intensity)} ± ${fmt(r.errors[s.name]?.intensity, 2)}`).join('; ')}
+                      {r.sources.map((s) => `${s.name} ${formatMeasured(s.intensity, r.errors[s.name]?.intensity)}`).join('; ')}
                     </td>
                   </tr>
                 ))}

@@ -6,7 +6,8 @@ import { Notice } from '@/src/web/ui/Notice';
 import { useApi } from '@/src/web/swr';
 import type { RunFits, SeriesFit } from '@/src/runs/fits';
 import { fitFigures } from './figures/fits';
-import { fitsUrl, fmt } from './types';
+import { fitsUrl } from './types';
+import { formatValue } from '@/src/web/ui/format';
 
 /**
  * The fits of one minimum of one interval. They never change once the interval is solved, so an
@@ -58,7 +59,7 @@ export function FitsPanel({
         >
           {fits.series.map((x, i) => (
             <option key={i} value={i}>
-              {x.station} {x.component} (χ²/bin {fmt(x.chi2PerBin)})
+              {x.station} {x.component} (χ²/bin {formatValue(x.chi2PerBin)})
             </option>
           ))}
         </select>

@@ -7,7 +7,10 @@
  */
 import type { ReactNode } from 'react';
 import type { Goodness, RunGoodness, SeriesGoodness } from '@/src/runs/goodness';
-import { fmt } from './types';
+import { formatValue } from '@/src/web/ui/format';
+
+/** Degrees of freedom: whole for a run, fractional for a series' share of the parameters. */
+const dofText = (dof: number) => formatValue(dof, '', { decimals: Number.isInteger(dof) ? 0 : 1 });
 
 function Flag({ g }: { g: Goodness }) {
   return g.implausible ? (
@@ -20,11 +23,11 @@ function Flag({ g }: { g: Goodness }) {
 function Cells({ g }: { g: Goodness }) {
   return (
     <>
-      <td className="px-2 py-1 text-right">{fmt(g.chi2, 4)}</td>
-      <td className="px-2 py-1 text-right">{fmt(g.dof, 4)}</td>
-      <td className="px-2 py-1 text-right">{fmt(g.dof > 0 ? g.chi2 / g.dof : NaN)}</td>
+      <td className="px-2 py-1 text-right">{formatValue(g.chi2, '', 5)}</td>
+      <td className="px-2 py-1 text-right">{dofText(g.dof)}</td>
+      <td className="px-2 py-1 text-right">{formatValue(g.dof > 0 ? g.chi2 / g.dof : NaN)}</td>
       <td className="px-2 py-1 text-right">
-        {fmt(g.p, 2)}
+        {formatValue(g.p, '', 2)}
         <Flag g={g} />
       </td>
     </>
@@ -102,8 +105,9 @@ export function GoodnessTables({
       <p className="text-sm">
         {run ? (
           <>
-            Whole run: χ² = <span data-testid="goodness-run-chi2">{fmt(run.chi2, 5)}</span> for {fmt(run.dof, 5)} degrees of
-            freedom (χ²/dof {fmt(run.chi2 / run.dof)}), P(≥ χ²) = <span data-testid="goodness-run-p">{fmt(run.p, 2)}</span>
+            Whole run: χ² = <span data-testid="goodness-run-chi2">{formatValue(run.chi2, '', 5)}</span> for {dofText(run.dof)}{' '}
+            degrees of freedom (χ²/dof {formatValue(run.chi2 / run.dof)}), P(≥ χ²) ={' '}
+            <span data-testid="goodness-run-p">{formatValue(run.p, '', 2)}</span>
             <Flag g={run} />. {bad} of {intervals.length} intervals implausible.
           </>
         ) : (

@@ -1,8 +1,8 @@
 'use client';
 /** The distinct minima of one interval, sortable; clicking a row selects that minimum everywhere on the page. */
 import { useMemo } from 'react';
-import { fmt, type InversionResult } from './types';
-import { formatEstimate } from '@/src/web/ui/format';
+import { type InversionResult } from './types';
+import { formatEstimate, formatValue } from '@/src/web/ui/format';
 import { saveCsv } from '@/src/web/ui/export';
 import { SortHeader, useSort } from '@/src/web/ui/SortHeader';
 import type { RunConfig } from '@/src/runs/config';
@@ -152,10 +152,10 @@ export function MinimaTable({
                   {r.rank}
                 </button>
               </td>
-              <td className="px-2 py-1 text-right">{fmt(r.misfit, 5)}</td>
-              <td className="px-2 py-1 text-right">{fmt(r.reduced)}</td>
+              <td className="px-2 py-1 text-right">{formatValue(r.misfit, '', 5)}</td>
+              <td className="px-2 py-1 text-right">{formatValue(r.reduced)}</td>
               <td className="px-2 py-1 text-right">
-                {fmt(goodnessOf(r.misfit, dof).p, 2)}
+                {formatValue(goodnessOf(r.misfit, dof).p, '', 2)}
                 {goodnessOf(r.misfit, dof).implausible ? (
                   <span className="ml-1 rounded bg-danger-soft px-1 text-xs font-semibold text-danger">implausible</span>
                 ) : null}

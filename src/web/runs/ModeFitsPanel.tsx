@@ -12,7 +12,7 @@ import type { PlotModule } from '@/src/web/charts/plot-module';
 import { Notice } from '@/src/web/ui';
 import { SortHeader, useSort } from '@/src/web/ui/SortHeader';
 import type { ModeFit } from '@/src/runs/fits';
-import { fmt } from './types';
+import { formatMeasured, formatValue } from '@/src/web/ui/format';
 import { FIGURE } from '@/src/design/tokens';
 
 const UNIT: Record<ModeFit['component'], { k: number; unit: string }> = {
@@ -35,7 +35,7 @@ interface Point {
   what: string;
 }
 
-function points(list: ModeFit[], pick: 'frequency' | 'intensity' | 'halfWidth', k: number): Point[] {
+function points(list: ModeFit[], pick: 'frequency' | 'intensity' | 'halfWidth', k: number, unit: string): Point[] {
   return list.map((m) => {
     const obs = m.observed[pick] * k;
     const pred = m.predicted[pick] * k;
@@ -50,7 +50,10 @@ function points(list: ModeFit[], pick: 'frequency' | 'intensity' | 'halfWidth', 
       lo,
       hi,
       pred,
-      what: `mode ${m.mode}: observed ${fmt(obs, 4)} (${fmt(lo, 3)} to ${fmt(hi, 3)}), predicted ${fmt(pred, 4)}`,
+      what:
+        pick === 'intensity'
+          ? `mode ${m.mode}: observed ${formatValue(obs, unit)} (${formatValue(lo)} to ${formatValue(hi)}), predicted ${formatValue(pred, unit)}`
+          : `mode ${m.mode}: observed ${formatMeasured(obs, m.sigma[pick], unit)}, predicted ${formatValue(pred, unit, 4)}`,
     };
   });
 }
@@ -97,7 +100,7 @@ function ResidualTable({ modes }: { modes: ModeFit[] }) {
   );
   // |r| above 2 means more than two standard deviations off (common practice)
   const cell = (v: number) => (
-    <td className={`px-2 py-1 text-right ${Math.abs(v) > 2 ? 'font-semibold text-danger' : ''}`}>{fmt(v)}</td>
+    <td className={`px-2 py-1 text-right ${Math.abs(v) > 2 ? 'font-semibold text-danger' : ''}`}>{formatValue(v)}</td>
   );
   return (
     <div className="max-h-96 overflow-auto">
@@ -125,7 +128,7 @@ function ResidualTable({ modes }: { modes: ModeFit[] }) {
               {cell(r.rf)}
               {cell(r.ri)}
               {cell(r.rg)}
-              <td className="px-2 py-1 text-right">{fmt(r.chi2)}</td>
+              <td className="px-2 py-1 text-right">{formatValue(r.chi2)}</td>
             </tr>
           ))}
         </tbody>
@@ -158,9 +161,9 @@ export function ModeFitsPanel({
     const u = UNIT[component];
     return {
       unit: u.unit,
-      frequency: figure(points(list, 'frequency', 1), false),
-      intensity: figure(points(list, 'intensity', u.k), true),
-      halfWidth: figure(points(list, 'halfWidth', 1), false),
+      frequency: figure(points(list, 'frequency', 1, 'Hz'), false),
+      intensity: figure(points(list, 'intensity', u.k, u.unit), true),
+      halfWidth: figure(points(list, 'halfWidth', 1, 'Hz'), false),
     };
   }, [chosen, fits]);
   if (error)

@@ -14,7 +14,7 @@ import { createContext, useContext, useMemo, type ReactNode } from 'react';
 import { geoCircle, geoPath } from 'd3-geo';
 import { RAMPS } from '@/src/design/tokens';
 import { ColourBar } from '@/src/web/charts/ColourBar';
-import { formatMeasured } from '@/src/web/ui/format';
+import { formatMeasured, formatValue } from '@/src/web/ui/format';
 import { JOINT_2D } from '@/src/runs/confidence';
 import { extentOf, magnification } from '@/src/web/map/magnify';
 import { MAP_SIZE } from './map-size';
@@ -23,7 +23,7 @@ import { cellPath } from '@/src/web/map/RegionShapes';
 import type { Region } from '@/src/runs/grid-spec';
 import { covarianceEllipse } from '@/src/runs/ellipse';
 import { sharedLogRange } from '@/src/runs/compare';
-import { centreCovariance, fmt, type Minimum } from './types';
+import { centreCovariance, type Minimum } from './types';
 
 export interface StationMark {
   station: string;
@@ -164,7 +164,7 @@ export function RunMapLayer({ width, height }: { width: number; height: number }
                 stroke={r.colour}
                 strokeWidth={0.6}
               >
-                <title>{`${r.name}: ${s ? fmt(s.intensity) + ' C² km²/s' : 'not estimated'}`}</title>
+                <title>{`${r.name}: ${s ? formatValue(s.intensity, 'C² km²/s') : 'not estimated'}`}</title>
               </path>
             );
           });

@@ -1,6 +1,6 @@
 /** What a run asked for: data, observables, model, grid, regions and bounds, damping, starts, seed, engine version. */
 import type { RunView } from '@/src/runs/results';
-import { fmt } from './types';
+import { formatValue } from '@/src/web/ui/format';
 import { ordinal } from '@/src/web/ui/format';
 
 function Row({ label, children }: { label: string; children: React.ReactNode }) {
@@ -50,7 +50,7 @@ export function SettingsSummary({ view, stationCodes, networkId }: { view: RunVi
             return (
               <li key={u.region}>
                 <span className="mr-1 inline-block size-2.5 rounded-sm align-middle" style={{ background: r?.colour }} />
-                {r?.name ?? u.region}: intensity {fmt(u.intensity.min)}–{fmt(u.intensity.max)} C² km²/s
+                {r?.name ?? u.region}: intensity {formatValue(u.intensity.min)}–{formatValue(u.intensity.max)} C² km²/s
                 {u.lat ? `, lat ${u.lat.min}…${u.lat.max}°` : ''}
                 {u.lon ? `, lon ${u.lon.min}…${u.lon.max}°` : ''}
                 {r?.kind === 'cells' ? ` (${r.cells.length} fixed cells)` : ''}

@@ -4,7 +4,7 @@
  * Fits stored before these were kept read "not recorded". No hooks: renders on
  * the server or inside a client view alike.
  */
-import { formatNumber } from '@/src/web/ui';
+import { formatValue } from '@/src/web/ui';
 
 export interface FitSettingsInput {
   band?: { minHz: number; maxHz: number };
@@ -23,7 +23,7 @@ function hz(v: number): string {
 export function fitSettingsText(fit: FitSettingsInput): { band: string; averages: string; excluded: string } {
   return {
     band: fit.band ? `${hz(fit.band.minHz)}–${hz(fit.band.maxHz)} Hz` : NOT_RECORDED,
-    averages: fit.averages !== undefined ? formatNumber(fit.averages, 1) : NOT_RECORDED,
+    averages: fit.averages !== undefined ? formatValue(fit.averages, '', { decimals: 1 }) : NOT_RECORDED,
     excluded: !fit.excluded
       ? NOT_RECORDED
       : fit.excluded.length === 0

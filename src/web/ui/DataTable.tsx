@@ -19,7 +19,7 @@ import {
   tableFeatures,
   useTable,
 } from '@tanstack/react-table';
-import { formatNumber, formatUtc } from './format';
+import { formatUtc, formatValue } from './format';
 import { saveCsv } from './export';
 import { cx } from './cx';
 
@@ -31,8 +31,9 @@ export interface DataColumn {
   header: string;
   /** Unit shown in the header, e.g. "Hz" or "(mV/m)^2/Hz". */
   unit?: string;
-  /** Right-aligned, tabular, formatted with `digits`. */
+  /** Right-aligned, tabular, by the one number formatter (`formatValue`). */
   numeric?: boolean;
+  /** Decimal places in the header's unit (default 2), so the column lines up. */
   digits?: number;
   /** Values are dates/ISO strings: shown in UTC. */
   time?: boolean;
@@ -68,7 +69,7 @@ const features = tableFeatures({
 
 function display(col: DataColumn, v: unknown): ReactNode {
   if (col.time) return formatUtc(v as string | Date | null);
-  if (col.numeric) return typeof v === 'number' ? formatNumber(v, col.digits ?? 2) : v == null ? '—' : String(v);
+  if (col.numeric) return typeof v === 'number' ? formatValue(v, '', { decimals: col.digits ?? 2 }) : v == null ? '—' : String(v);
   if (v == null || v === '') return '—';
   return String(v);
 }

@@ -6,7 +6,7 @@ export { FormField, inputClass } from './FormField';
 export { ProgressBar, formatDuration } from './ProgressBar';
 export { Notice, Caution } from './Notice';
 export { Badge } from './Badge';
-export { formatNumber, formatUtc, formatUtcDate } from './format';
+export { formatMeasured, formatValue, formatUtc, formatUtcDate } from './format';
 export { cx } from './cx';
 export { DataTable, type DataColumn } from './DataTable';
 export { Tabs, type TabItem } from './Tabs';

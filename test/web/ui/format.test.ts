@@ -1,11 +1,40 @@
 /**
- * The one number formatter for measured values. Expected strings are worked out by hand from the
- * rule (error to two significant digits, value to the same decimal place: common practice, e.g.
- * Taylor, An Introduction to Error Analysis, §2.2; SI prefixes per the BIPM SI Brochure, 9th ed.,
- * only on one-symbol units).
+ * The one number formatter. Expected strings are worked out by hand from the rule (the error to two
+ * significant digits and the value to the same decimal place: common practice, also ISO/IEC Guide
+ * 98-3 (GUM) §7.2.6 and Taylor, An Introduction to Error Analysis, §2.2; SI prefixes per the BIPM SI
+ * Brochure, 9th ed., only on one-symbol units), or taken from the ECMA-402 number formatter
+ * (Intl.NumberFormat, en-GB, no grouping) for plain rounding.
  */
 import { describe, expect, it } from 'vitest';
-import { boundState, formatEstimate, formatMeasured } from '@/src/web/ui/format';
+import { boundState, formatEstimate, formatMeasured, formatValue, type Rounding } from '@/src/web/ui/format';
+
+/** Intl's text with a true minus sign and without a "−0" (the formatter writes rounded-away values as 0). */
+const intlText = (nf: Intl.NumberFormat, v: number) =>
+  nf
+    .format(v)
+    .replace(/^-(0(\.0*)?)$/, '$1')
+    .replace('-', '−');
+
+/** Values across [1e-3, 1e5) of both signs, with halves and near-decade cases that rounding gets wrong most easily. */
+const VALUES = [
+  0,
+  1,
+  -1,
+  0.5,
+  0.001,
+  0.0012345,
+  0.099999,
+  1.005,
+  1.23456,
+  2.675,
+  9.99951,
+  12.5,
+  99.995,
+  999.95,
+  1234.5,
+  0.1 + 0.2,
+];
+for (let k = 0; k < 400; k++) VALUES.push((k % 2 ? -1 : 1) * Math.exp(-6.9 + (18.4 * k) / 400));
 
 describe('formatMeasured', () => {
   it('rounds the error to two significant digits and the value to the same place', () => {
@@ -14,6 +43,11 @@ describe('formatMeasured', () => {
     expect(formatMeasured(-0.5, 0.05)).toBe('−0.500 ± 0.050');
     expect(formatMeasured(100, 288)).toBe('100 ± 290');
     expect(formatMeasured(0, 0.5)).toBe('0.00 ± 0.50');
+  });
+
+  it('keeps two significant digits when the rounded error reaches the next decade', () => {
+    expect(formatMeasured(1.23, 0.0996)).toBe('1.23 ± 0.10');
+    expect(formatMeasured(512.3, 99.7)).toBe('510 ± 100');
   });
 
   it('puts an SI prefix on a one-symbol unit', () => {
@@ -36,6 +70,45 @@ describe('formatMeasured', () => {
     expect(formatMeasured(2.5, 0)).toBe('2.50');
     expect(formatMeasured(null)).toBe('—');
     expect(formatMeasured(Number.POSITIVE_INFINITY, 1)).toBe('—');
+  });
+});
+
+describe('formatValue (a value without an uncertainty)', () => {
+  // beyond 10^(digits-1) the formatter keeps every whole digit rather than writing trailing zeros
+  const cases: { name: string; rounding: Rounding; intl: Intl.NumberFormatOptions; covers: (x: number) => boolean }[] = [
+    ...[2, 3, 5].map((n) => ({
+      name: `${n} significant figures`,
+      rounding: n,
+      intl: { minimumSignificantDigits: n, maximumSignificantDigits: n },
+      covers: (x: number) => Math.abs(x) < 10 ** (n - 1) - 0.5,
+    })),
+    ...[0, 1, 3].map((n) => ({
+      name: `${n} decimal places`,
+      rounding: { decimals: n },
+      intl: { minimumFractionDigits: n, maximumFractionDigits: n },
+      covers: (x: number) => x === 0 || Math.abs(x) >= 1e-3,
+    })),
+  ];
+  for (const c of cases) {
+    it(`writes ${c.name} as Intl.NumberFormat en-GB does`, () => {
+      const nf = new Intl.NumberFormat('en-GB', { ...c.intl, useGrouping: false });
+      const covered = VALUES.filter(c.covers);
+      expect(covered.length).toBeGreaterThan(100);
+      for (const v of covered) expect(formatValue(v, '', c.rounding), `value ${v}`).toBe(intlText(nf, v));
+    });
+  }
+
+  it('writes a fixed-decimal value in the unit given (no prefix), a count in full, and extremes with a power of ten', () => {
+    expect(formatValue(1234, 'm', { decimals: 0 })).toBe('1234 m');
+    expect(formatValue(123456, '', { decimals: 0 })).toBe('123456');
+    expect(formatValue(1.5e-7, '', { decimals: 2 })).toBe('1.50 × 10⁻⁷');
+    expect(formatValue(2.5e7)).toBe('2.50 × 10⁷');
+    expect(formatValue(0.04, '(mV/m)²/Hz')).toBe('0.0400 (mV/m)²/Hz');
+    expect(formatValue(0.04, 'V/m')).toBe('40.0 mV/m');
+  });
+
+  it('writes a dash for missing and non-finite values', () => {
+    for (const v of [undefined, null, Number.NaN, Number.POSITIVE_INFINITY]) expect(formatValue(v)).toBe('—');
   });
 });
 

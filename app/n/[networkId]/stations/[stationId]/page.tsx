@@ -5,7 +5,7 @@ import { getStationOrNull, listStations } from '@/src/data/stations';
 import { listStationDays } from '@/src/data/intervals';
 import { formatBytes, maxUploadBytes } from '@/src/data/limits';
 import { settings } from '@/src/settings';
-import { ButtonLink, Caution, Card, Panel, Tabs, buttonClass, formatNumber } from '@/src/web/ui';
+import { ButtonLink, Caution, Card, Panel, Tabs, buttonClass, formatValue } from '@/src/web/ui';
 import { StationMap } from '@/src/web/stations/StationMap';
 import { DayView } from '@/src/web/stations/DayView';
 import { UploadPanel } from '@/src/web/stations/UploadPanel';
@@ -25,14 +25,14 @@ export default async function StationPage({ params }: { params: Promise<{ networ
   const facts: [string, string][] = [
     [
       'Position',
-      `${formatNumber(station.latitude, 3)}°, ${formatNumber(station.longitude, 3)}°${station.elevationM != null ? `, ${formatNumber(station.elevationM, 0)} m` : ''}`,
+      `${formatValue(station.latitude, '', { decimals: 3 })}°, ${formatValue(station.longitude, '', { decimals: 3 })}°${station.elevationM != null ? `, ${formatValue(station.elevationM, 'm', { decimals: 0 })}` : ''}`,
     ],
     [
       'Components',
       station.components
         .map(
           (c) =>
-            `${c.component} (${c.calibration.kind === 'gain' ? `gain ${formatNumber(c.calibration.gain, 3)} per ${c.component === 'Ez' ? 'V/m' : 'T'}` : `response table, ${c.calibration.points.length} rows`})`,
+            `${c.component} (${c.calibration.kind === 'gain' ? `gain ${formatValue(c.calibration.gain, '', 4)} per ${c.component === 'Ez' ? 'V/m' : 'T'}` : `response table, ${c.calibration.points.length} rows`})`,
         )
         .join('; '),
     ],
