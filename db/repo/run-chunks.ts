@@ -57,7 +57,7 @@ export interface ClaimedChunk {
 
 /**
  * A worker takes a chunk: one not done whose holder is gone (none, or no heartbeat for
- * `leaseSeconds`), of a run that has not ended and is not asked to stop. The run becomes
+ * `leaseSeconds`), of a run that has not ended, is not paused and is not asked to stop. The run becomes
  * running. Null when the chunk is done, held alive elsewhere, or its run cannot go on.
  */
 export async function claimChunk(
@@ -70,7 +70,7 @@ export async function claimChunk(
     const [run] = await tx
       .select({ id: runs.id })
       .from(runs)
-      .where(and(eq(runs.id, runId), eq(runs.cancelRequested, false), notEnded))
+      .where(and(eq(runs.id, runId), eq(runs.cancelRequested, false), notEnded, sql`${runs.state} <> 'paused'`))
       .for('update');
     if (!run) return null;
     const [chunk] = await tx

@@ -198,17 +198,17 @@ function progressValue(runId: string, progress: RunProgress, holder: RunHolder |
 }
 
 /**
- * Writes progress and a heartbeat; returns whether someone asked to cancel and whether the
- * write was taken (`held`: the run has not ended and, with a holder, that holder holds it).
+ * Writes progress and a heartbeat; returns whether someone asked to cancel or paused the run
+ * (the chunk then stops after the interval in hand) and whether the write was taken (`held`: the run has not ended and, with a holder, that holder holds it).
  * A refused write counts as a cancel request: the caller has nothing more to do on this run.
  */
 export async function reportProgress(
   runId: string,
   progress: RunProgress,
   holder?: RunHolder,
-): Promise<{ cancelRequested: boolean; held: boolean }> {
-  const { cancelRequested, held } = await saveRunIntervals(runId, [], progress, holder);
-  return { cancelRequested, held };
+): Promise<{ cancelRequested: boolean; held: boolean; paused: boolean }> {
+  const { cancelRequested, held, paused } = await saveRunIntervals(runId, [], progress, holder);
+  return { cancelRequested, held, paused };
 }
 
 export interface RunIntervalEntry {
@@ -234,7 +234,7 @@ export async function saveRunIntervals(
   entries: RunIntervalEntry[],
   progress: RunProgress,
   holder?: RunHolder,
-): Promise<{ inserted: number; cancelRequested: boolean; held: boolean }> {
+): Promise<{ inserted: number; cancelRequested: boolean; held: boolean; paused: boolean }> {
   const values = sql.join(
     entries.map(
       (e) =>
@@ -257,17 +257,17 @@ export async function saveRunIntervals(
       where run_id = ${runId} and first_index = ${c.chunk} and worker_id = ${c.workerId} and exists (select 1 from held)
     )`
     : sql``;
-  const rows = await getDb().execute<{ inserted: number; cancel_requested: boolean }>(sql`
+  const rows = await getDb().execute<{ inserted: number; cancel_requested: boolean; paused: boolean }>(sql`
     with held as (
       select ${runs.id} as id from ${runs} where ${writable(runId, holder)} for update
     ), ins as (${insert})${touch}
     update ${runs} set progress = ${progressValue(runId, progress, holder, sql`(select count(*) from ins)`)}, heartbeat_at = now()
     where id in (select id from held)
-    returning (select count(*)::int from ins) as inserted, cancel_requested`);
+    returning (select count(*)::int from ins) as inserted, cancel_requested, state = 'paused' as paused`);
   const row = rows[0];
   return row
-    ? { inserted: row.inserted, cancelRequested: row.cancel_requested, held: true }
-    : { inserted: 0, cancelRequested: true, held: false };
+    ? { inserted: row.inserted, cancelRequested: row.cancel_requested, held: true, paused: row.paused }
+    : { inserted: 0, cancelRequested: true, held: false, paused: false };
 }
 
 /** One finished interval: saveRunIntervals with a single entry. */
@@ -407,6 +407,29 @@ export async function requestCancel(networkId: string, runId: string): Promise<R
   return row ?? null;
 }
 
+/** The run's progress with its phase replaced. */
+const withPhase = (phase: string) => sql`jsonb_set(${runs.progress}, '{phase}', to_jsonb(${phase}::text))`;
+
+/**
+ * Pauses a run that is in one of `from` and not asked to stop: no worker claims its chunks
+ * from then on, and each chunk at work hears it at its next write. Null when it is not in such a state.
+ */
+export async function pauseRunRow(
+  networkId: string,
+  runId: string,
+  from: readonly RunState[],
+  phase: string,
+): Promise<RunRow | null> {
+  const [row] = await getDb()
+    .update(runs)
+    .set({ state: 'paused', progress: withPhase(phase) })
+    .where(
+      and(eq(runs.id, runId), eq(runs.networkId, networkId), eq(runs.cancelRequested, false), inArray(runs.state, [...from])),
+    )
+    .returning();
+  return row ?? null;
+}
+
 /** Puts a run that is in one of `from` back in the queue, showing `phase`; its finished intervals are kept. */
 export async function requeueRun(
   networkId: string,
@@ -421,7 +444,7 @@ export async function requeueRun(
       cancelRequested: false,
       error: null,
       finishedAt: null,
-      progress: sql`jsonb_set(${runs.progress}, '{phase}', to_jsonb(${phase}::text))`,
+      progress: withPhase(phase),
     })
     .where(and(eq(runs.id, runId), eq(runs.networkId, networkId), inArray(runs.state, [...from])))
     .returning();
@@ -476,7 +499,7 @@ export async function sweepLapsedRuns(
         state: 'cancelled',
         finishedAt: new Date(),
         heartbeatAt: new Date(),
-        progress: sql`jsonb_set(${runs.progress}, '{phase}', to_jsonb(${cancelledPhase}::text))`,
+        progress: withPhase(cancelledPhase),
       })
       .where(and(eq(runs.cancelRequested, true), lapsed))
       .returning({ id: runs.id });

@@ -21,7 +21,7 @@ import {
 import { networks } from './networks';
 import { at, byUser, createdAt, parent, uuidId } from './columns';
 
-export const runState = pgEnum('run_state', ['queued', 'running', 'finished', 'failed', 'cancelled']);
+export const runState = pgEnum('run_state', ['queued', 'running', 'paused', 'finished', 'failed', 'cancelled']);
 export const surfaceState = pgEnum('surface_state', ['queued', 'running', 'ready', 'failed']);
 
 /**

@@ -27,7 +27,9 @@
  * workers work the others: it holds the chunk, not the run, and its writes go through only
  * while it does; the worker that finishes the run's last chunk ends the run ('finished'), the
  * others answer 'chunk-done'. A cancelled run's chunks all stop at their next interval; the
- * last one to stop ends the run ('cancelled'), the others answer 'stopped'.
+ * last one to stop ends the run ('cancelled'), the others answer 'stopped'. A paused run's
+ * chunks hear it the same way but complete the interval in hand, store it, let go of the chunk
+ * and answer 'stopped' (resuming queues the chunks not done; src/runs/control.ts).
  *
  * The solver is passed in (src/runs/solver.ts binds the engine's multi-start
  * inverter), so the driver knows no physics.
@@ -174,14 +176,16 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   const t0 = Date.now();
   let doneThisAttempt = 0;
   let cancelRequested = false; // heard from a write: no further interval begins
+  let paused = false; // heard from a write: no further interval begins, the one in hand completes
   let lost = false; // a write was refused: the run is not ours any more
   let cancelled = false;
   let writing: Promise<unknown> = Promise.resolve();
   const writeEvery = opts.afterInterval ? 0 : (opts.writeEveryMs ?? WRITE_EVERY_MS);
   let pending: { entry: RunIntervalEntry; index: number }[] = [];
   let lastWrite = Date.now();
-  const heard = (r: { cancelRequested: boolean; held: boolean }) => {
+  const heard = (r: { cancelRequested: boolean; held: boolean; paused: boolean }) => {
     if (r.cancelRequested) cancelRequested = true;
+    if (r.paused && chunk) paused = true; // only runs worked in chunks are paused
     if (!r.held) lost = true;
   };
   /**
@@ -221,7 +225,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
   };
   let next = load(0);
   for (let k = 0; k < todo.length; k++) {
-    if (cancelRequested || lost) {
+    if (cancelRequested || paused || lost) {
       cancelled = true;
       break;
     }
@@ -280,7 +284,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
     progress.phase = `interval ${label} UT finished`;
     const seconds = (outcome as { seconds?: number }).seconds ?? 0;
     pending.push({ entry: { startsAt: new Date(startsAt), nData: outcome.nData, result: outcome.result, seconds }, index: i });
-    if (cancelRequested) {
+    if (cancelRequested || paused) {
       cancelled = k < todo.length - 1;
       break;
     }
@@ -290,7 +294,7 @@ export async function executeRun(runId: string, opts: ExecuteOptions): Promise<E
       await flush();
       await writing;
       if (lost) return 'lost';
-      if (cancelRequested) {
+      if (cancelRequested || paused) {
         cancelled = true;
         break;
       }

@@ -4,7 +4,8 @@
  * interval exactly once and ending the run exactly once with the same minima as one worker
  * solving the run whole, a chunk that two workers reach at the same moment (one holds it), a
  * chunk taken over after its holder's lease lapsed (the old holder's writes refused), a
- * cancel that reaches every chunk, and a re-run that queues only what is left.
+ * cancel that reaches every chunk, a re-run that queues only what is left, and a pause that
+ * reaches every chunk, then a resume that finishes with the results of an uninterrupted run.
  */
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDatabase, resetDatabase } from '@/test/helpers/db';
@@ -14,7 +15,7 @@ import { claimChunk, listRunChunks, liveWorkers } from '@/db/repo/run-chunks';
 import { launchRun } from '@/src/runs/launch';
 import { executeRun, type ExecuteOutcome } from '@/src/runs/execute';
 import { engineSolver } from '@/src/runs/solver';
-import { cancelRun, rerunRun } from '@/src/runs/control';
+import { cancelRun, rerunRun, setRunPaused } from '@/src/runs/control';
 import { getRunView } from '@/src/runs/results';
 import { RUN_QUEUE } from '@/src/runs/queues';
 import type { IntervalSolver } from '@/src/runs/types';
@@ -43,6 +44,38 @@ async function worker(runId: string, workerId: string, firsts: number[], solve: 
     outcomes.push(await executeRun(runId, { solve, workerId, chunk: first, writeEveryMs: 0 }));
   return outcomes;
 }
+
+/**
+ * A solver that holds two workers at known points: each worker's first interval waits until
+ * both workers are at work, every later one until `release()` (called once a cancel or pause
+ * has been asked for); then the engine solves it. `solvedAfter()` counts the solves begun after the release.
+ */
+function gatedSolver() {
+  let started = 0;
+  let released = false;
+  let solvedAfter = 0;
+  let bothAtWork = () => {};
+  const twoAtWork = new Promise<void>((r) => (bothAtWork = r));
+  let open = () => {};
+  const opened = new Promise<void>((r) => (open = r));
+  const solve: IntervalSolver = async (ctx, c, h) => {
+    started++;
+    if (started === 2) bothAtWork();
+    await (started <= 2 ? twoAtWork : opened);
+    if (released) solvedAfter++;
+    return engineSolver(ctx, c, h);
+  };
+  const release = () => {
+    released = true;
+    open();
+  };
+  return { solve, twoAtWork, release, solvedAfter: () => solvedAfter };
+}
+
+/** Two workers sharing the chunks that begin at `firsts`. */
+const twoWorkers = (runId: string, solve: IntervalSolver, firsts: number[]) => {
+  return Promise.all([worker(runId, 'worker-a', firsts, solve), worker(runId, 'worker-b', firsts, solve)]);
+};
 
 const bestOf = (rows: Awaited<ReturnType<typeof listRunIntervals>>) =>
   rows.map((r) => ({ t: r.startsAt.toISOString(), minima: (r.result as { minima: unknown[] }).minima }));
@@ -125,7 +158,7 @@ describe('runs worked in chunks', () => {
       (await getRunById(run.id))!.progress,
       { workerId: 'vanished', chunk: 0 },
     );
-    expect(late).toEqual({ inserted: 0, cancelRequested: true, held: false });
+    expect(late).toEqual({ inserted: 0, cancelRequested: true, held: false, paused: false });
     const chunk = (await listRunChunks(run.id))[0];
     expect(chunk.workerId).toBe('successor');
     expect(chunk.attempts).toBe(2);
@@ -134,29 +167,12 @@ describe('runs worked in chunks', () => {
   it('a cancel reaches every chunk at work; the last to stop ends the run, and a re-run queues only what is left', async () => {
     const w = await makeRunWorld(9);
     const { run } = await launchDrained(w);
-    let solvedAfterCancel = 0;
-    let cancelled = false;
-    let started = 0;
-    let bothAtWork = () => {};
-    const twoAtWork = new Promise<void>((r) => (bothAtWork = r));
-    let cancelAsked = () => {};
-    const asked = new Promise<void>((r) => (cancelAsked = r));
-    // Each worker's first interval waits until both workers are at work, every later one until
-    // the cancel has been asked for; then the engine solves it.
-    const solve: IntervalSolver = async (ctx, c, h) => {
-      started++;
-      if (started === 2) bothAtWork();
-      await (started <= 2 ? twoAtWork : asked);
-      if (cancelled) solvedAfterCancel++;
-      return engineSolver(ctx, c, h);
-    };
-    const firsts = [0, 3, 6];
-    const working = Promise.all([worker(run.id, 'worker-a', firsts, solve), worker(run.id, 'worker-b', firsts, solve)]);
-    await twoAtWork;
+    const gate = gatedSolver();
+    const working = twoWorkers(run.id, gate.solve, [0, 3, 6]);
+    await gate.twoAtWork;
     expect((await getRunView(w.networkId, run.id)).run.workers).toBe(2); // what the run page shows
     await cancelRun(w.networkId, run.id, null);
-    cancelled = true;
-    cancelAsked();
+    gate.release();
     const outcomes = (await working).flat();
     // Each worker stops its chunk at its next check (it may complete the interval in hand), and
     // the chunk left waiting is not taken up.
@@ -164,7 +180,7 @@ describe('runs worked in chunks', () => {
     expect(outcomes.filter((o) => o === 'cancelled' || o === 'stopped' || o === 'chunk-done')).toHaveLength(2);
     expect(outcomes.filter((o) => o === 'not-runnable')).toHaveLength(1);
     // At most the interval in hand and one begun before the write that brought the cancel back, per worker.
-    expect(solvedAfterCancel).toBeLessThanOrEqual(4);
+    expect(gate.solvedAfter()).toBeLessThanOrEqual(4);
     const end = (await getRunById(run.id))!;
     expect(end.state).toBe('cancelled');
     const kept = await listRunIntervals(run.id);
@@ -194,5 +210,52 @@ describe('runs worked in chunks', () => {
     expect(row.state).toBe('cancelled');
     expect(row.progress.intervalsDone).toBe(3);
     expect(await executeRun(run.id, { solve: engineSolver, workerId: 'late', chunk: 3 })).toBe('not-runnable');
+  });
+  it('a pause reaches every chunk at work and no worker takes its chunks up; resuming ends with the results of an uninterrupted run', async () => {
+    // Chunks of six: a worker hears the pause at the latest from the write of the interval
+    // after the one in hand (the driver awaits a write before the next one), so no chunk ends.
+    setEnv('CAVITAS_RUN_CHUNK', '6');
+    const w = await makeRunWorld(15);
+    const { run } = await launchDrained(w).finally(() => setEnv('CAVITAS_RUN_CHUNK', '3'));
+    const gate = gatedSolver();
+    const working = twoWorkers(run.id, gate.solve, [0, 6, 12]);
+    await gate.twoAtWork;
+    expect((await setRunPaused(w.networkId, run.id, true, null)).state).toBe('paused');
+    gate.release();
+    // Each worker completes the interval in hand, stores it and lets go of its chunk; the chunk
+    // left waiting is not taken up while the run is paused.
+    const outcomes = (await working).flat();
+    expect([...outcomes].sort()).toEqual(['not-runnable', 'stopped', 'stopped']);
+    const paused = (await getRunById(run.id))!;
+    expect(paused.state).toBe('paused');
+    expect(await liveWorkers(run.id, 60)).toBe(0);
+    expect(await executeRun(run.id, { solve: engineSolver, workerId: 'eager', chunk: 12 })).toBe('not-runnable');
+    const kept = await listRunIntervals(run.id);
+    expect(kept.length).toBeGreaterThanOrEqual(2); // at least the interval in hand of each worker
+    expect(kept.length).toBeLessThanOrEqual(6);
+    // At most the interval in hand and one begun before the write that brought the pause back, per worker.
+    expect(gate.solvedAfter()).toBeLessThanOrEqual(4);
+
+    const boss = await getBoss();
+    await boss.purgeQueue(RUN_QUEUE);
+    expect((await setRunPaused(w.networkId, run.id, false, null)).state).toBe('queued');
+    const left = (await listRunChunks(run.id)).filter((c) => c.doneAt === null).map((c) => c.first);
+    const jobs = await boss.fetch<{ runId: string; first?: number }>(RUN_QUEUE, { batchSize: 100 });
+    expect(jobs.map((j) => j.data.first).sort((x, y) => x! - y!)).toEqual(left);
+    expect(left).toEqual([0, 6, 12]);
+    const expected = run.intervalStarts.map((t) => new Date(t).toISOString());
+    const resumed = await Promise.all([worker(run.id, 'worker-c', left), worker(run.id, 'worker-d', left)]);
+    expect(resumed.flat().filter((o) => o === 'finished')).toHaveLength(1);
+    const end = (await getRunById(run.id))!;
+    expect(end.state).toBe('finished');
+    expect(end.progress.intervalsDone).toBe(15);
+    const rows = await listRunIntervals(run.id);
+    expect(rows.map((r) => r.startsAt.toISOString())).toEqual(expected);
+
+    // The same run worked without a pause stores the same minima for every interval.
+    setEnv('CAVITAS_RUN_CHUNK', '6');
+    const straight = await launchDrained(w).finally(() => setEnv('CAVITAS_RUN_CHUNK', '3'));
+    expect((await worker(straight.run.id, 'straight', [0, 6, 12])).at(-1)).toBe('finished');
+    expect(bestOf(rows)).toEqual(bestOf(await listRunIntervals(straight.run.id)));
   });
 });

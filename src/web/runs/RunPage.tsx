@@ -36,7 +36,7 @@ import { intervalSeriesGoodness, type GoodnessSource } from '@/src/runs/goodness
 import type { FirstFigures } from './figures/prerender';
 import { openingInterval, regionColours, solvedIntervals } from '@/src/runs/view-select';
 import type { RunFits } from '@/src/runs/fits';
-import { hasEnded, mayCancel, mayDelete, mayRerun } from '@/src/runs/lifecycle';
+import { hasEnded, mayCancel, mayDelete, mayPause, mayRerun, mayResume } from '@/src/runs/lifecycle';
 
 /** What the server drew and computed for the first view. */
 export interface FirstView {
@@ -53,6 +53,7 @@ const ModeFitsPanel = dynamic(() => import('./ModeFitsPanel').then((m) => m.Mode
 const STATE_WORDS: Record<string, string> = {
   queued: 'Waiting for a worker',
   running: 'Computing',
+  paused: 'Paused',
   finished: 'Finished',
   failed: 'Stopped by an error',
   cancelled: 'Cancelled',
@@ -140,10 +141,10 @@ function RunPageBody({
     ? (p.intervalsDone + (run.state === 'running' && p.startsTotal ? p.startsDone / p.startsTotal : 0)) / p.intervalsTotal
     : null;
 
-  async function act(path: string, method: 'POST' | 'DELETE' = 'POST') {
+  async function act(path: string, method: 'POST' | 'DELETE' = 'POST', body?: unknown) {
     setActionError(null);
     try {
-      await apiSend(method, path);
+      await apiSend(method, path, body);
       if (method === 'DELETE') router.push(`/n/${networkId}/runs`);
       else {
         setLive(true);
@@ -160,6 +161,15 @@ function RunPageBody({
         heading="How it went"
         actions={
           <>
+            {(mayPause(run.state) || mayResume(run.state)) && !run.cancelRequested && canCancel ? (
+              <Button
+                type="button"
+                tone="secondary"
+                onClick={() => act(`${base}/pause`, 'POST', { paused: !mayResume(run.state) })}
+              >
+                {mayResume(run.state) ? 'Resume' : 'Pause'}
+              </Button>
+            ) : null}
             {mayCancel(run.state) && canCancel ? (
               <Button type="button" tone="secondary" onClick={() => act(`${base}/cancel`)} disabled={run.cancelRequested}>
                 {run.cancelRequested ? 'Stopping…' : 'Cancel run'}

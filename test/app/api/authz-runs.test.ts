@@ -17,6 +17,7 @@ import { saveIntervals } from '@/db/repo/intervals';
 import { hutInput, stationSpectra, syntheticRows } from '@/src/runs/synthetic-network';
 import { saveGrid, saveModel } from '@/src/runs/catalogue';
 import { executeRun } from '@/src/runs/execute';
+import { splitRun } from '@/src/runs/chunks';
 import { makeEngineSolver } from '@/src/runs/solver';
 import type { RunConfig } from '@/src/runs/config';
 import * as modelsRoute from '@/app/api/networks/[networkId]/models/route';
@@ -28,6 +29,7 @@ import * as checkRoute from '@/app/api/networks/[networkId]/runs/check/route';
 import * as runRoute from '@/app/api/networks/[networkId]/runs/[runId]/route';
 import * as cancelRoute from '@/app/api/networks/[networkId]/runs/[runId]/cancel/route';
 import * as rerunRoute from '@/app/api/networks/[networkId]/runs/[runId]/rerun/route';
+import * as pauseRoute from '@/app/api/networks/[networkId]/runs/[runId]/pause/route';
 import * as exportRoute from '@/app/api/networks/[networkId]/runs/[runId]/export/route';
 import * as fitsRoute from '@/app/api/networks/[networkId]/runs/[runId]/fits/route';
 import * as surfacesRoute from '@/app/api/networks/[networkId]/runs/[runId]/surfaces/route';
@@ -101,6 +103,13 @@ async function endedRun(state: 'finished' | 'cancelled') {
   return r.id;
 }
 
+/** A fresh run cut into chunks (only such a run can be paused). */
+async function chunkedRun() {
+  const r = await freshRun();
+  await splitRun(r.id, r.intervalStarts.length);
+  return r.id;
+}
+
 const P = () => ({ networkId: w.networkId });
 const R = (id = runId) => ({ networkId: w.networkId, runId: id });
 
@@ -154,6 +163,12 @@ const rows: Row[] = [
     name: 'POST cancel',
     expect: EDIT(200),
     run: async (c) => call(cancelRoute.POST, w.callers[c], { method: 'POST', params: R((await freshRun()).id) }),
+  },
+  {
+    name: 'POST pause',
+    expect: EDIT(202),
+    run: async (c) =>
+      call(pauseRoute.POST, w.callers[c], { method: 'POST', params: R(await chunkedRun()), body: { paused: true } }),
   },
   {
     name: 'POST rerun',
@@ -262,6 +277,15 @@ describe('runs API refuses bad input with the error shape', () => {
   it('a run id that is not a run, or a run of another network, is a 404', async () => {
     expect((await call(runRoute.GET, w.callers.owner, { params: R('not-a-run') })).status).toBe(404);
     expect((await call(runRoute.GET, w.callers.otherOwner, { params: { networkId: w.otherNetworkId, runId } })).status).toBe(404);
+  });
+
+  it('pausing a finished run is a conflict that says why; a pause without `paused` is a 400 naming it', async () => {
+    const res = await call(pauseRoute.POST, w.callers.analyst, { method: 'POST', params: R(), body: { paused: true } });
+    expect(res.status).toBe(409);
+    expect((await errorOf(res)).message).toBe('Only a queued or running run can be paused; this one is finished.');
+    const bad = await call(pauseRoute.POST, w.callers.analyst, { method: 'POST', params: R(await chunkedRun()), body: {} });
+    expect(bad.status).toBe(400);
+    expect((await errorOf(bad)).field).toBe('paused');
   });
 
   it('cancelling a finished run is a conflict that changes nothing', async () => {
