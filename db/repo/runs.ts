@@ -410,46 +410,33 @@ export async function requestCancel(networkId: string, runId: string): Promise<R
 /** The run's progress with its phase replaced. */
 const withPhase = (phase: string) => sql`jsonb_set(${runs.progress}, '{phase}', to_jsonb(${phase}::text))`;
 
-/**
- * Pauses a run that is in one of `from` and not asked to stop: no worker claims its chunks
- * from then on, and each chunk at work hears it at its next write. Null when it is not in such a state.
- */
-export async function pauseRunRow(
+/** Moves a run of this network that is in one of `from` (and meets `also`) with `set`, showing `phase`; null when it is not. */
+async function moveRun(
   networkId: string,
   runId: string,
   from: readonly RunState[],
   phase: string,
+  set: Partial<typeof runs.$inferInsert>,
+  also?: SQL,
 ): Promise<RunRow | null> {
   const [row] = await getDb()
     .update(runs)
-    .set({ state: 'paused', progress: withPhase(phase) })
-    .where(
-      and(eq(runs.id, runId), eq(runs.networkId, networkId), eq(runs.cancelRequested, false), inArray(runs.state, [...from])),
-    )
+    .set({ ...set, progress: withPhase(phase) })
+    .where(and(eq(runs.id, runId), eq(runs.networkId, networkId), inArray(runs.state, [...from]), also))
     .returning();
   return row ?? null;
 }
 
+/**
+ * Pauses a run that is in one of `from` and not asked to stop: no worker claims its chunks
+ * from then on, and each chunk at work hears it at its next write. Null when it is not in such a state.
+ */
+export const pauseRunRow = (networkId: string, runId: string, from: readonly RunState[], phase: string) =>
+  moveRun(networkId, runId, from, phase, { state: 'paused' }, eq(runs.cancelRequested, false));
+
 /** Puts a run that is in one of `from` back in the queue, showing `phase`; its finished intervals are kept. */
-export async function requeueRun(
-  networkId: string,
-  runId: string,
-  from: readonly RunState[],
-  phase: string,
-): Promise<RunRow | null> {
-  const [row] = await getDb()
-    .update(runs)
-    .set({
-      state: 'queued',
-      cancelRequested: false,
-      error: null,
-      finishedAt: null,
-      progress: withPhase(phase),
-    })
-    .where(and(eq(runs.id, runId), eq(runs.networkId, networkId), inArray(runs.state, [...from])))
-    .returning();
-  return row ?? null;
-}
+export const requeueRun = (networkId: string, runId: string, from: readonly RunState[], phase: string) =>
+  moveRun(networkId, runId, from, phase, { state: 'queued', cancelRequested: false, error: null, finishedAt: null });
 
 export async function deleteRun(networkId: string, runId: string): Promise<boolean> {
   const rows = await getDb()

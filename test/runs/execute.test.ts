@@ -371,10 +371,12 @@ describe('run driver', () => {
         inserted: 0,
         cancelRequested: true,
         held: false,
+        paused: false,
       });
       expect(await reportProgress(run.id, { ...ended!.progress, phase: 'late' }, worker)).toEqual({
         cancelRequested: true,
         held: false,
+        paused: false,
       });
     }
     expect(await listRunIntervals(run.id)).toHaveLength(rows.length);
