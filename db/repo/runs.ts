@@ -459,8 +459,9 @@ export async function staleRunningRuns(olderThanS: number): Promise<RunRow[]> {
  * workers sweeping at once cannot both act on a run) it finds runs whose lease has lapsed —
  * 'running' with no heartbeat for `leaseSeconds`, or 'queued' for that long since launch or
  * hand-back — that have no pending (created or retry) job on `queue` in pg-boss's table, and
- * calls `send(runId)` for each while the lock is held. A lapsed running run whose cancel was
- * asked for is ended as cancelled instead (no worker will come back to stop it).
+ * calls `send(runId)` for each while the lock is held. A lapsed running (or paused) run whose
+ * cancel was asked for is ended as cancelled instead (no worker will come back to stop it); a
+ * paused run is otherwise left alone (resuming queues it).
  *
  * A run worked in chunks is continued chunk by chunk: each chunk not done of a run that goes on,
  * whose holder's heartbeat has lapsed (or that has no holder and has waited a lease) and that
@@ -478,7 +479,7 @@ export async function sweepLapsedRuns(
     await tx.execute(sql`select pg_advisory_xact_lock(hashtext('cavitas-run-sweep'))`);
     const before = sql`now() - make_interval(secs => ${leaseSeconds})`;
     const lapsed = sql`(
-      (${runs.state} = 'running' and (${runs.heartbeatAt} is null or ${runs.heartbeatAt} < ${before}))
+      (${runs.state} in ('running', 'paused') and (${runs.heartbeatAt} is null or ${runs.heartbeatAt} < ${before}))
       or (${runs.state} = 'queued' and coalesce(${runs.heartbeatAt}, ${runs.createdAt}) < ${before}))`;
     const ended = await tx
       .update(runs)

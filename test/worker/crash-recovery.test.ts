@@ -22,6 +22,7 @@ import { setEnv } from '@/src/settings';
 import { sweepRuns } from '@/src/worker/sweep';
 import { RUN_QUEUE } from '@/src/runs/queues';
 import { launchRun } from '@/src/runs/launch';
+import { cancelRun, setRunPaused } from '@/src/runs/control';
 import { makeRunWorld } from '@/test/runs/world';
 import { runEnded, until } from '@/test/helpers/until';
 
@@ -89,6 +90,25 @@ describe('crash recovery with real worker processes', () => {
     expect(again.chunks).toEqual([]); // its job is still pending
     expect(await boss.getQueueSize(RUN_QUEUE)).toBe(before + 1);
     expect(await deleteRun(w.networkId, run.id)).toBe(true); // the pending job will find no run
+  });
+
+  it('a paused run is left alone by the sweep; paused and asked to stop with its worker gone, it is ended as cancelled', async () => {
+    const w = await makeRunWorld(1);
+    const boss = await getBoss();
+    await boss.purgeQueue(RUN_QUEUE);
+    const run = await launchRun(w.networkId, w.userId, w.config);
+    await boss.purgeQueue(RUN_QUEUE);
+    expect(await claimChunk(run.id, 0, 'vanished-worker', 1)).not.toBeNull();
+    await setRunPaused(w.networkId, run.id, true, null);
+    await new Promise((r) => setTimeout(r, 1_200));
+    expect(await sweepRuns(1)).toEqual({ continued: [], cancelled: [], chunks: [] });
+    expect((await getRunById(run.id))!.state).toBe('paused');
+    // The cancel finds the chunk held (within the default lease), so it waits for that worker, which is gone.
+    expect((await cancelRun(w.networkId, run.id, null)).state).toBe('paused');
+    expect((await sweepRuns(1)).cancelled).toEqual([run.id]);
+    expect((await getRunById(run.id))!.state).toBe('cancelled');
+    expect(await boss.getQueueSize(RUN_QUEUE)).toBe(0);
+    expect(await deleteRun(w.networkId, run.id)).toBe(true);
   });
 
   it('two worker processes share a run; one is killed and its chunk is taken over; every interval is stored once', async () => {
